@@ -1,0 +1,6 @@
+package org.viscarta.cli;
+
+public final class Viscarta {
+    public static void main(String[] args) {
+    }
+}

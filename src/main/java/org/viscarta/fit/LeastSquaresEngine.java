@@ -1,0 +1,183 @@
+package org.viscarta.fit;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SplittableRandom;
+import org.apache.commons.math3.exception.ConvergenceException;
+import org.apache.commons.math3.exception.MathIllegalStateException;
+import org.apache.commons.math3.exception.TooManyEvaluationsException;
+import org.apache.commons.math3.exception.TooManyIterationsException;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresProblem;
+import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.RealVector;
+import org.apache.commons.math3.linear.SingularMatrixException;
+import org.apache.commons.math3.util.Pair;
+
+/**
+ * The one adapter to Commons Math's Levenberg–Marquardt optimiser (Levenberg 1944; Marquardt
+ * 1963; Moré's MINPACK formulation as implemented in Commons Math 3.6.1). Everything else in
+ * Viscarta talks to this class, so that moving to a maintained fork touches one place.
+ *
+ * <p>Commons Math's {@code getCost()} is the residual norm, not the RSS, and
+ * {@code getCovariances()} is the unscaled (JᵀJ)⁻¹; both are handled here (see {@link Solution}).
+ */
+public final class LeastSquaresEngine {
+
+    /** Limits and tolerances of a solve. */
+    public record Settings(int maxEvaluations, int maxIterations, double relativeTolerance,
+                           double singularityThreshold) {
+
+        public Settings {
+            if (maxEvaluations < 1 || maxIterations < 1) {
+                throw new IllegalArgumentException("evaluation and iteration limits must be positive");
+            }
+            if (!(relativeTolerance > 0)) {
+                throw new IllegalArgumentException("relative tolerance must be > 0, got " + relativeTolerance);
+            }
+        }
+
+        /** Defaults tight enough to reproduce the NIST StRD certified values to 1e-6 relative. */
+        public static Settings defaults() {
+            return new Settings(5000, 2000, 1.0e-14, 1.0e-14);
+        }
+
+        public Settings withMaxEvaluations(int n) {
+            return new Settings(n, maxIterations, relativeTolerance, singularityThreshold);
+        }
+    }
+
+    private final Settings settings;
+
+    public LeastSquaresEngine(Settings settings) {
+        this.settings = settings;
+    }
+
+    /**
+     * Solves min Σ r_i(θ)² from one start.
+     *
+     * @param n     number of residuals
+     * @param f     residuals and Jacobian
+     * @param start start values (length p)
+     */
+    public Solution solve(int n, ResidualFunction f, double[] start) {
+        int p = start.length;
+        MultivariateJacobianFunction model = point -> {
+            double[] theta = point.toArray();
+            double[] r = new double[n];
+            double[][] jac = new double[n][p];
+            f.evaluate(theta, r, jac);
+            return new Pair<RealVector, RealMatrix>(new ArrayRealVector(r, false), new Array2DRowRealMatrix(jac, false));
+        };
+        LeastSquaresProblem problem = new LeastSquaresBuilder()
+                .start(start.clone())
+                .model(model)
+                .target(new double[n])
+                .maxEvaluations(settings.maxEvaluations())
+                .maxIterations(settings.maxIterations())
+                .lazyEvaluation(false)
+                .build();
+        LevenbergMarquardtOptimizer lm = new LevenbergMarquardtOptimizer()
+                .withCostRelativeTolerance(settings.relativeTolerance())
+                .withParameterRelativeTolerance(settings.relativeTolerance())
+                .withOrthoTolerance(settings.relativeTolerance());
+        LeastSquaresOptimizer.Optimum opt;
+        try {
+            opt = lm.optimize(problem);
+        } catch (TooManyEvaluationsException | TooManyIterationsException e) {
+            return failed(n, f, start, "did not converge within " + settings.maxEvaluations() + " evaluations");
+        } catch (ConvergenceException e) {
+            // Raised when the tolerances ask for more than double precision can give: the iterate is
+            // then already at the minimum to machine precision. Polish from the start with looser tolerances.
+            return new LeastSquaresEngine(new Settings(settings.maxEvaluations(), settings.maxIterations(),
+                    1.0e-10, settings.singularityThreshold())).solve(n, f, start);
+        } catch (MathIllegalStateException | IllegalArgumentException e) {
+            return failed(n, f, start, "the optimiser stopped: " + e.getMessage());
+        }
+        double[] params = opt.getPoint().toArray();
+        double cost = opt.getCost();
+        if (!Double.isFinite(cost) || !allFinite(params)) {
+            return failed(n, f, start, "the fit left the range of finite numbers");
+        }
+        double[][] inv;
+        try {
+            inv = opt.getCovariances(settings.singularityThreshold()).getData();
+        } catch (SingularMatrixException e) {
+            inv = null;
+        }
+        return new Solution(params, cost * cost, inv, n, opt.getEvaluations(), true, "");
+    }
+
+    /**
+     * Solves from several starts and keeps the lowest residual sum of squares among those that
+     * converged; when none converged, returns the first failure.
+     */
+    public Solution solveMultiStart(int n, ResidualFunction f, List<double[]> starts) {
+        Solution best = null;
+        Solution firstFailure = null;
+        for (double[] s : starts) {
+            Solution sol = solve(n, f, s);
+            if (sol.converged()) {
+                if (best == null || sol.rss() < best.rss()) {
+                    best = sol;
+                }
+            } else if (firstFailure == null) {
+                firstFailure = sol;
+            }
+        }
+        return best != null ? best : firstFailure;
+    }
+
+    /**
+     * Multi-start from one user start: the start itself, the whole vector scaled by decades
+     * (10⁻³ … 10¹), and {@code random} seeded log-uniform perturbations of each component within a
+     * decade either side. Deterministic for a given seed.
+     */
+    public Solution solveFromScaledStarts(int n, ResidualFunction f, double[] start, int random, long seed) {
+        List<double[]> starts = new ArrayList<>();
+        starts.add(start.clone());
+        for (int k = -3; k <= 1; k++) {
+            if (k == 0) {
+                continue;
+            }
+            double[] s = start.clone();
+            for (int j = 0; j < s.length; j++) {
+                s[j] *= Math.pow(10, k);
+            }
+            starts.add(s);
+        }
+        SplittableRandom rng = new SplittableRandom(seed);
+        for (int i = 0; i < random; i++) {
+            double[] s = start.clone();
+            for (int j = 0; j < s.length; j++) {
+                s[j] *= Math.pow(10, rng.nextDouble(-1, 1));
+            }
+            starts.add(s);
+        }
+        return solveMultiStart(n, f, starts);
+    }
+
+    private static Solution failed(int n, ResidualFunction f, double[] at, String why) {
+        double[] r = new double[n];
+        f.evaluate(at, r, new double[n][at.length]);
+        double rss = 0;
+        for (double v : r) {
+            rss += v * v;
+        }
+        return new Solution(at, rss, null, n, 0, false, why);
+    }
+
+    private static boolean allFinite(double[] v) {
+        for (double x : v) {
+            if (!Double.isFinite(x)) {
+                return false;
+            }
+        }
+        return true;
+    }
+}

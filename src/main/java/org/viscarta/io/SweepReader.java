@@ -1,0 +1,463 @@
+package org.viscarta.io;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.Charset;
+import java.nio.charset.CodingErrorAction;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.HexFormat;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
+import org.viscarta.sweep.ModulusKind;
+import org.viscarta.sweep.Quantity;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+import org.viscarta.sweep.Unit;
+
+/**
+ * Reads a sweep table (PRODUCT.md "Sweep table"): optional {@code # key: value} metadata lines,
+ * one header row naming quantities and units, then data. One sample per file, or a tidy table
+ * with {@code sample}, {@code replicate}, {@code group} and {@code temperature} columns.
+ * Values are converted to SI on reading. Any problem is an {@link InputException} naming the
+ * file, line and column.
+ */
+public final class SweepReader {
+
+    private static final Pattern NUMBER = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
+    private static final Pattern DECIMAL_COMMA_CELL = Pattern.compile("[+-]?\\d+,\\d+([eE][+-]?\\d+)?");
+    private static final Pattern META_VALUE_WITH_UNIT = Pattern.compile("^\\s*([+-]?[0-9.]+(?:[eE][+-]?\\d+)?)\\s*(.*)$");
+
+    private final ModulusKind declaredKind;
+
+    /**
+     * @param declaredKind what the moduli are when neither headers nor metadata say; null means
+     *                     "assume tensile and say so"
+     */
+    public SweepReader(ModulusKind declaredKind) {
+        this.declaredKind = declaredKind;
+    }
+
+    /** Reads one file. */
+    public SweepFile read(Path path) {
+        byte[] bytes;
+        try {
+            bytes = Files.readAllBytes(path);
+        } catch (IOException e) {
+            throw new InputException(path, 0, 0, "cannot read the file (" + e.getMessage() + ")");
+        }
+        String name = path.getFileName().toString().toLowerCase(Locale.ROOT);
+        if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
+            throw new InputException(path, 0, 0,
+                    "spreadsheet input is not read by this version; save the sheet as CSV (UTF-8) and pass that file");
+        }
+        String[] encodingUsed = new String[1];
+        String text = decode(bytes, encodingUsed);
+        if (text.isBlank()) {
+            throw new InputException(path, 1, 0, "the file is empty; a sweep table needs a header row and data rows");
+        }
+        return parse(path, text, encodingUsed[0], sha256(bytes));
+    }
+
+    private SweepFile parse(Path path, String text, String encoding, String sha) {
+        String[] lines = text.split("\r?\n|\r", -1);
+        Map<String, String> metadata = new LinkedHashMap<>();
+        Map<String, Integer> metadataLines = new LinkedHashMap<>();
+        List<ReadWarning> warnings = new ArrayList<>();
+        int headerIdx = -1;
+        for (int i = 0; i < lines.length; i++) {
+            String l = lines[i].strip();
+            if (l.isEmpty()) {
+                continue;
+            }
+            if (l.startsWith("#")) {
+                for (String key : parseMetadataLine(l.substring(1), metadata)) {
+                    metadataLines.put(key, i + 1);
+                }
+                continue;
+            }
+            headerIdx = i;
+            break;
+        }
+        if (headerIdx < 0) {
+            throw new InputException(path, lines.length, 0,
+                    "no header row found; after the '# key: value' lines, write a header such as 'frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]'");
+        }
+        char sep = detectSeparator(lines[headerIdx]);
+        CSVFormat format = CSVFormat.DEFAULT.builder().setDelimiter(sep)
+                .setIgnoreSurroundingSpaces(true).setTrim(true).get();
+        List<Row> records = new ArrayList<>();
+        for (int i = headerIdx; i < lines.length; i++) {
+            String l = lines[i];
+            if (l.isBlank() || l.stripLeading().startsWith("#")) {
+                continue;
+            }
+            try (CSVParser parser = CSVParser.parse(l, format)) {
+                List<CSVRecord> recs = parser.getRecords();
+                if (recs.size() != 1) {
+                    throw new InputException(path, i + 1, 0, "the line cannot be read as one table row; check its quotes");
+                }
+                records.add(new Row(i + 1, recs.get(0).toList()));
+            } catch (IOException | UncheckedIOException e) {
+                throw new InputException(path, i + 1, 0, "the line cannot be read as a table row (" + e.getMessage()
+                        + "); check its quotes");
+            }
+        }
+        Row headerRecord = records.get(0);
+        int headerLine = headerRecord.line();
+        List<ColumnSpec> columns = new ArrayList<>();
+        EnumMap<Quantity, ColumnSpec> byQuantity = new EnumMap<>(Quantity.class);
+        for (int c = 0; c < headerRecord.size(); c++) {
+            String h = headerRecord.get(c);
+            if (h.isEmpty()) {
+                throw new InputException(path, headerLine, c + 1, "empty column header; give every column a name and unit, e.g. 'loss_modulus [Pa]'");
+            }
+            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, h);
+            if (r.column() == null) {
+                throw new InputException(path, headerLine, c + 1, r.problem());
+            }
+            ColumnSpec prev = byQuantity.put(r.column().quantity(), r.column());
+            if (prev != null) {
+                throw new InputException(path, headerLine, c + 1, "columns " + (prev.index() + 1) + " and " + (c + 1)
+                        + " both hold " + r.column().quantity().canonical() + "; keep one of them");
+            }
+            columns.add(r.column());
+        }
+        checkRequiredColumns(path, headerLine, byQuantity);
+        ModulusKind kind = resolveKind(path, headerLine, byQuantity, metadata, metadataLines, warnings);
+        char decimalMark = detectDecimalMark(sep, records);
+
+        String defaultSample = metadata.getOrDefault("sample", stem(path));
+        String defaultReplicate = metadata.getOrDefault("replicate", "1");
+        String defaultGroup = metadata.getOrDefault("group", "");
+        double defaultTemperature = metadataTemperature(path, metadata, metadataLines.getOrDefault("temperature", 0));
+
+        Map<List<String>, SweepBuilder> builders = new LinkedHashMap<>();
+        for (int r = 1; r < records.size(); r++) {
+            Row rec = records.get(r);
+            int line = rec.line();
+            if (rec.size() == 1 && rec.get(0).isEmpty()) {
+                continue;
+            }
+            if (rec.size() != columns.size()) {
+                throw new InputException(path, line, Math.min(rec.size(), columns.size()) + 1,
+                        "row has " + rec.size() + " fields but the header has " + columns.size()
+                                + "; fill or remove the missing or extra cells");
+            }
+            String sample = label(rec, byQuantity.get(Quantity.SAMPLE), defaultSample, path, line);
+            String replicate = label(rec, byQuantity.get(Quantity.REPLICATE), defaultReplicate, path, line);
+            String group = label(rec, byQuantity.get(Quantity.GROUP), defaultGroup, path, line);
+            double temperature = byQuantity.containsKey(Quantity.TEMPERATURE)
+                    ? number(rec, byQuantity.get(Quantity.TEMPERATURE), decimalMark, path, line) : defaultTemperature;
+            SweepPoint point = point(rec, byQuantity, decimalMark, path, line);
+            List<String> key = List.of(sample, replicate, Double.toString(temperature));
+            SweepBuilder b = builders.computeIfAbsent(key, k -> new SweepBuilder(sample, replicate, group, temperature));
+            if (!b.group.equals(group)) {
+                throw new InputException(path, line, byQuantity.get(Quantity.GROUP).index() + 1, "sample '" + sample
+                        + "' is in group '" + b.group + "' on line " + b.firstLine + " but in group '" + group
+                        + "' here; a sample belongs to one group");
+            }
+            if (b.firstLine == 0) {
+                b.firstLine = line;
+            }
+            b.points.add(point);
+        }
+        if (builders.isEmpty()) {
+            throw new InputException(path, headerLine, 0, "the header is not followed by any data rows");
+        }
+        List<Sweep> sweeps = new ArrayList<>();
+        for (SweepBuilder b : builders.values()) {
+            Sweep s = new Sweep(b.sample, b.replicate, b.group, kind, b.temperature, path, metadata, b.points);
+            checkPoints(path, s, warnings);
+            sweeps.add(s);
+        }
+        boolean tidy = byQuantity.containsKey(Quantity.SAMPLE) || byQuantity.containsKey(Quantity.REPLICATE);
+        TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, decimalMark,
+                encoding, headerLine, columns, metadata);
+        return new SweepFile(path, sha, info, sweeps, warnings);
+    }
+
+    /** One table row with its 1-based line number. */
+    private record Row(int line, List<String> cells) {
+        int size() {
+            return cells.size();
+        }
+
+        String get(int i) {
+            return cells.get(i);
+        }
+    }
+
+    private static final class SweepBuilder {
+        final String sample;
+        final String replicate;
+        final String group;
+        final double temperature;
+        final List<SweepPoint> points = new ArrayList<>();
+        int firstLine;
+
+        SweepBuilder(String sample, String replicate, String group, double temperature) {
+            this.sample = sample;
+            this.replicate = replicate;
+            this.group = group;
+            this.temperature = temperature;
+        }
+    }
+
+    private static void checkRequiredColumns(Path path, int headerLine, Map<Quantity, ColumnSpec> q) {
+        if (!q.containsKey(Quantity.FREQUENCY) && !q.containsKey(Quantity.ANGULAR_FREQUENCY)) {
+            throw new InputException(path, headerLine, 0,
+                    "no frequency column; add one named 'frequency [Hz]' or 'angular_frequency [rad/s]'");
+        }
+        if (q.containsKey(Quantity.FREQUENCY) && q.containsKey(Quantity.ANGULAR_FREQUENCY)) {
+            throw new InputException(path, headerLine, q.get(Quantity.ANGULAR_FREQUENCY).index() + 1,
+                    "both frequency and angular_frequency columns are present; keep one of them");
+        }
+        boolean pair = q.containsKey(Quantity.STORAGE_MODULUS) && q.containsKey(Quantity.LOSS_MODULUS);
+        boolean magnitude = q.containsKey(Quantity.COMPLEX_MODULUS_MAGNITUDE)
+                && (q.containsKey(Quantity.LOSS_TANGENT) || q.containsKey(Quantity.PHASE_ANGLE));
+        if (!pair && !magnitude) {
+            throw new InputException(path, headerLine, 0, "the moduli are incomplete; give storage_modulus and loss_modulus, "
+                    + "or complex_modulus_magnitude with loss_tangent or phase_angle");
+        }
+    }
+
+    private ModulusKind resolveKind(Path path, int headerLine, Map<Quantity, ColumnSpec> q,
+                                    Map<String, String> metadata, Map<String, Integer> metadataLines,
+                                    List<ReadWarning> warnings) {
+        ModulusKind fromHeaders = null;
+        for (ColumnSpec c : q.values()) {
+            if (c.kindHint() != null) {
+                if (fromHeaders != null && fromHeaders != c.kindHint()) {
+                    throw new InputException(path, headerLine, c.index() + 1,
+                            "headers mix tensile (E) and shear (G) moduli; a table holds one kind");
+                }
+                fromHeaders = c.kindHint();
+            }
+        }
+        ModulusKind fromMeta = null;
+        String m = metadata.get("modulus");
+        if (m != null) {
+            fromMeta = ModulusKind.parse(m);
+            if (fromMeta == null) {
+                throw new InputException(path, metadataLines.getOrDefault("modulus", 0), 0,
+                        "'modulus: " + m + "' is not understood; write 'modulus: tensile' or 'modulus: shear'");
+            }
+        }
+        if (fromHeaders != null && fromMeta != null && fromHeaders != fromMeta) {
+            throw new InputException(path, headerLine, 0, "the headers say " + fromHeaders + " moduli but the metadata say 'modulus: "
+                    + m + "'; make them agree");
+        }
+        ModulusKind kind = fromHeaders != null ? fromHeaders : fromMeta != null ? fromMeta : declaredKind;
+        if (kind == null) {
+            warnings.add(new ReadWarning(path, headerLine, "neither the headers nor a '# modulus:' line say whether the moduli "
+                    + "are tensile or shear; taken as tensile (E). Add '# modulus: shear' or pass --modulus shear if they are G"));
+            kind = ModulusKind.TENSILE;
+        }
+        return kind;
+    }
+
+    private static SweepPoint point(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line) {
+        double f;
+        ColumnSpec fc = q.containsKey(Quantity.FREQUENCY) ? q.get(Quantity.FREQUENCY) : q.get(Quantity.ANGULAR_FREQUENCY);
+        f = number(rec, fc, dm, path, line);
+        if (fc.quantity() == Quantity.ANGULAR_FREQUENCY) {
+            f = f / (2.0 * Math.PI);
+        }
+        if (!(f > 0)) {
+            throw new InputException(path, line, fc.index() + 1, "frequency must be greater than zero, found '"
+                    + rec.get(fc.index()) + "'; remove the row or correct the value");
+        }
+        double storage;
+        double loss;
+        if (q.containsKey(Quantity.STORAGE_MODULUS) && q.containsKey(Quantity.LOSS_MODULUS)) {
+            storage = number(rec, q.get(Quantity.STORAGE_MODULUS), dm, path, line);
+            loss = number(rec, q.get(Quantity.LOSS_MODULUS), dm, path, line);
+        } else {
+            ColumnSpec mc = q.get(Quantity.COMPLEX_MODULUS_MAGNITUDE);
+            double mag = number(rec, mc, dm, path, line);
+            if (!(mag > 0)) {
+                throw new InputException(path, line, mc.index() + 1, "|E*| must be greater than zero, found '"
+                        + rec.get(mc.index()) + "'");
+            }
+            double delta;
+            if (q.containsKey(Quantity.PHASE_ANGLE)) {
+                delta = number(rec, q.get(Quantity.PHASE_ANGLE), dm, path, line);
+            } else {
+                delta = Math.atan(number(rec, q.get(Quantity.LOSS_TANGENT), dm, path, line));
+            }
+            storage = mag * Math.cos(delta);
+            loss = mag * Math.sin(delta);
+        }
+        if (!(storage > 0)) {
+            ColumnSpec sc = q.getOrDefault(Quantity.STORAGE_MODULUS, q.get(Quantity.COMPLEX_MODULUS_MAGNITUDE));
+            throw new InputException(path, line, sc.index() + 1, "storage modulus must be greater than zero, found "
+                    + String.format(Locale.ROOT, "%g", storage) + " Pa; remove or correct the row");
+        }
+        return new SweepPoint(f, storage, loss, line);
+    }
+
+    private static double number(Row rec, ColumnSpec c, char decimalMark, Path path, int line) {
+        String cell = rec.get(c.index());
+        String t = decimalMark == ',' ? cell.replace(',', '.') : cell;
+        if (t.isEmpty()) {
+            throw new InputException(path, line, c.index() + 1, "empty cell in column '" + c.header()
+                    + "'; fill it or remove the row");
+        }
+        if (!NUMBER.matcher(t).matches()) {
+            throw new InputException(path, line, c.index() + 1, "'" + cell + "' in column '" + c.header()
+                    + "' is not a number; write plain numbers such as 1250 or 1.25e3");
+        }
+        double v = Double.parseDouble(t);
+        if (!Double.isFinite(v)) {
+            throw new InputException(path, line, c.index() + 1, "'" + cell + "' is too large to be a number");
+        }
+        return c.unit() == null ? v : v * c.unit().toSi();
+    }
+
+    private static String label(Row rec, ColumnSpec c, String fallback, Path path, int line) {
+        if (c == null) {
+            return fallback;
+        }
+        String v = rec.get(c.index());
+        if (v.isEmpty()) {
+            throw new InputException(path, line, c.index() + 1, "empty " + c.quantity().canonical()
+                    + " cell; every row of a tidy table names its " + c.quantity().canonical());
+        }
+        return v;
+    }
+
+    private static void checkPoints(Path path, Sweep s, List<ReadWarning> warnings) {
+        List<SweepPoint> pts = s.points();
+        for (SweepPoint p : pts) {
+            if (!(p.loss() > 0)) {
+                warnings.add(new ReadWarning(path, p.line(), String.format(Locale.ROOT,
+                        "loss modulus %g Pa is not positive (sample '%s'); the point is kept in the data but left out of model fits",
+                        p.loss(), s.sample())));
+            }
+        }
+        for (int i = 1; i < pts.size(); i++) {
+            if (pts.get(i).frequencyHz() == pts.get(i - 1).frequencyHz()) {
+                warnings.add(new ReadWarning(path, pts.get(i).line(), String.format(Locale.ROOT,
+                        "frequency %g Hz appears twice in sample '%s' replicate '%s'; both points are used",
+                        pts.get(i).frequencyHz(), s.sample(), s.replicate())));
+            }
+        }
+    }
+
+    private static double metadataTemperature(Path path, Map<String, String> metadata, int line) {
+        String t = metadata.get("temperature");
+        if (t == null) {
+            return Double.NaN;
+        }
+        Matcher m = META_VALUE_WITH_UNIT.matcher(t);
+        if (!m.matches()) {
+            throw new InputException(path, line, 0, "'# temperature: " + t + "' is not understood; write e.g. '# temperature: 23 °C'");
+        }
+        String u = m.group(2).strip();
+        if (!u.isEmpty() && Unit.find(u, Quantity.Dimension.TEMPERATURE).isEmpty()) {
+            throw new InputException(path, line, 0, "'# temperature: " + t + "' has an unknown unit; write it in °C");
+        }
+        return Double.parseDouble(m.group(1));
+    }
+
+    /** Parses "key: value" or "key: value; key: value" (geometry lines). Keys lower-case, spaces as underscores. */
+    static List<String> parseMetadataLine(String body, Map<String, String> out) {
+        List<String> keys = new ArrayList<>();
+        for (String part : body.split(";")) {
+            int colon = part.indexOf(':');
+            if (colon <= 0) {
+                continue;
+            }
+            String key = part.substring(0, colon).strip().toLowerCase(Locale.ROOT).replaceAll("\\s+", "_");
+            String value = part.substring(colon + 1).strip();
+            if (!key.isEmpty()) {
+                out.put(key, value);
+                keys.add(key);
+            }
+        }
+        return keys;
+    }
+
+    private static char detectSeparator(String headerLine) {
+        int commas = 0;
+        int semis = 0;
+        int tabs = 0;
+        boolean quoted = false;
+        for (char ch : headerLine.toCharArray()) {
+            if (ch == '"') {
+                quoted = !quoted;
+            } else if (!quoted) {
+                if (ch == ',') {
+                    commas++;
+                } else if (ch == ';') {
+                    semis++;
+                } else if (ch == '\t') {
+                    tabs++;
+                }
+            }
+        }
+        if (tabs >= commas && tabs >= semis && tabs > 0) {
+            return '\t';
+        }
+        return semis > commas ? ';' : ',';
+    }
+
+    private static char detectDecimalMark(char sep, List<Row> records) {
+        if (sep == ',') {
+            return '.';
+        }
+        for (int r = 1; r < records.size(); r++) {
+            for (String cell : records.get(r).cells()) {
+                if (DECIMAL_COMMA_CELL.matcher(cell).matches()) {
+                    return ',';
+                }
+            }
+        }
+        return '.';
+    }
+
+    private static String decode(byte[] bytes, String[] encodingUsed) {
+        int offset = bytes.length >= 3 && (bytes[0] & 0xFF) == 0xEF && (bytes[1] & 0xFF) == 0xBB
+                && (bytes[2] & 0xFF) == 0xBF ? 3 : 0;
+        ByteBuffer buf = ByteBuffer.wrap(bytes, offset, bytes.length - offset);
+        try {
+            String s = StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(buf).toString();
+            encodingUsed[0] = offset == 3 ? "UTF-8 with byte-order mark" : "UTF-8";
+            return s;
+        } catch (CharacterCodingException e) {
+            encodingUsed[0] = "windows-1252";
+            return new String(bytes, offset, bytes.length - offset, Charset.forName("windows-1252"));
+        }
+    }
+
+    private static String stem(Path path) {
+        String n = path.getFileName().toString();
+        int dot = n.lastIndexOf('.');
+        return dot > 0 ? n.substring(0, dot) : n;
+    }
+
+    /** Hex SHA-256 of a byte array. */
+    public static String sha256(byte[] bytes) {
+        try {
+            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is missing from this Java runtime", e);
+        }
+    }
+}

@@ -1,0 +1,66 @@
+package org.viscarta.sweep;
+
+import java.util.Locale;
+
+/**
+ * The physical quantities a sweep table column can hold, with their canonical spelling as used in
+ * Viscarta's own files (ISO 6721-1 definitions, see DOMAIN.md section 1).
+ */
+public enum Quantity {
+    /** Cyclic frequency f, stored in Hz. */
+    FREQUENCY("frequency", Dimension.FREQUENCY),
+    /** Angular frequency ω = 2πf, stored in rad/s. */
+    ANGULAR_FREQUENCY("angular_frequency", Dimension.ANGULAR_FREQUENCY),
+    /** Storage modulus E′ (or G′), the in-phase part of the complex modulus, stored in Pa. */
+    STORAGE_MODULUS("storage_modulus", Dimension.STRESS),
+    /** Loss modulus E″ (or G″), the quadrature part of the complex modulus, stored in Pa. */
+    LOSS_MODULUS("loss_modulus", Dimension.STRESS),
+    /** Loss tangent tan δ = E″/E′, dimensionless. */
+    LOSS_TANGENT("loss_tangent", Dimension.NONE),
+    /** Magnitude of the complex modulus |E*| = sqrt(E′² + E″²), stored in Pa. */
+    COMPLEX_MODULUS_MAGNITUDE("complex_modulus_magnitude", Dimension.STRESS),
+    /** Phase angle δ = atan2(E″, E′), stored in rad. */
+    PHASE_ANGLE("phase_angle", Dimension.ANGLE),
+    /** Test temperature, stored in °C (a relative scale kept as users write it). */
+    TEMPERATURE("temperature", Dimension.TEMPERATURE),
+    /** Sample name in a tidy multi-sample table. */
+    SAMPLE("sample", Dimension.LABEL),
+    /** Replicate label in a tidy multi-sample table. */
+    REPLICATE("replicate", Dimension.LABEL),
+    /** Group (formulation, treatment) label in a tidy multi-sample table. */
+    GROUP("group", Dimension.LABEL),
+    /** Position on the sample, x, stored in m. */
+    POSITION_X("x", Dimension.LENGTH),
+    /** Position on the sample, y, stored in m. */
+    POSITION_Y("y", Dimension.LENGTH);
+
+    /** What kind of unit a quantity takes. */
+    public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH }
+
+    private final String canonical;
+    private final Dimension dimension;
+
+    Quantity(String canonical, Dimension dimension) {
+        this.canonical = canonical;
+        this.dimension = dimension;
+    }
+
+    /** The spelling used in Viscarta's own files, e.g. {@code storage_modulus}. */
+    public String canonical() {
+        return canonical;
+    }
+
+    public Dimension dimension() {
+        return dimension;
+    }
+
+    /** True for text columns (sample, replicate, group). */
+    public boolean isLabel() {
+        return dimension == Dimension.LABEL;
+    }
+
+    @Override
+    public String toString() {
+        return canonical.toLowerCase(Locale.ROOT);
+    }
+}

@@ -1,0 +1,80 @@
+package org.viscarta.sweep;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.OptionalDouble;
+
+/**
+ * One frequency sweep of one replicate of one sample, in SI units, sorted by frequency.
+ *
+ * @param sample      sample name (replicates of one sample share it)
+ * @param replicate   replicate label, "1" when the input has none
+ * @param group       group label (formulation, treatment), "" when none
+ * @param kind        whether the moduli are tensile (E) or shear (G)
+ * @param temperatureC test temperature [°C], NaN when unknown
+ * @param source      the file the sweep was read from
+ * @param metadata    the file's {@code # key: value} lines, keys in lower case
+ * @param points      the measured points, sorted by frequency
+ */
+public record Sweep(String sample, String replicate, String group, ModulusKind kind, double temperatureC,
+                    Path source, Map<String, String> metadata, List<SweepPoint> points) {
+
+    public Sweep {
+        Objects.requireNonNull(sample, "sample");
+        Objects.requireNonNull(replicate, "replicate");
+        Objects.requireNonNull(group, "group");
+        Objects.requireNonNull(kind, "kind");
+        Objects.requireNonNull(source, "source");
+        if (points.isEmpty()) {
+            throw new IllegalArgumentException("a sweep needs at least one point");
+        }
+        metadata = Map.copyOf(metadata);
+        List<SweepPoint> sorted = new ArrayList<>(points);
+        sorted.sort(Comparator.comparingDouble(SweepPoint::frequencyHz));
+        points = List.copyOf(sorted);
+    }
+
+    /** Lowest measured frequency [Hz]. */
+    public double minFrequencyHz() {
+        return points.get(0).frequencyHz();
+    }
+
+    /** Highest measured frequency [Hz]. */
+    public double maxFrequencyHz() {
+        return points.get(points.size() - 1).frequencyHz();
+    }
+
+    /** A metadata value by (lower-case) key. */
+    public Optional<String> meta(String key) {
+        return Optional.ofNullable(metadata.get(key));
+    }
+
+    /** Poisson's ratio from the metadata ({@code poisson_ratio}), when given and valid. */
+    public OptionalDouble poissonRatio() {
+        String v = metadata.get("poisson_ratio");
+        if (v == null) {
+            return OptionalDouble.empty();
+        }
+        try {
+            double nu = Double.parseDouble(v.strip());
+            return nu > -1 && nu <= 0.5 ? OptionalDouble.of(nu) : OptionalDouble.empty();
+        } catch (NumberFormatException e) {
+            return OptionalDouble.empty();
+        }
+    }
+
+    /** The same sweep with other points and modulus kind (used by basis conversion). */
+    public Sweep withPoints(ModulusKind newKind, List<SweepPoint> newPoints) {
+        return new Sweep(sample, replicate, group, newKind, temperatureC, source, metadata, newPoints);
+    }
+
+    /** The points whose loss modulus is positive, i.e. those a fit on log moduli can use. */
+    public List<SweepPoint> fittablePoints() {
+        return points.stream().filter(SweepPoint::usableInLogFit).toList();
+    }
+}

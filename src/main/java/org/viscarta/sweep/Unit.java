@@ -1,0 +1,90 @@
+package org.viscarta.sweep;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+
+/**
+ * Units recognised in column headers, each with the factor that converts a value to SI
+ * (Hz, rad/s, Pa, rad, m; temperatures stay in °C). Conversion is {@code si = value * factor}.
+ */
+public enum Unit {
+    HZ(Quantity.Dimension.FREQUENCY, 1.0, "Hz", "hz", "1/s", "s^-1", "s-1"),
+    KHZ(Quantity.Dimension.FREQUENCY, 1.0e3, "kHz", "khz"),
+    RAD_PER_S(Quantity.Dimension.ANGULAR_FREQUENCY, 1.0, "rad/s", "rad s-1", "rad·s⁻¹", "rad/sec"),
+    PA(Quantity.Dimension.STRESS, 1.0, "Pa", "pa", "N/m²", "N/m2", "N m-2"),
+    KPA(Quantity.Dimension.STRESS, 1.0e3, "kPa", "kpa"),
+    MPA(Quantity.Dimension.STRESS, 1.0e6, "MPa", "mpa", "N/mm²", "N/mm2"),
+    GPA(Quantity.Dimension.STRESS, 1.0e9, "GPa", "gpa"),
+    DIMENSIONLESS(Quantity.Dimension.NONE, 1.0, "-", "", "1", "–"),
+    DEGREE(Quantity.Dimension.ANGLE, Math.PI / 180.0, "°", "deg", "degree", "degrees"),
+    RADIAN(Quantity.Dimension.ANGLE, 1.0, "rad", "radian", "radians"),
+    CELSIUS(Quantity.Dimension.TEMPERATURE, 1.0, "°C", "degC", "C", "deg C", "celsius"),
+    METRE(Quantity.Dimension.LENGTH, 1.0, "m"),
+    MILLIMETRE(Quantity.Dimension.LENGTH, 1.0e-3, "mm"),
+    MICROMETRE(Quantity.Dimension.LENGTH, 1.0e-6, "µm", "μm", "um", "micron"),
+    NANOMETRE(Quantity.Dimension.LENGTH, 1.0e-9, "nm");
+
+    private final Quantity.Dimension dimension;
+    private final double toSi;
+    private final List<String> spellings;
+
+    Unit(Quantity.Dimension dimension, double toSi, String... spellings) {
+        this.dimension = dimension;
+        this.toSi = toSi;
+        this.spellings = List.of(spellings);
+    }
+
+    public Quantity.Dimension dimension() {
+        return dimension;
+    }
+
+    /** Multiply a value in this unit by this factor to get SI. */
+    public double toSi() {
+        return toSi;
+    }
+
+    /** The way Viscarta writes this unit. */
+    public String symbol() {
+        return spellings.get(0);
+    }
+
+    /** Finds a unit of the given dimension spelled as {@code text} (case matters only for Pa prefixes). */
+    public static Optional<Unit> find(String text, Quantity.Dimension dimension) {
+        String t = text.strip();
+        for (Unit u : values()) {
+            if (u.dimension == dimension && u.spellings.contains(t)) {
+                return Optional.of(u);
+            }
+        }
+        for (Unit u : values()) {
+            if (u.dimension != dimension) {
+                continue;
+            }
+            for (String s : u.spellings) {
+                // a lower-case match is accepted only when it cannot confuse mPa with MPa
+                if (!s.isEmpty() && s.equalsIgnoreCase(t) && !t.equals("mPa")) {
+                    return Optional.of(u);
+                }
+            }
+        }
+        return Optional.empty();
+    }
+
+    /** The spellings accepted for a dimension, for error messages. */
+    public static List<String> symbolsOf(Quantity.Dimension dimension) {
+        List<String> out = new ArrayList<>();
+        for (Unit u : values()) {
+            if (u.dimension == dimension) {
+                out.add(u.symbol());
+            }
+        }
+        return out;
+    }
+
+    @Override
+    public String toString() {
+        return symbol().toLowerCase(Locale.ROOT).isEmpty() ? "-" : symbol();
+    }
+}
