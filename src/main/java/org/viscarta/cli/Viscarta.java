@@ -1,6 +1,84 @@
 package org.viscarta.cli;
 
-public final class Viscarta {
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.UncheckedIOException;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.viscarta.io.InputException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The {@code viscarta} command: verbs for frequency sweeps of viscoelastic materials. */
+@Command(name = "viscarta",
+        mixinStandardHelpOptions = true,
+        versionProvider = VersionProvider.class,
+        description = "Fits viscoelastic models to oscillatory frequency sweeps (E′, E″ or G′, G″ against frequency), "
+                + "ranks samples by damping (tan δ) and writes a workbook a collaborator can read.",
+        subcommands = {InspectCommand.class, FitCommand.class, RankCommand.class, ReportCommand.class,
+            CommandLine.HelpCommand.class},
+        exitCodeListHeading = "%nExit codes:%n",
+        exitCodeList = {
+            "0:success",
+            "2:bad usage or bad input (one line on stderr: file:line[:column]: what is wrong and what to do)",
+            "1:anything else (an internal error; add --debug for the stack trace)"},
+        footer = {"", "Results describe small samples under test conditions; they are not clinical or structural verdicts.",
+            "Follow local rules and licensed practice for artworks, toxic historic pigments and biological tissue."})
+public final class Viscarta implements Runnable {
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public void run() {
+        throw new CommandLine.ParameterException(spec.commandLine(), "a verb is needed: inspect, fit, rank or report");
+    }
+
     public static void main(String[] args) {
+        // POI logs through the Log4j API; without this it warns on every run that no logging backend is present.
+        System.setProperty("log4j2.loggerContextFactory", "org.apache.logging.log4j.simple.SimpleLoggerContextFactory");
+        System.setProperty("java.awt.headless", "true");
+        System.exit(execute(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true)));
+    }
+
+    /** Runs a command line with the given streams and returns the exit code (used by main and the tests). */
+    public static int execute(String[] args, PrintWriter out, PrintWriter err) {
+        List<String> rest = new ArrayList<>(Arrays.asList(args));
+        boolean debug = rest.remove("--debug");
+        CommandLine cl = new CommandLine(new Viscarta());
+        cl.setOut(out);
+        cl.setErr(err);
+        cl.setParameterExceptionHandler((ex, a) -> {
+            CommandLine c = ex.getCommandLine();
+            c.getErr().println("viscarta: " + ex.getMessage());
+            c.getErr().println("Try '" + c.getCommandSpec().qualifiedName() + " --help' for usage.");
+            c.getErr().flush();
+            return CommandLine.ExitCode.USAGE;
+        });
+        cl.setExecutionExceptionHandler((ex, c, parseResult) -> {
+            PrintWriter e = c.getErr();
+            if (ex instanceof InputException ie) {
+                e.println(ie.getMessage());
+                e.flush();
+                return CommandLine.ExitCode.USAGE;
+            }
+            if (ex instanceof IllegalArgumentException) {
+                e.println("viscarta: " + ex.getMessage());
+                e.flush();
+                return CommandLine.ExitCode.USAGE;
+            }
+            if (ex instanceof IOException || ex instanceof UncheckedIOException) {
+                e.println("viscarta: cannot write the output: " + ex.getMessage());
+            } else {
+                e.println("viscarta: internal error: " + ex + (debug ? "" : " (run again with --debug for the stack trace)"));
+            }
+            if (debug) {
+                ex.printStackTrace(e);
+            }
+            e.flush();
+            return CommandLine.ExitCode.SOFTWARE;
+        });
+        return cl.execute(rest.toArray(new String[0]));
     }
 }

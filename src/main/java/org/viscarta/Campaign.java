@@ -1,0 +1,346 @@
+package org.viscarta;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.stream.Collectors;
+import org.viscarta.compare.LossTangentAt;
+import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.fit.FitResult;
+import org.viscarta.fit.ModelFitter;
+import org.viscarta.fit.ModelSelection;
+import org.viscarta.io.InputCollector;
+import org.viscarta.io.InputException;
+import org.viscarta.io.ReadWarning;
+import org.viscarta.io.SweepFile;
+import org.viscarta.io.SweepReader;
+import org.viscarta.model.ModelCatalogue;
+import org.viscarta.model.ViscoelasticModel;
+import org.viscarta.sweep.BasisConversion;
+import org.viscarta.sweep.ModulusKind;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * The analysis of a set of samples: read every input, put the moduli on one basis when asked,
+ * fit the candidate models to each sample, and rank the samples by damping. This is what
+ * {@code report} runs; {@code fit} and {@code rank} reuse parts of it.
+ */
+public final class Campaign {
+
+    /** What the analysis was asked to do; every field goes into the report's provenance. */
+    public record Settings(List<String> modelIds, double atHz, boolean modelOutsideRange, ModulusKind basis,
+                           OptionalDouble poisson, ModulusKind declaredKind) {
+
+        public Settings {
+            modelIds = List.copyOf(modelIds);
+            Objects.requireNonNull(poisson, "poisson");
+            if (!(atHz > 0) || Double.isInfinite(atHz)) {
+                throw new IllegalArgumentException("reference frequency must be finite and > 0 Hz, got " + atHz);
+            }
+            if (modelIds.isEmpty()) {
+                throw new IllegalArgumentException("at least one model is needed");
+            }
+            for (String id : modelIds) {
+                if (ModelCatalogue.byId(id).isEmpty()) {
+                    throw new IllegalArgumentException("unknown model '" + id + "'; choose from "
+                            + String.join(", ", ModelCatalogue.ids()));
+                }
+            }
+        }
+
+        /** All implemented models, 1 Hz, no extrapolation, no basis conversion. */
+        public static Settings defaults() {
+            return new Settings(ModelCatalogue.ids(), 1.0, false, null, OptionalDouble.empty(), null);
+        }
+
+        public Settings withModels(List<String> ids) {
+            return new Settings(ids, atHz, modelOutsideRange, basis, poisson, declaredKind);
+        }
+
+        public Settings withAt(double hz) {
+            return new Settings(modelIds, hz, modelOutsideRange, basis, poisson, declaredKind);
+        }
+
+        public Settings withModelOutsideRange(boolean allow) {
+            return new Settings(modelIds, atHz, allow, basis, poisson, declaredKind);
+        }
+
+        public Settings withBasis(ModulusKind kind, OptionalDouble nu) {
+            return new Settings(modelIds, atHz, modelOutsideRange, kind, nu, declaredKind);
+        }
+
+        public Settings withDeclaredKind(ModulusKind kind) {
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, kind);
+        }
+    }
+
+    /**
+     * A sample: all replicate sweeps that share a name (and temperature).
+     *
+     * @param name       display name (with the temperature appended when one sample was measured at several)
+     * @param group      its group label
+     * @param kind       the modulus basis of its sweeps
+     * @param temperatureC test temperature [°C] or NaN
+     * @param replicates its sweeps
+     */
+    public record Sample(String name, String group, ModulusKind kind, double temperatureC, List<Sweep> replicates) {
+        public Sample {
+            replicates = List.copyOf(replicates);
+        }
+
+        /** All points of all replicates that can enter a log fit, sorted by frequency. */
+        public List<SweepPoint> pooledFittablePoints() {
+            return replicates.stream().flatMap(s -> s.fittablePoints().stream())
+                    .sorted(Comparator.comparingDouble(SweepPoint::frequencyHz)).toList();
+        }
+
+        public double minFrequencyHz() {
+            return replicates.stream().mapToDouble(Sweep::minFrequencyHz).min().orElse(Double.NaN);
+        }
+
+        public double maxFrequencyHz() {
+            return replicates.stream().mapToDouble(Sweep::maxFrequencyHz).max().orElse(Double.NaN);
+        }
+    }
+
+    /** The fits of every candidate model to one sample, with Akaike weights. */
+    public record SampleFits(Sample sample, List<ModelSelection.Ranked> fits) {
+        public SampleFits {
+            fits = List.copyOf(fits);
+        }
+
+        /** The best-supported fit, when any converged. */
+        public Optional<FitResult> best() {
+            return fits.stream().filter(ModelSelection.Ranked::best).map(ModelSelection.Ranked::fit).findFirst();
+        }
+    }
+
+    /** Where a ranking value came from. */
+    public enum ValueSource {
+        MEASURED("measured, interpolated in log–log between neighbouring points"),
+        MODEL("best-supported model, outside the measured range"),
+        NONE("outside the measured range: not reported");
+
+        private final String description;
+
+        ValueSource(String description) {
+            this.description = description;
+        }
+
+        public String description() {
+            return description;
+        }
+    }
+
+    /**
+     * One row of the damping ranking.
+     *
+     * @param rank      1 = highest damping; 0 when not ranked
+     * @param sample    the sample
+     * @param tanDelta  replicate summary of tan δ at the reference frequency (null when none)
+     * @param storage   mean M′ at the reference frequency [Pa] (NaN when none)
+     * @param loss      mean M″ [Pa]
+     * @param source    where the value came from
+     * @param note      what the user should know
+     */
+    public record RankRow(int rank, Sample sample, ReplicateSummary tanDelta, double storage, double loss,
+                          ValueSource source, String note) {
+    }
+
+    private final Settings settings;
+    private final List<SweepFile> files;
+    private final List<Sample> samples;
+    private final List<ReadWarning> warnings;
+    private final List<String> notes;
+
+    private Campaign(Settings settings, List<SweepFile> files, List<Sample> samples, List<ReadWarning> warnings,
+                     List<String> notes) {
+        this.settings = settings;
+        this.files = List.copyOf(files);
+        this.samples = List.copyOf(samples);
+        this.warnings = List.copyOf(warnings);
+        this.notes = List.copyOf(notes);
+    }
+
+    /**
+     * Reads every input (files, or folders read recursively) and groups the sweeps into samples.
+     *
+     * @throws InputException for the first bad input
+     */
+    public static Campaign read(List<Path> inputs, Settings settings) {
+        SweepReader reader = new SweepReader(settings.declaredKind());
+        List<SweepFile> files = new ArrayList<>();
+        List<ReadWarning> warnings = new ArrayList<>();
+        List<String> notes = new ArrayList<>();
+        Map<String, List<Sweep>> bySample = new LinkedHashMap<>();
+        Map<String, Path> replicateSeen = new LinkedHashMap<>();
+        for (Path file : InputCollector.collect(inputs)) {
+            SweepFile sf = reader.read(file);
+            files.add(sf);
+            warnings.addAll(sf.warnings());
+            for (Sweep s : sf.sweeps()) {
+                Sweep sweep = s;
+                if (settings.basis() != null) {
+                    try {
+                        BasisConversion.Converted c = BasisConversion.toBasis(s, settings.basis(), settings.poisson());
+                        sweep = c.sweep();
+                        if (!c.note().isEmpty()) {
+                            notes.add(file + ": sample '" + s.sample() + "': " + c.note());
+                        }
+                    } catch (IllegalArgumentException e) {
+                        throw new InputException(file, sf.info().headerLine(), 0, e.getMessage());
+                    }
+                }
+                String key = s.sample() + "\u0000" + s.temperatureC();
+                String repKey = key + "\u0000" + s.replicate();
+                Path prev = replicateSeen.put(repKey, file);
+                if (prev != null) {
+                    throw new InputException(file, sweep.points().get(0).line(), 0, "sample '" + s.sample()
+                            + "' replicate '" + s.replicate() + "' is also in " + prev
+                            + "; give each replicate its own label (a '# replicate:' line or a replicate column)");
+                }
+                bySample.computeIfAbsent(key, k -> new ArrayList<>()).add(sweep);
+            }
+        }
+        Map<String, Long> temperaturesPerName = bySample.values().stream()
+                .collect(Collectors.groupingBy(l -> l.get(0).sample(), Collectors.counting()));
+        List<Sample> samples = new ArrayList<>();
+        for (List<Sweep> reps : bySample.values()) {
+            Sweep first = reps.get(0);
+            String name = first.sample();
+            if (temperaturesPerName.get(name) > 1) {
+                name = String.format(Locale.ROOT, "%s @ %s °C", name, plain(first.temperatureC()));
+            }
+            for (Sweep r : reps) {
+                if (!r.group().equals(first.group())) {
+                    throw new InputException(r.source(), r.points().get(0).line(), 0, "sample '" + first.sample()
+                            + "' is in group '" + first.group() + "' in " + first.source() + " but in group '"
+                            + r.group() + "' here; a sample belongs to one group");
+                }
+            }
+            samples.add(new Sample(name, first.group(), first.kind(), first.temperatureC(), reps));
+        }
+        long kinds = samples.stream().map(Sample::kind).distinct().count();
+        if (kinds > 1 && settings.basis() == null) {
+            warnings.add(new ReadWarning(Path.of("(inputs)"), 0, "the inputs mix tensile (E) and shear (G) moduli; "
+                    + "tan δ compares fine, but moduli do not: pass --basis tensile or --basis shear (with --poisson) to convert"));
+        }
+        return new Campaign(settings, files, samples, warnings, notes);
+    }
+
+    public Settings settings() {
+        return settings;
+    }
+
+    public List<SweepFile> files() {
+        return files;
+    }
+
+    public List<Sample> samples() {
+        return samples;
+    }
+
+    /** Warnings from reading. */
+    public List<ReadWarning> warnings() {
+        return warnings;
+    }
+
+    /** Conversions that were applied. */
+    public List<String> notes() {
+        return notes;
+    }
+
+    /** Fits every candidate model to every sample (replicates pooled), in parallel over samples. */
+    public List<SampleFits> fit() {
+        ModelFitter fitter = new ModelFitter();
+        List<ViscoelasticModel> models = settings.modelIds().stream()
+                .map(id -> ModelCatalogue.byId(id).orElseThrow()).toList();
+        return samples.parallelStream().map(s -> {
+            List<SweepPoint> pts = s.pooledFittablePoints();
+            List<FitResult> fits = new ArrayList<>();
+            for (ViscoelasticModel m : models) {
+                fits.add(fitter.fit(s.name(), m, pts));
+            }
+            return new SampleFits(s, ModelSelection.rank(fits));
+        }).toList();
+    }
+
+    /**
+     * Ranks samples by mean tan δ at the reference frequency, highest damping first.
+     *
+     * @param fits the fits (needed only when the model may speak outside the measured range; may be empty)
+     */
+    public List<RankRow> rank(List<SampleFits> fits) {
+        Map<Sample, SampleFits> fitBySample = new LinkedHashMap<>();
+        for (SampleFits f : fits) {
+            fitBySample.put(f.sample(), f);
+        }
+        double at = settings.atHz();
+        List<RankRow> rows = new ArrayList<>();
+        for (Sample s : samples) {
+            List<LossTangentAt.Value> values = new ArrayList<>();
+            int outside = 0;
+            for (Sweep r : s.replicates()) {
+                Optional<LossTangentAt.Value> v = LossTangentAt.interpolate(r.fittablePoints(), at);
+                if (v.isPresent()) {
+                    values.add(v.get());
+                } else {
+                    outside++;
+                }
+            }
+            if (!values.isEmpty()) {
+                String note = outside == 0 ? "" : String.format(Locale.ROOT,
+                        "%d of %d replicates do not reach %s Hz and are left out", outside, s.replicates().size(), plain(at));
+                rows.add(row(s, values, ValueSource.MEASURED, note));
+                continue;
+            }
+            String range = String.format(Locale.ROOT, "measured %s–%s Hz", plain(s.minFrequencyHz()), plain(s.maxFrequencyHz()));
+            SampleFits sf = fitBySample.get(s);
+            Optional<FitResult> best = sf == null ? Optional.empty() : sf.best();
+            if (settings.modelOutsideRange() && best.isPresent()) {
+                ViscoelasticModel m = ModelCatalogue.byId(best.get().model()).orElseThrow();
+                double[] p = best.get().parameters().stream().mapToDouble(e -> e.value()).toArray();
+                double[] out = new double[2];
+                m.modulus(2 * Math.PI * at, p, out);
+                rows.add(row(s, List.of(new LossTangentAt.Value(at, out[0], out[1])), ValueSource.MODEL,
+                        range + "; value from the " + m.id() + " model, not from data"));
+            } else {
+                rows.add(new RankRow(0, s, null, Double.NaN, Double.NaN, ValueSource.NONE,
+                        range + "; " + plain(at) + " Hz is outside it, so tan δ is not reported"
+                                + (settings.modelOutsideRange() ? " (no model converged)" : " (--model-outside-range lets the best model speak)")));
+            }
+        }
+        List<RankRow> ranked = new ArrayList<>(rows.stream().filter(r -> r.tanDelta() != null)
+                .sorted(Comparator.comparingDouble((RankRow r) -> r.tanDelta().mean()).reversed()).toList());
+        List<RankRow> out = new ArrayList<>();
+        for (int i = 0; i < ranked.size(); i++) {
+            RankRow r = ranked.get(i);
+            out.add(new RankRow(i + 1, r.sample(), r.tanDelta(), r.storage(), r.loss(), r.source(), r.note()));
+        }
+        rows.stream().filter(r -> r.tanDelta() == null).forEach(out::add);
+        return out;
+    }
+
+    private static RankRow row(Sample s, List<LossTangentAt.Value> values, ValueSource source, String note) {
+        double[] tan = values.stream().mapToDouble(LossTangentAt.Value::lossTangent).toArray();
+        double storage = values.stream().mapToDouble(LossTangentAt.Value::storage).average().orElse(Double.NaN);
+        double loss = values.stream().mapToDouble(LossTangentAt.Value::loss).average().orElse(Double.NaN);
+        return new RankRow(0, s, ReplicateSummary.of(tan), storage, loss, source, note);
+    }
+
+    /** A number without trailing zeros, e.g. 1, 0.5, 23.5. */
+    public static String plain(double v) {
+        if (Double.isNaN(v)) {
+            return "?";
+        }
+        return java.math.BigDecimal.valueOf(v).round(new java.math.MathContext(6)).stripTrailingZeros().toPlainString();
+    }
+}

@@ -1,0 +1,60 @@
+package org.viscarta.cli;
+
+import java.io.PrintWriter;
+import java.util.concurrent.Callable;
+import org.viscarta.Campaign;
+import org.viscarta.io.ColumnSpec;
+import org.viscarta.io.ReadWarning;
+import org.viscarta.io.SweepFile;
+import org.viscarta.sweep.Sweep;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+
+/** {@code viscarta inspect}: how each input file was understood. */
+@Command(name = "inspect", mixinStandardHelpOptions = true,
+        header = "Show how each input file was understood.",
+        description = "Show how each input file was understood: layout, separator, columns and units, samples, "
+                + "replicates, frequency range, and every warning. Reads only; writes nothing.")
+final class InspectCommand implements Callable<Integer> {
+
+    @Mixin
+    InputOptions input;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        Campaign campaign = Campaign.read(input.inputs, input.applyTo(Campaign.Settings.defaults()));
+        PrintWriter out = spec.commandLine().getOut();
+        for (SweepFile f : campaign.files()) {
+            out.println(f.path());
+            out.printf("  layout: %s; separator: %s; decimal mark: '%s'; encoding: %s; header on line %d%n",
+                    f.info().layout(), f.info().separatorName(), f.info().decimalMark(), f.info().encoding(),
+                    f.info().headerLine());
+            for (ColumnSpec c : f.info().columns()) {
+                out.printf("  column %d '%s' -> %s%n", c.index() + 1, c.header(), c.describe());
+            }
+            f.info().metadata().forEach((k, v) -> out.printf("  metadata %s: %s%n", k, v));
+            TextTable t = new TextTable("sample", "replicate", "group", "basis", "points", "frequency [Hz]", "temperature [°C]");
+            for (Sweep s : f.sweeps()) {
+                t.add(s.sample(), s.replicate(), s.group(), s.kind().toString(), Integer.toString(s.points().size()),
+                        Format.g4(s.minFrequencyHz()) + "–" + Format.g4(s.maxFrequencyHz()), Format.g4(s.temperatureC()));
+            }
+            t.print(out);
+            for (ReadWarning w : f.warnings()) {
+                out.println("  warning: " + w);
+            }
+            out.println();
+        }
+        for (String note : campaign.notes()) {
+            out.println("conversion: " + note);
+        }
+        out.printf("%d file(s), %d sample(s), %d sweep(s), %d warning(s)%n", campaign.files().size(),
+                campaign.samples().size(), campaign.files().stream().mapToInt(f -> f.sweeps().size()).sum(),
+                campaign.warnings().size());
+        out.flush();
+        return CommandLine.ExitCode.OK;
+    }
+}

@@ -1,0 +1,60 @@
+package org.viscarta.compare;
+
+import java.util.List;
+import java.util.Optional;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * The loss tangent of one sweep at a reference frequency, interpolated linearly in log M′ and
+ * log M″ against log f between the two measured points that bracket it (common practice [P]; the
+ * moduli of viscoelastic solids are close to straight in log–log axes between neighbouring points).
+ * Outside the measured range there is no value: the caller decides whether a model may speak there.
+ */
+public final class LossTangentAt {
+
+    /**
+     * The interpolated values.
+     *
+     * @param frequencyHz reference frequency [Hz]
+     * @param storage     M′ [Pa]
+     * @param loss        M″ [Pa]
+     */
+    public record Value(double frequencyHz, double storage, double loss) {
+        public double lossTangent() {
+            return loss / storage;
+        }
+    }
+
+    private LossTangentAt() {
+    }
+
+    /**
+     * @param points      measured points sorted by frequency, with positive moduli
+     * @param frequencyHz the reference frequency [Hz]
+     * @return the interpolated values, or empty when {@code frequencyHz} lies outside the measured range
+     */
+    public static Optional<Value> interpolate(List<SweepPoint> points, double frequencyHz) {
+        if (points.isEmpty()) {
+            return Optional.empty();
+        }
+        for (SweepPoint p : points) {
+            if (p.frequencyHz() == frequencyHz) {
+                return Optional.of(new Value(frequencyHz, p.storage(), p.loss()));
+            }
+        }
+        for (int i = 1; i < points.size(); i++) {
+            SweepPoint a = points.get(i - 1);
+            SweepPoint b = points.get(i);
+            if (a.frequencyHz() < frequencyHz && frequencyHz < b.frequencyHz()) {
+                double w = Math.log(frequencyHz / a.frequencyHz()) / Math.log(b.frequencyHz() / a.frequencyHz());
+                return Optional.of(new Value(frequencyHz, logInterp(a.storage(), b.storage(), w),
+                        logInterp(a.loss(), b.loss(), w)));
+            }
+        }
+        return Optional.empty();
+    }
+
+    private static double logInterp(double a, double b, double w) {
+        return Math.exp((1 - w) * Math.log(a) + w * Math.log(b));
+    }
+}

@@ -1,0 +1,64 @@
+package org.viscarta.report;
+
+import java.util.List;
+
+/** The plain-language texts every report carries (PRODUCT.md "Cautions the product shows"). */
+public final class Texts {
+
+    private Texts() {
+    }
+
+    /** The cautions, one paragraph each. */
+    public static final List<String> CAUTIONS = List.of(
+            "Results describe small samples under test conditions; they are not clinical or structural verdicts.",
+            "Samples from works of art need the owner's and the conservator's approval before any are taken or tested.",
+            "Historic paints may contain toxic pigments (lead, arsenic and mercury compounds): handle and dispose of samples "
+                    + "as your local rules require.",
+            "Biological tissue needs biosafety handling: follow your institution's rules and licensed practice.",
+            "Hydrogels and soft tissues (kPa) lie below the modulus range of ASTM D4065 (0.5 MPa to 100 GPa); "
+                    + "say so when citing that standard.");
+
+    /** Definitions in words a non-specialist follows; each entry is a term and its explanation. */
+    public static final List<String[]> DEFINITIONS = List.of(
+            new String[] {"Storage modulus E′ (or G′ in shear) [Pa]",
+                "How stiff the material is when wobbled at a given frequency: the part of its resistance that stores "
+                    + "energy and gives it back, like a spring. Higher means stiffer."},
+            new String[] {"Loss modulus E″ (or G″) [Pa]",
+                "The part of the resistance that turns motion into heat, like a shock absorber. Higher means more energy "
+                    + "is lost in each cycle."},
+            new String[] {"Loss tangent tan δ [–]",
+                "E″ divided by E′: how lossy the material is relative to how stiff it is. 0 is a perfect spring; values "
+                    + "near or above 1 mean the material behaves as much like a thick liquid as like a solid. The damping "
+                    + "ranking orders samples by it."},
+            new String[] {"Phase angle δ [°]",
+                "How far the material's response lags behind the imposed motion: 0° for a spring, 90° for a liquid. "
+                    + "tan δ is the tangent of this angle."},
+            new String[] {"|E*| [Pa]", "The overall stiffness, combining E′ and E″: sqrt(E′² + E″²)."},
+            new String[] {"Tensile (E) and shear (G)",
+                "Indentation, tension and compression give E; rotational rheometers give G. For a material that keeps its "
+                    + "volume, E ≈ 3G; in general E = 2(1 + ν)G with Poisson's ratio ν. tan δ is the same on both."},
+            new String[] {"Frequency [Hz]", "Oscillations per second. Angular frequency ω = 2π × frequency, in rad/s."},
+            new String[] {"Model", "A small set of springs and dashpots (or power-law elements) whose E′ and E″ are fitted to the "
+                    + "measured curves. springpot: a power law, tan δ constant. maxwell: a liquid with one relaxation time. "
+                    + "kelvin-voigt: a solid with a parallel damper. zener: a solid with one relaxation between two plateaus."},
+            new String[] {"Standard error and 95 % interval",
+                "How precisely the data pin down a parameter. The interval would contain the true value in about 95 % of "
+                    + "repeated experiments if the model is right. A parameter flagged 'not determined by the data' is not "
+                    + "pinned down by the measured frequencies and should not be quoted."},
+            new String[] {"AICc and Akaike weight",
+                "A score that balances how well a model fits against how many parameters it uses (lower AICc is better). "
+                    + "The Akaike weight is the relative support for each model among those fitted; the weights of one sample "
+                    + "add up to 1. Models within 2 AICc units of the best are about as well supported."},
+            new String[] {"RSS and RMS misfit",
+                "Residual sum of squares of the natural-log differences between model and data; the RMS misfit is its root "
+                    + "mean square, roughly the typical relative misfit (0.05 ≈ 5 %)."});
+
+    /** What each sheet holds. */
+    public static final List<String[]> SHEETS = List.of(
+            new String[] {"Summary", "One row per sample: what was measured, tan δ at the reference frequency, the best-supported model."},
+            new String[] {"Damping ranking", "Samples ordered by tan δ at the reference frequency, highest damping first, with 95 % intervals over replicates."},
+            new String[] {"Model fits", "Every model fitted to every sample: parameters with units, standard errors, 95 % intervals, AICc and Akaike weights."},
+            new String[] {"Data", "Every measured point as read, in SI units, with its file and line."},
+            new String[] {"Reference library", "The reference materials available for comparison (when a library was given)."},
+            new String[] {"Provenance", "Tool version, the full command line, each input file with its SHA-256 checksum, every setting, and every warning."});
+}

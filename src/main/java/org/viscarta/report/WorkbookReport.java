@@ -1,0 +1,337 @@
+package org.viscarta.report;
+
+import java.io.IOException;
+import java.io.OutputStream;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.apache.poi.ss.usermodel.Cell;
+import org.apache.poi.ss.usermodel.CellStyle;
+import org.apache.poi.ss.usermodel.Font;
+import org.apache.poi.ss.usermodel.Row;
+import org.apache.poi.ss.usermodel.Sheet;
+import org.apache.poi.ss.usermodel.Workbook;
+import org.apache.poi.xssf.streaming.SXSSFWorkbook;
+import org.viscarta.Campaign;
+import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.fit.FitResult;
+import org.viscarta.fit.ModelSelection;
+import org.viscarta.fit.ParameterEstimate;
+import org.viscarta.io.ReadWarning;
+import org.viscarta.io.SweepFile;
+import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * Writes the report workbook: Read me, Summary, Damping ranking, Model fits, Data, Reference
+ * library and Provenance. Numbers are numeric cells; every header carries its unit. Streams rows
+ * (SXSSF) so that large campaigns fit in memory.
+ */
+public final class WorkbookReport {
+
+    /** Everything the workbook shows. */
+    public record Content(Campaign campaign, List<Campaign.SampleFits> fits, List<Campaign.RankRow> ranking,
+                          ReferenceLibrary library, Provenance provenance) {
+    }
+
+    private WorkbookReport() {
+    }
+
+    /** Writes the workbook to {@code out} (the caller closes it). */
+    public static void write(Content c, OutputStream out) throws IOException {
+        try (SXSSFWorkbook wb = new SXSSFWorkbook(200)) {
+            wb.setCompressTempFiles(true);
+            Styles st = new Styles(wb);
+            readMe(wb, st, c);
+            summary(wb, st, c);
+            ranking(wb, st, c);
+            modelFits(wb, st, c);
+            data(wb, st, c);
+            library(wb, st, c);
+            provenance(wb, st, c);
+            wb.write(out);
+            wb.dispose();
+        }
+    }
+
+    /** Cell styles, created once per workbook. */
+    private static final class Styles {
+        final CellStyle title;
+        final CellStyle header;
+        final CellStyle wrap;
+        final CellStyle bold;
+
+        Styles(Workbook wb) {
+            Font big = wb.createFont();
+            big.setBold(true);
+            big.setFontHeightInPoints((short) 14);
+            title = wb.createCellStyle();
+            title.setFont(big);
+            Font b = wb.createFont();
+            b.setBold(true);
+            header = wb.createCellStyle();
+            header.setFont(b);
+            header.setWrapText(true);
+            bold = wb.createCellStyle();
+            bold.setFont(b);
+            bold.setWrapText(true);
+            bold.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
+            wrap = wb.createCellStyle();
+            wrap.setWrapText(true);
+            wrap.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
+        }
+    }
+
+    /** Appends rows to a sheet; numbers go in as numeric cells, NaN as an empty cell. */
+    private static final class Rows {
+        private final Sheet sheet;
+        private int next;
+
+        Rows(Sheet sheet) {
+            this.sheet = sheet;
+        }
+
+        Row row(Object... values) {
+            Row r = sheet.createRow(next++);
+            for (int i = 0; i < values.length; i++) {
+                Object v = values[i];
+                if (v == null) {
+                    continue;
+                }
+                Cell cell = r.createCell(i);
+                if (v instanceof Number n) {
+                    double d = n.doubleValue();
+                    if (Double.isFinite(d)) {
+                        cell.setCellValue(d);
+                    }
+                } else if (v instanceof Boolean b) {
+                    cell.setCellValue(b);
+                } else {
+                    cell.setCellValue(v.toString());
+                }
+            }
+            return r;
+        }
+
+        Row styled(CellStyle style, Object... values) {
+            Row r = row(values);
+            for (Cell cell : r) {
+                cell.setCellStyle(style);
+            }
+            return r;
+        }
+
+        void blank() {
+            next++;
+        }
+    }
+
+    private static Sheet sheet(Workbook wb, String name, int... widths) {
+        Sheet s = wb.createSheet(name);
+        for (int i = 0; i < widths.length; i++) {
+            s.setColumnWidth(i, widths[i] * 256);
+        }
+        return s;
+    }
+
+    private static void freezeHeader(Sheet s) {
+        s.createFreezePane(0, 1);
+    }
+
+    private static void readMe(Workbook wb, Styles st, Content c) {
+        Sheet s = sheet(wb, "Read me", 34, 110);
+        Rows rows = new Rows(s);
+        rows.styled(st.title, "Viscarta report: oscillatory measurements of soft, lossy materials");
+        rows.blank();
+        rows.row("What this is", "Frequency sweeps of " + c.campaign().samples().size() + " sample(s) from "
+                + c.campaign().files().size() + " file(s), each fitted with viscoelastic models, and ranked by damping (tan δ) at "
+                + Campaign.plain(c.campaign().settings().atHz()) + " Hz. Every number can be traced to its input file "
+                + "and line (sheet Data) and to the command that made it (sheet Provenance).").getCell(1).setCellStyle(st.wrap);
+        if (isDemo(c)) {
+            rows.row("Demo data", "The inputs say they are invented demo data, generated from known models with noise. "
+                    + "They are not measurements of real materials.").getCell(1).setCellStyle(st.wrap);
+        }
+        rows.blank();
+        rows.styled(st.header, "Sheet", "What it holds");
+        for (String[] sh : Texts.SHEETS) {
+            rows.row(sh[0], sh[1]).getCell(1).setCellStyle(st.wrap);
+        }
+        rows.blank();
+        rows.styled(st.header, "Term", "Meaning");
+        for (String[] d : Texts.DEFINITIONS) {
+            Row r = rows.row(d[0], d[1]);
+            r.getCell(0).setCellStyle(st.bold);
+            r.getCell(1).setCellStyle(st.wrap);
+        }
+        rows.blank();
+        rows.styled(st.header, "Cautions");
+        for (String caution : Texts.CAUTIONS) {
+            rows.row("", caution).getCell(1).setCellStyle(st.wrap);
+        }
+        List<String> warnings = warningTexts(c);
+        if (!warnings.isEmpty()) {
+            rows.blank();
+            rows.styled(st.header, "Warnings", "(" + warnings.size() + "; also listed in Provenance)");
+            for (String w : warnings) {
+                rows.row("", w).getCell(1).setCellStyle(st.wrap);
+            }
+        }
+    }
+
+    private static boolean isDemo(Content c) {
+        for (SweepFile f : c.campaign().files()) {
+            for (String v : f.info().metadata().values()) {
+                if (v.toLowerCase(Locale.ROOT).contains("demo data")) {
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
+    private static List<String> warningTexts(Content c) {
+        List<String> out = new ArrayList<>();
+        for (ReadWarning w : c.campaign().warnings()) {
+            out.add(w.toString());
+        }
+        out.addAll(c.campaign().notes());
+        return out;
+    }
+
+    private static String atHeader(Content c, String what) {
+        return what + " at " + Campaign.plain(c.campaign().settings().atHz()) + " Hz";
+    }
+
+    private static void summary(Workbook wb, Styles st, Content c) {
+        Sheet s = sheet(wb, "Summary", 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 16, 14, 14, 60);
+        Rows rows = new Rows(s);
+        rows.styled(st.header, "sample", "group", "modulus basis", "temperature [°C]", "replicates", "points",
+                "lowest frequency [Hz]", "highest frequency [Hz]", atHeader(c, "tan δ [–]"), "tan δ 95 % CI low [–]",
+                "tan δ 95 % CI high [–]", "best-supported model", "Akaike weight of best [–]", "RMS log misfit of best [–]",
+                "notes");
+        freezeHeader(s);
+        for (Campaign.SampleFits sf : c.fits()) {
+            Campaign.Sample smp = sf.sample();
+            Campaign.RankRow rr = c.ranking().stream().filter(r -> r.sample().equals(smp)).findFirst().orElse(null);
+            ReplicateSummary t = rr == null ? null : rr.tanDelta();
+            ModelSelection.Ranked best = sf.fits().stream().filter(ModelSelection.Ranked::best).findFirst().orElse(null);
+            List<String> notes = new ArrayList<>();
+            if (rr != null && !rr.note().isEmpty()) {
+                notes.add(rr.note());
+            }
+            if (best == null) {
+                notes.add("no model converged");
+            } else {
+                best.fit().parameters().stream().filter(ParameterEstimate::undetermined)
+                        .forEach(p -> notes.add(best.fit().model() + " " + p.name() + ": " + p.note()));
+            }
+            int points = smp.replicates().stream().mapToInt(x -> x.points().size()).sum();
+            rows.row(smp.name(), smp.group(), smp.kind() + " (" + smp.kind().letter() + ")", smp.temperatureC(),
+                    smp.replicates().size(), points, smp.minFrequencyHz(), smp.maxFrequencyHz(),
+                    t == null ? null : t.mean(), t == null ? null : t.ci95Low(), t == null ? null : t.ci95High(),
+                    best == null ? "none converged" : best.fit().model(), best == null ? null : best.weight(),
+                    best == null ? null : best.fit().rmsLogResidual(), String.join("; ", notes));
+        }
+    }
+
+    private static void ranking(Workbook wb, Styles st, Content c) {
+        Sheet s = sheet(wb, "Damping ranking", 7, 28, 16, 12, 14, 14, 12, 14, 14, 18, 18, 30, 60);
+        Rows rows = new Rows(s);
+        rows.styled(st.header, "rank", "sample", "group", "replicates", "frequency [Hz]", "tan δ mean [–]", "tan δ SD [–]",
+                "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]", "storage modulus mean [Pa]", "loss modulus mean [Pa]",
+                "value from", "note");
+        freezeHeader(s);
+        for (Campaign.RankRow r : c.ranking()) {
+            ReplicateSummary t = r.tanDelta();
+            rows.row(r.rank() == 0 ? null : r.rank(), r.sample().name(), r.sample().group(),
+                    t == null ? r.sample().replicates().size() : t.n(), c.campaign().settings().atHz(),
+                    t == null ? null : t.mean(), t == null ? null : t.sd(), t == null ? null : t.ci95Low(),
+                    t == null ? null : t.ci95High(), r.storage(), r.loss(), r.source().description(), r.note());
+        }
+    }
+
+    private static void modelFits(Workbook wb, Styles st, Content c) {
+        Sheet s = sheet(wb, "Model fits", 28, 16, 10, 10, 14, 14, 14, 14, 12, 12, 10, 12, 8, 11, 70);
+        Rows rows = new Rows(s);
+        rows.styled(st.header, "sample", "model", "parameter", "unit", "value", "standard error", "95 % CI low",
+                "95 % CI high", "RSS (log residuals) [–]", "AICc [–]", "ΔAICc [–]", "Akaike weight [–]", "best",
+                "converged", "note");
+        freezeHeader(s);
+        for (Campaign.SampleFits sf : c.fits()) {
+            for (ModelSelection.Ranked rk : sf.fits()) {
+                FitResult f = rk.fit();
+                for (ParameterEstimate p : f.parameters()) {
+                    rows.row(f.sample(), f.model(), p.name(), p.unit(), p.value(), p.stdError(), p.ci95Low(), p.ci95High(),
+                            f.rss(), f.aicc(), rk.deltaAicc(), rk.weight(), rk.best(), f.converged(),
+                            f.converged() ? p.note() : f.message());
+                }
+            }
+        }
+    }
+
+    private static void data(Workbook wb, Styles st, Content c) {
+        Sheet s = sheet(wb, "Data", 28, 10, 16, 34, 7, 14, 16, 16, 16, 12, 16, 12, 10, 14);
+        Rows rows = new Rows(s);
+        rows.styled(st.header, "sample", "replicate", "group", "file", "line", "frequency [Hz]",
+                "angular frequency [rad/s]", "storage modulus [Pa]", "loss modulus [Pa]", "tan δ [–]", "|E*| or |G*| [Pa]",
+                "phase angle [°]", "basis", "temperature [°C]");
+        freezeHeader(s);
+        for (Campaign.Sample smp : c.campaign().samples()) {
+            for (Sweep sw : smp.replicates()) {
+                String file = sw.source().toString();
+                for (SweepPoint p : sw.points()) {
+                    rows.row(smp.name(), sw.replicate(), sw.group(), file, p.line(), p.frequencyHz(), p.omega(),
+                            p.storage(), p.loss(), p.lossTangent(), p.magnitude(), Math.toDegrees(p.phaseAngle()),
+                            sw.kind().letter(), sw.temperatureC());
+                }
+            }
+        }
+    }
+
+    private static void library(Workbook wb, Styles st, Content c) {
+        Sheet s = sheet(wb, "Reference library", 30, 14, 16, 16, 14, 14, 8, 40, 66);
+        Rows rows = new Rows(s);
+        rows.styled(st.header, "name", "class", "temperature [°C]", "method", "lowest frequency [Hz]",
+                "highest frequency [Hz]", "points", "file", "SHA-256");
+        freezeHeader(s);
+        if (c.library() == null) {
+            rows.row("(no reference library was given: pass --library DIR)");
+            return;
+        }
+        for (ReferenceLibrary.Entry e : c.library().entries()) {
+            Sweep sw = e.sweep();
+            rows.row(e.name(), e.clazz(), sw.temperatureC(), sw.meta("method").orElse(""), sw.minFrequencyHz(),
+                    sw.maxFrequencyHz(), sw.points().size(), e.file().toString(), e.sha256());
+        }
+    }
+
+    private static void provenance(Workbook wb, Styles st, Content c) {
+        Sheet s = sheet(wb, "Provenance", 30, 60, 24, 12, 12, 14, 66);
+        Rows rows = new Rows(s);
+        Provenance p = c.provenance();
+        rows.styled(st.title, "Provenance");
+        rows.row("tool", "Viscarta " + p.toolVersion());
+        rows.row("command line", p.commandLine()).getCell(1).setCellStyle(st.wrap);
+        rows.row("run at (UTC)", p.runAtUtc());
+        rows.row("Java runtime", System.getProperty("java.version"));
+        rows.blank();
+        rows.styled(st.header, "setting", "value");
+        for (Map.Entry<String, String> e : p.settings().entrySet()) {
+            rows.row(e.getKey(), e.getValue());
+        }
+        rows.blank();
+        rows.styled(st.header, "input file", "SHA-256", "layout", "separator", "decimal mark", "encoding", "sweeps");
+        for (SweepFile f : c.campaign().files()) {
+            rows.row(f.path().toString(), f.sha256(), f.info().layout(), f.info().separatorName(),
+                    String.valueOf(f.info().decimalMark()), f.info().encoding(), f.sweeps().size());
+        }
+        rows.blank();
+        List<String> warnings = warningTexts(c);
+        rows.styled(st.header, "warnings and conversions (" + warnings.size() + ")");
+        for (String w : warnings) {
+            rows.row(w);
+        }
+    }
+}
