@@ -1,6 +1,6 @@
 package org.viscarta.compare;
 
-import org.apache.commons.math3.distribution.TDistribution;
+import org.viscarta.fit.StudentT;
 
 /**
  * Mean, sample standard deviation and 95 % Student-t interval of replicate values
@@ -33,7 +33,7 @@ public record ReplicateSummary(int n, double mean, double sd, double ci95Low, do
             ss += (v - mean) * (v - mean);
         }
         double sd = Math.sqrt(ss / (n - 1));
-        double half = new TDistribution(n - 1).inverseCumulativeProbability(0.975) * sd / Math.sqrt(n);
+        double half = StudentT.quantile975(n - 1) * sd / Math.sqrt(n);
         return new ReplicateSummary(n, mean, sd, mean - half, mean + half);
     }
 }

@@ -3,7 +3,6 @@ package org.viscarta.fit;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.apache.commons.math3.distribution.TDistribution;
 import org.viscarta.model.ParameterSpec;
 import org.viscarta.model.Transform;
 import org.viscarta.model.ViscoelasticModel;
@@ -120,7 +119,7 @@ public final class ModelFitter {
         double[] u = sol.params();
         double[][] cov = sol.covariance();
         double rss = Math.max(sol.rss(), Double.MIN_NORMAL);
-        double tq = new TDistribution(n - p).inverseCumulativeProbability(0.975);
+        double tq = StudentT.quantile975(n - p);
         double[][] corr = null;
         if (cov != null) {
             corr = new double[p][p];
