@@ -1,0 +1,264 @@
+package org.viscarta.io;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.charset.Charset;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.viscarta.sweep.ModulusKind;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+
+/** Reading sweep tables: every supported layout, unit and dialect, and every kind of bad input. */
+class SweepReaderTest {
+
+    @TempDir
+    Path dir;
+
+    private final SweepReader reader = new SweepReader(null);
+
+    private Path write(String name, String text) throws IOException {
+        Path p = dir.resolve(name);
+        Files.writeString(p, text, StandardCharsets.UTF_8);
+        return p;
+    }
+
+    private SweepFile read(String text) throws IOException {
+        return reader.read(write("s.csv", text));
+    }
+
+    private InputException bad(String text) throws IOException {
+        Path p = write("bad.csv", text);
+        InputException e = assertThrows(InputException.class, () -> reader.read(p));
+        assertEquals(p, e.file());
+        assertTrue(e.getMessage().startsWith(p + ":"), e.getMessage());
+        assertFalse(e.getMessage().contains("\n"), "one line: " + e.getMessage());
+        return e;
+    }
+
+    @Test
+    void readsOneSampleWithMetadataInSiUnits() throws IOException {
+        SweepFile f = read("""
+                # sample: alkyd-B-aged-1500h
+                # material: alkyd paint film
+                # temperature: 23 °C
+                # method: indentation
+                # geometry: sphere; tip_radius: 50 µm; indentation_depth: 4 µm; poisson_ratio: 0.35
+                frequency [Hz],storage_modulus [MPa],loss_modulus [MPa]
+                0.1,112.0,9.8
+                1,120.5,12.25
+                """);
+        assertEquals("one sample per file", f.info().layout());
+        assertEquals(6, f.info().headerLine());
+        Sweep s = f.sweeps().get(0);
+        assertEquals("alkyd-B-aged-1500h", s.sample());
+        assertEquals(23.0, s.temperatureC());
+        assertEquals("50 µm", s.metadata().get("tip_radius"));
+        assertEquals(0.35, s.poissonRatio().orElseThrow());
+        assertEquals(112.0e6, s.points().get(0).storage(), 1e-6);
+        assertEquals(12.25e6, s.points().get(1).loss(), 1e-6);
+        assertEquals(8, s.points().get(1).line());
+        assertEquals(ModulusKind.TENSILE, s.kind());
+    }
+
+    @Test
+    void unnamedSampleTakesTheFileNameAndWarnsAboutUnstatedBasis() throws IOException {
+        SweepFile f = reader.read(write("gel-A.csv", "frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,100,10\n"));
+        assertEquals("gel-A", f.sweeps().get(0).sample());
+        assertTrue(f.warnings().stream().anyMatch(w -> w.message().contains("taken as tensile")));
+    }
+
+    @Test
+    void readsTheTidyMultiSampleLayout() throws IOException {
+        SweepFile f = read("""
+                sample,replicate,group,frequency [Hz],storage_modulus [kPa],loss_modulus [kPa]
+                gel-1,1,agarose,0.1,10,1
+                gel-1,1,agarose,1,11,1.2
+                gel-1,2,agarose,0.1,10.5,1.1
+                gel-1,2,agarose,1,11.5,1.3
+                gel-2,1,gelatin,0.1,3,0.5
+                gel-2,1,gelatin,1,3.2,0.6
+                """);
+        assertEquals("tidy multi-sample table", f.info().layout());
+        assertEquals(3, f.sweeps().size());
+        assertEquals(List.of("gel-1/1/agarose", "gel-1/2/agarose", "gel-2/1/gelatin"),
+                f.sweeps().stream().map(s -> s.sample() + "/" + s.replicate() + "/" + s.group()).toList());
+        assertEquals(11.5e3, f.sweeps().get(1).points().get(1).storage(), 1e-9);
+    }
+
+    @Test
+    void tidyTemperatureColumnSplitsSweeps() throws IOException {
+        SweepFile f = read("""
+                sample,temperature [°C],frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]
+                film,10,1,500,50
+                film,10,2,520,55
+                film,30,1,300,60
+                """);
+        assertEquals(2, f.sweeps().size());
+        assertEquals(30.0, f.sweeps().get(1).temperatureC());
+    }
+
+    @ParameterizedTest(name = "{0} → ×{1}")
+    @CsvSource({"Pa,1", "kPa,1e3", "MPa,1e6", "GPa,1e9", "N/mm²,1e6", "N/m²,1"})
+    void convertsModulusUnitsToPascal(String unit, double factor) throws IOException {
+        SweepFile f = read("frequency [Hz],storage_modulus [" + unit + "],loss_modulus (" + unit + ")\n1,2.5,0.5\n");
+        SweepPoint p = f.sweeps().get(0).points().get(0);
+        assertEquals(2.5 * factor, p.storage(), 1e-12 * factor);
+        assertEquals(0.5 * factor, p.loss(), 1e-12 * factor);
+    }
+
+    @ParameterizedTest(name = "{0} {1} → Hz")
+    @CsvSource({"frequency,Hz,2,2", "frequency,kHz,2,2000", "f,Hz,3,3", "angular_frequency,rad/s,6.283185307179586,1",
+        "omega,rad/s,12.566370614359172,2", "frequency,rad/s,6.283185307179586,1"})
+    void convertsFrequencyUnitsToHertz(String name, String unit, double value, double hz) throws IOException {
+        SweepFile f = read(name + " [" + unit + "],storage_modulus [Pa],loss_modulus [Pa]\n" + value + ",100,10\n");
+        assertEquals(hz, f.sweeps().get(0).points().get(0).frequencyHz(), 1e-12 * hz);
+    }
+
+    @Test
+    void lossTangentWithMagnitudeGivesBothModuli() throws IOException {
+        SweepFile f = read("frequency [Hz],complex_modulus_magnitude [kPa],loss_tangent\n1,5,0.75\n");
+        SweepPoint p = f.sweeps().get(0).points().get(0);
+        // |E*| = 5 kPa, tan δ = 3/4 ⇒ E′ = 4 kPa, E″ = 3 kPa (3-4-5 triangle)
+        assertEquals(4000, p.storage(), 1e-9);
+        assertEquals(3000, p.loss(), 1e-9);
+    }
+
+    @ParameterizedTest(name = "phase in {0}")
+    @CsvSource({"deg,30", "°,30", "rad,0.5235987755982988"})
+    void phaseAngleWithMagnitudeGivesBothModuli(String unit, double phase) throws IOException {
+        SweepFile f = read("frequency [Hz],|E*| [Pa],phase_angle [" + unit + "]\n1,1000," + phase + "\n");
+        SweepPoint p = f.sweeps().get(0).points().get(0);
+        assertEquals(1000 * Math.sqrt(3) / 2, p.storage(), 1e-9);
+        assertEquals(500, p.loss(), 1e-9);
+    }
+
+    @Test
+    void shearHeadersAndMetadataGiveShearModuli() throws IOException {
+        assertEquals(ModulusKind.SHEAR, read("frequency [Hz],G' [Pa],G'' [Pa]\n1,100,10\n").sweeps().get(0).kind());
+        assertEquals(ModulusKind.SHEAR, read("frequency [Hz],G′ [Pa],G″ [Pa]\n1,100,10\n").sweeps().get(0).kind());
+        assertEquals(ModulusKind.SHEAR, read("# modulus: shear\nfrequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,100,10\n")
+                .sweeps().get(0).kind());
+        assertEquals(ModulusKind.TENSILE, read("frequency [Hz],E′ [Pa],E″ [Pa]\n1,100,10\n").sweeps().get(0).kind());
+    }
+
+    @Test
+    void readsSemicolonsWithDecimalCommaAndAByteOrderMark() throws IOException {
+        Path p = dir.resolve("eu.csv");
+        byte[] body = "frequency [Hz];storage_modulus [kPa];loss_modulus [kPa]\r\n0,5;12,5;1,25\r\n1;13;1,5\r\n"
+                .getBytes(StandardCharsets.UTF_8);
+        byte[] withBom = new byte[body.length + 3];
+        withBom[0] = (byte) 0xEF;
+        withBom[1] = (byte) 0xBB;
+        withBom[2] = (byte) 0xBF;
+        System.arraycopy(body, 0, withBom, 3, body.length);
+        Files.write(p, withBom);
+        SweepFile f = reader.read(p);
+        assertEquals(';', f.info().separator());
+        assertEquals(',', f.info().decimalMark());
+        assertEquals("UTF-8 with byte-order mark", f.info().encoding());
+        assertEquals(12500, f.sweeps().get(0).points().get(0).storage(), 1e-9);
+        assertEquals(0.5, f.sweeps().get(0).points().get(0).frequencyHz());
+    }
+
+    @Test
+    void readsTabsAndWindows1252() throws IOException {
+        Path p = dir.resolve("tab.txt");
+        Files.write(p, "# geometry: sphere; tip_radius: 25 µm\nfrequency [Hz]\tstorage_modulus [Pa]\tloss_modulus [Pa]\n1\t100\t10\n"
+                .getBytes(Charset.forName("windows-1252")));
+        SweepFile f = reader.read(p);
+        assertEquals('\t', f.info().separator());
+        assertEquals("windows-1252", f.info().encoding());
+        assertEquals("25 µm", f.info().metadata().get("tip_radius"));
+    }
+
+    @Test
+    void keepsNonPositiveLossWithAWarningAndSortsRows() throws IOException {
+        SweepFile f = read("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n10,120,-1\n1,100,10\n1,101,11\n");
+        Sweep s = f.sweeps().get(0);
+        assertEquals(3, s.points().size());
+        assertEquals(1.0, s.points().get(0).frequencyHz());
+        assertEquals(2, s.fittablePoints().size());
+        assertTrue(f.warnings().stream().anyMatch(w -> w.line() == 2 && w.message().contains("not positive")));
+        assertTrue(f.warnings().stream().anyMatch(w -> w.message().contains("appears twice")));
+    }
+
+    @Test
+    void rejectsNonNumericCellWithFileLineAndColumn() throws IOException {
+        InputException e = bad("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,100,10\n2,abc,12\n");
+        assertEquals(3, e.line());
+        assertEquals(2, e.column());
+        assertTrue(e.problem().contains("'abc'"), e.problem());
+    }
+
+    @Test
+    void rejectsMissingFrequencyColumn() throws IOException {
+        InputException e = bad("# sample: x\nstorage_modulus [Pa],loss_modulus [Pa]\n100,10\n");
+        assertEquals(2, e.line());
+        assertTrue(e.problem().contains("no frequency column"), e.problem());
+    }
+
+    @Test
+    void rejectsNegativeFrequencyWithFileAndLine() throws IOException {
+        InputException e = bad("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,100,10\n-2,110,12\n");
+        assertEquals(3, e.line());
+        assertEquals(1, e.column());
+    }
+
+    @Test
+    void rejectsAnEmptyFile() throws IOException {
+        InputException e = bad("");
+        assertEquals(1, e.line());
+        assertTrue(e.problem().contains("empty"), e.problem());
+    }
+
+    @Test
+    void rejectsAnUnknownUnitNamingTheHeader() throws IOException {
+        InputException e = bad("frequency [Hz],storage_modulus [psi],loss_modulus [Pa]\n1,100,10\n");
+        assertEquals(1, e.line());
+        assertEquals(2, e.column());
+        assertTrue(e.problem().contains("'psi'") && e.problem().contains("kPa"), e.problem());
+    }
+
+    @Test
+    void rejectsAnUnknownHeader() throws IOException {
+        InputException e = bad("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],colour\n1,100,10,red\n");
+        assertEquals(4, e.column());
+    }
+
+    @Test
+    void rejectsARowWithMissingCells() throws IOException {
+        InputException e = bad("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,100\n");
+        assertEquals(2, e.line());
+    }
+
+    @Test
+    void rejectsZeroStorageModulus() throws IOException {
+        InputException e = bad("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,0,10\n");
+        assertEquals(2, e.line());
+        assertEquals(2, e.column());
+    }
+
+    @Test
+    void rejectsHeaderOnly() throws IOException {
+        InputException e = bad("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+        assertEquals(1, e.line());
+    }
+
+    @Test
+    void rejectsSpreadsheetFilesWithAClearMessage() throws IOException {
+        Path p = write("book.xlsx", "not really a workbook");
+        InputException e = assertThrows(InputException.class, () -> reader.read(p));
+        assertTrue(e.problem().contains("save the sheet as CSV"), e.problem());
+    }
+}
