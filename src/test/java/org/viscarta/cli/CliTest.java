@@ -1,0 +1,247 @@
+package org.viscarta.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.stream.Stream;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
+import org.apache.poi.ss.usermodel.Cell;
+import org.apache.poi.ss.usermodel.CellType;
+import org.apache.poi.ss.usermodel.Row;
+import org.apache.poi.ss.usermodel.Sheet;
+import org.apache.poi.ss.usermodel.Workbook;
+import org.apache.poi.ss.usermodel.WorkbookFactory;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+
+/** End-to-end runs of the command line, outputs in a temporary folder. */
+class CliTest {
+
+    @TempDir
+    Path dir;
+
+    private static final String HEADER = "frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n";
+
+    private Path write(String name, String text) throws IOException {
+        Path p = dir.resolve(name);
+        Files.createDirectories(p.getParent());
+        Files.writeString(p, text, StandardCharsets.UTF_8);
+        return p;
+    }
+
+    /** A zener sweep, noise-free, 0.1–10 Hz at five points per decade (1 Hz is one of them), in one file. */
+    private Path zenerFile(String name, double er, double e1, double tau) throws IOException {
+        StringBuilder sb = new StringBuilder("# sample: " + name + "\n# modulus: tensile\n" + HEADER);
+        for (int i = 0; i <= 10; i++) {
+            double f = 0.1 * Math.pow(10, i / 5.0);
+            double x = 2 * Math.PI * f * tau;
+            sb.append(f).append(',').append(er + e1 * x * x / (1 + x * x)).append(',').append(e1 * x / (1 + x * x)).append('\n');
+        }
+        return write(name + ".csv", sb.toString());
+    }
+
+    private List<Path> filesIn(Path d) throws IOException {
+        if (!Files.exists(d)) {
+            return List.of();
+        }
+        try (Stream<Path> s = Files.walk(d)) {
+            return s.filter(Files::isRegularFile).toList();
+        }
+    }
+
+    private static List<CSVRecord> csv(Path p) throws IOException {
+        try (CSVParser parser = CSVParser.parse(p, StandardCharsets.UTF_8, CSVFormat.DEFAULT)) {
+            return parser.getRecords();
+        }
+    }
+
+    @Test
+    void helpListsVerbsAndExitCodes() {
+        CliRun r = CliRun.of("--help");
+        assertEquals(0, r.exitCode());
+        for (String s : List.of("inspect", "fit", "rank", "report", "Exit codes", "0   success", "2   bad usage or bad input")) {
+            assertTrue(r.out().contains(s), s + " missing from:\n" + r.out());
+        }
+    }
+
+    @Test
+    void versionPrintsTheProjectVersion() {
+        CliRun r = CliRun.of("--version");
+        assertEquals(0, r.exitCode());
+        assertTrue(r.out().startsWith("Viscarta "), r.out());
+        assertFalse(r.out().contains("unknown"), r.out());
+    }
+
+    @Test
+    void unknownOptionIsUsageErrorExitTwo() {
+        CliRun r = CliRun.of("fit", "--no-such-option", "x.csv");
+        assertEquals(2, r.exitCode());
+        assertTrue(r.err().contains("Unknown option"), r.err());
+    }
+
+    @Test
+    void badFrequencyUnitIsUsageErrorExitTwo() throws IOException {
+        CliRun r = CliRun.of("rank", "--at", "3 furlongs", zenerFile("a", 1e3, 2e3, 0.1).toString());
+        assertEquals(2, r.exitCode());
+        assertTrue(r.err().contains("furlongs"), r.err());
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @CsvSource(delimiter = '|', value = {
+        "non-numeric cell|frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\\n1,100,10\\n2,x1,12\\n|:3:2: ",
+        "missing frequency column|storage_modulus [Pa],loss_modulus [Pa]\\n100,10\\n|:1: ",
+        "negative frequency|frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\\n-1,100,10\\n|:2:1: ",
+        "empty file||:1: ",
+        "unknown unit|frequency [Hz],storage_modulus [bar],loss_modulus [Pa]\\n1,100,10\\n|:1:2: "})
+    void badInputGivesExitTwoAFileLineMessageAndNoOutput(String what, String content, String location) throws IOException {
+        Path in = write("bad.csv", content == null ? "" : content.replace("\\n", "\n"));
+        Path out = dir.resolve("out");
+        for (String[] args : List.of(
+                new String[] {"report", in.toString(), "--out", out.toString()},
+                new String[] {"fit", in.toString(), "-o", out.resolve("fits.csv").toString()},
+                new String[] {"rank", in.toString(), "-o", out.resolve("rank.csv").toString()},
+                new String[] {"inspect", in.toString()})) {
+            CliRun r = CliRun.of(args);
+            assertEquals(2, r.exitCode(), what + " / " + args[0] + ": " + r.err());
+            String firstLine = r.err().strip();
+            assertEquals(1, firstLine.lines().count(), "one line on stderr: " + r.err());
+            assertTrue(firstLine.startsWith(in + location), what + ": " + firstLine);
+            assertFalse(r.err().contains("Exception"), r.err());
+            assertTrue(filesIn(out).isEmpty(), "no output left behind: " + filesIn(out));
+        }
+    }
+
+    @Test
+    void missingInputIsExitTwo() {
+        CliRun r = CliRun.of("fit", dir.resolve("nope.csv").toString());
+        assertEquals(2, r.exitCode());
+        assertTrue(r.err().contains("nope.csv: no such file or folder"), r.err());
+    }
+
+    @Test
+    void fitWritesTheDocumentedCsvAndRecoversAZener() throws IOException {
+        Path in = zenerFile("film", 2.0e6, 5.0e6, 0.2);
+        Path out = dir.resolve("fits.csv");
+        CliRun r = CliRun.of("fit", in.toString(), "--models", "zener,maxwell", "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        List<CSVRecord> rows = csv(out);
+        assertEquals(FitCommand.CSV_HEADER, rows.get(0).toList());
+        assertEquals(1 + 3 + 2, rows.size());
+        CSVRecord er = rows.stream().filter(x -> x.get(1).equals("zener") && x.get(2).equals("E_r")).findFirst().orElseThrow();
+        assertEquals(2.0e6, Double.parseDouble(er.get(3)), 1e-6 * 2.0e6);
+        assertEquals("true", er.get(10));
+    }
+
+    @Test
+    void existingOutputIsNotReplacedWithoutForce() throws IOException {
+        Path in = zenerFile("film", 2.0e6, 5.0e6, 0.2);
+        Path out = write("fits.csv", "precious\n");
+        CliRun r = CliRun.of("fit", in.toString(), "-o", out.toString());
+        assertEquals(2, r.exitCode());
+        assertTrue(r.err().contains("--force"), r.err());
+        assertEquals("precious\n", Files.readString(out));
+        assertEquals(0, CliRun.of("fit", in.toString(), "-o", out.toString(), "--force").exitCode());
+        assertTrue(Files.readString(out).startsWith("sample,model"));
+    }
+
+    @Test
+    void rankOrdersByTanDeltaAndWritesTheDocumentedCsv() throws IOException {
+        Path a = zenerFile("stiff", 1.0e6, 0.2e6, 0.1);
+        Path b = zenerFile("lossy", 1.0e6, 3.0e6, 0.1);
+        Path out = dir.resolve("rank.csv");
+        CliRun r = CliRun.of("rank", a.toString(), b.toString(), "--at", "6.283185307179586rad/s", "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        List<CSVRecord> rows = csv(out);
+        assertEquals(RankCommand.CSV_HEADER, rows.get(0).toList());
+        assertEquals("lossy", rows.get(1).get(1));
+        assertEquals("stiff", rows.get(2).get(1));
+        assertEquals(1.0, Double.parseDouble(rows.get(1).get(4)), 1e-12);
+        // 1 Hz is a measured point: tan δ is the zener's own, E1 x/(1+x²) / (Er + E1 x²/(1+x²)) at x = 2π·1 Hz·0.1 s
+        double x = 2 * Math.PI * 0.1;
+        double expected = 3.0e6 * x / (1 + x * x) / (1.0e6 + 3.0e6 * x * x / (1 + x * x));
+        assertEquals(expected, Double.parseDouble(rows.get(1).get(5)), 1e-12 * expected);
+    }
+
+    @Test
+    void rankOutsideTheMeasuredRangeSaysSoUnlessTheModelMaySpeak() throws IOException {
+        Path a = zenerFile("film", 1.0e6, 2.0e6, 0.1);
+        CliRun r = CliRun.of("rank", a.toString(), "--at", "100Hz");
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("outside"), r.out());
+        CliRun m = CliRun.of("rank", a.toString(), "--at", "100Hz", "--model-outside-range");
+        assertTrue(m.out().contains("zener model, not from data"), m.out());
+    }
+
+    @Test
+    void inspectDescribesColumnsAndSamples() throws IOException {
+        Path in = zenerFile("film", 1.0e6, 2.0e6, 0.1);
+        CliRun r = CliRun.of("inspect", in.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("column 2 'storage_modulus [Pa]' -> storage_modulus [Pa]"), r.out());
+        assertTrue(r.out().contains("1 file(s), 1 sample(s)"), r.out());
+    }
+
+    @Test
+    void quickStartReportOnTheDemoDataWritesAReadableWorkbook() throws IOException {
+        // The README's quick start, with the output in a temporary folder.
+        Path out = dir.resolve("demo-report");
+        CliRun r = CliRun.of("report", "demo-data", "--library", "reference-materials", "--basis", "tensile", "--out", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        Path xlsx = out.resolve("report.xlsx");
+        assertTrue(Files.isRegularFile(xlsx));
+        try (InputStream in = Files.newInputStream(xlsx); Workbook wb = WorkbookFactory.create(in)) {
+            List<String> names = new ArrayList<>();
+            wb.forEach(s -> names.add(s.getSheetName()));
+            assertEquals(List.of("Read me", "Summary", "Damping ranking", "Model fits", "Data", "Reference library", "Provenance"), names);
+            Sheet summary = wb.getSheet("Summary");
+            assertEquals(15, summary.getLastRowNum(), "15 demo samples");
+            Sheet data = wb.getSheet("Data");
+            Row first = data.getRow(1);
+            assertEquals(CellType.NUMERIC, first.getCell(5).getCellType(), "frequency stored as a number");
+            assertEquals(CellType.NUMERIC, first.getCell(7).getCellType(), "storage modulus stored as a number");
+            for (Cell h : data.getRow(0)) {
+                String t = h.getStringCellValue();
+                assertTrue(t.contains("[") || List.of("sample", "replicate", "group", "file", "line", "basis").contains(t), "unit in header: " + t);
+            }
+            Sheet ranking = wb.getSheet("Damping ranking");
+            assertEquals(1.0, ranking.getRow(1).getCell(0).getNumericCellValue());
+            assertTrue(ranking.getRow(1).getCell(5).getNumericCellValue() >= ranking.getRow(2).getCell(5).getNumericCellValue());
+            Sheet fits = wb.getSheet("Model fits");
+            assertEquals(CellType.NUMERIC, fits.getRow(1).getCell(4).getCellType());
+            Sheet lib = wb.getSheet("Reference library");
+            assertTrue(lib.getLastRowNum() >= 6, "at least six reference materials");
+            String prov = cells(wb.getSheet("Provenance"));
+            assertTrue(prov.contains("viscarta report demo-data --library reference-materials"), prov);
+            assertTrue(prov.matches("(?s).*[0-9a-f]{64}.*"), "SHA-256 of inputs");
+            String readMe = cells(wb.getSheet("Read me"));
+            assertTrue(readMe.contains("not clinical or structural verdicts"), "cautions");
+            assertTrue(readMe.contains("invented demo data") || readMe.contains("Demo data"), "demo notice");
+        }
+        assertEquals(List.of(xlsx), filesIn(out), "no temporary files left");
+        CliRun again = CliRun.of("report", "demo-data", "--out", out.toString());
+        assertEquals(2, again.exitCode(), "existing report needs --force");
+    }
+
+    private static String cells(Sheet s) {
+        StringBuilder sb = new StringBuilder();
+        for (Row r : s) {
+            for (Cell c : r) {
+                sb.append(c.getCellType() == CellType.STRING ? c.getStringCellValue() : String.valueOf(c)).append('\t');
+            }
+            sb.append('\n');
+        }
+        return sb.toString();
+    }
+}
