@@ -279,7 +279,7 @@ public final class Campaign {
      * @param fits the fits (needed only when the model may speak outside the measured range; may be empty)
      */
     public List<RankRow> rank(List<SampleFits> fits) {
-        Map<Sample, SampleFits> fitBySample = new LinkedHashMap<>();
+        Map<Sample, SampleFits> fitBySample = new java.util.IdentityHashMap<>();
         for (SampleFits f : fits) {
             fitBySample.put(f.sample(), f);
         }

@@ -43,6 +43,17 @@ public final class ModelFitter {
      * @param data   points with positive moduli (use {@code Sweep.fittablePoints()})
      */
     public FitResult fit(String sample, ViscoelasticModel model, List<SweepPoint> data) {
+        if (2 * data.size() <= model.parameterCount()) {
+            return fitFrom(sample, model, data, List.of());
+        }
+        return fitFrom(sample, model, data, model.startValues(data));
+    }
+
+    /**
+     * Fits from the given start values (natural parameters), keeping the lowest residual among
+     * those that converge.
+     */
+    public FitResult fitFrom(String sample, ViscoelasticModel model, List<SweepPoint> data, List<double[]> startValues) {
         List<ParameterSpec> specs = model.parameters();
         int p = specs.size();
         int n = 2 * data.size();
@@ -82,7 +93,7 @@ public final class ModelFitter {
             }
         };
         List<double[]> starts = new ArrayList<>();
-        for (double[] s : model.startValues(data)) {
+        for (double[] s : startValues) {
             double[] u = new double[p];
             boolean ok = true;
             for (int j = 0; j < p; j++) {

@@ -38,7 +38,6 @@ import org.viscarta.sweep.Unit;
  */
 public final class SweepReader {
 
-    private static final Pattern NUMBER = Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
     private static final Pattern DECIMAL_COMMA_CELL = Pattern.compile("[+-]?\\d+,\\d+([eE][+-]?\\d+)?");
     private static final Pattern META_VALUE_WITH_UNIT = Pattern.compile("^\\s*([+-]?[0-9.]+(?:[eE][+-]?\\d+)?)\\s*(.*)$");
 
@@ -104,6 +103,10 @@ public final class SweepReader {
         for (int i = headerIdx; i < lines.length; i++) {
             String l = lines[i];
             if (l.isBlank() || l.stripLeading().startsWith("#")) {
+                continue;
+            }
+            if (l.indexOf('"') < 0) {
+                records.add(new Row(i + 1, splitPlain(l, sep)));
                 continue;
             }
             try (CSVParser parser = CSVParser.parse(l, format)) {
@@ -318,7 +321,7 @@ public final class SweepReader {
             throw new InputException(path, line, c.index() + 1, "empty cell in column '" + c.header()
                     + "'; fill it or remove the row");
         }
-        if (!NUMBER.matcher(t).matches()) {
+        if (!isPlainNumber(t)) {
             throw new InputException(path, line, c.index() + 1, "'" + cell + "' in column '" + c.header()
                     + "' is not a number; write plain numbers such as 1250 or 1.25e3");
         }
@@ -327,6 +330,62 @@ public final class SweepReader {
             throw new InputException(path, line, c.index() + 1, "'" + cell + "' is too large to be a number");
         }
         return c.unit() == null ? v : v * c.unit().toSi();
+    }
+
+    /** Splits a line that holds no quotes at the separator, trimming each cell (the common, fast case). */
+    private static List<String> splitPlain(String line, char sep) {
+        List<String> cells = new ArrayList<>(8);
+        int start = 0;
+        for (int i = 0; i <= line.length(); i++) {
+            if (i == line.length() || line.charAt(i) == sep) {
+                cells.add(line.substring(start, i).strip());
+                start = i + 1;
+            }
+        }
+        return cells;
+    }
+
+    /**
+     * True for plain decimal numbers with an optional sign, fraction and exponent
+     * ({@code [+-]?(d+.?d*|.d+)([eE][+-]?d+)?}); rejects what Double.parseDouble would also take
+     * but a table should not hold (NaN, Infinity, hex, a trailing d or f).
+     */
+    static boolean isPlainNumber(String t) {
+        int n = t.length();
+        int i = 0;
+        if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
+            i++;
+        }
+        int digits = 0;
+        while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
+            i++;
+            digits++;
+        }
+        if (i < n && t.charAt(i) == '.') {
+            i++;
+            while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
+                i++;
+                digits++;
+            }
+        }
+        if (digits == 0) {
+            return false;
+        }
+        if (i < n && (t.charAt(i) == 'e' || t.charAt(i) == 'E')) {
+            i++;
+            if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
+                i++;
+            }
+            int exp = 0;
+            while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
+                i++;
+                exp++;
+            }
+            if (exp == 0) {
+                return false;
+            }
+        }
+        return i == n;
     }
 
     private static String label(Row rec, ColumnSpec c, String fallback, Path path, int line) {

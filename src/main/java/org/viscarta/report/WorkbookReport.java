@@ -3,6 +3,7 @@ package org.viscarta.report;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.util.ArrayList;
+import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -212,9 +213,13 @@ public final class WorkbookReport {
                 "tan δ 95 % CI high [–]", "best-supported model", "Akaike weight of best [–]", "RMS log misfit of best [–]",
                 "notes");
         freezeHeader(s);
+        Map<Campaign.Sample, Campaign.RankRow> rankOf = new IdentityHashMap<>();
+        for (Campaign.RankRow r : c.ranking()) {
+            rankOf.put(r.sample(), r);
+        }
         for (Campaign.SampleFits sf : c.fits()) {
             Campaign.Sample smp = sf.sample();
-            Campaign.RankRow rr = c.ranking().stream().filter(r -> r.sample().equals(smp)).findFirst().orElse(null);
+            Campaign.RankRow rr = rankOf.get(smp);
             ReplicateSummary t = rr == null ? null : rr.tanDelta();
             ModelSelection.Ranked best = sf.fits().stream().filter(ModelSelection.Ranked::best).findFirst().orElse(null);
             List<String> notes = new ArrayList<>();

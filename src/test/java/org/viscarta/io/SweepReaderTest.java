@@ -261,4 +261,17 @@ class SweepReaderTest {
         InputException e = assertThrows(InputException.class, () -> reader.read(p));
         assertTrue(e.problem().contains("save the sheet as CSV"), e.problem());
     }
+
+    @ParameterizedTest(name = "''{0}'' is a number: {1}")
+    @CsvSource({"1,true", "-1.5,true", "+.5,true", "2.,true", "1e3,true", "1.25E-7,true", "NaN,false", "Infinity,false",
+        "1d,false", "0x1p3,false", "1e,false", "'',false", ".,false", "1.2.3,false", "١٢,false"})
+    void acceptsOnlyPlainDecimalNumbers(String text, boolean expected) {
+        assertEquals(expected, SweepReader.isPlainNumber(text));
+    }
+
+    @Test
+    void quotedCellsAreRead() throws IOException {
+        SweepFile f = read("\"sample\",\"frequency [Hz]\",\"storage_modulus [Pa]\",\"loss_modulus [Pa]\"\n\"gel, soft\",1,100,10\n");
+        assertEquals("gel, soft", f.sweeps().get(0).sample());
+    }
 }

@@ -1,0 +1,171 @@
+package org.viscarta.bench;
+
+import java.io.IOException;
+import java.io.OutputStream;
+import java.io.Writer;
+import java.lang.management.ManagementFactory;
+import java.lang.management.MemoryPoolMXBean;
+import java.lang.management.MemoryType;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import java.util.SplittableRandom;
+import org.viscarta.Campaign;
+import org.viscarta.fit.LeastSquaresEngine;
+import org.viscarta.fit.ModelFitter;
+import org.viscarta.io.SweepReader;
+import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.model.Zener;
+import org.viscarta.report.Provenance;
+import org.viscarta.report.WorkbookReport;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * Benchmarks for the targets of PRODUCT.md "Numbers it must reach". Not a test: it measures and
+ * prints. Run from the repository's top folder with
+ *
+ * <pre>mvn -q -B test-compile exec:java -Dexec.mainClass=org.viscarta.bench.Benchmarks -Dexec.classpathScope=test</pre>
+ *
+ * and, for the SciPy comparison, {@code python3 src/test/resources/bench/scipy_zener_fit.py target/bench/zener-sweep.csv}.
+ * Optional argument: the number of sweeps in the campaign benchmark (default 10000).
+ */
+public final class Benchmarks {
+
+    private Benchmarks() {
+    }
+
+    public static void main(String[] args) throws IOException {
+        int campaignSweeps = args.length > 0 ? Integer.parseInt(args[0]) : 10000;
+        Path out = Path.of("target", "bench");
+        Files.createDirectories(out);
+        System.out.printf(Locale.ROOT, "machine: %d cores available to the JVM, max heap %d MB, Java %s, %s %s%n",
+                Runtime.getRuntime().availableProcessors(), Runtime.getRuntime().maxMemory() >> 20,
+                System.getProperty("java.version"), System.getProperty("os.name"), System.getProperty("os.arch"));
+        singleFit(out);
+        reading(out);
+        campaign(out, campaignSweeps);
+    }
+
+    /** One zener sweep, 20 frequencies 0.01–100 Hz, 2 % noise; also written for the SciPy script. */
+    static List<SweepPoint> zenerSweep() {
+        SplittableRandom rng = new SplittableRandom(99);
+        double[] p = {2.0e5, 8.0e5, 0.02};
+        List<SweepPoint> pts = new ArrayList<>();
+        double[] m = new double[2];
+        for (int i = 0; i < 20; i++) {
+            double f = 0.01 * Math.pow(1e4, i / 19.0);
+            new Zener().modulus(2 * Math.PI * f, p, m);
+            pts.add(new SweepPoint(f, m[0] * Math.exp(0.02 * rng.nextGaussian()), m[1] * Math.exp(0.02 * rng.nextGaussian()), 0));
+        }
+        return pts;
+    }
+
+    private static void singleFit(Path out) throws IOException {
+        List<SweepPoint> pts = zenerSweep();
+        StringBuilder sb = new StringBuilder("frequency_hz,storage_pa,loss_pa\n");
+        for (SweepPoint p : pts) {
+            sb.append(p.frequencyHz()).append(',').append(p.storage()).append(',').append(p.loss()).append('\n');
+        }
+        Files.writeString(out.resolve("zener-sweep.csv"), sb.toString());
+        ModelFitter fitter = new ModelFitter(new LeastSquaresEngine(LeastSquaresEngine.Settings.defaults().withMaxEvaluations(1000)));
+        Zener zener = new Zener();
+        for (int i = 0; i < 3000; i++) {
+            fitter.fit("b", zener, pts);
+        }
+        int reps = 2000;
+        long[] ns = new long[reps];
+        double sink = 0;
+        for (int i = 0; i < reps; i++) {
+            long t0 = System.nanoTime();
+            sink += fitter.fit("b", zener, pts).rss();
+            ns[i] = System.nanoTime() - t0;
+        }
+        Arrays.sort(ns);
+        System.out.printf(Locale.ROOT, "zener fit, 20 frequencies, all %d data-derived starts (as `fit` runs it): median %.1f µs, "
+                + "p90 %.1f µs over %d runs (checksum %.6g)%n", zener.startValues(pts).size(), ns[reps / 2] / 1e3,
+                ns[reps * 9 / 10] / 1e3, reps, sink);
+        var first = zener.startValues(pts).get(0);
+        for (int i = 0; i < reps; i++) {
+            long t0 = System.nanoTime();
+            sink += singleStart(fitter, zener, pts, first);
+            ns[i] = System.nanoTime() - t0;
+        }
+        Arrays.sort(ns);
+        System.out.printf(Locale.ROOT, "zener fit, 20 frequencies, one start: median %.1f µs, p90 %.1f µs (checksum %.6g)%n",
+                ns[reps / 2] / 1e3, ns[reps * 9 / 10] / 1e3, sink);
+    }
+
+    private static double singleStart(ModelFitter fitter, Zener zener, List<SweepPoint> pts, double[] start) {
+        return fitter.fitFrom("b", zener, pts, List.of(start)).rss();
+    }
+
+    private static void reading(Path out) throws IOException {
+        Path file = out.resolve("big-tidy.csv");
+        SplittableRandom rng = new SplittableRandom(5);
+        try (Writer w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+            w.write("sample,replicate,group,frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+            for (int s = 0; s < 20000; s++) {
+                for (int i = 0; i < 20; i++) {
+                    w.write(String.format(Locale.ROOT, "sample-%d,%d,g%d,%.6g,%.6g,%.6g%n", s, 1 + s % 3, s % 7,
+                            0.1 * Math.pow(10, i / 10.0), 1e4 * (1 + rng.nextDouble()), 1e3 * (1 + rng.nextDouble())));
+                }
+            }
+        }
+        long bytes = Files.size(file);
+        SweepReader reader = new SweepReader(null);
+        reader.read(file);
+        long t0 = System.nanoTime();
+        int sweeps = reader.read(file).sweeps().size();
+        double s = (System.nanoTime() - t0) / 1e9;
+        System.out.printf(Locale.ROOT, "reading a tidy table: %.1f MB, %d sweeps in %.2f s = %.1f MB/s (one thread)%n",
+                bytes / 1e6, sweeps, s, bytes / 1e6 / s);
+    }
+
+    private static void campaign(Path out, int n) throws IOException {
+        Path dir = out.resolve("campaign");
+        Files.createDirectories(dir);
+        Path file = dir.resolve("sweeps.csv");
+        SplittableRandom rng = new SplittableRandom(8);
+        try (Writer w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+            w.write("# modulus: tensile\nsample,frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+            double[] m = new double[2];
+            for (int s = 0; s < n; s++) {
+                double[] p = {1e4 * (1 + rng.nextDouble()), 3e4 * (1 + rng.nextDouble()), Math.pow(10, rng.nextDouble(-2, 0))};
+                for (int i = 0; i < 12; i++) {
+                    double f = 0.1 * Math.pow(200, i / 11.0);
+                    new Zener().modulus(2 * Math.PI * f, p, m);
+                    w.write(String.format(Locale.ROOT, "s%05d,%.6g,%.6g,%.6g%n", s, f, m[0] * Math.exp(0.02 * rng.nextGaussian()),
+                            m[1] * Math.exp(0.02 * rng.nextGaussian())));
+                }
+            }
+        }
+        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+            pool.resetPeakUsage();
+        }
+        long t0 = System.nanoTime();
+        Campaign c = Campaign.read(List.of(file), Campaign.Settings.defaults());
+        long t1 = System.nanoTime();
+        List<Campaign.SampleFits> fits = c.fit();
+        long t2 = System.nanoTime();
+        List<Campaign.RankRow> ranking = c.rank(fits);
+        ReferenceLibrary lib = ReferenceLibrary.open(Path.of("reference-materials"));
+        Provenance prov = new Provenance("bench", "benchmark", "-", java.util.Map.of());
+        try (OutputStream os = Files.newOutputStream(dir.resolve("report.xlsx"))) {
+            WorkbookReport.write(new WorkbookReport.Content(c, fits, ranking, lib, prov), os);
+        }
+        long t3 = System.nanoTime();
+        long heap = 0;
+        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+            if (pool.getType() == MemoryType.HEAP) {
+                heap += pool.getPeakUsage().getUsed();
+            }
+        }
+        System.out.printf(Locale.ROOT, "campaign: %d sweeps x %d models: read %.2f s, fit %.2f s, rank + workbook %.2f s, "
+                + "total %.2f s wall; peak heap (sum of pool peaks) %d MB%n", n, c.settings().modelIds().size(),
+                (t1 - t0) / 1e9, (t2 - t1) / 1e9, (t3 - t2) / 1e9, (t3 - t0) / 1e9, heap >> 20);
+    }
+}
