@@ -43,7 +43,6 @@ public final class WorkbookReport {
     /** Writes the workbook to {@code out} (the caller closes it). */
     public static void write(Content c, OutputStream out) throws IOException {
         try (SXSSFWorkbook wb = new SXSSFWorkbook(200)) {
-            wb.setCompressTempFiles(true);
             Styles st = new Styles(wb);
             readMe(wb, st, c);
             summary(wb, st, c);
@@ -129,12 +128,14 @@ public final class WorkbookReport {
         }
     }
 
-    private static Sheet sheet(Workbook wb, String name, int... widths) {
-        Sheet s = wb.createSheet(name);
+    /**
+     * Sets column widths in characters. Called after a sheet's rows are written: with column
+     * definitions present, POI looks up a default style for every new cell, which is slow.
+     */
+    private static void widths(Sheet s, int... widths) {
         for (int i = 0; i < widths.length; i++) {
             s.setColumnWidth(i, widths[i] * 256);
         }
-        return s;
     }
 
     private static void freezeHeader(Sheet s) {
@@ -142,7 +143,7 @@ public final class WorkbookReport {
     }
 
     private static void readMe(Workbook wb, Styles st, Content c) {
-        Sheet s = sheet(wb, "Read me", 34, 110);
+        Sheet s = wb.createSheet("Read me");
         Rows rows = new Rows(s);
         rows.styled(st.title, "Viscarta report: oscillatory measurements of soft, lossy materials");
         rows.blank();
@@ -179,6 +180,7 @@ public final class WorkbookReport {
                 rows.row("", w).getCell(1).setCellStyle(st.wrap);
             }
         }
+        widths(s, 34, 110);
     }
 
     private static boolean isDemo(Content c) {
@@ -206,7 +208,7 @@ public final class WorkbookReport {
     }
 
     private static void summary(Workbook wb, Styles st, Content c) {
-        Sheet s = sheet(wb, "Summary", 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 16, 14, 14, 60);
+        Sheet s = wb.createSheet("Summary");
         Rows rows = new Rows(s);
         rows.styled(st.header, "sample", "group", "modulus basis", "temperature [°C]", "replicates", "points",
                 "lowest frequency [Hz]", "highest frequency [Hz]", atHeader(c, "tan δ [–]"), "tan δ 95 % CI low [–]",
@@ -239,10 +241,11 @@ public final class WorkbookReport {
                     best == null ? "none converged" : best.fit().model(), best == null ? null : best.weight(),
                     best == null ? null : best.fit().rmsLogResidual(), String.join("; ", notes));
         }
+        widths(s, 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 16, 14, 14, 60);
     }
 
     private static void ranking(Workbook wb, Styles st, Content c) {
-        Sheet s = sheet(wb, "Damping ranking", 7, 28, 16, 12, 14, 14, 12, 14, 14, 18, 18, 30, 60);
+        Sheet s = wb.createSheet("Damping ranking");
         Rows rows = new Rows(s);
         rows.styled(st.header, "rank", "sample", "group", "replicates", "frequency [Hz]", "tan δ mean [–]", "tan δ SD [–]",
                 "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]", "storage modulus mean [Pa]", "loss modulus mean [Pa]",
@@ -255,10 +258,11 @@ public final class WorkbookReport {
                     t == null ? null : t.mean(), t == null ? null : t.sd(), t == null ? null : t.ci95Low(),
                     t == null ? null : t.ci95High(), r.storage(), r.loss(), r.source().description(), r.note());
         }
+        widths(s, 7, 28, 16, 12, 14, 14, 12, 14, 14, 18, 18, 30, 60);
     }
 
     private static void modelFits(Workbook wb, Styles st, Content c) {
-        Sheet s = sheet(wb, "Model fits", 28, 16, 10, 10, 14, 14, 14, 14, 12, 12, 10, 12, 8, 11, 70);
+        Sheet s = wb.createSheet("Model fits");
         Rows rows = new Rows(s);
         rows.styled(st.header, "sample", "model", "parameter", "unit", "value", "standard error", "95 % CI low",
                 "95 % CI high", "RSS (log residuals) [–]", "AICc [–]", "ΔAICc [–]", "Akaike weight [–]", "best",
@@ -274,10 +278,11 @@ public final class WorkbookReport {
                 }
             }
         }
+        widths(s, 28, 16, 10, 10, 14, 14, 14, 14, 12, 12, 10, 12, 8, 11, 70);
     }
 
     private static void data(Workbook wb, Styles st, Content c) {
-        Sheet s = sheet(wb, "Data", 28, 10, 16, 34, 7, 14, 16, 16, 16, 12, 16, 12, 10, 14);
+        Sheet s = wb.createSheet("Data");
         Rows rows = new Rows(s);
         rows.styled(st.header, "sample", "replicate", "group", "file", "line", "frequency [Hz]",
                 "angular frequency [rad/s]", "storage modulus [Pa]", "loss modulus [Pa]", "tan δ [–]", "|E*| or |G*| [Pa]",
@@ -293,16 +298,18 @@ public final class WorkbookReport {
                 }
             }
         }
+        widths(s, 28, 10, 16, 34, 7, 14, 16, 16, 16, 12, 16, 12, 10, 14);
     }
 
     private static void library(Workbook wb, Styles st, Content c) {
-        Sheet s = sheet(wb, "Reference library", 30, 14, 16, 16, 14, 14, 8, 40, 66);
+        Sheet s = wb.createSheet("Reference library");
         Rows rows = new Rows(s);
         rows.styled(st.header, "name", "class", "temperature [°C]", "method", "lowest frequency [Hz]",
                 "highest frequency [Hz]", "points", "file", "SHA-256");
         freezeHeader(s);
         if (c.library() == null) {
             rows.row("(no reference library was given: pass --library DIR)");
+            widths(s, 30, 14, 16, 16, 14, 14, 8, 40, 66);
             return;
         }
         for (ReferenceLibrary.Entry e : c.library().entries()) {
@@ -310,10 +317,11 @@ public final class WorkbookReport {
             rows.row(e.name(), e.clazz(), sw.temperatureC(), sw.meta("method").orElse(""), sw.minFrequencyHz(),
                     sw.maxFrequencyHz(), sw.points().size(), e.file().toString(), e.sha256());
         }
+        widths(s, 30, 14, 16, 16, 14, 14, 8, 40, 66);
     }
 
     private static void provenance(Workbook wb, Styles st, Content c) {
-        Sheet s = sheet(wb, "Provenance", 30, 60, 24, 12, 12, 14, 66);
+        Sheet s = wb.createSheet("Provenance");
         Rows rows = new Rows(s);
         Provenance p = c.provenance();
         rows.styled(st.title, "Provenance");
@@ -338,5 +346,6 @@ public final class WorkbookReport {
         for (String w : warnings) {
             rows.row(w);
         }
+        widths(s, 30, 60, 24, 12, 12, 14, 66);
     }
 }
