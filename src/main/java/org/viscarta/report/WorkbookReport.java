@@ -37,6 +37,10 @@ public final class WorkbookReport {
                           ReferenceLibrary library, Provenance provenance) {
     }
 
+    /** Column widths of the Read me sheet, in characters. */
+    private static final int LABEL_WIDTH = 34;
+    private static final int TEXT_WIDTH = 100;
+
     private WorkbookReport() {
     }
 
@@ -62,8 +66,22 @@ public final class WorkbookReport {
         final CellStyle header;
         final CellStyle wrap;
         final CellStyle bold;
+        /** Significant figures for moduli and parameters of any scale. */
+        final CellStyle sci;
+        /** Four decimals for tan δ and weights. */
+        final CellStyle dec4;
+        /** Two decimals for AICc, temperatures, angles. */
+        final CellStyle dec2;
+        /** Frequencies: up to four decimals. */
+        final CellStyle freq;
+        final CellStyle integer;
 
         Styles(Workbook wb) {
+            sci = numberStyle(wb, "0.0000E+00");
+            dec4 = numberStyle(wb, "0.0000");
+            dec2 = numberStyle(wb, "0.00");
+            freq = numberStyle(wb, "0.0###");
+            integer = numberStyle(wb, "0");
             Font big = wb.createFont();
             big.setBold(true);
             big.setFontHeightInPoints((short) 14);
@@ -84,13 +102,25 @@ public final class WorkbookReport {
         }
     }
 
+    private static CellStyle numberStyle(Workbook wb, String format) {
+        CellStyle cs = wb.createCellStyle();
+        cs.setDataFormat(wb.createDataFormat().getFormat(format));
+        return cs;
+    }
+
     /** Appends rows to a sheet; numbers go in as numeric cells, NaN as an empty cell. */
     private static final class Rows {
         private final Sheet sheet;
+        private final CellStyle[] numberStyles;
         private int next;
 
-        Rows(Sheet sheet) {
+        /**
+         * @param numberStyles the display format of numbers in each column (null: General); the
+         *                     stored value keeps full precision
+         */
+        Rows(Sheet sheet, CellStyle... numberStyles) {
             this.sheet = sheet;
+            this.numberStyles = numberStyles;
         }
 
         Row row(Object... values) {
@@ -105,6 +135,9 @@ public final class WorkbookReport {
                     double d = n.doubleValue();
                     if (Double.isFinite(d)) {
                         cell.setCellValue(d);
+                        if (i < numberStyles.length && numberStyles[i] != null) {
+                            cell.setCellStyle(numberStyles[i]);
+                        }
                     }
                 } else if (v instanceof Boolean b) {
                     cell.setCellValue(b);
@@ -126,6 +159,23 @@ public final class WorkbookReport {
         void blank() {
             next++;
         }
+
+        /**
+         * A label and a wrapped paragraph. SXSSF cannot measure text, so the row height is
+         * estimated from the text length and the column widths (in characters).
+         */
+        Row paragraph(CellStyle labelStyle, CellStyle textStyle, String label, String text, int labelWidth, int textWidth) {
+            Row r = row(label, text);
+            r.getCell(0).setCellStyle(labelStyle);
+            r.getCell(1).setCellStyle(textStyle);
+            int lines = Math.max(linesOf(label, labelWidth), linesOf(text, textWidth));
+            r.setHeightInPoints(Math.max(1, lines) * 15f);
+            return r;
+        }
+
+        private static int linesOf(String text, int width) {
+            return (int) Math.ceil(text.length() * 1.1 / Math.max(1, width - 2));
+        }
     }
 
     /**
@@ -133,6 +183,7 @@ public final class WorkbookReport {
      * definitions present, POI looks up a default style for every new cell, which is slow.
      */
     private static void widths(Sheet s, int... widths) {
+        printSetup(s);
         for (int i = 0; i < widths.length; i++) {
             s.setColumnWidth(i, widths[i] * 256);
         }
@@ -140,6 +191,15 @@ public final class WorkbookReport {
 
     private static void freezeHeader(Sheet s) {
         s.createFreezePane(0, 1);
+        s.setRepeatingRows(org.apache.poi.ss.util.CellRangeAddress.valueOf("1:1"));
+    }
+
+    /** Landscape, one page wide, so that a printed or PDF sheet keeps its columns together. */
+    private static void printSetup(Sheet s) {
+        s.setFitToPage(true);
+        s.getPrintSetup().setLandscape(true);
+        s.getPrintSetup().setFitWidth((short) 1);
+        s.getPrintSetup().setFitHeight((short) 0);
     }
 
     private static void readMe(Workbook wb, Styles st, Content c) {
@@ -147,40 +207,39 @@ public final class WorkbookReport {
         Rows rows = new Rows(s);
         rows.styled(st.title, "Viscarta report: oscillatory measurements of soft, lossy materials");
         rows.blank();
-        rows.row("What this is", "Frequency sweeps of " + c.campaign().samples().size() + " sample(s) from "
-                + c.campaign().files().size() + " file(s), each fitted with viscoelastic models, and ranked by damping (tan δ) at "
-                + Campaign.plain(c.campaign().settings().atHz()) + " Hz. Every number can be traced to its input file "
-                + "and line (sheet Data) and to the command that made it (sheet Provenance).").getCell(1).setCellStyle(st.wrap);
+        rows.paragraph(st.bold, st.wrap, "What this is", "Frequency sweeps of " + c.campaign().samples().size()
+                + " sample(s) from " + c.campaign().files().size() + " file(s), each fitted with viscoelastic models, and "
+                + "ranked by damping (tan δ) at " + Campaign.plain(c.campaign().settings().atHz()) + " Hz. Every number can "
+                + "be traced to its input file and line (sheet Data) and to the command that made it (sheet Provenance).",
+                LABEL_WIDTH, TEXT_WIDTH);
         if (isDemo(c)) {
-            rows.row("Demo data", "The inputs say they are invented demo data, generated from known models with noise. "
-                    + "They are not measurements of real materials.").getCell(1).setCellStyle(st.wrap);
+            rows.paragraph(st.bold, st.wrap, "Demo data", "The inputs say they are invented demo data, generated from known "
+                    + "models with noise. They are not measurements of real materials.", LABEL_WIDTH, TEXT_WIDTH);
         }
         rows.blank();
         rows.styled(st.header, "Sheet", "What it holds");
         for (String[] sh : Texts.SHEETS) {
-            rows.row(sh[0], sh[1]).getCell(1).setCellStyle(st.wrap);
+            rows.paragraph(st.wrap, st.wrap, sh[0], sh[1], LABEL_WIDTH, TEXT_WIDTH);
         }
         rows.blank();
         rows.styled(st.header, "Term", "Meaning");
         for (String[] d : Texts.DEFINITIONS) {
-            Row r = rows.row(d[0], d[1]);
-            r.getCell(0).setCellStyle(st.bold);
-            r.getCell(1).setCellStyle(st.wrap);
+            rows.paragraph(st.bold, st.wrap, d[0], d[1], LABEL_WIDTH, TEXT_WIDTH);
         }
         rows.blank();
         rows.styled(st.header, "Cautions");
         for (String caution : Texts.CAUTIONS) {
-            rows.row("", caution).getCell(1).setCellStyle(st.wrap);
+            rows.paragraph(st.wrap, st.wrap, "", caution, LABEL_WIDTH, TEXT_WIDTH);
         }
         List<String> warnings = warningTexts(c);
         if (!warnings.isEmpty()) {
             rows.blank();
             rows.styled(st.header, "Warnings", "(" + warnings.size() + "; also listed in Provenance)");
             for (String w : warnings) {
-                rows.row("", w).getCell(1).setCellStyle(st.wrap);
+                rows.paragraph(st.wrap, st.wrap, "", w, LABEL_WIDTH, TEXT_WIDTH);
             }
         }
-        widths(s, 34, 110);
+        widths(s, LABEL_WIDTH, TEXT_WIDTH);
     }
 
     private static boolean isDemo(Content c) {
@@ -209,7 +268,7 @@ public final class WorkbookReport {
 
     private static void summary(Workbook wb, Styles st, Content c) {
         Sheet s = wb.createSheet("Summary");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(s, null, null, null, st.dec2, st.integer, st.integer, st.freq, st.freq, st.dec4, st.dec4, st.dec4, null, st.dec4, st.dec4);
         rows.styled(st.header, "sample", "group", "modulus basis", "temperature [°C]", "replicates", "points",
                 "lowest frequency [Hz]", "highest frequency [Hz]", atHeader(c, "tan δ [–]"), "tan δ 95 % CI low [–]",
                 "tan δ 95 % CI high [–]", "best-supported model", "Akaike weight of best [–]", "RMS log misfit of best [–]",
@@ -246,7 +305,7 @@ public final class WorkbookReport {
 
     private static void ranking(Workbook wb, Styles st, Content c) {
         Sheet s = wb.createSheet("Damping ranking");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(s, st.integer, null, null, st.integer, st.freq, st.dec4, st.dec4, st.dec4, st.dec4, st.sci, st.sci);
         rows.styled(st.header, "rank", "sample", "group", "replicates", "frequency [Hz]", "tan δ mean [–]", "tan δ SD [–]",
                 "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]", "storage modulus mean [Pa]", "loss modulus mean [Pa]",
                 "value from", "note");
@@ -263,7 +322,7 @@ public final class WorkbookReport {
 
     private static void modelFits(Workbook wb, Styles st, Content c) {
         Sheet s = wb.createSheet("Model fits");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(s, null, null, null, null, st.sci, st.sci, st.sci, st.sci, st.sci, st.dec2, st.dec2, st.dec4);
         rows.styled(st.header, "sample", "model", "parameter", "unit", "value", "standard error", "95 % CI low",
                 "95 % CI high", "RSS (log residuals) [–]", "AICc [–]", "ΔAICc [–]", "Akaike weight [–]", "best",
                 "converged", "note");
@@ -273,7 +332,7 @@ public final class WorkbookReport {
                 FitResult f = rk.fit();
                 for (ParameterEstimate p : f.parameters()) {
                     rows.row(f.sample(), f.model(), p.name(), p.unit(), p.value(), p.stdError(), p.ci95Low(), p.ci95High(),
-                            f.rss(), f.aicc(), rk.deltaAicc(), rk.weight(), rk.best(), f.converged(),
+                            f.rss(), f.aicc(), rk.deltaAicc(), rk.weight(), rk.best() ? "yes" : "no", f.converged() ? "yes" : "no",
                             f.converged() ? p.note() : f.message());
                 }
             }
@@ -283,7 +342,7 @@ public final class WorkbookReport {
 
     private static void data(Workbook wb, Styles st, Content c) {
         Sheet s = wb.createSheet("Data");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(s, null, null, null, null, st.integer, st.freq, st.freq, st.sci, st.sci, st.dec4, st.sci, st.dec2, null, st.dec2);
         rows.styled(st.header, "sample", "replicate", "group", "file", "line", "frequency [Hz]",
                 "angular frequency [rad/s]", "storage modulus [Pa]", "loss modulus [Pa]", "tan δ [–]", "|E*| or |G*| [Pa]",
                 "phase angle [°]", "basis", "temperature [°C]");
@@ -303,7 +362,7 @@ public final class WorkbookReport {
 
     private static void library(Workbook wb, Styles st, Content c) {
         Sheet s = wb.createSheet("Reference library");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(s, null, null, st.dec2, null, st.freq, st.freq, st.integer);
         rows.styled(st.header, "name", "class", "temperature [°C]", "method", "lowest frequency [Hz]",
                 "highest frequency [Hz]", "points", "file", "SHA-256");
         freezeHeader(s);
@@ -322,11 +381,11 @@ public final class WorkbookReport {
 
     private static void provenance(Workbook wb, Styles st, Content c) {
         Sheet s = wb.createSheet("Provenance");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(s, null, null, null, null, null, null, st.integer);
         Provenance p = c.provenance();
         rows.styled(st.title, "Provenance");
         rows.row("tool", "Viscarta " + p.toolVersion());
-        rows.row("command line", p.commandLine()).getCell(1).setCellStyle(st.wrap);
+        rows.paragraph(st.wrap, st.wrap, "command line", p.commandLine(), 30, 60);
         rows.row("run at (UTC)", p.runAtUtc());
         rows.row("Java runtime", System.getProperty("java.version"));
         rows.blank();
