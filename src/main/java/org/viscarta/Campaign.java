@@ -306,8 +306,8 @@ public final class Campaign {
             SampleFits sf = fitBySample.get(s);
             Optional<FitResult> best = sf == null ? Optional.empty() : sf.best();
             if (settings.modelOutsideRange() && best.isPresent()) {
-                ViscoelasticModel m = ModelCatalogue.byId(best.get().model()).orElseThrow();
-                double[] p = best.get().parameters().stream().mapToDouble(e -> e.value()).toArray();
+                double[] p = best.get().values();
+                ViscoelasticModel m = ModelCatalogue.concrete(best.get().model(), p.length).orElseThrow();
                 double[] out = new double[2];
                 m.modulus(2 * Math.PI * at, p, out);
                 rows.add(row(s, List.of(new LossTangentAt.Value(at, out[0], out[1])), ValueSource.MODEL,

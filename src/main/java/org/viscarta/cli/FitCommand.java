@@ -60,7 +60,7 @@ final class FitCommand implements Callable<Integer> {
                             Format.csv(p.ci95Low()), Format.csv(p.ci95High()), Format.csv(f.rss()), Format.csv(f.aicc()),
                             Format.csv(rk.weight()), Boolean.toString(rk.best())));
                 }
-                t.add(f.model(), f.converged() ? Format.g4(f.aicc()) : "not converged", Format.g4(rk.weight()),
+                t.add(f.variant().isEmpty() ? f.model() : f.model() + " (" + f.variant() + ")", f.converged() ? Format.g4(f.aicc()) : "not converged", Format.g4(rk.weight()),
                         rk.best() ? "yes" : "", f.converged() ? String.join("; ", ps) : f.message());
             }
             t.print(out);

@@ -17,13 +17,16 @@ import java.util.Optional;
  * @param correlation parameter correlation matrix, null when the covariance is singular
  * @param converged   whether the optimiser converged
  * @param message     "" or what went wrong
+ * @param variant     "" or which member of a model family was chosen (e.g. "3 elements, chosen by AICc among 1–5")
+ * @param derived     quantities derived from the parameters, with standard errors
  */
 public record FitResult(String sample, String model, List<ParameterEstimate> parameters, int n, double rss,
                         double aic, double aicc, double bic, double[][] correlation, boolean converged,
-                        String message) {
+                        String message, String variant, List<DerivedEstimate> derived) {
 
     public FitResult {
         parameters = List.copyOf(parameters);
+        derived = List.copyOf(derived);
         correlation = correlation == null ? null : deepCopy(correlation);
     }
 
@@ -35,6 +38,11 @@ public record FitResult(String sample, String model, List<ParameterEstimate> par
     /** A parameter by name. */
     public Optional<ParameterEstimate> parameter(String name) {
         return parameters.stream().filter(p -> p.name().equals(name)).findFirst();
+    }
+
+    /** The natural parameter values in the model's order. */
+    public double[] values() {
+        return parameters.stream().mapToDouble(ParameterEstimate::value).toArray();
     }
 
     /** Root-mean-square log residual, as a relative misfit (0.05 ≈ 5 %). */

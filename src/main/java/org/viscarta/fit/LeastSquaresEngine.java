@@ -52,6 +52,9 @@ public final class LeastSquaresEngine {
         }
     }
 
+    /** Tolerance of the second attempt after a {@link ConvergenceException}. */
+    private static final double LOOSE_TOLERANCE = 1.0e-10;
+
     private final Settings settings;
 
     public LeastSquaresEngine(Settings settings) {
@@ -92,10 +95,14 @@ public final class LeastSquaresEngine {
         } catch (TooManyEvaluationsException | TooManyIterationsException e) {
             return failed(n, f, start, "did not converge within " + settings.maxEvaluations() + " evaluations");
         } catch (ConvergenceException e) {
-            // Raised when the tolerances ask for more than double precision can give: the iterate is
-            // then already at the minimum to machine precision. Polish from the start with looser tolerances.
-            return new LeastSquaresEngine(new Settings(settings.maxEvaluations(), settings.maxIterations(),
-                    1.0e-10, settings.singularityThreshold())).solve(n, f, start);
+            // Raised when the tolerances ask for more than double precision can give (the iterate is
+            // then at the minimum to machine precision), or when the Jacobian holds non-finite values.
+            // Solve again once with looser tolerances; a second failure is a failure.
+            if (settings.relativeTolerance() < LOOSE_TOLERANCE) {
+                return new LeastSquaresEngine(new Settings(settings.maxEvaluations(), settings.maxIterations(),
+                        LOOSE_TOLERANCE, settings.singularityThreshold())).solve(n, f, start);
+            }
+            return failed(n, f, start, "the optimiser stopped: " + e.getMessage());
         } catch (MathIllegalStateException | IllegalArgumentException e) {
             return failed(n, f, start, "the optimiser stopped: " + e.getMessage());
         }
@@ -164,7 +171,11 @@ public final class LeastSquaresEngine {
 
     private static Solution failed(int n, ResidualFunction f, double[] at, String why) {
         double[] r = new double[n];
-        f.evaluate(at, r, new double[n][at.length]);
+        try {
+            f.evaluate(at, r, new double[n][at.length]);
+        } catch (RuntimeException e) {
+            java.util.Arrays.fill(r, Double.NaN);
+        }
         double rss = 0;
         for (double v : r) {
             rss += v * v;

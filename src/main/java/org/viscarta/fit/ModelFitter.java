@@ -3,50 +3,81 @@ package org.viscarta.fit;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import org.viscarta.model.Derived;
+import org.viscarta.model.GeneralizedMaxwell;
 import org.viscarta.model.ParameterSpec;
 import org.viscarta.model.Transform;
 import org.viscarta.model.ViscoelasticModel;
 import org.viscarta.sweep.SweepPoint;
 
 /**
- * Fits a viscoelastic model jointly to M′ and M″ on log residuals:
- * r = (ln M′_model − ln M′_data, ln M″_model − ln M″_data) at every frequency, so that every
- * point weighs by its relative misfit whatever its magnitude. Parameters are moved in their
- * transformed space (log for positive values, logit for exponents), with the model's analytic
- * Jacobian carried through the chain rule, from every start the model proposes.
+ * Fits a viscoelastic model jointly to M′ and M″. By default on log residuals,
+ * r = (ln M′_model − ln M′_data, ln M″_model − ln M″_data) at every frequency, so that every point
+ * weighs by its relative misfit whatever its magnitude ({@link Weighting} lists the others).
+ * Parameters are moved in their transformed space (log for positive values, logit for exponents),
+ * with the model's analytic Jacobian carried through the chain rule, from every start the model
+ * proposes; the lowest residual sum of squares wins. A model family (generalized-maxwell without a
+ * fixed size) is fitted at each size and the lowest AICc kept.
  *
  * <p>Uncertainty: Cov(u) = s²(JᵀJ)⁻¹ with s² = RSS/(n − p) in the transformed parameters u
  * (Bates &amp; Watts 1988; Seber &amp; Wild 1989); the standard error of θ = g(u) by the delta method,
  * se(θ) = |g′(u)| se(u); the 95 % interval g(u ± t_{0.975, n−p} se(u)), exact under the monotone
- * transform (DOMAIN.md section 8).
+ * transform (DOMAIN.md section 8). Derived quantities get their standard errors by the delta method
+ * with a central-difference gradient in u.
  */
 public final class ModelFitter {
 
-    /** A parameter whose relative standard error exceeds this is flagged (100 %, issue text). */
+    /** A parameter whose relative standard error exceeds this is flagged (100 %). */
     private static final double MAX_RELATIVE_SE = 1.0;
     /** Correlation beyond which two parameters are flagged as not separately determined. */
     private static final double MAX_CORRELATION = 0.99;
 
     private final LeastSquaresEngine engine;
+    private final Weighting weighting;
+
+    public ModelFitter(LeastSquaresEngine engine, Weighting weighting) {
+        this.engine = engine;
+        this.weighting = weighting;
+    }
 
     public ModelFitter(LeastSquaresEngine engine) {
-        this.engine = engine;
+        this(engine, Weighting.LOG);
+    }
+
+    public ModelFitter(Weighting weighting) {
+        this(new LeastSquaresEngine(LeastSquaresEngine.Settings.defaults().withMaxEvaluations(1000)), weighting);
     }
 
     public ModelFitter() {
-        this(new LeastSquaresEngine(LeastSquaresEngine.Settings.defaults().withMaxEvaluations(1000)));
+        this(Weighting.LOG);
     }
 
     /**
+     * Fits a model (or, for a family, each of its variants, keeping the lowest AICc) from the
+     * model's own data-derived starts.
+     *
      * @param sample name written into the result
      * @param model  the model
-     * @param data   points with positive moduli (use {@code Sweep.fittablePoints()})
+     * @param data   points with positive moduli (use {@code Sweep.fittablePoints()}); replicates may be pooled
      */
     public FitResult fit(String sample, ViscoelasticModel model, List<SweepPoint> data) {
-        if (2 * data.size() <= model.parameterCount()) {
-            return fitFrom(sample, model, data, List.of());
+        List<ViscoelasticModel> variants = model.variants();
+        FitResult best = null;
+        for (ViscoelasticModel v : variants) {
+            List<double[]> starts = 2 * data.size() <= v.parameterCount() ? List.of() : v.startValues(data);
+            FitResult r = fitFrom(sample, v, data, starts);
+            if (best == null || (r.converged() && (!best.converged() || r.aicc() < best.aicc()))) {
+                best = r;
+            }
         }
-        return fitFrom(sample, model, data, model.startValues(data));
+        if (variants.size() > 1 && best.converged()) {
+            String chosen = best.variant() + ", chosen by AICc among 1–" + GeneralizedMaxwell.MAX_ELEMENTS;
+            best = new FitResult(best.sample(), best.model(), best.parameters(), best.n(), best.rss(), best.aic(),
+                    best.aicc(), best.bic(), best.correlation(), true, "", chosen, best.derived());
+        }
+        return best;
     }
 
     /**
@@ -63,35 +94,24 @@ public final class ModelFitter {
         }
         int m = data.size();
         double[] omega = new double[m];
-        double[] lnStorage = new double[m];
-        double[] lnLoss = new double[m];
+        double[] storage = new double[m];
+        double[] loss = new double[m];
         for (int i = 0; i < m; i++) {
             omega[i] = data.get(i).omega();
-            lnStorage[i] = Math.log(data.get(i).storage());
-            lnLoss[i] = Math.log(data.get(i).loss());
+            storage[i] = data.get(i).storage();
+            loss[i] = data.get(i).loss();
         }
-        ResidualFunction f = (u, r, jac) -> {
-            double[] theta = new double[p];
-            double[] dtheta = new double[p];
-            for (int j = 0; j < p; j++) {
-                Transform t = specs.get(j).transform();
-                theta[j] = t.toNatural(u[j]);
-                dtheta[j] = t.derivative(u[j]);
+        double[][] scale = new double[2][m];
+        if (weighting == Weighting.REPLICATE_SD) {
+            String problem = replicateScales(data, scale);
+            if (!problem.isEmpty()) {
+                return notFitted(sample, model, n, problem);
             }
-            double[] mod = new double[2];
-            double[] ds = new double[p];
-            double[] dl = new double[p];
-            for (int i = 0; i < m; i++) {
-                model.modulus(omega[i], theta, mod);
-                model.derivatives(omega[i], theta, ds, dl);
-                r[2 * i] = Math.log(mod[0]) - lnStorage[i];
-                r[2 * i + 1] = Math.log(mod[1]) - lnLoss[i];
-                for (int j = 0; j < p; j++) {
-                    jac[2 * i][j] = ds[j] / mod[0] * dtheta[j];
-                    jac[2 * i + 1][j] = dl[j] / mod[1] * dtheta[j];
-                }
-            }
-        };
+        } else {
+            java.util.Arrays.fill(scale[0], 1.0);
+            java.util.Arrays.fill(scale[1], 1.0);
+        }
+        ResidualFunction f = residuals(model, specs, omega, storage, loss, scale);
         List<double[]> starts = new ArrayList<>();
         for (double[] s : startValues) {
             double[] u = new double[p];
@@ -112,6 +132,97 @@ public final class ModelFitter {
             return notFitted(sample, model, n, sol.message().isEmpty() ? "the fit did not converge" : sol.message());
         }
         return describe(sample, model, sol, n, omegaRange(omega));
+    }
+
+    private ResidualFunction residuals(ViscoelasticModel model, List<ParameterSpec> specs, double[] omega,
+                                       double[] storage, double[] loss, double[][] scale) {
+        int p = specs.size();
+        int m = omega.length;
+        double[] lnStorage = new double[m];
+        double[] lnLoss = new double[m];
+        for (int i = 0; i < m; i++) {
+            lnStorage[i] = Math.log(storage[i]);
+            lnLoss[i] = Math.log(loss[i]);
+        }
+        boolean relative = weighting == Weighting.RELATIVE;
+        return (u, r, jac) -> {
+            double[] theta = new double[p];
+            double[] dtheta = new double[p];
+            for (int j = 0; j < p; j++) {
+                Transform t = specs.get(j).transform();
+                theta[j] = t.toNatural(u[j]);
+                dtheta[j] = t.derivative(u[j]);
+            }
+            double[] mod = new double[2];
+            double[] ds = new double[p];
+            double[] dl = new double[p];
+            for (int i = 0; i < m; i++) {
+                model.modulus(omega[i], theta, mod);
+                model.derivatives(omega[i], theta, ds, dl);
+                if (relative) {
+                    r[2 * i] = mod[0] / storage[i] - 1;
+                    r[2 * i + 1] = mod[1] / loss[i] - 1;
+                    for (int j = 0; j < p; j++) {
+                        jac[2 * i][j] = ds[j] / storage[i] * dtheta[j];
+                        jac[2 * i + 1][j] = dl[j] / loss[i] * dtheta[j];
+                    }
+                } else {
+                    double ws = 1 / scale[0][i];
+                    double wl = 1 / scale[1][i];
+                    r[2 * i] = (Math.log(mod[0]) - lnStorage[i]) * ws;
+                    r[2 * i + 1] = (Math.log(mod[1]) - lnLoss[i]) * wl;
+                    for (int j = 0; j < p; j++) {
+                        jac[2 * i][j] = ds[j] / mod[0] * dtheta[j] * ws;
+                        jac[2 * i + 1][j] = dl[j] / mod[1] * dtheta[j] * wl;
+                    }
+                }
+            }
+        };
+    }
+
+    /**
+     * Standard deviations of ln M′ and ln M″ over the replicates at each frequency (points whose
+     * frequencies agree to 1e-9 relative are one frequency).
+     *
+     * @return "" or why the weights cannot be formed
+     */
+    private static String replicateScales(List<SweepPoint> data, double[][] scale) {
+        Map<Long, List<Integer>> byFrequency = new TreeMap<>();
+        for (int i = 0; i < data.size(); i++) {
+            long key = Math.round(Math.log(data.get(i).frequencyHz()) * 1e9);
+            byFrequency.computeIfAbsent(key, k -> new ArrayList<>()).add(i);
+        }
+        for (List<Integer> idx : byFrequency.values()) {
+            if (idx.size() < 2) {
+                return String.format(Locale.ROOT, "replicate-sd weighting needs at least two replicates at every frequency; "
+                        + "%.4g Hz has one", data.get(idx.get(0)).frequencyHz());
+            }
+            double ss = sdOfLog(data, idx, true);
+            double sl = sdOfLog(data, idx, false);
+            if (!(ss > 0) || !(sl > 0)) {
+                return String.format(Locale.ROOT, "replicate-sd weighting needs replicates that differ; at %.4g Hz they are identical",
+                        data.get(idx.get(0)).frequencyHz());
+            }
+            for (int i : idx) {
+                scale[0][i] = ss;
+                scale[1][i] = sl;
+            }
+        }
+        return "";
+    }
+
+    private static double sdOfLog(List<SweepPoint> data, List<Integer> idx, boolean storage) {
+        double mean = 0;
+        for (int i : idx) {
+            mean += Math.log(storage ? data.get(i).storage() : data.get(i).loss());
+        }
+        mean /= idx.size();
+        double ss = 0;
+        for (int i : idx) {
+            double d = Math.log(storage ? data.get(i).storage() : data.get(i).loss()) - mean;
+            ss += d * d;
+        }
+        return Math.sqrt(ss / (idx.size() - 1));
     }
 
     private static double[] omegaRange(double[] omega) {
@@ -141,19 +252,56 @@ public final class ModelFitter {
             }
         }
         List<ParameterEstimate> est = new ArrayList<>();
+        double[] theta = new double[p];
         for (int j = 0; j < p; j++) {
             ParameterSpec s = specs.get(j);
             Transform t = s.transform();
-            double theta = t.toNatural(u[j]);
+            theta[j] = t.toNatural(u[j]);
             double seU = cov == null ? Double.NaN : Math.sqrt(cov[j][j]);
             double se = Math.abs(t.derivative(u[j])) * seU;
             double lo = cov == null ? Double.NaN : t.toNatural(u[j] - tq * seU);
             double hi = cov == null ? Double.NaN : t.toNatural(u[j] + tq * seU);
-            est.add(new ParameterEstimate(s.name(), s.unit(), theta, se, lo, hi,
-                    flag(s, theta, se, cov == null, corr, j, specs, window)));
+            est.add(new ParameterEstimate(s.name(), s.unit(), theta[j], se, lo, hi,
+                    flag(s, theta[j], se, cov == null, corr, j, specs, window)));
+        }
+        List<DerivedEstimate> derived = new ArrayList<>();
+        for (Derived d : model.derived()) {
+            derived.add(new DerivedEstimate(d.name(), d.unit(), d.value().applyAsDouble(theta), deltaMethod(d, specs, u, cov)));
         }
         return new FitResult(sample, model.id(), est, n, rss, ModelSelection.aic(n, p, rss),
-                ModelSelection.aicc(n, p, rss), ModelSelection.bic(n, p, rss), corr, true, "");
+                ModelSelection.aicc(n, p, rss), ModelSelection.bic(n, p, rss), corr, true, "", model.describeVariant(), derived);
+    }
+
+    /** se(g) = sqrt(∇gᵀ Cov(u) ∇g), ∇g by central differences in the fitting parameters u. */
+    private static double deltaMethod(Derived d, List<ParameterSpec> specs, double[] u, double[][] cov) {
+        if (cov == null) {
+            return Double.NaN;
+        }
+        int p = u.length;
+        double[] grad = new double[p];
+        for (int j = 0; j < p; j++) {
+            double h = 1e-6 * Math.max(1.0, Math.abs(u[j]));
+            double[] up = u.clone();
+            double[] dn = u.clone();
+            up[j] += h;
+            dn[j] -= h;
+            grad[j] = (d.value().applyAsDouble(natural(specs, up)) - d.value().applyAsDouble(natural(specs, dn))) / (2 * h);
+        }
+        double var = 0;
+        for (int i = 0; i < p; i++) {
+            for (int j = 0; j < p; j++) {
+                var += grad[i] * cov[i][j] * grad[j];
+            }
+        }
+        return var >= 0 ? Math.sqrt(var) : Double.NaN;
+    }
+
+    private static double[] natural(List<ParameterSpec> specs, double[] u) {
+        double[] t = new double[u.length];
+        for (int j = 0; j < u.length; j++) {
+            t[j] = specs.get(j).transform().toNatural(u[j]);
+        }
+        return t;
     }
 
     private static String flag(ParameterSpec s, double theta, double se, boolean singular, double[][] corr, int j,
@@ -161,6 +309,8 @@ public final class ModelFitter {
         List<String> why = new ArrayList<>();
         if (singular) {
             why.add("the covariance matrix is singular");
+        } else if (!Double.isFinite(se)) {
+            why.add("its standard error cannot be computed");
         } else if (!(se / Math.abs(theta) <= MAX_RELATIVE_SE)) {
             why.add(String.format(Locale.ROOT, "relative standard error %.0f %% exceeds 100 %%", 100 * se / Math.abs(theta)));
         }
@@ -187,6 +337,7 @@ public final class ModelFitter {
         for (ParameterSpec s : model.parameters()) {
             est.add(new ParameterEstimate(s.name(), s.unit(), Double.NaN, Double.NaN, Double.NaN, Double.NaN, why));
         }
-        return new FitResult(sample, model.id(), est, n, Double.NaN, Double.NaN, Double.NaN, Double.NaN, null, false, why);
+        return new FitResult(sample, model.id(), est, n, Double.NaN, Double.NaN, Double.NaN, Double.NaN, null, false, why,
+                model.describeVariant(), List.of());
     }
 }

@@ -1,6 +1,7 @@
 package org.viscarta.model;
 
 import java.util.List;
+import org.apache.commons.math3.complex.Complex;
 import org.viscarta.sweep.SweepPoint;
 
 /**
@@ -57,5 +58,30 @@ public final class KelvinVoigt implements ViscoelasticModel {
         }
         DataFeatures f = new DataFeatures(points);
         return List.of(new double[] {f.medianStorage, DataFeatures.median(etas)});
+    }
+
+    @Override
+    public Complex modulusAt(Complex s, double[] p) {
+        return s.multiply(p[1]).add(p[0]);
+    }
+
+    /** M(t) = E for t &gt; 0 (plus η δ(t), left out) (DOMAIN.md 2.1). */
+    @Override
+    public double relaxationModulus(double t, double[] p) {
+        return p[0];
+    }
+
+    /** J(t) = (1/E)(1 − e^{−t/τ}), τ = η/E (DOMAIN.md 2.1). */
+    @Override
+    public double creepCompliance(double t, double[] p) {
+        return (1 - Math.exp(-t * p[0] / p[1])) / p[0];
+    }
+
+    @Override
+    public List<Derived> derived() {
+        return List.of(
+                new Derived("retardation_time", "s", p -> p[1] / p[0]),
+                new Derived("crossover_frequency", "Hz", p -> p[0] / (2 * Math.PI * p[1])),
+                new Derived("relaxed_modulus", "Pa", p -> p[0]));
     }
 }

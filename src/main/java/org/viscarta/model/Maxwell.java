@@ -2,6 +2,7 @@ package org.viscarta.model;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.apache.commons.math3.complex.Complex;
 import org.viscarta.sweep.SweepPoint;
 
 /**
@@ -75,5 +76,31 @@ public final class Maxwell implements ViscoelasticModel {
             starts.add(new double[] {DataFeatures.median(es), tau});
         }
         return starts;
+    }
+
+    @Override
+    public Complex modulusAt(Complex s, double[] p) {
+        Complex x = s.multiply(p[1]);
+        return x.multiply(p[0]).divide(x.add(1));
+    }
+
+    /** M(t) = E e^{−t/τ} (DOMAIN.md 2.1). */
+    @Override
+    public double relaxationModulus(double t, double[] p) {
+        return p[0] * Math.exp(-t / p[1]);
+    }
+
+    /** J(t) = 1/E + t/η, η = Eτ (DOMAIN.md 2.1). */
+    @Override
+    public double creepCompliance(double t, double[] p) {
+        return 1 / p[0] + t / (p[0] * p[1]);
+    }
+
+    @Override
+    public List<Derived> derived() {
+        return List.of(
+                new Derived("crossover_frequency", "Hz", p -> 1 / (2 * Math.PI * p[1])),
+                new Derived("zero_frequency_viscosity", "Pa·s", p -> p[0] * p[1]),
+                new Derived("unrelaxed_modulus", "Pa", p -> p[0]));
     }
 }

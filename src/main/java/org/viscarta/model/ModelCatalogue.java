@@ -12,9 +12,16 @@ public final class ModelCatalogue {
 
     static {
         register(new Springpot());
+        register(new EmpiricalPowerLaw());
+        register(new SpringpotDashpot());
         register(new Maxwell());
         register(new KelvinVoigt());
         register(new Zener());
+        register(new Burgers());
+        register(new GeneralizedMaxwell(0));
+        register(new FractionalKelvinVoigt());
+        register(new FractionalMaxwell());
+        register(new FractionalZener());
     }
 
     private ModelCatalogue() {
@@ -29,9 +36,29 @@ public final class ModelCatalogue {
         return List.copyOf(MODELS.values());
     }
 
-    /** The model with this identifier. */
+    /**
+     * The model with this identifier; {@code generalized-maxwell:N} fixes the number of elements
+     * (1 to 5), plain {@code generalized-maxwell} lets AICc choose it.
+     */
     public static Optional<ViscoelasticModel> byId(String id) {
+        String prefix = "generalized-maxwell:";
+        if (id.startsWith(prefix)) {
+            try {
+                int n = Integer.parseInt(id.substring(prefix.length()));
+                return n >= 1 && n <= GeneralizedMaxwell.MAX_ELEMENTS ? Optional.of(new GeneralizedMaxwell(n)) : Optional.empty();
+            } catch (NumberFormatException e) {
+                return Optional.empty();
+            }
+        }
         return Optional.ofNullable(MODELS.get(id));
+    }
+
+    /**
+     * The concrete model behind a fit: the model with this identifier, or, for a family, the
+     * member with this many parameters (generalized-maxwell with N elements has 1 + 2N).
+     */
+    public static Optional<ViscoelasticModel> concrete(String id, int parameterCount) {
+        return byId(id).flatMap(m -> m.variants().stream().filter(v -> v.parameterCount() == parameterCount).findFirst());
     }
 
     /** Identifiers of every implemented model. */

@@ -2,6 +2,8 @@ package org.viscarta.model;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.apache.commons.math3.special.Gamma;
+import org.apache.commons.math3.complex.Complex;
 import org.viscarta.sweep.SweepPoint;
 
 /**
@@ -75,5 +77,27 @@ public final class Springpot implements ViscoelasticModel {
             starts.add(new double[] {DataFeatures.median(mags), alpha});
         }
         return starts;
+    }
+
+    @Override
+    public Complex modulusAt(Complex s, double[] p) {
+        return s.pow(p[1]).multiply(p[0]);
+    }
+
+    /** M(t) = c t^{−α}/Γ(1 − α) (DOMAIN.md 2.2). */
+    @Override
+    public double relaxationModulus(double t, double[] p) {
+        return p[0] * Math.pow(t, -p[1]) / Gamma.gamma(1 - p[1]);
+    }
+
+    /** J(t) = t^α/(c Γ(1 + α)) (DOMAIN.md 2.2). */
+    @Override
+    public double creepCompliance(double t, double[] p) {
+        return Math.pow(t, p[1]) / (p[0] * Gamma.gamma(1 + p[1]));
+    }
+
+    @Override
+    public List<Derived> derived() {
+        return List.of(new Derived("loss_tangent", "-", p -> Math.tan(p[1] * Math.PI / 2)));
     }
 }

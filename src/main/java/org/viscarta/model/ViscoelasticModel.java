@@ -1,6 +1,7 @@
 package org.viscarta.model;
 
 import java.util.List;
+import org.apache.commons.math3.complex.Complex;
 import org.viscarta.sweep.SweepPoint;
 
 /**
@@ -11,7 +12,8 @@ import org.viscarta.sweep.SweepPoint;
  * <p>To add a model: implement this interface as a final class in this package, add it to the
  * {@code permits} list, and register it in {@link ModelCatalogue}.
  */
-public sealed interface ViscoelasticModel permits Springpot, Maxwell, KelvinVoigt, Zener {
+public sealed interface ViscoelasticModel permits Springpot, EmpiricalPowerLaw, SpringpotDashpot, Maxwell, KelvinVoigt,
+        Zener, Burgers, GeneralizedMaxwell, FractionalKelvinVoigt, FractionalMaxwell, FractionalZener {
 
     /** The identifier used on the command line and in outputs, e.g. {@code zener}. */
     String id();
@@ -43,6 +45,51 @@ public sealed interface ViscoelasticModel permits Springpot, Maxwell, KelvinVoig
      * @param points measured points with positive moduli, sorted by frequency
      */
     List<double[]> startValues(List<SweepPoint> points);
+
+    /**
+     * The complex modulus as a Laplace-domain function, M*(s) with iω → s, for the numerical
+     * inversion of the time-domain functions. Null for models without a time domain.
+     */
+    Complex modulusAt(Complex s, double[] p);
+
+    /**
+     * Relaxation modulus M(t) [Pa] for t &gt; 0 (a Dirac term at t = 0, as in a dashpot, is left out).
+     * The default inverts M*(s)/s numerically (Talbot); models override it with closed forms.
+     */
+    default double relaxationModulus(double t, double[] p) {
+        return LaplaceInversion.invert(s -> modulusAt(s, p).divide(s), t);
+    }
+
+    /**
+     * Creep compliance J(t) [1/Pa] for t &gt; 0. The default inverts 1/(s M*(s)) numerically (Talbot);
+     * models override it with closed forms.
+     */
+    default double creepCompliance(double t, double[] p) {
+        return LaplaceInversion.invert(s -> modulusAt(s, p).multiply(s).reciprocal(), t);
+    }
+
+    /** False for descriptive models that have no time domain (empirical-power-law). */
+    default boolean hasTimeDomain() {
+        return true;
+    }
+
+    /** Quantities derived from the parameters, where the model defines them. */
+    default List<Derived> derived() {
+        return List.of();
+    }
+
+    /**
+     * The concrete models to fit for this entry: itself, or, for a family whose size is chosen by
+     * AICc (generalized-maxwell without a fixed number of elements), one model per size.
+     */
+    default List<ViscoelasticModel> variants() {
+        return List.of(this);
+    }
+
+    /** What distinguishes this variant within its family (e.g. "3 elements"), or "". */
+    default String describeVariant() {
+        return "";
+    }
 
     /** Number of parameters. */
     default int parameterCount() {

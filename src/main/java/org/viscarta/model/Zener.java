@@ -2,6 +2,7 @@ package org.viscarta.model;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.apache.commons.math3.complex.Complex;
 import org.viscarta.sweep.SweepPoint;
 
 /**
@@ -73,5 +74,39 @@ public final class Zener implements ViscoelasticModel {
         }
         starts.add(new double[] {0.5 * f.storageMin, 2 * spread, 1.0 / f.omegaCentre()});
         return starts;
+    }
+
+    @Override
+    public Complex modulusAt(Complex s, double[] p) {
+        Complex x = s.multiply(p[2]);
+        return x.multiply(p[1]).divide(x.add(1)).add(p[0]);
+    }
+
+    /** M(t) = E_r + E_1 e^{−t/τ} (DOMAIN.md 2.1). */
+    @Override
+    public double relaxationModulus(double t, double[] p) {
+        return p[0] + p[1] * Math.exp(-t / p[2]);
+    }
+
+    /**
+     * J(t) = 1/E_a + (1/E_b)(1 − e^{−t/τ_C}) of the equivalent Kelvin (Poynting–Thomson) form,
+     * E_a = E_r + E_1, E_b = E_r(E_r + E_1)/E_1, τ_C = τ(E_r + E_1)/E_r (DOMAIN.md 2.1, exact mapping).
+     */
+    @Override
+    public double creepCompliance(double t, double[] p) {
+        double ea = p[0] + p[1];
+        double eb = p[0] * ea / p[1];
+        double tauC = p[2] * ea / p[0];
+        return 1 / ea + (1 - Math.exp(-t / tauC)) / eb;
+    }
+
+    @Override
+    public List<Derived> derived() {
+        return List.of(
+                new Derived("relaxed_modulus", "Pa", p -> p[0]),
+                new Derived("unrelaxed_modulus", "Pa", p -> p[0] + p[1]),
+                new Derived("retardation_time", "s", p -> p[2] * (p[0] + p[1]) / p[0]),
+                new Derived("loss_peak_frequency", "Hz", p -> Math.sqrt(p[0] / (p[0] + p[1])) / (2 * Math.PI * p[2])),
+                new Derived("loss_tangent_max", "-", p -> p[1] / (2 * Math.sqrt(p[0] * (p[0] + p[1])))));
     }
 }

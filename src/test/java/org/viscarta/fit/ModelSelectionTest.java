@@ -18,7 +18,7 @@ class ModelSelectionTest {
 
     private static FitResult fit(String model, int n, int p, double rss) {
         return new FitResult("s", model, List.of(), n, rss, ModelSelection.aic(n, p, rss), ModelSelection.aicc(n, p, rss),
-                ModelSelection.bic(n, p, rss), null, true, "");
+                ModelSelection.bic(n, p, rss), null, true, "", "", List.of());
     }
 
     @Test
@@ -59,7 +59,7 @@ class ModelSelectionTest {
     @Test
     void failedFitsAreNeverRankedOrWeighted() {
         FitResult failed = new FitResult("s", "bad", List.of(), 30, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
-                null, false, "did not converge");
+                null, false, "did not converge", "", List.of());
         List<ModelSelection.Ranked> r = ModelSelection.rank(List.of(failed, fit("A", 30, 2, 2.0)));
         assertFalse(r.get(0).best());
         assertTrue(Double.isNaN(r.get(0).weight()));
