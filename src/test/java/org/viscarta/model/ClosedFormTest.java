@@ -137,4 +137,122 @@ class ClosedFormTest {
         assertEquals(expected.getReal(), actual[0], tol, model + " M′ at ω = " + w);
         assertEquals(expected.getImaginary(), actual[1], tol, model + " M″ at ω = " + w);
     }
+
+    @Test
+    void burgersMatchesDomainTable() {
+        // DOMAIN.md 10.2: Burgers E_1 = 1000, η_1 = 1000, E_2 = 500, η_2 = 50
+        Burgers m = new Burgers();
+        double[] p = {1000, 1000, 500, 50};
+        check(m, p, 0.1, "27.42068602", "91.59117851");
+        check(m, p, 1, "288.8675624", "116.1228407");
+        check(m, p, 10, "383.8771593", "211.1324376");
+    }
+
+    @Test
+    void fractionalModelsMatchDomainTable() {
+        // DOMAIN.md 10.2: fractional KV E = 1000, c = 500, α = 0.3
+        FractionalKelvinVoigt fkv = new FractionalKelvinVoigt();
+        check(fkv, new double[] {1000, 500, 0.3}, 0.1, "1223.280548", "113.7671213");
+        check(fkv, new double[] {1000, 500, 0.3}, 1, "1445.503262", "226.9952499");
+        check(fkv, new double[] {1000, 500, 0.3}, 10, "1888.89587", "452.9150677");
+        // fractional Maxwell E = 1000, τ = 1, α = 0.5
+        FractionalMaxwell fm = new FractionalMaxwell();
+        check(fm, new double[] {1000, 1, 0.5}, 0.1, "209.1545723", "144.522255");
+        check(fm, new double[] {1000, 1, 0.5}, 1, "500", "207.1067812");
+        check(fm, new double[] {1000, 1, 0.5}, 10, "790.8454277", "144.522255");
+        // fractional Zener E_e = 1000, E_1 = 2000, τ = 1, α = 0.5
+        FractionalZener fz = new FractionalZener();
+        check(fz, new double[] {1000, 2000, 1, 0.5}, 0.1, "1418.309145", "289.04451");
+        check(fz, new double[] {1000, 2000, 1, 0.5}, 1, "2000", "414.2135624");
+        check(fz, new double[] {1000, 2000, 1, 0.5}, 10, "2581.690855", "289.04451");
+    }
+
+    @Test
+    void generalizedMaxwellMatchesDomainTable() {
+        // DOMAIN.md 10.2: E_e = 100, (E_i, τ_i) = (1000, 0.1 s), (500, 10 s); order E_inf, E_1, E_2, tau_1, tau_2
+        GeneralizedMaxwell m = new GeneralizedMaxwell(2);
+        double[] p = {100, 1000, 500, 0.1, 10};
+        check(m, p, 0.01, "104.951495", "50.504949");
+        check(m, p, 0.1, "350.09999", "259.999000");
+        check(m, p, 1, "604.950495", "148.514851");
+        check(m, p, 10, "1099.950005", "504.999500");
+    }
+
+    @Test
+    void springpotDashpotMatchesThePowerLawWithNewtonianTerm() {
+        // DOMAIN.md 10.2, power law + Newtonian: G_0 = 1000, α = 0.2, Φ_0 = 1 rad/s, μ = 1 Pa·s, which is a
+        // springpot with c = G_0 Γ(1 − α) Φ_0^{−α} = 1164.229714 (DOMAIN.md 10.3) plus a dashpot η = μ.
+        SpringpotDashpot m = new SpringpotDashpot();
+        double[] p = {1000 * org.apache.commons.math3.special.Gamma.gamma(0.8), 0.2, 1};
+        check(m, p, 0.1, "698.6264191", "227.0974839");
+        check(m, p, 1, "1107.248256", "360.7667669");
+        check(m, p, 10, "1754.870223", "580.1918997");
+    }
+
+    @Test
+    void relaxationModuliMatchDomainTable() {
+        // DOMAIN.md 10.3 (closed forms checked there against Talbot inversion with mpmath)
+        double[] burgers = {1000, 1000, 500, 50};
+        assertPrinted("819.0097895", new Burgers().relaxationModulus(0.01, burgers), "Burgers E(0.01)");
+        assertPrinted("340.2501494", new Burgers().relaxationModulus(0.1, burgers), "Burgers E(0.1)");
+        assertPrinted("230.0869085", new Burgers().relaxationModulus(1, burgers), "Burgers E(1)");
+        assertPrinted("62.45340275", new Burgers().relaxationModulus(5, burgers), "Burgers E(5)");
+        double[] sls = {1000, 2000, 1};
+        assertPrinted("2213.061319", new Zener().relaxationModulus(0.5, sls), "SLS E(0.5)");
+        assertPrinted("1735.758882", new Zener().relaxationModulus(1, sls), "SLS E(1)");
+        assertPrinted("1270.670566", new Zener().relaxationModulus(2, sls), "SLS E(2)");
+        double[] fm = {1000, 1, 0.5};
+        assertEquals(896.45698, new FractionalMaxwell().relaxationModulus(0.01, fm), 1e-6 * 896.45698);
+        assertEquals(723.5784385, new FractionalMaxwell().relaxationModulus(0.1, fm), 1e-6 * 723.5784385);
+        assertEquals(427.5835762, new FractionalMaxwell().relaxationModulus(1, fm), 1e-6 * 427.5835762);
+        assertEquals(170.5777183, new FractionalMaxwell().relaxationModulus(10, fm), 1e-6 * 170.5777183);
+        assertPrinted("1784.124116", new Springpot().relaxationModulus(0.1, new double[] {1000, 0.5}), "springpot E(0.1)");
+        assertPrinted("564.1895835", new Springpot().relaxationModulus(1, new double[] {1000, 0.5}), "springpot E(1)");
+        double[] gm = {100, 1000, 500, 0.1, 10};
+        assertPrinted("962.904358", new GeneralizedMaxwell(2).relaxationModulus(0.1, gm), "GM E(0.1)");
+        assertPrinted("552.464109", new GeneralizedMaxwell(2).relaxationModulus(1, gm), "GM E(1)");
+        assertPrinted("283.939721", new GeneralizedMaxwell(2).relaxationModulus(10, gm), "GM E(10)");
+    }
+
+    @Test
+    void creepComplianceMatchesDomainTable() {
+        // DOMAIN.md 10.3: fractional KV creep J(t), E = 1000, c = 500, α = 0.3 [1/Pa]; numerical (Mittag-Leffler), 1e-6
+        double[] p = {1000, 500, 0.3};
+        assertEquals(5.440167587e-4, new FractionalKelvinVoigt().creepCompliance(0.1, p), 1e-6 * 5.44e-4);
+        assertEquals(7.097677738e-4, new FractionalKelvinVoigt().creepCompliance(1, p), 1e-6 * 7.1e-4);
+        assertEquals(8.331594383e-4, new FractionalKelvinVoigt().creepCompliance(10, p), 1e-6 * 8.33e-4);
+    }
+
+    @Test
+    void closedFormTimeFunctionsAgreeWithNumericalLaplaceInversion() {
+        // Every closed-form M(t) and J(t) against Talbot inversion of M*(s)/s and 1/(s M*(s)) (the route
+        // DOMAIN.md used to verify its closed forms), at 1e-6 relative (DOMAIN.md: numerically evaluated), plus
+        // 1e-12 of the function's early value: Talbot's error is absolute in double precision, which matters
+        // only where M(t) has decayed by many orders (Maxwell at t = 20τ).
+        java.util.Map<ViscoelasticModel, double[]> cases = new java.util.LinkedHashMap<>();
+        cases.put(new Springpot(), new double[] {1000, 0.4});
+        cases.put(new SpringpotDashpot(), new double[] {1000, 0.3, 20});
+        cases.put(new Maxwell(), new double[] {1000, 0.5});
+        cases.put(new KelvinVoigt(), new double[] {1000, 100});
+        cases.put(new Zener(), new double[] {1000, 2000, 0.7});
+        cases.put(new Burgers(), new double[] {1000, 1000, 500, 50});
+        cases.put(new GeneralizedMaxwell(2), new double[] {100, 1000, 500, 0.1, 10});
+        cases.put(new FractionalKelvinVoigt(), new double[] {1000, 500, 0.3});
+        cases.put(new FractionalMaxwell(), new double[] {1000, 1, 0.5});
+        cases.put(new FractionalZener(), new double[] {1000, 2000, 1, 0.6});
+        for (java.util.Map.Entry<ViscoelasticModel, double[]> e : cases.entrySet()) {
+            ViscoelasticModel m = e.getKey();
+            double[] p = e.getValue();
+            double early = Math.abs(LaplaceInversion.invert(s -> m.modulusAt(s, p).divide(s), 0.01));
+            for (double t : new double[] {0.01, 0.1, 1, 10}) {
+                double relax = LaplaceInversion.invert(s -> m.modulusAt(s, p).divide(s), t);
+                double creep = LaplaceInversion.invert(s -> m.modulusAt(s, p).multiply(s).reciprocal(), t);
+                if (!(m instanceof KelvinVoigt) && !(m instanceof SpringpotDashpot)) {
+                    // (their M(t) holds a Dirac term at t = 0 that the closed form leaves out; inversion sees only t > 0 too)
+                    assertEquals(relax, m.relaxationModulus(t, p), 1e-6 * Math.abs(relax) + 1e-12 * early, m.id() + " M(" + t + ")");
+                }
+                assertEquals(creep, m.creepCompliance(t, p), 1e-6 * Math.abs(creep), m.id() + " J(" + t + ")");
+            }
+        }
+    }
 }
