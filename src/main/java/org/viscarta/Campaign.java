@@ -16,6 +16,7 @@ import org.viscarta.compare.ReplicateSummary;
 import org.viscarta.fit.FitResult;
 import org.viscarta.fit.ModelFitter;
 import org.viscarta.fit.ModelSelection;
+import org.viscarta.fit.Weighting;
 import org.viscarta.io.InputCollector;
 import org.viscarta.io.InputException;
 import org.viscarta.io.ReadWarning;
@@ -37,11 +38,12 @@ public final class Campaign {
 
     /** What the analysis was asked to do; every field goes into the report's provenance. */
     public record Settings(List<String> modelIds, double atHz, boolean modelOutsideRange, ModulusKind basis,
-                           OptionalDouble poisson, ModulusKind declaredKind) {
+                           OptionalDouble poisson, ModulusKind declaredKind, Weighting weighting) {
 
         public Settings {
             modelIds = List.copyOf(modelIds);
             Objects.requireNonNull(poisson, "poisson");
+            Objects.requireNonNull(weighting, "weighting");
             if (!(atHz > 0) || Double.isInfinite(atHz)) {
                 throw new IllegalArgumentException("reference frequency must be finite and > 0 Hz, got " + atHz);
             }
@@ -56,29 +58,33 @@ public final class Campaign {
             }
         }
 
-        /** All implemented models, 1 Hz, no extrapolation, no basis conversion. */
+        /** All implemented models, 1 Hz, no extrapolation, no basis conversion, log residuals. */
         public static Settings defaults() {
-            return new Settings(ModelCatalogue.ids(), 1.0, false, null, OptionalDouble.empty(), null);
+            return new Settings(ModelCatalogue.ids(), 1.0, false, null, OptionalDouble.empty(), null, Weighting.LOG);
         }
 
         public Settings withModels(List<String> ids) {
-            return new Settings(ids, atHz, modelOutsideRange, basis, poisson, declaredKind);
+            return new Settings(ids, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting);
         }
 
         public Settings withAt(double hz) {
-            return new Settings(modelIds, hz, modelOutsideRange, basis, poisson, declaredKind);
+            return new Settings(modelIds, hz, modelOutsideRange, basis, poisson, declaredKind, weighting);
         }
 
         public Settings withModelOutsideRange(boolean allow) {
-            return new Settings(modelIds, atHz, allow, basis, poisson, declaredKind);
+            return new Settings(modelIds, atHz, allow, basis, poisson, declaredKind, weighting);
         }
 
         public Settings withBasis(ModulusKind kind, OptionalDouble nu) {
-            return new Settings(modelIds, atHz, modelOutsideRange, kind, nu, declaredKind);
+            return new Settings(modelIds, atHz, modelOutsideRange, kind, nu, declaredKind, weighting);
         }
 
         public Settings withDeclaredKind(ModulusKind kind) {
-            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, kind);
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, kind, weighting);
+        }
+
+        public Settings withWeighting(Weighting w) {
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, w);
         }
     }
 
@@ -260,7 +266,7 @@ public final class Campaign {
 
     /** Fits every candidate model to every sample (replicates pooled), in parallel over samples. */
     public List<SampleFits> fit() {
-        ModelFitter fitter = new ModelFitter();
+        ModelFitter fitter = new ModelFitter(settings.weighting());
         List<ViscoelasticModel> models = settings.modelIds().stream()
                 .map(id -> ModelCatalogue.byId(id).orElseThrow()).toList();
         return samples.parallelStream().map(s -> {

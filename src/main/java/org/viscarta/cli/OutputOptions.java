@@ -27,12 +27,16 @@ final class OutputOptions {
         }
     }
 
-    /** Writes rows of cells as CSV, atomically. */
+    /** Writes rows of cells as CSV to {@code -o}, atomically (nothing when -o was not given). */
     void writeCsv(List<String> header, List<List<String>> rows) throws IOException {
-        if (out == null) {
-            return;
+        if (out != null) {
+            writeCsv(out, force, header, rows);
         }
-        AtomicOutput.write(out, force, stream -> {
+    }
+
+    /** Writes rows of cells as CSV, atomically. */
+    static void writeCsv(Path target, boolean force, List<String> header, List<List<String>> rows) throws IOException {
+        AtomicOutput.write(target, force, stream -> {
             Writer w = new OutputStreamWriter(stream, StandardCharsets.UTF_8);
             CSVPrinter p = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setRecordSeparator("\n").get());
             p.printRecord(header);

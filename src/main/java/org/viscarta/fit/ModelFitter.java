@@ -19,7 +19,8 @@ import org.viscarta.sweep.SweepPoint;
  * Parameters are moved in their transformed space (log for positive values, logit for exponents),
  * with the model's analytic Jacobian carried through the chain rule, from every start the model
  * proposes; the lowest residual sum of squares wins. A model family (generalized-maxwell without a
- * fixed size) is fitted at each size and the lowest AICc kept.
+ * fixed size) is fitted at each size and the lowest AICc kept among the sizes whose parameters are
+ * all determined (a regular covariance matrix).
  *
  * <p>Uncertainty: Cov(u) = s²(JᵀJ)⁻¹ with s² = RSS/(n − p) in the transformed parameters u
  * (Bates &amp; Watts 1988; Seber &amp; Wild 1989); the standard error of θ = g(u) by the delta method,
@@ -68,7 +69,7 @@ public final class ModelFitter {
         for (ViscoelasticModel v : variants) {
             List<double[]> starts = 2 * data.size() <= v.parameterCount() ? List.of() : v.startValues(data);
             FitResult r = fitFrom(sample, v, data, starts);
-            if (best == null || (r.converged() && (!best.converged() || r.aicc() < best.aicc()))) {
+            if (best == null || better(r, best)) {
                 best = r;
             }
         }
@@ -78,6 +79,23 @@ public final class ModelFitter {
                     best.aicc(), best.bic(), best.correlation(), true, "", chosen, best.derived());
         }
         return best;
+    }
+
+    /**
+     * Among the variants of a family: a converged fit beats one that did not converge; a fit whose
+     * covariance is regular (every direction determined) beats a singular one, which has redundant
+     * elements; then the lower AICc wins.
+     */
+    private static boolean better(FitResult r, FitResult best) {
+        if (r.converged() != best.converged()) {
+            return r.converged();
+        }
+        boolean regular = r.correlation() != null;
+        boolean bestRegular = best.correlation() != null;
+        if (regular != bestRegular) {
+            return regular;
+        }
+        return r.aicc() < best.aicc();
     }
 
     /**

@@ -11,6 +11,12 @@ import java.util.List;
  */
 public final class ModelSelection {
 
+    /**
+     * AICc differences below this are ties (two parameterisations of one model, such as zener and a
+     * one-element generalized Maxwell, differ only by rounding); a tie goes to the model listed first.
+     */
+    private static final double TIE = 1e-9;
+
     private ModelSelection() {
     }
 
@@ -41,7 +47,8 @@ public final class ModelSelection {
 
     /**
      * Akaike weights w_i = exp(−Δ_i/2)/Σ exp(−Δ_j/2) over the converged fits with finite AICc;
-     * the others get weight NaN and are never best.
+     * the others get weight NaN and are never best. The best is the first fit within {@link #TIE} of the
+     * lowest AICc.
      */
     public static List<Ranked> rank(List<FitResult> fits) {
         double min = Double.POSITIVE_INFINITY;
@@ -61,7 +68,7 @@ public final class ModelSelection {
         for (FitResult f : fits) {
             if (eligible(f)) {
                 double delta = f.aicc() - min;
-                boolean best = !bestTaken && delta == 0;
+                boolean best = !bestTaken && delta <= TIE;
                 bestTaken |= best;
                 out.add(new Ranked(f, delta, Math.exp(-delta / 2) / sum, best));
             } else {

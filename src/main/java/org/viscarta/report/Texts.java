@@ -38,9 +38,13 @@ public final class Texts {
                 "Indentation, tension and compression give E; rotational rheometers give G. For a material that keeps its "
                     + "volume, E ≈ 3G; in general E = 2(1 + ν)G with Poisson's ratio ν. tan δ is the same on both."},
             new String[] {"Frequency [Hz]", "Oscillations per second. Angular frequency ω = 2π × frequency, in rad/s."},
-            new String[] {"Model", "A small set of springs and dashpots (or power-law elements) whose E′ and E″ are fitted to the "
-                    + "measured curves. springpot: a power law, tan δ constant. maxwell: a liquid with one relaxation time. "
-                    + "kelvin-voigt: a solid with a parallel damper. zener: a solid with one relaxation between two plateaus."},
+            new String[] {"Model", "A small set of springs and dashpots (or power-law elements, 'springpots') whose E′ and E″ are "
+                    + "fitted to the measured curves. springpot: a power law, tan δ constant. empirical-power-law: straight lines "
+                    + "in log–log axes, descriptive only. springpot-dashpot: a power law plus a liquid-like term. maxwell: a "
+                    + "liquid with one relaxation time. kelvin-voigt: a solid with a parallel damper. zener: a solid with one "
+                    + "relaxation between two plateaus. burgers: a liquid with a delayed elastic part. generalized-maxwell: "
+                    + "several relaxation times. fractional-kelvin-voigt, fractional-maxwell, fractional-zener: the same "
+                    + "shapes with a power-law element, for broad relaxations as in gels, tissues and paints."},
             new String[] {"Standard error and 95 % interval",
                 "How precisely the data pin down a parameter. The interval would contain the true value in about 95 % of "
                     + "repeated experiments if the model is right. A parameter flagged 'not determined by the data' is not "
@@ -58,6 +62,10 @@ public final class Texts {
             new String[] {"Summary", "One row per sample: what was measured, tan δ at the reference frequency, the best-supported model."},
             new String[] {"Damping ranking", "Samples ordered by tan δ at the reference frequency, highest damping first, with 95 % intervals over replicates."},
             new String[] {"Model fits", "Every model fitted to every sample: parameters with units, standard errors, 95 % intervals, AICc and Akaike weights."},
+            new String[] {"Derived quantities", "Quantities computed from each fit (relaxation and retardation times, crossover "
+                    + "frequency, relaxed and unrelaxed moduli, viscosities), with standard errors."},
+            new String[] {"Correlations", "How strongly each pair of a fit's parameters moves together (−1 to 1); beyond ±0.99 "
+                    + "the data cannot tell them apart."},
             new String[] {"Data", "Every measured point as read, in SI units, with its file and line."},
             new String[] {"Reference library", "The reference materials available for comparison (when a library was given)."},
             new String[] {"Provenance", "Tool version, the full command line, each input file with its SHA-256 checksum, every setting, and every warning."});

@@ -16,6 +16,7 @@ import org.apache.poi.ss.usermodel.Workbook;
 import org.apache.poi.xssf.streaming.SXSSFWorkbook;
 import org.viscarta.Campaign;
 import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.fit.DerivedEstimate;
 import org.viscarta.fit.FitResult;
 import org.viscarta.fit.ModelSelection;
 import org.viscarta.fit.ParameterEstimate;
@@ -52,6 +53,8 @@ public final class WorkbookReport {
             summary(wb, st, c);
             ranking(wb, st, c);
             modelFits(wb, st, c);
+            derived(wb, st, c);
+            correlations(wb, st, c);
             data(wb, st, c);
             library(wb, st, c);
             provenance(wb, st, c);
@@ -272,7 +275,7 @@ public final class WorkbookReport {
         rows.styled(st.header, "sample", "group", "modulus basis", "temperature [°C]", "replicates", "points",
                 "lowest frequency [Hz]", "highest frequency [Hz]", atHeader(c, "tan δ [–]"), "tan δ 95 % CI low [–]",
                 "tan δ 95 % CI high [–]", "best-supported model", "Akaike weight of best [–]", "RMS log misfit of best [–]",
-                "notes");
+                "also supported (ΔAICc < 2)", "notes");
         freezeHeader(s);
         Map<Campaign.Sample, Campaign.RankRow> rankOf = new IdentityHashMap<>();
         for (Campaign.RankRow r : c.ranking()) {
@@ -298,9 +301,19 @@ public final class WorkbookReport {
                     smp.replicates().size(), points, smp.minFrequencyHz(), smp.maxFrequencyHz(),
                     t == null ? null : t.mean(), t == null ? null : t.ci95Low(), t == null ? null : t.ci95High(),
                     best == null ? "none converged" : best.fit().model(), best == null ? null : best.weight(),
-                    best == null ? null : best.fit().rmsLogResidual(), String.join("; ", notes));
+                    best == null ? null : best.fit().rmsLogResidual(), String.join(", ", alsoSupported(sf)), String.join("; ", notes));
         }
-        widths(s, 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 16, 14, 14, 60);
+        widths(s, 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 22, 14, 14, 30, 60);
+    }
+
+    private static List<String> alsoSupported(Campaign.SampleFits sf) {
+        List<String> out = new ArrayList<>();
+        for (ModelSelection.Ranked rk : sf.fits()) {
+            if (!rk.best() && rk.deltaAicc() < 2) {
+                out.add(rk.fit().model());
+            }
+        }
+        return out;
     }
 
     private static void ranking(Workbook wb, Styles st, Content c) {
@@ -331,13 +344,52 @@ public final class WorkbookReport {
             for (ModelSelection.Ranked rk : sf.fits()) {
                 FitResult f = rk.fit();
                 for (ParameterEstimate p : f.parameters()) {
+                    String note = !f.converged() ? f.message()
+                            : f.variant().isEmpty() ? p.note() : p.note().isEmpty() ? f.variant() : f.variant() + "; " + p.note();
                     rows.row(f.sample(), f.model(), p.name(), p.unit(), p.value(), p.stdError(), p.ci95Low(), p.ci95High(),
                             f.rss(), f.aicc(), rk.deltaAicc(), rk.weight(), rk.best() ? "yes" : "no", f.converged() ? "yes" : "no",
-                            f.converged() ? p.note() : f.message());
+                            note);
                 }
             }
         }
         widths(s, 28, 16, 10, 10, 14, 14, 14, 14, 12, 12, 10, 12, 8, 11, 70);
+    }
+
+    private static void derived(Workbook wb, Styles st, Content c) {
+        Sheet s = wb.createSheet("Derived quantities");
+        Rows rows = new Rows(s, null, null, null, null, st.sci, st.sci, null);
+        rows.styled(st.header, "sample", "model", "quantity", "unit", "value", "standard error", "best");
+        freezeHeader(s);
+        for (Campaign.SampleFits sf : c.fits()) {
+            for (ModelSelection.Ranked rk : sf.fits()) {
+                for (DerivedEstimate d : rk.fit().derived()) {
+                    rows.row(rk.fit().sample(), rk.fit().model(), d.name(), d.unit(), d.value(), d.stdError(), rk.best() ? "yes" : "no");
+                }
+            }
+        }
+        widths(s, 28, 24, 26, 8, 14, 14, 8);
+    }
+
+    private static void correlations(Workbook wb, Styles st, Content c) {
+        Sheet s = wb.createSheet("Correlations");
+        Rows rows = new Rows(s, null, null, null, null, st.dec4);
+        rows.styled(st.header, "sample", "model", "parameter", "with parameter", "correlation [–]");
+        freezeHeader(s);
+        for (Campaign.SampleFits sf : c.fits()) {
+            for (ModelSelection.Ranked rk : sf.fits()) {
+                double[][] corr = rk.fit().correlation();
+                if (corr == null) {
+                    continue;
+                }
+                List<ParameterEstimate> ps = rk.fit().parameters();
+                for (int i = 0; i < ps.size(); i++) {
+                    for (int j = i + 1; j < ps.size(); j++) {
+                        rows.row(rk.fit().sample(), rk.fit().model(), ps.get(i).name(), ps.get(j).name(), corr[i][j]);
+                    }
+                }
+            }
+        }
+        widths(s, 28, 24, 14, 16, 16);
     }
 
     private static void data(Workbook wb, Styles st, Content c) {

@@ -43,11 +43,19 @@ class CliTest {
 
     /** A zener sweep, noise-free, 0.1–10 Hz at five points per decade (1 Hz is one of them), in one file. */
     private Path zenerFile(String name, double er, double e1, double tau) throws IOException {
+        return zenerFile(name, er, e1, tau, 0);
+    }
+
+    /** The same with seeded log-normal noise of relative size {@code noise}. */
+    private Path zenerFile(String name, double er, double e1, double tau, double noise) throws IOException {
+        java.util.SplittableRandom rng = new java.util.SplittableRandom(name.hashCode());
         StringBuilder sb = new StringBuilder("# sample: " + name + "\n# modulus: tensile\n" + HEADER);
         for (int i = 0; i <= 10; i++) {
             double f = 0.1 * Math.pow(10, i / 5.0);
             double x = 2 * Math.PI * f * tau;
-            sb.append(f).append(',').append(er + e1 * x * x / (1 + x * x)).append(',').append(e1 * x / (1 + x * x)).append('\n');
+            double ns = noise == 0 ? 1 : Math.exp(noise * rng.nextGaussian());
+            double nl = noise == 0 ? 1 : Math.exp(noise * rng.nextGaussian());
+            sb.append(f).append(',').append((er + e1 * x * x / (1 + x * x)) * ns).append(',').append(e1 * x / (1 + x * x) * nl).append('\n');
         }
         return write(name + ".csv", sb.toString());
     }
@@ -145,6 +153,43 @@ class CliTest {
     }
 
     @Test
+    void fitNamesTheChosenNumberOfMaxwellElementsAndWritesTheTimeDomain() throws IOException {
+        Path in = zenerFile("film", 2.0e6, 5.0e6, 0.2, 0.02);
+        Path out = dir.resolve("fits.csv");
+        Path time = dir.resolve("time.csv");
+        CliRun r = CliRun.of("fit", in.toString(), "--models", "zener,generalized-maxwell", "-o", out.toString(),
+                "--time-domain", "0.01:10:4", "--time-domain-out", time.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("best supported: zener"), "a tie goes to the model listed first:\n" + r.out());
+        List<CSVRecord> rows = csv(out);
+        assertTrue(rows.stream().anyMatch(x -> x.get(1).equals("generalized-maxwell") && x.get(11).startsWith("1 element, chosen by AICc")),
+                "variant named in the note column");
+        List<CSVRecord> t = csv(time);
+        assertEquals(FitCommand.TIME_HEADER, t.get(0).toList());
+        assertEquals(1 + 2 * 4, t.size());
+        // zener E(t) = E_r + E_1 e^{−t/τ} at t = 0.01 s (DOMAIN.md 2.1), from the fitted parameters in fits.csv
+        double[] p = rows.stream().filter(x -> x.get(1).equals("zener")).mapToDouble(x -> Double.parseDouble(x.get(3))).toArray();
+        CSVRecord first = t.stream().filter(x -> x.get(1).equals("zener")).findFirst().orElseThrow();
+        assertEquals(p[0] + p[1] * Math.exp(-0.01 / p[2]), Double.parseDouble(first.get(3)), 1e-9 * 7e6);
+    }
+
+    @Test
+    void timeDomainOutNeedsAGrid() throws IOException {
+        CliRun r = CliRun.of("fit", zenerFile("film", 1e6, 1e6, 0.1).toString(), "--time-domain-out", dir.resolve("t.csv").toString());
+        assertEquals(2, r.exitCode());
+        assertTrue(r.err().contains("--time-domain GRID"), r.err());
+    }
+
+    @Test
+    void replicateSdWeightingNeedsReplicatesAndSaysSo() throws IOException {
+        CliRun r = CliRun.of("fit", zenerFile("film", 1e6, 1e6, 0.1).toString(), "--models", "zener", "--weighting", "replicate-sd");
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("needs at least two replicates"), r.out());
+        CliRun bad = CliRun.of("fit", zenerFile("film2", 1e6, 1e6, 0.1).toString(), "--weighting", "cubic");
+        assertEquals(2, bad.exitCode());
+    }
+
+    @Test
     void existingOutputIsNotReplacedWithoutForce() throws IOException {
         Path in = zenerFile("film", 2.0e6, 5.0e6, 0.2);
         Path out = write("fits.csv", "precious\n");
@@ -204,7 +249,8 @@ class CliTest {
         try (InputStream in = Files.newInputStream(xlsx); Workbook wb = WorkbookFactory.create(in)) {
             List<String> names = new ArrayList<>();
             wb.forEach(s -> names.add(s.getSheetName()));
-            assertEquals(List.of("Read me", "Summary", "Damping ranking", "Model fits", "Data", "Reference library", "Provenance"), names);
+            assertEquals(List.of("Read me", "Summary", "Damping ranking", "Model fits", "Derived quantities", "Correlations", "Data",
+                    "Reference library", "Provenance"), names);
             Sheet summary = wb.getSheet("Summary");
             assertEquals(15, summary.getLastRowNum(), "15 demo samples");
             Sheet data = wb.getSheet("Data");
