@@ -29,9 +29,17 @@ import org.apache.commons.math3.util.Pair;
  */
 public final class LeastSquaresEngine {
 
+    /** Which Levenberg–Marquardt implementation runs. */
+    public enum Method {
+        /** Commons Math 3.6.1's MINPACK translation: the general, reference path. */
+        COMMONS_MATH,
+        /** {@link CompactLevenbergMarquardt}: no matrix objects, for the many small fits of a campaign. */
+        COMPACT
+    }
+
     /** Limits and tolerances of a solve. */
     public record Settings(int maxEvaluations, int maxIterations, double relativeTolerance,
-                           double singularityThreshold) {
+                           double singularityThreshold, Method method) {
 
         public Settings {
             if (maxEvaluations < 1 || maxIterations < 1) {
@@ -48,11 +56,15 @@ public final class LeastSquaresEngine {
          * counts as singular.
          */
         public static Settings defaults() {
-            return new Settings(5000, 2000, 1.0e-14, 1.0e-10);
+            return new Settings(5000, 2000, 1.0e-14, 1.0e-10, Method.COMMONS_MATH);
         }
 
         public Settings withMaxEvaluations(int n) {
-            return new Settings(n, maxIterations, relativeTolerance, singularityThreshold);
+            return new Settings(n, maxIterations, relativeTolerance, singularityThreshold, method);
+        }
+
+        public Settings withMethod(Method m) {
+            return new Settings(maxEvaluations, maxIterations, relativeTolerance, singularityThreshold, m);
         }
     }
 
@@ -73,6 +85,9 @@ public final class LeastSquaresEngine {
      * @param start start values (length p)
      */
     public Solution solve(int n, ResidualFunction f, double[] start) {
+        if (settings.method() == Method.COMPACT) {
+            return solveCompact(n, f, start);
+        }
         int p = start.length;
         MultivariateJacobianFunction model = point -> {
             double[] theta = point.toArray();
@@ -104,7 +119,7 @@ public final class LeastSquaresEngine {
             // Solve again once with looser tolerances; a second failure is a failure.
             if (settings.relativeTolerance() < LOOSE_TOLERANCE) {
                 return new LeastSquaresEngine(new Settings(settings.maxEvaluations(), settings.maxIterations(),
-                        LOOSE_TOLERANCE, settings.singularityThreshold())).solve(n, f, start);
+                        LOOSE_TOLERANCE, settings.singularityThreshold(), settings.method())).solve(n, f, start);
             }
             return failed(n, f, start, "the optimiser stopped: " + e.getMessage());
         } catch (MathIllegalStateException | IllegalArgumentException e) {
@@ -166,6 +181,23 @@ public final class LeastSquaresEngine {
             starts.add(s);
         }
         return solveMultiStart(n, f, starts);
+    }
+
+    private Solution solveCompact(int n, ResidualFunction f, double[] start) {
+        CompactLevenbergMarquardt.Result r;
+        try {
+            r = new CompactLevenbergMarquardt(settings.maxEvaluations(), settings.relativeTolerance()).solve(n, f, start);
+        } catch (RuntimeException e) {
+            return failed(n, f, start, "the optimiser stopped: " + e.getMessage());
+        }
+        if (!r.converged()) {
+            return new Solution(r.params(), r.rss(), null, n, r.evaluations(), false, r.message());
+        }
+        if (!Double.isFinite(r.rss()) || !allFinite(r.params())) {
+            return failed(n, f, start, "the fit left the range of finite numbers");
+        }
+        return new Solution(r.params(), r.rss(), inverseNormalMatrix(new Array2DRowRealMatrix(r.jacobian(), false),
+                settings.singularityThreshold()), n, r.evaluations(), true, "");
     }
 
     /**

@@ -47,8 +47,10 @@ public final class ModelFitter {
         this(engine, Weighting.LOG);
     }
 
+    /** Model fits use the compact Levenberg–Marquardt path (validated against Commons Math, NIST and SciPy). */
     public ModelFitter(Weighting weighting) {
-        this(new LeastSquaresEngine(LeastSquaresEngine.Settings.defaults().withMaxEvaluations(1000)), weighting);
+        this(new LeastSquaresEngine(LeastSquaresEngine.Settings.defaults().withMaxEvaluations(1000)
+                .withMethod(LeastSquaresEngine.Method.COMPACT)), weighting);
     }
 
     public ModelFitter() {

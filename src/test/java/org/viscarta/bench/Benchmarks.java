@@ -48,6 +48,7 @@ public final class Benchmarks {
                 System.getProperty("java.version"), System.getProperty("os.name"), System.getProperty("os.arch"));
         if (args.length < 2 || !args[1].equals("campaign-only")) {
             singleFit(out);
+            catalogue(out);
             reading(out);
         }
         campaign(out, campaignSweeps);
@@ -100,6 +101,71 @@ public final class Benchmarks {
         Arrays.sort(ns);
         System.out.printf(Locale.ROOT, "zener fit, 20 frequencies, one start: median %.1f µs, p90 %.1f µs (checksum %.6g)%n",
                 ns[reps / 2] / 1e3, ns[reps * 9 / 10] / 1e3, sink);
+    }
+
+    /** Every model of the catalogue on a 20-frequency sweep of its own; also written for the SciPy script. */
+    private static void catalogue(Path out) throws IOException {
+        Object[][] cases = {
+            {"springpot", new double[] {1e4, 0.3}},
+            {"empirical-power-law", new double[] {1e4, 0.2, 2e3, 0.4}},
+            {"springpot-dashpot", new double[] {1e4, 0.2, 5}},
+            {"maxwell", new double[] {1e5, 0.05}},
+            {"kelvin-voigt", new double[] {1e4, 50}},
+            {"zener", new double[] {1e4, 3e4, 0.05}},
+            {"burgers", new double[] {1e5, 1e4, 5e4, 5e2}},
+            {"generalized-maxwell:2", new double[] {1e3, 1e4, 5e3, 0.01, 1}},
+            {"fractional-kelvin-voigt", new double[] {1e4, 3e3, 0.4}},
+            {"fractional-maxwell", new double[] {1e5, 0.05, 0.6}},
+            {"fractional-zener", new double[] {1e4, 3e4, 0.05, 0.6}}};
+        SplittableRandom rng = new SplittableRandom(31);
+        StringBuilder sweeps = new StringBuilder("case,model,frequency_hz,storage_pa,loss_pa\n");
+        StringBuilder times = new StringBuilder("case,model,viscarta_median_us_all_starts,viscarta_median_us_one_start,starts\n");
+        ModelFitter fitter = new ModelFitter();
+        System.out.println("per model, 20 frequencies, 3 % noise (median of 300 fits after 300 warm-up fits, one thread):");
+        for (int k = 0; k < cases.length; k++) {
+            String id = (String) cases[k][0];
+            double[] truth = (double[]) cases[k][1];
+            var model = org.viscarta.model.ModelCatalogue.byId(id).orElseThrow();
+            List<SweepPoint> pts = new ArrayList<>();
+            double[] m = new double[2];
+            for (int i = 0; i < 20; i++) {
+                double f = 0.01 * Math.pow(1e4, i / 19.0);
+                model.modulus(2 * Math.PI * f, truth, m);
+                pts.add(new SweepPoint(f, m[0] * Math.exp(0.03 * rng.nextGaussian()), m[1] * Math.exp(0.03 * rng.nextGaussian()), 0));
+            }
+            for (SweepPoint p : pts) {
+                sweeps.append(k).append(',').append(model.id()).append(',').append(p.frequencyHz()).append(',')
+                        .append(p.storage()).append(',').append(p.loss()).append('\n');
+            }
+            List<double[]> starts = model.startValues(pts);
+            List<double[]> first = List.of(starts.get(0));
+            double all = medianMicros(() -> fitter.fit("b", model, pts).rss());
+            double one = medianMicros(() -> fitter.fitFrom("b", model, pts, first).rss());
+            System.out.printf(Locale.ROOT, "  %-24s %8.1f µs (%d starts, %6.0f fits/s)   %7.1f µs from one start%n", id, all,
+                    starts.size(), 1e6 / all, one);
+            times.append(k).append(',').append(model.id()).append(',').append(all).append(',').append(one).append(',')
+                    .append(starts.size()).append('\n');
+        }
+        Files.writeString(out.resolve("catalogue-sweeps.csv"), sweeps.toString());
+        Files.writeString(out.resolve("viscarta-fit-times.csv"), times.toString());
+    }
+
+    private static double medianMicros(java.util.function.DoubleSupplier fit) {
+        double sink = 0;
+        for (int i = 0; i < 300; i++) {
+            sink += fit.getAsDouble();
+        }
+        long[] ns = new long[300];
+        for (int i = 0; i < ns.length; i++) {
+            long t0 = System.nanoTime();
+            sink += fit.getAsDouble();
+            ns[i] = System.nanoTime() - t0;
+        }
+        Arrays.sort(ns);
+        if (Double.isNaN(sink)) {
+            System.out.print("");
+        }
+        return ns[ns.length / 2] / 1e3;
     }
 
     private static double singleStart(ModelFitter fitter, Zener zener, List<SweepPoint> pts, double[] start) {

@@ -15,6 +15,7 @@ import org.junit.jupiter.api.Test;
  */
 class NistStrdTest {
 
+
     /** Parameters and RSS: at least 6 significant digits (DOMAIN.md). */
     private static final double VALUE_TOLERANCE = 1e-6;
     /** Standard deviations, which include the s² = RSS/(n − p) scaling (DOMAIN.md). */
@@ -131,7 +132,10 @@ class NistStrdTest {
         };
     }
 
-    private static final LeastSquaresEngine ENGINE = new LeastSquaresEngine(LeastSquaresEngine.Settings.defaults());
+    /** The engine under test: Commons Math's Levenberg–Marquardt here; the compact solver in a subclass. */
+    LeastSquaresEngine engine() {
+        return new LeastSquaresEngine(LeastSquaresEngine.Settings.defaults());
+    }
 
     private static void assertCertified(NistDataset d, Solution s, String from) {
         assertTrue(s.converged(), d.name + " from " + from + ": " + s.message());
@@ -153,30 +157,30 @@ class NistStrdTest {
         }
     }
 
-    private static void checkBothStarts(String name, Curve c) throws IOException {
+    void checkBothStarts(String name, Curve c) throws IOException {
         NistDataset d = NistDataset.load(name);
         ResidualFunction f = residuals(d, c);
-        assertCertified(d, ENGINE.solve(d.x.length, f, d.start1), "NIST start 1");
-        assertCertified(d, ENGINE.solve(d.x.length, f, d.start2), "NIST start 2");
+        assertCertified(d, engine().solve(d.x.length, f, d.start1), "NIST start 1");
+        assertCertified(d, engine().solve(d.x.length, f, d.start2), "NIST start 2");
     }
 
     /**
      * For the harder problems a single Levenberg–Marquardt run from a NIST start may stop short; the
      * engine's multi-start entry point, seeded at that start, must then reach the certified values.
      */
-    private static void checkBothStartsAllowingMultiStart(String name, Curve c) throws IOException {
+    void checkBothStartsAllowingMultiStart(String name, Curve c) throws IOException {
         NistDataset d = NistDataset.load(name);
         ResidualFunction f = residuals(d, c);
         for (int k = 1; k <= 2; k++) {
             double[] start = k == 1 ? d.start1 : d.start2;
-            Solution single = ENGINE.solve(d.x.length, f, start);
+            Solution single = engine().solve(d.x.length, f, start);
             boolean certified = single.converged() && Math.abs(single.rss() - d.certifiedRss) <= VALUE_TOLERANCE * d.certifiedRss;
             if (certified) {
                 assertCertified(d, single, "NIST start " + k);
             } else {
                 System.out.printf("%s from NIST start %d: a single start stopped at RSS %.6e (%s); multi-start used%n",
                         name, k, single.rss(), single.converged() ? "converged elsewhere" : single.message());
-                assertCertified(d, ENGINE.solveFromScaledStarts(d.x.length, f, start, 20, 42L), "multi-start around NIST start " + k);
+                assertCertified(d, engine().solveFromScaledStarts(d.x.length, f, start, 20, 42L), "multi-start around NIST start " + k);
             }
         }
     }
@@ -235,14 +239,14 @@ class NistStrdTest {
     @Test
     void mgh09StartTwoReachesCertifiedValues() throws IOException {
         NistDataset d = NistDataset.load("MGH09");
-        assertCertified(d, ENGINE.solve(d.x.length, residuals(d, MGH09), d.start2), "NIST start 2");
+        assertCertified(d, engine().solve(d.x.length, residuals(d, MGH09), d.start2), "NIST start 2");
     }
 
     @Test
     void mgh09StartOneEndsAtCertifiedOrDocumentedLocalMinimumAndMultiStartFindsCertified() throws IOException {
         NistDataset d = NistDataset.load("MGH09");
         ResidualFunction f = residuals(d, MGH09);
-        Solution single = ENGINE.solve(d.x.length, f, d.start1);
+        Solution single = engine().solve(d.x.length, f, d.start1);
         boolean certified = single.converged()
                 && Math.abs(single.rss() - d.certifiedRss) <= VALUE_TOLERANCE * d.certifiedRss;
         boolean local = single.converged()
@@ -251,14 +255,14 @@ class NistStrdTest {
                 certified ? "certified minimum" : local ? "documented local minimum 1.02734e-3" : "neither");
         assertTrue(certified || local || !single.converged(),
                 "MGH09 start 1 ended at an undocumented point, RSS " + single.rss());
-        Solution multi = ENGINE.solveFromScaledStarts(d.x.length, f, d.start1, 20, 42L);
+        Solution multi = engine().solveFromScaledStarts(d.x.length, f, d.start1, 20, 42L);
         assertCertified(d, multi, "multi-start around NIST start 1");
     }
 
     @Test
     void multiStartKeepsLowestResidual() throws IOException {
         NistDataset d = NistDataset.load("Misra1a");
-        Solution s = ENGINE.solveMultiStart(d.x.length, residuals(d, MISRA1A), List.of(d.start1, d.start2));
+        Solution s = engine().solveMultiStart(d.x.length, residuals(d, MISRA1A), List.of(d.start1, d.start2));
         assertCertified(d, s, "both NIST starts together");
     }
 }
