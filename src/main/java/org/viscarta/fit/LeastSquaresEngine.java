@@ -16,7 +16,6 @@ import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.ArrayRealVector;
 import org.apache.commons.math3.linear.RealMatrix;
 import org.apache.commons.math3.linear.RealVector;
-import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.apache.commons.math3.util.Pair;
 
 /**
@@ -67,6 +66,9 @@ public final class LeastSquaresEngine {
             return new Settings(maxEvaluations, maxIterations, relativeTolerance, singularityThreshold, m);
         }
     }
+
+    /** Two residual sums of squares this close (relative) are the same minimum. */
+    private static final double CONFIRMATION = 1e-9;
 
     /** Tolerance of the second attempt after a {@link ConvergenceException}. */
     private static final double LOOSE_TOLERANCE = 1.0e-10;
@@ -135,17 +137,29 @@ public final class LeastSquaresEngine {
     }
 
     /**
-     * Solves from several starts and keeps the lowest residual sum of squares among those that
-     * converged; when none converged, returns the first failure.
+     * Solves from several starts, in order, and keeps the lowest residual sum of squares among those
+     * that converged; when none converged, returns the first failure. It stops early once the lowest
+     * residual has been reached from two different starts (to 1e-9 relative): the minimum has then
+     * been confirmed, and later starts, spread over less likely regions, are skipped.
      */
     public Solution solveMultiStart(int n, ResidualFunction f, List<double[]> starts) {
         Solution best = null;
         Solution firstFailure = null;
+        int confirmations = 0;
         for (double[] s : starts) {
             Solution sol = solve(n, f, s);
             if (sol.converged()) {
-                if (best == null || sol.rss() < best.rss()) {
+                if (best == null || sol.rss() < best.rss() * (1 - CONFIRMATION)) {
                     best = sol;
+                    confirmations = 1;
+                } else if (Math.abs(sol.rss() - best.rss()) <= CONFIRMATION * best.rss()) {
+                    confirmations++;
+                    if (sol.rss() < best.rss()) {
+                        best = sol;
+                    }
+                }
+                if (confirmations >= 2) {
+                    break;
                 }
             } else if (firstFailure == null) {
                 firstFailure = sol;
@@ -196,33 +210,48 @@ public final class LeastSquaresEngine {
         if (!Double.isFinite(r.rss()) || !allFinite(r.params())) {
             return failed(n, f, start, "the fit left the range of finite numbers");
         }
-        return new Solution(r.params(), r.rss(), inverseNormalMatrix(new Array2DRowRealMatrix(r.jacobian(), false),
-                settings.singularityThreshold()), n, r.evaluations(), true, "");
+        return new Solution(r.params(), r.rss(), inverseNormalMatrix(r.jacobian(), settings.singularityThreshold()),
+                n, r.evaluations(), true, "");
     }
 
     /**
-     * (JᵀJ)⁻¹ = V Σ⁻² Vᵀ from the singular value decomposition of J itself: forming JᵀJ first (as
+     * (JᵀJ)⁻¹ = V Σ⁻² Vᵀ from the singular value decomposition of J itself ({@link JacobiSvd}): forming JᵀJ first (as
      * Commons Math's getCovariances does) squares the condition number and loses half the digits on
      * ill-conditioned problems such as NIST's Bennett5. Null when σ_min/σ_max is below
      * {@code threshold}, i.e. some direction is not determined by the data.
      */
     static double[][] inverseNormalMatrix(RealMatrix jacobian, double threshold) {
-        if (!allFinite(jacobian)) {
+        return inverseNormalMatrix(jacobian.getData(), threshold);
+    }
+
+    static double[][] inverseNormalMatrix(double[][] jacobian, double threshold) {
+        for (double[] row : jacobian) {
+            if (!allFinite(row)) {
+                return null;
+            }
+        }
+        int p = jacobian[0].length;
+        if (p == 0) {
             return null;
         }
-        SingularValueDecomposition svd = new SingularValueDecomposition(jacobian);
-        double[] sv = svd.getSingularValues();
-        int p = sv.length;
-        if (p == 0 || !(sv[p - 1] > threshold * sv[0])) {
+        JacobiSvd.Result svd = JacobiSvd.decompose(jacobian);
+        double[] sv = svd.singularValues();
+        double max = 0;
+        double min = Double.POSITIVE_INFINITY;
+        for (double x : sv) {
+            max = Math.max(max, x);
+            min = Math.min(min, x);
+        }
+        if (!(min > threshold * max)) {
             return null;
         }
-        RealMatrix v = svd.getV();
+        double[][] v = svd.v();
         double[][] inv = new double[p][p];
         for (int i = 0; i < p; i++) {
             for (int j = 0; j < p; j++) {
                 double sum = 0;
                 for (int k = 0; k < p; k++) {
-                    sum += v.getEntry(i, k) * v.getEntry(j, k) / (sv[k] * sv[k]);
+                    sum += v[i][k] * v[j][k] / (sv[k] * sv[k]);
                 }
                 inv[i][j] = sum;
             }

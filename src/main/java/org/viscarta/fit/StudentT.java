@@ -11,8 +11,11 @@ public final class StudentT {
     private StudentT() {
     }
 
+    /** Quantiles already computed, by degrees of freedom (every fit of a campaign asks for a few). */
+    private static final java.util.concurrent.ConcurrentHashMap<Double, Double> CACHE = new java.util.concurrent.ConcurrentHashMap<>();
+
     /** The 0.975 quantile on {@code df} degrees of freedom, for two-sided 95 % intervals. */
     public static double quantile975(double df) {
-        return new TDistribution(null, df, INVERSE_ACCURACY).inverseCumulativeProbability(0.975);
+        return CACHE.computeIfAbsent(df, d -> new TDistribution(null, d, INVERSE_ACCURACY).inverseCumulativeProbability(0.975));
     }
 }
