@@ -88,38 +88,43 @@ CASES = [
 to_u = {"L": np.log, "G": lambda v: np.log(v / (1 - v)), "I": lambda v: v}
 to_theta = {"L": np.exp, "G": lambda u: 1 / (1 + np.exp(-u)), "I": lambda u: u}
 
-rng = np.random.default_rng(20261201)
-f = 0.01 * 1e4 ** (np.arange(20) / 19)
-w = 2 * np.pi * f
-sweeps, fits = [], []
-for k, (model, truth) in enumerate(CASES):
-    names, kinds, fn = MODELS[model]
-    s, l = fn(w, *truth)
-    s = s * np.exp(0.03 * rng.standard_normal(len(f)))
-    l = l * np.exp(0.03 * rng.standard_normal(len(f)))
-    for fi, si, li in zip(f, s, l):
-        sweeps.append([k, model, repr(float(fi)), repr(float(si)), repr(float(li))])
+def main():
+    rng = np.random.default_rng(20261201)
+    f = 0.01 * 1e4 ** (np.arange(20) / 19)
+    w = 2 * np.pi * f
+    sweeps, fits = [], []
+    for k, (model, truth) in enumerate(CASES):
+        names, kinds, fn = MODELS[model]
+        s, l = fn(w, *truth)
+        s = s * np.exp(0.03 * rng.standard_normal(len(f)))
+        l = l * np.exp(0.03 * rng.standard_normal(len(f)))
+        for fi, si, li in zip(f, s, l):
+            sweeps.append([k, model, repr(float(fi)), repr(float(si)), repr(float(li))])
 
-    def theta(u):
-        return [to_theta[kd](ui) for kd, ui in zip(kinds, u)]
+        def theta(u):
+            return [to_theta[kd](ui) for kd, ui in zip(kinds, u)]
 
-    def resid(u):
-        ms, ml = fn(w, *theta(u))
-        return np.concatenate([np.log(ms) - np.log(s), np.log(ml) - np.log(l)])
+        def resid(u):
+            ms, ml = fn(w, *theta(u))
+            return np.concatenate([np.log(ms) - np.log(s), np.log(ml) - np.log(l)])
 
-    start = [to_u[kd](v * 1.3 if kd != "I" else v + 0.1) if kd != "G" else to_u[kd](min(v * 1.3, 0.95))
-             for kd, v in zip(kinds, truth)]
-    r = least_squares(resid, start, method="lm", xtol=1e-15, ftol=1e-15, gtol=1e-15, max_nfev=100000)
-    rss = float(np.sum(r.fun ** 2))
-    for name, value in zip(names, theta(r.x)):
-        fits.append([k, model, name, repr(float(value)), repr(rss)])
+        start = [to_u[kd](v * 1.3 if kd != "I" else v + 0.1) if kd != "G" else to_u[kd](min(v * 1.3, 0.95))
+                 for kd, v in zip(kinds, truth)]
+        r = least_squares(resid, start, method="lm", xtol=1e-15, ftol=1e-15, gtol=1e-15, max_nfev=100000)
+        rss = float(np.sum(r.fun ** 2))
+        for name, value in zip(names, theta(r.x)):
+            fits.append([k, model, name, repr(float(value)), repr(rss)])
 
-with open(os.path.join(HERE, "catalogue_sweeps.csv"), "w", newline="") as fh:
-    wr = csv.writer(fh)
-    wr.writerow(["case", "model", "frequency_hz", "storage_pa", "loss_pa"])
-    wr.writerows(sweeps)
-with open(os.path.join(HERE, "catalogue_fits.csv"), "w", newline="") as fh:
-    wr = csv.writer(fh)
-    wr.writerow(["case", "model", "parameter", "value", "rss"])
-    wr.writerows(fits)
-print(f"scipy {scipy.__version__}, numpy {np.__version__}: {len(CASES)} sweeps fitted")
+    with open(os.path.join(HERE, "catalogue_sweeps.csv"), "w", newline="") as fh:
+        wr = csv.writer(fh)
+        wr.writerow(["case", "model", "frequency_hz", "storage_pa", "loss_pa"])
+        wr.writerows(sweeps)
+    with open(os.path.join(HERE, "catalogue_fits.csv"), "w", newline="") as fh:
+        wr = csv.writer(fh)
+        wr.writerow(["case", "model", "parameter", "value", "rss"])
+        wr.writerows(fits)
+    print(f"scipy {scipy.__version__}, numpy {np.__version__}: {len(CASES)} sweeps fitted")
+
+
+if __name__ == "__main__":
+    main()

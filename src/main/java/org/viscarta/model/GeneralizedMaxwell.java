@@ -110,6 +110,21 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
         }
     }
 
+    /**
+     * About one relaxation time per decade of frequency can be resolved (Baumgaertel &amp; Winter 1989,
+     * Rheol. Acta 28:511, suggest one to two; DOMAIN.md section 7): N may not exceed 1 + the decades spanned.
+     */
+    @Override
+    public String unsuitable(List<SweepPoint> points) {
+        DataFeatures f = new DataFeatures(points);
+        double decades = Math.log10(f.omegaMax / f.omegaMin);
+        if (elements > 1 + decades) {
+            return String.format(java.util.Locale.ROOT, "%d relaxation times need at least %d decades of frequency; the sweep spans %.1f",
+                    elements, elements - 1, decades);
+        }
+        return "";
+    }
+
     /** τ_i spread evenly in log over the window (and over the window widened by a decade each side). */
     @Override
     public List<double[]> startValues(List<SweepPoint> points) {

@@ -91,6 +91,14 @@ public sealed interface ViscoelasticModel permits Springpot, EmpiricalPowerLaw, 
         return "";
     }
 
+    /**
+     * Why this model cannot be fitted meaningfully to these points, or "" when it can (e.g. a
+     * generalized Maxwell model with more relaxation times than the window has decades).
+     */
+    default String unsuitable(List<SweepPoint> points) {
+        return "";
+    }
+
     /** Number of parameters. */
     default int parameterCount() {
         return parameters().size();
