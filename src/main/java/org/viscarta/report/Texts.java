@@ -64,8 +64,9 @@ public final class Texts {
             new String[] {"Model fits", "Every model fitted to every sample: parameters with units, standard errors, 95 % intervals, AICc and Akaike weights."},
             new String[] {"Derived quantities", "Quantities computed from each fit (relaxation and retardation times, crossover "
                     + "frequency, relaxed and unrelaxed moduli, viscosities), with standard errors."},
-            new String[] {"Correlations", "How strongly each pair of a fit's parameters moves together (−1 to 1); beyond ±0.99 "
-                    + "the data cannot tell them apart."},
+            new String[] {"Correlations", "For each sample's best-supported model: how strongly each pair of parameters moves "
+                    + "together (−1 to 1); beyond ±0.99 the data cannot tell them apart (other models' flags in Model fits name "
+                    + "such pairs too)."},
             new String[] {"Data", "Every measured point as read, in SI units, with its file and line."},
             new String[] {"Reference library", "The reference materials available for comparison (when a library was given)."},
             new String[] {"Provenance", "Tool version, the full command line, each input file with its SHA-256 checksum, every setting, and every warning."});

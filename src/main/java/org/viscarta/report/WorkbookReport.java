@@ -378,7 +378,7 @@ public final class WorkbookReport {
         for (Campaign.SampleFits sf : c.fits()) {
             for (ModelSelection.Ranked rk : sf.fits()) {
                 double[][] corr = rk.fit().correlation();
-                if (corr == null) {
+                if (corr == null || !rk.best()) {
                     continue;
                 }
                 List<ParameterEstimate> ps = rk.fit().parameters();
