@@ -1,0 +1,104 @@
+package org.viscarta.compare;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import java.util.List;
+import org.junit.jupiter.api.Test;
+
+/**
+ * Validation of the group statistics against DOMAIN.md section 10.8, computed there with SciPy 1.17
+ * (scipy.stats.ttest_ind(equal_var=False), f_oneway, kruskal) and reproducible with
+ * shared/domain-checks.py; Holm's procedure against its definition on hand-checkable cases.
+ * The table prints 6–7 significant digits: each value is held to half a unit in its last printed digit.
+ */
+class GroupStatisticsTest {
+
+    private static final double[] A = {10.2, 11.5, 9.8, 12.1, 10.9};
+    private static final double[] B = {13.4, 14.8, 12.9, 15.5};
+    private static final double[] C = {11.0, 11.8, 10.5, 12.4, 11.6, 12.0};
+
+    private static void near(String printed, double actual, String what) {
+        java.math.BigDecimal bd = new java.math.BigDecimal(printed);
+        assertEquals(bd.doubleValue(), actual, 0.5 * Math.pow(10, -bd.scale()) * (1 + 1e-9), what);
+    }
+
+    @Test
+    void welchMatchesScipy() {
+        GroupStatistics.Welch ab = GroupStatistics.welch(A, B);
+        near("-4.426106", ab.t(), "t A–B");
+        near("5.605270", ab.df(), "df A–B");
+        near("0.00522814", ab.p(), "p A–B");
+        GroupStatistics.Welch ac = GroupStatistics.welch(A, C);
+        near("-1.287613", ac.t(), "t A–C");
+        near("7.271369", ac.df(), "df A–C");
+        near("0.237345", ac.p(), "p A–C");
+        GroupStatistics.Welch bc = GroupStatistics.welch(B, C);
+        near("3.901951", bc.t(), "t B–C");
+        near("4.334521", bc.df(), "df B–C");
+        near("0.0150175", bc.p(), "p B–C");
+    }
+
+    @Test
+    void welchAnalyticCase() {
+        // DOMAIN.md 10.8: x = 1…5, y = 2, 4, …, 10 ⇒ t = −1.897367, ν = 6.25/1.0625 = 5.882353, p = 0.107531
+        GroupStatistics.Welch w = GroupStatistics.welch(new double[] {1, 2, 3, 4, 5}, new double[] {2, 4, 6, 8, 10});
+        near("-1.897367", w.t(), "t");
+        assertEquals(6.25 / 1.0625, w.df(), 1e-12, "df");
+        near("0.107531", w.p(), "p");
+    }
+
+    @Test
+    void anovaAndKruskalWallisMatchScipy() {
+        GroupStatistics.GroupTest f = GroupStatistics.oneWayAnova(List.of(A, B, C));
+        near("15.047832", f.statistic(), "F");
+        near("5.36616e-4", f.p(), "ANOVA p");
+        assertEquals(2, f.df1());
+        assertEquals(12, f.df2());
+        GroupStatistics.GroupTest h = GroupStatistics.kruskalWallis(List.of(A, B, C));
+        near("9.148333", h.statistic(), "H");
+        near("0.0103149", h.p(), "Kruskal–Wallis p");
+    }
+
+    @Test
+    void kruskalWallisCorrectsForTies() {
+        // Hand-checkable: groups (1, 2), (2, 3). Ranks 1, 2.5 | 2.5, 4; R = 3.5, 6.5; N = 4.
+        // H = 12/(4·5)·(3.5²/2 + 6.5²/2) − 15 = 0.6·27.25 − 15 = 1.35; ties: one pair, Σ(t³ − t) = 6,
+        // correction 1 − 6/60 = 0.9 ⇒ H = 1.5 (Kruskal & Wallis 1952, tie correction).
+        GroupStatistics.GroupTest h = GroupStatistics.kruskalWallis(List.of(new double[] {1, 2}, new double[] {2, 3}));
+        assertEquals(1.5, h.statistic(), 1e-12);
+    }
+
+    @Test
+    void holmMatchesItsDefinition() {
+        // DOMAIN.md 10.8: p = (0.01, 0.04, 0.03, 0.005) ⇒ adjusted (0.03, 0.06, 0.06, 0.02)
+        assertArrayEquals(new double[] {0.03, 0.06, 0.06, 0.02}, GroupStatistics.holm(new double[] {0.01, 0.04, 0.03, 0.005}), 1e-15);
+        // DOMAIN.md 10.8: (AB, AC, BC) = (0.0156844, 0.237345, 0.0300350) adjusted are the Holm values of the raw Welch p
+        double[] adj = GroupStatistics.holm(new double[] {0.00522814, 0.237345, 0.0150175});
+        near("0.0156844", adj[0], "Holm AB");
+        near("0.237345", adj[1], "Holm AC");
+        near("0.0300350", adj[2], "Holm BC");
+    }
+
+    @Test
+    void lettersMatchDomainExample() {
+        // DOMAIN.md 10.8: Holm on (AB, AC, BC) ⇒ letters B "a", A "b", C "b" — items in order of descending mean: B, C, A
+        boolean[][] sig = new boolean[3][3];
+        // order B(0), C(1), A(2): B–C adjusted 0.030 < 0.05, B–A 0.0157 < 0.05, C–A 0.237 not
+        sig[0][1] = true;
+        sig[1][0] = true;
+        sig[0][2] = true;
+        sig[2][0] = true;
+        assertArrayEquals(new String[] {"a", "b", "b"}, LetterDisplay.letters(3, sig));
+    }
+
+    @Test
+    void lettersOverlapWhenAMiddleItemDiffersFromNeither() {
+        // a < b < c with only a–c significant: a "a", b "ab", c "b" (Piepho 2004's basic case)
+        boolean[][] sig = new boolean[3][3];
+        sig[0][2] = true;
+        sig[2][0] = true;
+        assertArrayEquals(new String[] {"a", "ab", "b"}, LetterDisplay.letters(3, sig));
+        assertArrayEquals(new String[] {"a", "a", "a"}, LetterDisplay.letters(3, new boolean[3][3]));
+    }
+}
