@@ -11,6 +11,7 @@ import java.util.Objects;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.stream.Collectors;
+import org.viscarta.compare.DampingComparison;
 import org.viscarta.compare.LossTangentAt;
 import org.viscarta.compare.ReplicateSummary;
 import org.viscarta.fit.FitResult;
@@ -38,9 +39,17 @@ public final class Campaign {
 
     /** What the analysis was asked to do; every field goes into the report's provenance. */
     public record Settings(List<String> modelIds, double atHz, boolean modelOutsideRange, ModulusKind basis,
-                           OptionalDouble poisson, ModulusKind declaredKind, Weighting weighting) {
+                           OptionalDouble poisson, ModulusKind declaredKind, Weighting weighting, double bandLowHz,
+                           double bandHighHz, double alpha) {
 
         public Settings {
+            if (!Double.isNaN(bandLowHz) && !(bandLowHz > 0 && bandHighHz > bandLowHz && Double.isFinite(bandHighHz))) {
+                throw new IllegalArgumentException("the band must run from a lower to a higher positive frequency, got "
+                        + bandLowHz + "–" + bandHighHz + " Hz");
+            }
+            if (!(alpha > 0 && alpha < 1)) {
+                throw new IllegalArgumentException("the significance level must lie in (0, 1), got " + alpha);
+            }
             modelIds = List.copyOf(modelIds);
             Objects.requireNonNull(poisson, "poisson");
             Objects.requireNonNull(weighting, "weighting");
@@ -60,31 +69,50 @@ public final class Campaign {
 
         /** All implemented models, 1 Hz, no extrapolation, no basis conversion, log residuals. */
         public static Settings defaults() {
-            return new Settings(ModelCatalogue.ids(), 1.0, false, null, OptionalDouble.empty(), null, Weighting.LOG);
+            return new Settings(ModelCatalogue.ids(), 1.0, false, null, OptionalDouble.empty(), null, Weighting.LOG, Double.NaN, Double.NaN, 0.05);
         }
 
         public Settings withModels(List<String> ids) {
-            return new Settings(ids, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting);
+            return new Settings(ids, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
         }
 
         public Settings withAt(double hz) {
-            return new Settings(modelIds, hz, modelOutsideRange, basis, poisson, declaredKind, weighting);
+            return new Settings(modelIds, hz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
         }
 
         public Settings withModelOutsideRange(boolean allow) {
-            return new Settings(modelIds, atHz, allow, basis, poisson, declaredKind, weighting);
+            return new Settings(modelIds, atHz, allow, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
         }
 
         public Settings withBasis(ModulusKind kind, OptionalDouble nu) {
-            return new Settings(modelIds, atHz, modelOutsideRange, kind, nu, declaredKind, weighting);
+            return new Settings(modelIds, atHz, modelOutsideRange, kind, nu, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
         }
 
         public Settings withDeclaredKind(ModulusKind kind) {
-            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, kind, weighting);
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, kind, weighting, bandLowHz, bandHighHz, alpha);
         }
 
         public Settings withWeighting(Weighting w) {
-            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, w);
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, w, bandLowHz, bandHighHz, alpha);
+        }
+
+        /** Rank by the geometric mean of tan δ over [low, high] Hz instead of its value at one frequency. */
+        public Settings withBand(double lowHz, double highHz) {
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, lowHz, highHz, alpha);
+        }
+
+        public Settings withAlpha(double a) {
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, a);
+        }
+
+        /** True when ranking over a band. */
+        public boolean hasBand() {
+            return !Double.isNaN(bandLowHz);
+        }
+
+        /** "1 Hz" or "0.5–5 Hz (geometric mean)". */
+        public String rankingFrequency() {
+            return hasBand() ? plain(bandLowHz) + "–" + plain(bandHighHz) + " Hz (geometric mean)" : plain(atHz) + " Hz";
         }
     }
 
@@ -156,9 +184,23 @@ public final class Campaign {
      * @param loss      mean M″ [Pa]
      * @param source    where the value came from
      * @param note      what the user should know
+     * @param values    the replicate tan δ values behind the summary
+     * @param letters   letter group ("" when not ranked): samples sharing a letter are not distinguishable
      */
     public record RankRow(int rank, Sample sample, ReplicateSummary tanDelta, double storage, double loss,
-                          ValueSource source, String note) {
+                          ValueSource source, String note, double[] values, String letters) {
+        public RankRow {
+            values = values.clone();
+        }
+
+        @Override
+        public double[] values() {
+            return values.clone();
+        }
+
+        RankRow withRankAndLetters(int newRank, String newLetters) {
+            return new RankRow(newRank, sample, tanDelta, storage, loss, source, note, values, newLetters);
+        }
     }
 
     private final Settings settings;
@@ -295,7 +337,9 @@ public final class Campaign {
             List<LossTangentAt.Value> values = new ArrayList<>();
             int outside = 0;
             for (Sweep r : s.replicates()) {
-                Optional<LossTangentAt.Value> v = LossTangentAt.interpolate(r.fittablePoints(), at);
+                Optional<LossTangentAt.Value> v = settings.hasBand()
+                        ? LossTangentAt.overBand(r.fittablePoints(), settings.bandLowHz(), settings.bandHighHz())
+                        : LossTangentAt.interpolate(r.fittablePoints(), at);
                 if (v.isPresent()) {
                     values.add(v.get());
                 } else {
@@ -304,14 +348,15 @@ public final class Campaign {
             }
             if (!values.isEmpty()) {
                 String note = outside == 0 ? "" : String.format(Locale.ROOT,
-                        "%d of %d replicates do not reach %s Hz and are left out", outside, s.replicates().size(), plain(at));
+                        "%d of %d replicates do not cover %s and are left out", outside, s.replicates().size(),
+                        settings.rankingFrequency());
                 rows.add(row(s, values, ValueSource.MEASURED, note));
                 continue;
             }
             String range = String.format(Locale.ROOT, "measured %s–%s Hz", plain(s.minFrequencyHz()), plain(s.maxFrequencyHz()));
             SampleFits sf = fitBySample.get(s);
             Optional<FitResult> best = sf == null ? Optional.empty() : sf.best();
-            if (settings.modelOutsideRange() && best.isPresent()) {
+            if (settings.modelOutsideRange() && best.isPresent() && !settings.hasBand()) {
                 double[] p = best.get().values();
                 ViscoelasticModel m = ModelCatalogue.concrete(best.get().model(), p.length).orElseThrow();
                 double[] out = new double[2];
@@ -320,26 +365,40 @@ public final class Campaign {
                         range + "; value from the " + m.id() + " model, not from data"));
             } else {
                 rows.add(new RankRow(0, s, null, Double.NaN, Double.NaN, ValueSource.NONE,
-                        range + "; " + plain(at) + " Hz is outside it, so tan δ is not reported"
-                                + (settings.modelOutsideRange() ? " (no model converged)" : " (--model-outside-range lets the best model speak)")));
+                        range + "; " + settings.rankingFrequency() + " is outside it, so tan δ is not reported"
+                                + (settings.hasBand() ? "" : settings.modelOutsideRange() ? " (no model converged)"
+                                        : " (--model-outside-range lets the best model speak)"), new double[0], ""));
             }
         }
         List<RankRow> ranked = new ArrayList<>(rows.stream().filter(r -> r.tanDelta() != null)
                 .sorted(Comparator.comparingDouble((RankRow r) -> r.tanDelta().mean()).reversed()).toList());
+        DampingComparison.Result cmp = compare(ranked);
         List<RankRow> out = new ArrayList<>();
         for (int i = 0; i < ranked.size(); i++) {
-            RankRow r = ranked.get(i);
-            out.add(new RankRow(i + 1, r.sample(), r.tanDelta(), r.storage(), r.loss(), r.source(), r.note()));
+            out.add(ranked.get(i).withRankAndLetters(i + 1, cmp.letters().get(i)));
         }
         rows.stream().filter(r -> r.tanDelta() == null).forEach(out::add);
         return out;
+    }
+
+    /**
+     * Which differences between the ranked samples are supported: pairwise Welch tests with Holm's
+     * adjustment, letter groups, and group tests when samples carry groups.
+     *
+     * @param ranking the rows of {@link #rank}; those without a value are left out
+     */
+    public DampingComparison.Result compare(List<RankRow> ranking) {
+        List<RankRow> ranked = ranking.stream().filter(r -> r.tanDelta() != null).toList();
+        return DampingComparison.compare(ranked.stream().map(r -> r.sample().name()).toList(),
+                ranked.stream().map(r -> r.sample().group()).toList(),
+                ranked.stream().map(RankRow::values).toList(), settings.alpha());
     }
 
     private static RankRow row(Sample s, List<LossTangentAt.Value> values, ValueSource source, String note) {
         double[] tan = values.stream().mapToDouble(LossTangentAt.Value::lossTangent).toArray();
         double storage = values.stream().mapToDouble(LossTangentAt.Value::storage).average().orElse(Double.NaN);
         double loss = values.stream().mapToDouble(LossTangentAt.Value::loss).average().orElse(Double.NaN);
-        return new RankRow(0, s, ReplicateSummary.of(tan), storage, loss, source, note);
+        return new RankRow(0, s, ReplicateSummary.of(tan), storage, loss, source, note, tan, "");
     }
 
     /** A number without trailing zeros, e.g. 1, 0.5, 23.5. */

@@ -6,23 +6,25 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.viscarta.Campaign;
+import org.viscarta.compare.DampingComparison;
 import org.viscarta.compare.ReplicateSummary;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
-import picocli.CommandLine.Option;
 
 /** {@code viscarta rank}: samples ordered by tan δ at a reference frequency. */
 @Command(name = "rank", mixinStandardHelpOptions = true,
         header = "Rank samples by loss tangent tan δ at a reference frequency.",
-        description = {"Rank samples by loss tangent tan δ = E″/E′ at a reference frequency, highest damping first,",
-            "with the mean, standard deviation and 95 % t-interval over replicates. Values are interpolated",
-            "in log–log between the two neighbouring measured points; outside the measured range none is reported",
-            "unless --model-outside-range lets the best-supported model give one."})
+        description = {"Rank samples by loss tangent tan δ = E″/E′ at a reference frequency (or its geometric mean over a band),",
+            "highest damping first, with the mean, standard deviation and 95 % t-interval over replicates, and letter",
+            "groups from pairwise Welch t-tests with Holm's adjustment: samples sharing a letter are not distinguishable.",
+            "With group labels, groups are compared by one-way ANOVA and Kruskal–Wallis. Values are interpolated in",
+            "log–log between the two neighbouring measured points; outside the measured range none is reported unless",
+            "--model-outside-range lets the best-supported model give one."})
 final class RankCommand implements Callable<Integer> {
 
     static final List<String> CSV_HEADER = List.of("rank", "sample", "group", "n_replicates", "frequency_hz", "tan_delta",
-            "ci95_low", "ci95_high", "storage_modulus_pa", "loss_modulus_pa");
+            "ci95_low", "ci95_high", "storage_modulus_pa", "loss_modulus_pa", "letters");
 
     @Mixin
     InputOptions input;
@@ -30,13 +32,8 @@ final class RankCommand implements Callable<Integer> {
     @Mixin
     ModelOptions models;
 
-    @Option(names = "--at", paramLabel = "FREQUENCY", converter = FrequencyConverter.class, defaultValue = "1Hz",
-            description = "Reference frequency: 1, 1Hz, 0.5 Hz, 6.28rad/s (default: ${DEFAULT-VALUE}).")
-    double atHz;
-
-    @Option(names = "--model-outside-range",
-            description = "Outside a sample's measured range, report the best-supported model's tan δ (marked as such).")
-    boolean modelOutsideRange;
+    @Mixin
+    RankOptions rankOptions;
 
     @Mixin
     OutputOptions output;
@@ -46,16 +43,18 @@ final class RankCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        Campaign.Settings settings = models.applyTo(input.applyTo(Campaign.Settings.defaults()))
-                .withAt(atHz).withModelOutsideRange(modelOutsideRange);
+        Campaign.Settings settings = rankOptions.applyTo(models.applyTo(input.applyTo(Campaign.Settings.defaults())),
+                spec.commandLine());
         output.check();
         Campaign campaign = Campaign.read(input.inputs, settings);
         Warnings.print(spec, campaign);
-        List<Campaign.SampleFits> fits = modelOutsideRange ? campaign.fit() : List.of();
+        List<Campaign.SampleFits> fits = settings.modelOutsideRange() ? campaign.fit() : List.of();
         List<Campaign.RankRow> ranking = campaign.rank(fits);
+        DampingComparison.Result cmp = campaign.compare(ranking);
         PrintWriter out = spec.commandLine().getOut();
-        out.printf("Damping ranking at %s Hz (highest tan δ first)%n", Campaign.plain(atHz));
-        TextTable t = new TextTable("rank", "sample", "group", "n", "tan δ", "95 % CI", "E′ or G′ [Pa]", "E″ or G″ [Pa]", "note");
+        out.printf("Damping ranking at %s (highest tan δ first)%n", settings.rankingFrequency());
+        TextTable t = new TextTable("rank", "sample", "group", "n", "tan δ", "95 % CI", "letters", "E′ or G′ [Pa]", "E″ or G″ [Pa]",
+                "note");
         List<List<String>> rows = new ArrayList<>();
         for (Campaign.RankRow r : ranking) {
             ReplicateSummary s = r.tanDelta();
@@ -63,12 +62,21 @@ final class RankCommand implements Callable<Integer> {
             int n = s == null ? r.sample().replicates().size() : s.n();
             t.add(rank, r.sample().name(), r.sample().group(), Integer.toString(n), s == null ? "–" : Format.g4(s.mean()),
                     s == null || s.n() < 2 ? "–" : "[" + Format.g4(s.ci95Low()) + ", " + Format.g4(s.ci95High()) + "]",
-                    Format.g4(r.storage()), Format.g4(r.loss()), r.note());
-            rows.add(List.of(rank, r.sample().name(), r.sample().group(), Integer.toString(n), Format.csv(atHz),
+                    r.letters(), Format.g4(r.storage()), Format.g4(r.loss()), r.note());
+            double f = settings.hasBand() ? Math.sqrt(settings.bandLowHz() * settings.bandHighHz()) : settings.atHz();
+            rows.add(List.of(rank, r.sample().name(), r.sample().group(), Integer.toString(n), Format.csv(f),
                     s == null ? "" : Format.csv(s.mean()), s == null ? "" : Format.csv(s.ci95Low()),
-                    s == null ? "" : Format.csv(s.ci95High()), Format.csv(r.storage()), Format.csv(r.loss())));
+                    s == null ? "" : Format.csv(s.ci95High()), Format.csv(r.storage()), Format.csv(r.loss()), r.letters()));
         }
         t.print(out);
+        for (String statement : cmp.statements()) {
+            out.println(statement);
+        }
+        for (DampingComparison.GroupSummary g : cmp.groups()) {
+            out.printf("  group %s: %d sample(s), %d values, mean tan δ %s [%s, %s]%n", g.group(), g.samples(), g.values().n(),
+                    Format.g4(g.values().mean()), Format.g4(g.values().ci95Low()), Format.g4(g.values().ci95High()));
+        }
+        out.flush();
         output.writeCsv(CSV_HEADER, rows);
         return CommandLine.ExitCode.OK;
     }

@@ -43,13 +43,8 @@ final class ReportCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder to write report.xlsx into (created if needed).")
     Path outDir;
 
-    @Option(names = "--at", paramLabel = "FREQUENCY", converter = FrequencyConverter.class, defaultValue = "1Hz",
-            description = "Reference frequency for tan δ: 1, 1Hz, 0.5 Hz, 6.28rad/s (default: ${DEFAULT-VALUE}).")
-    double atHz;
-
-    @Option(names = "--model-outside-range",
-            description = "Outside a sample's measured range, report the best-supported model's tan δ (marked as such).")
-    boolean modelOutsideRange;
+    @Mixin
+    RankOptions rankOptions;
 
     @Option(names = "--force", description = "Replace an existing report.xlsx.")
     boolean force;
@@ -59,8 +54,8 @@ final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        Campaign.Settings settings = models.applyTo(input.applyTo(Campaign.Settings.defaults()))
-                .withAt(atHz).withModelOutsideRange(modelOutsideRange);
+        Campaign.Settings settings = rankOptions.applyTo(models.applyTo(input.applyTo(Campaign.Settings.defaults())),
+                spec.commandLine());
         Path target = outDir.resolve("report.xlsx");
         AtomicOutput.checkWritable(target, force);
         Path libraryDir = library;
@@ -77,8 +72,8 @@ final class ReportCommand implements Callable<Integer> {
         WorkbookReport.Content content = new WorkbookReport.Content(campaign, fits, ranking, lib, prov);
         AtomicOutput.write(target, force, out -> WorkbookReport.write(content, out));
         PrintWriter out = spec.commandLine().getOut();
-        out.printf("%d sample(s) from %d file(s); %d model(s) each; ranked at %s Hz%n", campaign.samples().size(),
-                campaign.files().size(), settings.modelIds().size(), Campaign.plain(atHz));
+        out.printf("%d sample(s) from %d file(s); %d model(s) each; ranked at %s%n", campaign.samples().size(),
+                campaign.files().size(), settings.modelIds().size(), settings.rankingFrequency());
         out.println("wrote " + target);
         out.flush();
         return CommandLine.ExitCode.OK;
@@ -95,7 +90,9 @@ final class ReportCommand implements Callable<Integer> {
     private static Map<String, String> settingsMap(Campaign.Settings s, Path libraryDir) {
         Map<String, String> m = new LinkedHashMap<>();
         m.put("models", String.join(", ", s.modelIds()));
-        m.put("reference frequency [Hz]", Campaign.plain(s.atHz()));
+        m.put("damping ranked at", s.rankingFrequency());
+        m.put("significance level of pairwise and group tests", Campaign.plain(s.alpha()));
+        m.put("weighting", s.weighting().label());
         m.put("model value outside measured range", Boolean.toString(s.modelOutsideRange()));
         m.put("basis", s.basis() == null ? "as read" : s.basis().toString());
         m.put("Poisson's ratio override", s.poisson().isPresent() ? Campaign.plain(s.poisson().getAsDouble()) : "none");

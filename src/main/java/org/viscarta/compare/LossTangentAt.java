@@ -54,6 +54,31 @@ public final class LossTangentAt {
         return Optional.empty();
     }
 
+    /** Points of the log grid over which {@link #overBand} averages. */
+    private static final int BAND_POINTS = 21;
+
+    /**
+     * Geometric means of M′, M″ (and so of tan δ) over a frequency band, from the log–log
+     * interpolated values on a log-spaced grid of 21 frequencies spanning it.
+     *
+     * @return the means (frequencyHz is the band's geometric centre), or empty when the band is not
+     *         wholly inside the measured range
+     */
+    public static Optional<Value> overBand(List<SweepPoint> points, double lowHz, double highHz) {
+        double sumS = 0;
+        double sumL = 0;
+        for (int k = 0; k < BAND_POINTS; k++) {
+            double f = k == BAND_POINTS - 1 ? highHz : lowHz * Math.pow(highHz / lowHz, k / (double) (BAND_POINTS - 1));
+            Optional<Value> v = interpolate(points, f);
+            if (v.isEmpty()) {
+                return Optional.empty();
+            }
+            sumS += Math.log(v.get().storage());
+            sumL += Math.log(v.get().loss());
+        }
+        return Optional.of(new Value(Math.sqrt(lowHz * highHz), Math.exp(sumS / BAND_POINTS), Math.exp(sumL / BAND_POINTS)));
+    }
+
     private static double logInterp(double a, double b, double w) {
         return Math.exp((1 - w) * Math.log(a) + w * Math.log(b));
     }

@@ -220,6 +220,50 @@ class CliTest {
     }
 
     @Test
+    void rankGivesLetterGroupsFromReplicates() throws IOException {
+        // Three samples, three noisy replicates each (a tidy table): two alike, one far more lossy.
+        StringBuilder sb = new StringBuilder("sample,replicate,group,frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+        java.util.SplittableRandom rng = new java.util.SplittableRandom(4);
+        String[][] samples = {{"lossy", "0.6"}, {"calm-1", "0.10"}, {"calm-2", "0.10"}};
+        for (String[] smp : samples) {
+            for (int rep = 1; rep <= 3; rep++) {
+                double tan = Double.parseDouble(smp[1]) * Math.exp(0.03 * rng.nextGaussian());
+                for (double f : new double[] {0.1, 1, 10}) {
+                    sb.append(smp[0]).append(',').append(rep).append(",g,").append(f).append(",1000,").append(1000 * tan).append('\n');
+                }
+            }
+        }
+        Path in = write("tidy.csv", sb.toString());
+        Path out = dir.resolve("rank.csv");
+        CliRun r = CliRun.of("rank", in.toString(), "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        List<CSVRecord> rows = csv(out);
+        assertEquals("lossy", rows.get(1).get(1));
+        assertEquals("a", rows.get(1).get(10));
+        assertEquals("b", rows.get(2).get(10));
+        assertEquals("b", rows.get(3).get(10));
+        assertTrue(r.out().contains("2 of the 3 differences are supported"), r.out());
+    }
+
+    @Test
+    void rankOverABandUsesTheGeometricMean() throws IOException {
+        Path a = zenerFile("film", 1.0e6, 2.0e6, 0.1);
+        Path out = dir.resolve("rank.csv");
+        CliRun r = CliRun.of("rank", a.toString(), "--band", "0.5Hz-5Hz", "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        double x;
+        double sum = 0;
+        for (int k = 0; k <= 20; k++) {
+            double f = 0.5 * Math.pow(10, k / 20.0);
+            x = 2 * Math.PI * f * 0.1;
+            sum += Math.log(2.0e6 * x / (1 + x * x) / (1.0e6 + 2.0e6 * x * x / (1 + x * x)));
+        }
+        // log–log interpolation between measured points: within 2 % of the model's own geometric mean
+        assertEquals(Math.exp(sum / 21), Double.parseDouble(csv(out).get(1).get(5)), 0.02 * Math.exp(sum / 21));
+        assertEquals(2, CliRun.of("rank", a.toString(), "--band", "5-0.5").exitCode());
+    }
+
+    @Test
     void rankOutsideTheMeasuredRangeSaysSoUnlessTheModelMaySpeak() throws IOException {
         Path a = zenerFile("film", 1.0e6, 2.0e6, 0.1);
         CliRun r = CliRun.of("rank", a.toString(), "--at", "100Hz");

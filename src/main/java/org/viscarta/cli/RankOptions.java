@@ -1,0 +1,44 @@
+package org.viscarta.cli;
+
+import org.viscarta.Campaign;
+import picocli.CommandLine;
+import picocli.CommandLine.Option;
+
+/** Where and how samples are ranked by damping: {@code --at}, {@code --band}, {@code --alpha}, {@code --model-outside-range}. */
+final class RankOptions {
+
+    @Option(names = "--at", paramLabel = "FREQUENCY", converter = FrequencyConverter.class, defaultValue = "1Hz",
+            description = "Reference frequency for tan δ: 1, 1Hz, 0.5 Hz, 6.28rad/s (default: ${DEFAULT-VALUE}).")
+    double atHz;
+
+    @Option(names = "--band", paramLabel = "LOW-HIGH",
+            description = "Rank by the geometric mean of tan δ over a band instead, e.g. 0.5-5 or 0.5Hz-5Hz (each replicate "
+                    + "must cover it).")
+    String band;
+
+    @Option(names = "--alpha", paramLabel = "LEVEL", defaultValue = "0.05",
+            description = "Significance level of the pairwise and group tests (default: ${DEFAULT-VALUE}).")
+    double alpha;
+
+    @Option(names = "--model-outside-range",
+            description = "Outside a sample's measured range, report the best-supported model's tan δ (marked as such; "
+                    + "not with --band).")
+    boolean modelOutsideRange;
+
+    Campaign.Settings applyTo(Campaign.Settings s, CommandLine cl) {
+        Campaign.Settings out = s.withAt(atHz).withModelOutsideRange(modelOutsideRange).withAlpha(alpha);
+        if (band != null) {
+            String[] parts = band.strip().split("(?<![eE])-", 2);
+            if (parts.length != 2) {
+                throw new CommandLine.ParameterException(cl, "--band takes LOW-HIGH, e.g. 0.5-5 or 0.5Hz-5Hz, not '" + band + "'");
+            }
+            FrequencyConverter fc = new FrequencyConverter();
+            try {
+                out = out.withBand(fc.convert(parts[0]), fc.convert(parts[1]));
+            } catch (CommandLine.TypeConversionException e) {
+                throw new CommandLine.ParameterException(cl, "--band: " + e.getMessage());
+            }
+        }
+        return out;
+    }
+}

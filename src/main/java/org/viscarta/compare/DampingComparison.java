@@ -1,0 +1,156 @@
+package org.viscarta.compare;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+/**
+ * Which differences in damping are real: pairwise Welch t-tests between samples on their replicate
+ * tan δ values, Holm-adjusted over all pairs, turned into letter groups (samples sharing a letter
+ * are not distinguishable at level α); with groups, per-group summaries, a one-way ANOVA and a
+ * Kruskal–Wallis test across groups; and the conclusions in words. tan δ is tested on the linear
+ * scale (common practice for loss tangents and exponents, DOMAIN.md section 9 [P]).
+ */
+public final class DampingComparison {
+
+    /**
+     * One pairwise comparison.
+     *
+     * @param first       the sample with the higher mean tan δ
+     * @param second      the other sample
+     * @param welch       the Welch test
+     * @param pHolm       Holm-adjusted p-value
+     * @param significant pHolm below α
+     */
+    public record Pair(String first, String second, GroupStatistics.Welch welch, double pHolm, boolean significant) {
+    }
+
+    /** Replicate tan δ values of every sample of one group, pooled. */
+    public record GroupSummary(String group, int samples, ReplicateSummary values) {
+    }
+
+    /**
+     * @param alpha      the significance level
+     * @param letters    letter groups in the order of the samples given
+     * @param pairs      every pair that could be tested
+     * @param groups     per-group summaries (empty without groups)
+     * @param anova      one-way ANOVA across groups, or null
+     * @param kruskal    Kruskal–Wallis across groups, or null
+     * @param statements the conclusions in words
+     */
+    public record Result(double alpha, List<String> letters, List<Pair> pairs, List<GroupSummary> groups,
+                         GroupStatistics.GroupTest anova, GroupStatistics.GroupTest kruskal, List<String> statements) {
+        public Result {
+            letters = List.copyOf(letters);
+            pairs = List.copyOf(pairs);
+            groups = List.copyOf(groups);
+            statements = List.copyOf(statements);
+        }
+    }
+
+    private DampingComparison() {
+    }
+
+    /**
+     * @param names  samples in display order (highest mean tan δ first)
+     * @param groups each sample's group label ("" when none)
+     * @param values each sample's replicate tan δ values
+     * @param alpha  significance level, in (0, 1)
+     */
+    public static Result compare(List<String> names, List<String> groups, List<double[]> values, double alpha) {
+        if (!(alpha > 0 && alpha < 1)) {
+            throw new IllegalArgumentException("the significance level must lie in (0, 1), got " + alpha);
+        }
+        int n = names.size();
+        List<int[]> index = new ArrayList<>();
+        List<GroupStatistics.Welch> tests = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            for (int j = i + 1; j < n; j++) {
+                if (values.get(i).length >= 2 && values.get(j).length >= 2) {
+                    GroupStatistics.Welch w = GroupStatistics.welch(values.get(i), values.get(j));
+                    if (Double.isFinite(w.p())) {
+                        index.add(new int[] {i, j});
+                        tests.add(w);
+                    }
+                }
+            }
+        }
+        double[] raw = tests.stream().mapToDouble(GroupStatistics.Welch::p).toArray();
+        double[] adjusted = GroupStatistics.holm(raw);
+        boolean[][] significant = new boolean[n][n];
+        List<Pair> pairs = new ArrayList<>();
+        for (int k = 0; k < tests.size(); k++) {
+            int i = index.get(k)[0];
+            int j = index.get(k)[1];
+            boolean sig = adjusted[k] < alpha;
+            significant[i][j] = sig;
+            significant[j][i] = sig;
+            pairs.add(new Pair(names.get(i), names.get(j), tests.get(k), adjusted[k], sig));
+        }
+        List<String> letters = List.of(LetterDisplay.letters(n, significant));
+        List<String> statements = new ArrayList<>();
+        long untestable = values.stream().filter(v -> v.length < 2).count();
+        long supported = pairs.stream().filter(Pair::significant).count();
+        statements.add(String.format(Locale.ROOT, "Samples that share a letter are not distinguishable in tan δ at α = %s "
+                + "(Welch t-tests between replicates, Holm-adjusted over %d pairs); %d of the %d differences are supported.",
+                plain(alpha), pairs.size(), supported, pairs.size()));
+        if (untestable > 0) {
+            statements.add(untestable + " sample(s) with a single replicate cannot be tested and share letters with all others.");
+        }
+        if (supported > 0 && supported <= pairs.size() - supported) {
+            for (Pair p : pairs) {
+                if (p.significant()) {
+                    statements.add(String.format(Locale.ROOT, "%s damps more than %s (Holm-adjusted p = %.3g).",
+                            p.first(), p.second(), p.pHolm()));
+                }
+            }
+        } else if (supported > 0) {
+            List<String> alike = new ArrayList<>();
+            for (Pair p : pairs) {
+                if (!p.significant()) {
+                    alike.add(String.format(Locale.ROOT, "%s and %s (p = %.3g)", p.first(), p.second(), p.pHolm()));
+                }
+            }
+            statements.add(alike.isEmpty() ? "Every sample damps differently from every other; the ranking order is supported throughout."
+                    : "Every other pair differs in the order of the ranking; not distinguishable: " + String.join("; ", alike) + ".");
+        }
+        Map<String, List<Integer>> byGroup = new LinkedHashMap<>();
+        for (int i = 0; i < n; i++) {
+            if (!groups.get(i).isEmpty()) {
+                byGroup.computeIfAbsent(groups.get(i), g -> new ArrayList<>()).add(i);
+            }
+        }
+        List<GroupSummary> summaries = new ArrayList<>();
+        GroupStatistics.GroupTest anova = null;
+        GroupStatistics.GroupTest kruskal = null;
+        if (byGroup.size() >= 2) {
+            List<double[]> pooled = new ArrayList<>();
+            for (Map.Entry<String, List<Integer>> e : byGroup.entrySet()) {
+                double[] all = e.getValue().stream().flatMapToDouble(i -> java.util.Arrays.stream(values.get(i))).toArray();
+                pooled.add(all);
+                summaries.add(new GroupSummary(e.getKey(), e.getValue().size(), ReplicateSummary.of(all)));
+            }
+            boolean testable = pooled.stream().allMatch(v -> v.length >= 2);
+            if (testable) {
+                anova = GroupStatistics.oneWayAnova(pooled);
+                kruskal = GroupStatistics.kruskalWallis(pooled);
+                boolean differ = anova.p() < alpha && kruskal.p() < alpha;
+                boolean disagree = (anova.p() < alpha) != (kruskal.p() < alpha);
+                statements.add(String.format(Locale.ROOT, "Across the %d groups, tan δ %s (one-way ANOVA F = %.3g, p = %.3g; "
+                        + "Kruskal–Wallis H = %.3g, p = %.3g)%s", byGroup.size(),
+                        differ ? "differs" : disagree ? "may differ" : "does not differ detectably",
+                        anova.statistic(), anova.p(), kruskal.statistic(), kruskal.p(),
+                        disagree ? "; the two tests disagree, so treat the difference with caution." : "."));
+            } else {
+                statements.add("Groups with a single value cannot be compared across groups.");
+            }
+        }
+        return new Result(alpha, letters, pairs, summaries, anova, kruskal, statements);
+    }
+
+    private static String plain(double v) {
+        return java.math.BigDecimal.valueOf(v).stripTrailingZeros().toPlainString();
+    }
+}
