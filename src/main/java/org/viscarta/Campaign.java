@@ -12,6 +12,8 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.stream.Collectors;
 import org.viscarta.compare.DampingComparison;
+import org.viscarta.compare.FittedCurve;
+import org.viscarta.compare.Matcher;
 import org.viscarta.compare.LossTangentAt;
 import org.viscarta.compare.ReplicateSummary;
 import org.viscarta.fit.FitResult;
@@ -23,6 +25,7 @@ import org.viscarta.io.InputException;
 import org.viscarta.io.ReadWarning;
 import org.viscarta.io.SweepFile;
 import org.viscarta.io.SweepReader;
+import org.viscarta.library.ReferenceLibrary;
 import org.viscarta.model.ModelCatalogue;
 import org.viscarta.model.ViscoelasticModel;
 import org.viscarta.sweep.BasisConversion;
@@ -399,6 +402,53 @@ public final class Campaign {
         double storage = values.stream().mapToDouble(LossTangentAt.Value::storage).average().orElse(Double.NaN);
         double loss = values.stream().mapToDouble(LossTangentAt.Value::loss).average().orElse(Double.NaN);
         return new RankRow(0, s, ReplicateSummary.of(tan), storage, loss, source, note, tan, "");
+    }
+
+    /** Each sample's best-supported curve (null when no model converged), in sample order. */
+    public List<FittedCurve> curves(List<SampleFits> fits) {
+        List<FittedCurve> out = new ArrayList<>();
+        for (SampleFits sf : fits) {
+            Sample s = sf.sample();
+            out.add(sf.best().flatMap(b -> FittedCurve.of(b, s.minFrequencyHz(), s.maxFrequencyHz(), s.temperatureC(), s.kind()))
+                    .orElse(null));
+        }
+        return out;
+    }
+
+    /** The samples as candidates of a mimic search (class = group). */
+    public List<Matcher.Candidate> asCandidates(List<SampleFits> fits) {
+        List<FittedCurve> curves = curves(fits);
+        List<Matcher.Candidate> out = new ArrayList<>();
+        for (int i = 0; i < fits.size(); i++) {
+            Sample s = fits.get(i).sample();
+            out.add(new Matcher.Candidate(s.name(), s.group(), curves.get(i)));
+        }
+        return out;
+    }
+
+    /**
+     * The references of a library as candidates: each put on the requested basis (when one is set)
+     * and fitted with the candidate models.
+     *
+     * @param clazz only references of this class, or null for all
+     */
+    public List<Matcher.Candidate> referenceCandidates(ReferenceLibrary library, String clazz) {
+        ModelFitter fitter = new ModelFitter(settings.weighting());
+        List<ViscoelasticModel> models = settings.modelIds().stream().map(id -> ModelCatalogue.byId(id).orElseThrow()).toList();
+        return library.entries().parallelStream()
+                .filter(e -> clazz == null || e.clazz().equalsIgnoreCase(clazz))
+                .map(e -> {
+                    Sweep sw = e.sweep();
+                    if (settings.basis() != null) {
+                        try {
+                            sw = BasisConversion.toBasis(sw, settings.basis(), settings.poisson()).sweep();
+                        } catch (IllegalArgumentException ex) {
+                            throw new InputException(e.file(), 0, 0, ex.getMessage());
+                        }
+                    }
+                    return new Matcher.Candidate(e.name(), e.clazz(),
+                            FittedCurve.fit(e.name(), sw.fittablePoints(), models, fitter, sw.temperatureC(), sw.kind()).orElse(null));
+                }).toList();
     }
 
     /** A number without trailing zeros, e.g. 1, 0.5, 23.5. */

@@ -27,18 +27,14 @@ import picocli.CommandLine.Option;
             "Data, Reference library and Provenance."})
 final class ReportCommand implements Callable<Integer> {
 
-    /** The environment variable that names the reference library when --library is not given. */
-    static final String LIBRARY_ENV = "VISCARTA_LIBRARY";
-
     @Mixin
     InputOptions input;
 
     @Mixin
     ModelOptions models;
 
-    @Option(names = "--library", paramLabel = "DIR",
-            description = "Folder of reference-material sweeps (default: $" + LIBRARY_ENV + ", else none).")
-    Path library;
+    @Mixin
+    LibraryOption library;
 
     @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder to write report.xlsx into (created if needed).")
     Path outDir;
@@ -58,10 +54,7 @@ final class ReportCommand implements Callable<Integer> {
                 spec.commandLine());
         Path target = outDir.resolve("report.xlsx");
         AtomicOutput.checkWritable(target, force);
-        Path libraryDir = library;
-        if (libraryDir == null && System.getenv(LIBRARY_ENV) != null && !System.getenv(LIBRARY_ENV).isBlank()) {
-            libraryDir = Path.of(System.getenv(LIBRARY_ENV));
-        }
+        Path libraryDir = library.folderOrNull();
         ReferenceLibrary lib = libraryDir == null ? null : ReferenceLibrary.open(libraryDir);
         Campaign campaign = Campaign.read(input.inputs, settings);
         Warnings.print(spec, campaign);

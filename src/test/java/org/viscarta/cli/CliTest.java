@@ -274,6 +274,33 @@ class CliTest {
     }
 
     @Test
+    void matchRanksReferencesAndWritesTheDocumentedCsv() throws IOException {
+        Path out = dir.resolve("match.csv");
+        CliRun r = CliRun.of("match", "demo-data/paint-light-ageing.csv", "--library", "reference-materials", "--class", "paint film",
+                "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        List<CSVRecord> rows = csv(out);
+        assertEquals(MatchCommand.CSV_HEADER, rows.get(0).toList());
+        // the demo films were generated close to these references (DemoData): unaged linseed ~ fresh linseed film
+        CSVRecord first = rows.stream().filter(x -> x.get(0).equals("linseed-unaged") && x.get(2).equals("1")).findFirst().orElseThrow();
+        assertEquals("linseed-film-fresh", first.get(1));
+        CSVRecord aged = rows.stream().filter(x -> x.get(0).equals("linseed-1500h") && x.get(2).equals("1")).findFirst().orElseThrow();
+        assertEquals("linseed-film-aged", aged.get(1));
+        assertTrue(r.out().contains("first and second distinguishable"), r.out());
+    }
+
+    @Test
+    void matchNeedsALibraryOrATarget() throws IOException {
+        CliRun r = CliRun.of("match", "--target", "demo-data/hydrogel-screen/target-soft-tissue-r1.csv");
+        assertEquals(2, r.exitCode());
+        CliRun m = CliRun.of("match", "--target", "demo-data/hydrogel-screen/target-soft-tissue-r1.csv",
+                "--candidates", "demo-data/hydrogel-screen", "--basis", "tensile");
+        assertEquals(0, m.exitCode(), m.err());
+        assertTrue(m.out().contains("Best mimic of target-soft-tissue"), m.out());
+        assertFalse(m.out().contains(" target-soft-tissue  "), "the target is not its own candidate");
+    }
+
+    @Test
     void inspectDescribesColumnsAndSamples() throws IOException {
         Path in = zenerFile("film", 1.0e6, 2.0e6, 0.1);
         CliRun r = CliRun.of("inspect", in.toString());

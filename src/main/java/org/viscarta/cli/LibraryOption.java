@@ -1,0 +1,34 @@
+package org.viscarta.cli;
+
+import java.nio.file.Path;
+import picocli.CommandLine.Option;
+
+/** {@code --library DIR}, else the environment variable VISCARTA_LIBRARY. */
+final class LibraryOption {
+
+    /** The environment variable that names the reference library when --library is not given. */
+    static final String LIBRARY_ENV = "VISCARTA_LIBRARY";
+
+    @Option(names = "--library", paramLabel = "DIR",
+            description = "Folder of reference-material sweeps (default: $" + LIBRARY_ENV + ").")
+    Path library;
+
+    /** The folder, or null when neither the option nor the variable names one. */
+    Path folderOrNull() {
+        if (library != null) {
+            return library;
+        }
+        String env = System.getenv(LIBRARY_ENV);
+        return env == null || env.isBlank() ? null : Path.of(env);
+    }
+
+    /** The folder, or an error that says how to name one. */
+    Path folder() {
+        Path p = folderOrNull();
+        if (p == null) {
+            throw new IllegalArgumentException("no reference library: pass --library DIR or set the environment variable "
+                    + LIBRARY_ENV + " to the folder of reference sweeps");
+        }
+        return p;
+    }
+}

@@ -1,0 +1,172 @@
+package org.viscarta.compare;
+
+import java.util.Locale;
+
+/**
+ * The distance between two materials' viscoelastic behaviour over the frequency band both were
+ * measured in, never extrapolating either: on a log-spaced grid of K frequencies across the shared
+ * band, the root-mean-square difference, in decades, of log10 M′ and log10 M″ (metric
+ * {@code moduli}), of log10 tan δ ({@code tan-delta}), or of all three ({@code all}), each side
+ * evaluated from its best-supported fitted curve:
+ *
+ * \[ d = \sqrt{\frac{1}{2K}\sum_k\Big[(\log_{10}M'_a - \log_{10}M'_b)^2 + (\log_{10}M''_a - \log_{10}M''_b)^2\Big]_{f_k}} \]
+ *
+ * A distance of 0.1 means the curves differ by about 26 % on average (10^0.1 = 1.26). Its standard
+ * error comes from both fits' parameter covariances by the delta method (numerical gradient).
+ * A band shorter than {@code minOverlapDecades} is "not comparable"; a temperature difference
+ * beyond {@code maxTemperatureDifferenceC} is flagged. Common practice for comparing spectra on
+ * log axes [P]; no single published source.
+ */
+public final class ReferenceDistance {
+
+    /** What is compared. */
+    public enum Metric {
+        MODULI("moduli"), TAN_DELTA("tan-delta"), ALL("all");
+
+        private final String label;
+
+        Metric(String label) {
+            this.label = label;
+        }
+
+        public String label() {
+            return label;
+        }
+
+        public static Metric parse(String text) {
+            for (Metric m : values()) {
+                if (m.label.equals(text.strip().toLowerCase(Locale.ROOT))) {
+                    return m;
+                }
+            }
+            throw new IllegalArgumentException("metric '" + text + "' is not known; use moduli, tan-delta or all");
+        }
+    }
+
+    /** Grid points across the shared band. */
+    private static final int GRID = 25;
+
+    /**
+     * The comparison of a sample with one reference.
+     *
+     * @param distance       RMS difference in decades (NaN when not comparable)
+     * @param uncertainty    its standard error (NaN when a covariance is missing)
+     * @param bandLowHz      low end of the shared band
+     * @param bandHighHz     high end
+     * @param comparable     whether the distance could be computed
+     * @param departureHz    where on the grid the curves differ most
+     * @param departure      that largest difference, in decades (sample minus reference, the larger of M′ and M″)
+     * @param note           why not comparable, or what to keep in mind
+     */
+    public record Result(double distance, double uncertainty, double bandLowHz, double bandHighHz, boolean comparable,
+                         double departureHz, double departure, String note) {
+    }
+
+    private final Metric metric;
+    private final double minOverlapDecades;
+    private final double maxTemperatureDifferenceC;
+
+    public ReferenceDistance(Metric metric, double minOverlapDecades, double maxTemperatureDifferenceC) {
+        if (!(minOverlapDecades >= 0) || !(maxTemperatureDifferenceC >= 0)) {
+            throw new IllegalArgumentException("overlap and temperature limits must be >= 0");
+        }
+        this.metric = metric;
+        this.minOverlapDecades = minOverlapDecades;
+        this.maxTemperatureDifferenceC = maxTemperatureDifferenceC;
+    }
+
+    public Result between(FittedCurve a, FittedCurve b) {
+        double lo = Math.max(a.lowHz(), b.lowHz());
+        double hi = Math.min(a.highHz(), b.highHz());
+        if (a.kind() != b.kind()) {
+            return notComparable(lo, hi, "one holds " + a.kind() + " moduli, the other " + b.kind() + "; pass --basis to convert");
+        }
+        double decades = hi > lo ? Math.log10(hi / lo) : 0;
+        if (decades < minOverlapDecades) {
+            return notComparable(lo, hi, String.format(Locale.ROOT, "the measured bands overlap over %.2f decades, less than %s",
+                    decades, plain(minOverlapDecades)));
+        }
+        double[] grid = new double[GRID];
+        for (int k = 0; k < GRID; k++) {
+            grid[k] = k == GRID - 1 ? hi : lo * Math.pow(hi / lo, k / (double) (GRID - 1));
+        }
+        double[] pa = a.params();
+        double[] pb = b.params();
+        double d = distance(a, pa, b, pb, grid);
+        double var = 0;
+        boolean known = true;
+        for (int side = 0; side < 2; side++) {
+            FittedCurve c = side == 0 ? a : b;
+            double[] p = side == 0 ? pa : pb;
+            double[][] cov = c.covariance();
+            if (cov == null) {
+                known = false;
+                continue;
+            }
+            double[] grad = new double[p.length];
+            for (int j = 0; j < p.length; j++) {
+                double h = 1e-6 * Math.max(Math.abs(p[j]), 1e-12);
+                double[] up = p.clone();
+                double[] dn = p.clone();
+                up[j] += h;
+                dn[j] -= h;
+                double dUp = side == 0 ? distance(a, up, b, pb, grid) : distance(a, pa, b, up, grid);
+                double dDn = side == 0 ? distance(a, dn, b, pb, grid) : distance(a, pa, b, dn, grid);
+                grad[j] = (dUp - dDn) / (2 * h);
+            }
+            for (int i = 0; i < p.length; i++) {
+                for (int j = 0; j < p.length; j++) {
+                    var += grad[i] * cov[i][j] * grad[j];
+                }
+            }
+        }
+        double worstF = grid[0];
+        double worst = 0;
+        for (double f : grid) {
+            double[] ma = a.modulus(pa, f);
+            double[] mb = b.modulus(pb, f);
+            double ds = Math.log10(ma[0] / mb[0]);
+            double dl = Math.log10(ma[1] / mb[1]);
+            double larger = Math.abs(ds) >= Math.abs(dl) ? ds : dl;
+            if (Math.abs(larger) > Math.abs(worst)) {
+                worst = larger;
+                worstF = f;
+            }
+        }
+        String note = "";
+        if (Double.isFinite(a.temperatureC()) && Double.isFinite(b.temperatureC())
+                && Math.abs(a.temperatureC() - b.temperatureC()) > maxTemperatureDifferenceC) {
+            note = String.format(Locale.ROOT, "measured at temperatures %s °C apart", plain(Math.abs(a.temperatureC() - b.temperatureC())));
+        }
+        return new Result(d, known && var >= 0 ? Math.sqrt(var) : Double.NaN, lo, hi, true, worstF, worst, note);
+    }
+
+    private double distance(FittedCurve a, double[] pa, FittedCurve b, double[] pb, double[] grid) {
+        double sum = 0;
+        int terms = 0;
+        for (double f : grid) {
+            double[] ma = a.modulus(pa, f);
+            double[] mb = b.modulus(pb, f);
+            if (metric != Metric.TAN_DELTA) {
+                double ds = Math.log10(ma[0] / mb[0]);
+                double dl = Math.log10(ma[1] / mb[1]);
+                sum += ds * ds + dl * dl;
+                terms += 2;
+            }
+            if (metric != Metric.MODULI) {
+                double dt = Math.log10((ma[1] / ma[0]) / (mb[1] / mb[0]));
+                sum += dt * dt;
+                terms++;
+            }
+        }
+        return Math.sqrt(sum / terms);
+    }
+
+    private static Result notComparable(double lo, double hi, String why) {
+        return new Result(Double.NaN, Double.NaN, lo, hi, false, Double.NaN, Double.NaN, "not comparable: " + why);
+    }
+
+    private static String plain(double v) {
+        return java.math.BigDecimal.valueOf(v).round(new java.math.MathContext(4)).stripTrailingZeros().toPlainString();
+    }
+}
