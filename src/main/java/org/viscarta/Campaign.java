@@ -14,6 +14,7 @@ import java.util.stream.Collectors;
 import org.viscarta.compare.DampingComparison;
 import org.viscarta.compare.FittedCurve;
 import org.viscarta.compare.Matcher;
+import org.viscarta.compare.ReferenceDistance;
 import org.viscarta.compare.LossTangentAt;
 import org.viscarta.compare.ReplicateSummary;
 import org.viscarta.fit.FitResult;
@@ -413,6 +414,13 @@ public final class Campaign {
                     .orElse(null));
         }
         return out;
+    }
+
+    /** Every sample's ranked matches against the candidates, in sample order (samples in parallel). */
+    public List<List<Matcher.Match>> matchAll(List<SampleFits> fits, List<Matcher.Candidate> candidates, ReferenceDistance rd) {
+        List<FittedCurve> curves = curves(fits);
+        return java.util.stream.IntStream.range(0, fits.size()).parallel()
+                .mapToObj(i -> Matcher.rank(fits.get(i).sample().name(), curves.get(i), candidates, rd)).toList();
     }
 
     /** The samples as candidates of a mimic search (class = group). */

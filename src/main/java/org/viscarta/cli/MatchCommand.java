@@ -113,11 +113,11 @@ final class MatchCommand implements Callable<Integer> {
                 throw new IllegalArgumentException("the library holds no reference" + (clazz == null ? "" : " of class '" + clazz + "'"));
             }
             List<Campaign.SampleFits> fits = c.fit();
-            List<FittedCurve> curves = c.curves(fits);
+            List<List<Matcher.Match>> all = c.matchAll(fits, refs, rd);
             for (int i = 0; i < fits.size(); i++) {
                 String name = fits.get(i).sample().name();
                 out.printf("%s: closest references%n", name);
-                print(out, rows, name, Matcher.rank(name, curves.get(i), refs, rd), top, false);
+                print(out, rows, name, all.get(i), top, false);
             }
         }
         out.flush();

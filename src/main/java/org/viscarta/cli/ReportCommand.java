@@ -10,6 +10,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.viscarta.Campaign;
+import org.viscarta.compare.DampingComparison;
+import org.viscarta.compare.FittedCurve;
+import org.viscarta.compare.Matcher;
+import org.viscarta.compare.ReferenceDistance;
 import org.viscarta.io.AtomicOutput;
 import org.viscarta.library.ReferenceLibrary;
 import org.viscarta.report.Provenance;
@@ -42,6 +46,10 @@ final class ReportCommand implements Callable<Integer> {
     @Mixin
     RankOptions rankOptions;
 
+    @Option(names = "--target", paramLabel = "SAMPLE",
+            description = "Name of a sample to mimic: every other sample is ranked by its distance to it (sheet Mimic ranking).")
+    String target;
+
     @Option(names = "--force", description = "Replace an existing report.xlsx.")
     boolean force;
 
@@ -52,22 +60,42 @@ final class ReportCommand implements Callable<Integer> {
     public Integer call() throws IOException {
         Campaign.Settings settings = rankOptions.applyTo(models.applyTo(input.applyTo(Campaign.Settings.defaults())),
                 spec.commandLine());
-        Path target = outDir.resolve("report.xlsx");
-        AtomicOutput.checkWritable(target, force);
+        Path xlsx = outDir.resolve("report.xlsx");
+        AtomicOutput.checkWritable(xlsx, force);
         Path libraryDir = library.folderOrNull();
         ReferenceLibrary lib = libraryDir == null ? null : ReferenceLibrary.open(libraryDir);
         Campaign campaign = Campaign.read(input.inputs, settings);
         Warnings.print(spec, campaign);
         List<Campaign.SampleFits> fits = campaign.fit();
         List<Campaign.RankRow> ranking = campaign.rank(fits);
+        DampingComparison.Result comparison = campaign.compare(ranking);
+        ReferenceDistance rd = new ReferenceDistance(ReferenceDistance.Metric.MODULI, 1, 2);
+        List<FittedCurve> curves = campaign.curves(fits);
+        List<List<Matcher.Match>> matches = lib == null ? List.of()
+                : campaign.matchAll(fits, campaign.referenceCandidates(lib, null), rd);
+        List<Matcher.Match> mimic = List.of();
+        if (target != null) {
+            int ti = -1;
+            for (int i = 0; i < fits.size(); i++) {
+                if (fits.get(i).sample().name().equals(target)) {
+                    ti = i;
+                }
+            }
+            if (ti < 0) {
+                throw new IllegalArgumentException("--target '" + target + "' is not among the samples read");
+            }
+            String t = target;
+            List<Matcher.Candidate> others = campaign.asCandidates(fits).stream().filter(x -> !x.name().equals(t)).toList();
+            mimic = Matcher.rank(target, curves.get(ti), others, rd);
+        }
         Provenance prov = new Provenance(VersionProvider.version(), commandLine(),
                 Instant.now().truncatedTo(ChronoUnit.SECONDS).toString(), settingsMap(settings, libraryDir));
-        WorkbookReport.Content content = new WorkbookReport.Content(campaign, fits, ranking, lib, prov);
-        AtomicOutput.write(target, force, out -> WorkbookReport.write(content, out));
+        WorkbookReport.Content content = new WorkbookReport.Content(campaign, fits, ranking, comparison, lib, matches, target, mimic, prov);
+        AtomicOutput.write(xlsx, force, out -> WorkbookReport.write(content, out));
         PrintWriter out = spec.commandLine().getOut();
         out.printf("%d sample(s) from %d file(s); %d model(s) each; ranked at %s%n", campaign.samples().size(),
                 campaign.files().size(), settings.modelIds().size(), settings.rankingFrequency());
-        out.println("wrote " + target);
+        out.println("wrote " + xlsx);
         out.flush();
         return CommandLine.ExitCode.OK;
     }
@@ -94,6 +122,8 @@ final class ReportCommand implements Callable<Integer> {
         m.put("optimiser", "Levenberg–Marquardt (Commons Math 3.6.1), multi-start, parameters in log/logit space");
         m.put("confidence level", "95 % (Student t on n − p degrees of freedom)");
         m.put("reference library", libraryDir == null ? "none" : libraryDir.toString());
+        m.put("reference distance", "RMS of log10 E′ and log10 E″ differences over the shared band, 25 log-spaced points; "
+                + "comparable from 1 decade of overlap; temperatures more than 2 °C apart flagged");
         return m;
     }
 }

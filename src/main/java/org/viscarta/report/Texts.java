@@ -53,6 +53,13 @@ public final class Texts {
                 "A score that balances how well a model fits against how many parameters it uses (lower AICc is better). "
                     + "The Akaike weight is the relative support for each model among those fitted; the weights of one sample "
                     + "add up to 1. Models within 2 AICc units of the best are about as well supported."},
+            new String[] {"Letter groups", "Samples that share a letter in the damping ranking are not distinguishable from "
+                    + "each other at the stated significance level: the difference in their mean tan δ could be chance, given the "
+                    + "scatter between replicates. Samples with no letter in common differ."},
+            new String[] {"Distance [decades]", "How far apart two materials' E′ and E″ curves are over the frequencies both were "
+                    + "measured at: the typical difference on a logarithmic scale. 0 is identical; 0.1 means about 26 % apart "
+                    + "on average; 1 means a factor of ten. 'Distinguishable' says whether the closest and the second closest "
+                    + "differ by more than their uncertainties."},
             new String[] {"RSS and RMS misfit",
                 "Residual sum of squares of the natural-log differences between model and data; the RMS misfit is its root "
                     + "mean square, roughly the typical relative misfit (0.05 ≈ 5 %)."});
@@ -61,6 +68,11 @@ public final class Texts {
     public static final List<String[]> SHEETS = List.of(
             new String[] {"Summary", "One row per sample: what was measured, tan δ at the reference frequency, the best-supported model."},
             new String[] {"Damping ranking", "Samples ordered by tan δ at the reference frequency, highest damping first, with 95 % intervals over replicates."},
+            new String[] {"Group comparison", "Which differences in damping the replicates support: pairwise Welch t-tests with "
+                    + "Holm's adjustment, and, for labelled groups, one-way ANOVA and Kruskal–Wallis tests."},
+            new String[] {"Reference matches", "For each sample, the closest reference materials of the library, with the "
+                    + "distance, its uncertainty, the band compared and where the curves differ most."},
+            new String[] {"Mimic ranking", "With a target sample: every other sample ranked by how closely it mimics the target."},
             new String[] {"Model fits", "Every model fitted to every sample: parameters with units, standard errors, 95 % intervals, AICc and Akaike weights."},
             new String[] {"Derived quantities", "Quantities computed from each fit (relaxation and retardation times, crossover "
                     + "frequency, relaxed and unrelaxed moduli, viscosities), with standard errors."},

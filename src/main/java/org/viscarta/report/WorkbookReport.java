@@ -15,6 +15,9 @@ import org.apache.poi.ss.usermodel.Sheet;
 import org.apache.poi.ss.usermodel.Workbook;
 import org.apache.poi.xssf.streaming.SXSSFWorkbook;
 import org.viscarta.Campaign;
+import org.viscarta.compare.DampingComparison;
+import org.viscarta.compare.Matcher;
+import org.viscarta.compare.ReferenceDistance;
 import org.viscarta.compare.ReplicateSummary;
 import org.viscarta.fit.DerivedEstimate;
 import org.viscarta.fit.FitResult;
@@ -27,16 +30,30 @@ import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
 
 /**
- * Writes the report workbook: Read me, Summary, Damping ranking, Model fits, Data, Reference
- * library and Provenance. Numbers are numeric cells; every header carries its unit. Streams rows
+ * Writes the report workbook: Read me, Summary, Damping ranking, Group comparison, Reference
+ * matches, Mimic ranking (with a target), Model fits, Derived quantities, Correlations, Data,
+ * Reference library and Provenance. Numbers are numeric cells; every header carries its unit. Streams rows
  * (SXSSF) so that large campaigns fit in memory.
  */
 public final class WorkbookReport {
 
     /** Everything the workbook shows. */
     public record Content(Campaign campaign, List<Campaign.SampleFits> fits, List<Campaign.RankRow> ranking,
-                          ReferenceLibrary library, Provenance provenance) {
+                          DampingComparison.Result comparison, ReferenceLibrary library, List<List<Matcher.Match>> matches,
+                          String target, List<Matcher.Match> mimic, Provenance provenance) {
+        public Content {
+            matches = List.copyOf(matches);
+            mimic = List.copyOf(mimic);
+        }
+
+        /** The matches of the i-th sample of {@code fits}, or an empty list. */
+        List<Matcher.Match> matchesOf(int i) {
+            return i < matches.size() ? matches.get(i) : List.of();
+        }
     }
+
+    /** References listed per sample in Reference matches. */
+    private static final int MATCHES_SHOWN = 5;
 
     /** Column widths of the Read me sheet, in characters. */
     private static final int LABEL_WIDTH = 34;
@@ -52,6 +69,11 @@ public final class WorkbookReport {
             readMe(wb, st, c);
             summary(wb, st, c);
             ranking(wb, st, c);
+            groupComparison(wb, st, c);
+            referenceMatches(wb, st, c);
+            if (c.target() != null) {
+                mimic(wb, st, c);
+            }
             modelFits(wb, st, c);
             derived(wb, st, c);
             correlations(wb, st, c);
@@ -266,24 +288,27 @@ public final class WorkbookReport {
     }
 
     private static String atHeader(Content c, String what) {
-        return what + " at " + Campaign.plain(c.campaign().settings().atHz()) + " Hz";
+        return what + " at " + c.campaign().settings().rankingFrequency();
     }
 
     private static void summary(Workbook wb, Styles st, Content c) {
         Sheet s = wb.createSheet("Summary");
-        Rows rows = new Rows(s, null, null, null, st.dec2, st.integer, st.integer, st.freq, st.freq, st.dec4, st.dec4, st.dec4, null, st.dec4, st.dec4);
+        Rows rows = new Rows(s, null, null, null, st.dec2, st.integer, st.integer, st.freq, st.freq, st.dec4, st.dec4, st.dec4, null,
+                null, st.dec4, st.dec4, null, null, st.dec4);
         rows.styled(st.header, "sample", "group", "modulus basis", "temperature [°C]", "replicates", "points",
                 "lowest frequency [Hz]", "highest frequency [Hz]", atHeader(c, "tan δ [–]"), "tan δ 95 % CI low [–]",
-                "tan δ 95 % CI high [–]", "best-supported model", "Akaike weight of best [–]", "RMS log misfit of best [–]",
-                "also supported (ΔAICc < 2)", "notes");
+                "tan δ 95 % CI high [–]", "damping letter group", "best-supported model", "Akaike weight of best [–]",
+                "RMS log misfit of best [–]", "also supported (ΔAICc < 2)", "closest reference", "distance to it [decades]", "notes");
         freezeHeader(s);
         Map<Campaign.Sample, Campaign.RankRow> rankOf = new IdentityHashMap<>();
         for (Campaign.RankRow r : c.ranking()) {
             rankOf.put(r.sample(), r);
         }
-        for (Campaign.SampleFits sf : c.fits()) {
+        for (int i = 0; i < c.fits().size(); i++) {
+            Campaign.SampleFits sf = c.fits().get(i);
             Campaign.Sample smp = sf.sample();
             Campaign.RankRow rr = rankOf.get(smp);
+            Matcher.Match closest = c.matchesOf(i).stream().filter(m -> m.rank() == 1).findFirst().orElse(null);
             ReplicateSummary t = rr == null ? null : rr.tanDelta();
             ModelSelection.Ranked best = sf.fits().stream().filter(ModelSelection.Ranked::best).findFirst().orElse(null);
             List<String> notes = new ArrayList<>();
@@ -300,10 +325,12 @@ public final class WorkbookReport {
             rows.row(smp.name(), smp.group(), smp.kind() + " (" + smp.kind().letter() + ")", smp.temperatureC(),
                     smp.replicates().size(), points, smp.minFrequencyHz(), smp.maxFrequencyHz(),
                     t == null ? null : t.mean(), t == null ? null : t.ci95Low(), t == null ? null : t.ci95High(),
-                    best == null ? "none converged" : best.fit().model(), best == null ? null : best.weight(),
-                    best == null ? null : best.fit().rmsLogResidual(), String.join(", ", alsoSupported(sf)), String.join("; ", notes));
+                    rr == null ? "" : rr.letters(), best == null ? "none converged" : best.fit().model(),
+                    best == null ? null : best.weight(), best == null ? null : best.fit().rmsLogResidual(),
+                    String.join(", ", alsoSupported(sf)), closest == null ? "" : closest.reference(),
+                    closest == null ? null : closest.result().distance(), String.join("; ", notes));
         }
-        widths(s, 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 22, 14, 14, 30, 60);
+        widths(s, 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 10, 22, 14, 14, 30, 24, 14, 60);
     }
 
     private static List<String> alsoSupported(Campaign.SampleFits sf) {
@@ -321,16 +348,95 @@ public final class WorkbookReport {
         Rows rows = new Rows(s, st.integer, null, null, st.integer, st.freq, st.dec4, st.dec4, st.dec4, st.dec4, st.sci, st.sci);
         rows.styled(st.header, "rank", "sample", "group", "replicates", "frequency [Hz]", "tan δ mean [–]", "tan δ SD [–]",
                 "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]", "storage modulus mean [Pa]", "loss modulus mean [Pa]",
-                "value from", "note");
+                "value from", "letter group", "note");
         freezeHeader(s);
         for (Campaign.RankRow r : c.ranking()) {
             ReplicateSummary t = r.tanDelta();
             rows.row(r.rank() == 0 ? null : r.rank(), r.sample().name(), r.sample().group(),
-                    t == null ? r.sample().replicates().size() : t.n(), c.campaign().settings().atHz(),
+                    t == null ? r.sample().replicates().size() : t.n(), rankingFrequencyHz(c),
                     t == null ? null : t.mean(), t == null ? null : t.sd(), t == null ? null : t.ci95Low(),
-                    t == null ? null : t.ci95High(), r.storage(), r.loss(), r.source().description(), r.note());
+                    t == null ? null : t.ci95High(), r.storage(), r.loss(), r.source().description(), r.letters(), r.note());
         }
         widths(s, 7, 28, 16, 12, 14, 14, 12, 14, 14, 18, 18, 30, 60);
+    }
+
+    private static double rankingFrequencyHz(Content c) {
+        Campaign.Settings st = c.campaign().settings();
+        return st.hasBand() ? Math.sqrt(st.bandLowHz() * st.bandHighHz()) : st.atHz();
+    }
+
+    private static void groupComparison(Workbook wb, Styles st, Content c) {
+        Sheet s = wb.createSheet("Group comparison");
+        Rows rows = new Rows(s, null, null, st.dec4, st.dec4, st.dec4, st.dec4);
+        DampingComparison.Result cmp = c.comparison();
+        rows.styled(st.title, "Which differences in damping are supported");
+        for (String statement : cmp.statements()) {
+            rows.paragraph(st.wrap, st.wrap, "", statement, 4, 150);
+        }
+        rows.blank();
+        rows.styled(st.header, "sample", "other sample", "Welch t [–]", "degrees of freedom [–]", "p [–]", "Holm-adjusted p [–]",
+                "supported at α = " + Campaign.plain(cmp.alpha()));
+        for (DampingComparison.Pair p : cmp.pairs()) {
+            rows.row(p.first(), p.second(), p.welch().t(), p.welch().df(), p.welch().p(), p.pHolm(), p.significant() ? "yes" : "no");
+        }
+        if (!cmp.groups().isEmpty()) {
+            rows.blank();
+            rows.styled(st.header, "group", "samples", "tan δ mean [–]", "tan δ SD [–]", "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]",
+                    "values");
+            for (DampingComparison.GroupSummary g : cmp.groups()) {
+                rows.row(g.group(), g.samples(), g.values().mean(), g.values().sd(), g.values().ci95Low(), g.values().ci95High(),
+                        g.values().n());
+            }
+            if (cmp.anova() != null) {
+                rows.blank();
+                rows.styled(st.header, "test across groups", "statistic", "df1 [–]", "df2 [–]", "p [–]");
+                rows.row("one-way ANOVA (F)", "", cmp.anova().statistic(), cmp.anova().df1(), cmp.anova().df2(), cmp.anova().p());
+                rows.row("Kruskal–Wallis (H)", "", cmp.kruskal().statistic(), cmp.kruskal().df1(), null, cmp.kruskal().p());
+            }
+        }
+        widths(s, 28, 28, 14, 14, 14, 16, 14);
+    }
+
+    private static void referenceMatches(Workbook wb, Styles st, Content c) {
+        Sheet s = wb.createSheet("Reference matches");
+        Rows rows = new Rows(s, null, st.integer, null, null, st.dec4, st.dec4, st.freq, st.freq, null, st.freq, st.dec4);
+        rows.styled(st.header, "sample", "rank", "reference", "class", "distance [decades]", "distance standard error [decades]",
+                "band low [Hz]", "band high [Hz]", "comparable", "largest departure at [Hz]", "largest departure [decades]", "note");
+        freezeHeader(s);
+        if (c.library() == null) {
+            rows.row("(no reference library was given: pass --library DIR)");
+        }
+        for (int i = 0; i < c.fits().size(); i++) {
+            int shown = 0;
+            for (Matcher.Match m : c.matchesOf(i)) {
+                if (shown++ >= MATCHES_SHOWN) {
+                    break;
+                }
+                matchRow(rows, m);
+            }
+        }
+        widths(s, 28, 6, 24, 12, 12, 14, 12, 12, 11, 14, 14, 50);
+    }
+
+    private static void matchRow(Rows rows, Matcher.Match m) {
+        ReferenceDistance.Result r = m.result();
+        rows.row(m.sample(), m.rank() == 0 ? null : m.rank(), m.reference(), m.clazz(), r.distance(), r.uncertainty(), r.bandLowHz(),
+                r.bandHighHz(), r.comparable() ? "yes" : "no", r.departureHz(), r.departure(), r.note());
+    }
+
+    private static void mimic(Workbook wb, Styles st, Content c) {
+        Sheet s = wb.createSheet("Mimic ranking");
+        Rows rows = new Rows(s, null, st.integer, null, null, st.dec4, st.dec4, st.freq, st.freq, null, st.freq, st.dec4);
+        rows.styled(st.header, "target", "rank", "candidate", "group", "distance [decades]", "distance standard error [decades]",
+                "band low [Hz]", "band high [Hz]", "comparable", "largest departure at [Hz]", "largest departure [decades, target − candidate]",
+                "note");
+        freezeHeader(s);
+        for (Matcher.Match m : c.mimic()) {
+            matchRow(rows, m);
+        }
+        rows.blank();
+        rows.row("first and second distinguishable: " + Matcher.distinguishable(c.mimic()));
+        widths(s, 24, 6, 24, 14, 12, 14, 12, 12, 11, 14, 16, 50);
     }
 
     private static void modelFits(Workbook wb, Styles st, Content c) {

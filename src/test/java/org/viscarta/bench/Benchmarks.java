@@ -213,6 +213,20 @@ public final class Benchmarks {
                 }
             }
         }
+        Path library = dir.resolve("library");
+        Files.createDirectories(library);
+        for (int r = 0; r < 50; r++) {
+            double[] p = {1e4 * (1 + rng.nextDouble()), 3e4 * (1 + rng.nextDouble()), Math.pow(10, rng.nextDouble(-2, 0))};
+            StringBuilder sb = new StringBuilder(String.format(Locale.ROOT, "# name: ref-%02d%n# class: gel%n# temperature: 23 °C%n"
+                    + "# method: synthetic%nfrequency [Hz],storage_modulus [Pa],loss_modulus [Pa]%n", r));
+            double[] m = new double[2];
+            for (int i = 0; i < 15; i++) {
+                double f = 0.05 * Math.pow(400, i / 14.0);
+                new Zener().modulus(2 * Math.PI * f, p, m);
+                sb.append(String.format(Locale.ROOT, "%.6g,%.6g,%.6g%n", f, m[0], m[1]));
+            }
+            Files.writeString(library.resolve(String.format(Locale.ROOT, "ref-%02d.csv", r)), sb.toString());
+        }
         for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
             pool.resetPeakUsage();
         }
@@ -222,11 +236,15 @@ public final class Benchmarks {
         List<Campaign.SampleFits> fits = c.fit();
         long t2 = System.nanoTime();
         List<Campaign.RankRow> ranking = c.rank(fits);
+        var comparison = c.compare(ranking);
         long t2b = System.nanoTime();
-        ReferenceLibrary lib = ReferenceLibrary.open(Path.of("reference-materials"));
+        ReferenceLibrary lib = ReferenceLibrary.open(library);
+        var matches = c.matchAll(fits, c.referenceCandidates(lib, null),
+                new org.viscarta.compare.ReferenceDistance(org.viscarta.compare.ReferenceDistance.Metric.MODULI, 1, 2));
+        long t2c = System.nanoTime();
         Provenance prov = new Provenance("bench", "benchmark", "-", java.util.Map.of());
         try (OutputStream os = Files.newOutputStream(dir.resolve("report.xlsx"))) {
-            WorkbookReport.write(new WorkbookReport.Content(c, fits, ranking, lib, prov), os);
+            WorkbookReport.write(new WorkbookReport.Content(c, fits, ranking, comparison, lib, matches, null, List.of(), prov), os);
         }
         long t3 = System.nanoTime();
         long heap = 0;
@@ -235,8 +253,9 @@ public final class Benchmarks {
                 heap += pool.getPeakUsage().getUsed();
             }
         }
-        System.out.printf(Locale.ROOT, "campaign: %d sweeps x %d models: read %.2f s, fit %.2f s, rank + workbook %.2f s, "
-                + "total %.2f s wall (rank alone %.2f s); peak heap (sum of pool peaks) %d MB%n", n, c.settings().modelIds().size(),
-                (t1 - t0) / 1e9, (t2 - t1) / 1e9, (t3 - t2) / 1e9, (t3 - t0) / 1e9, (t2b - t2) / 1e9, heap >> 20);
+        System.out.printf(Locale.ROOT, "campaign: %d sweeps x %d models, matched against %d references: read %.2f s, fit %.2f s, "
+                + "rank and letters %.2f s, references fitted and matched %.2f s, workbook %.2f s, total %.2f s wall; "
+                + "peak heap (sum of pool peaks) %d MB%n", n, c.settings().modelIds().size(), lib.entries().size(),
+                (t1 - t0) / 1e9, (t2 - t1) / 1e9, (t2b - t2) / 1e9, (t2c - t2b) / 1e9, (t3 - t2c) / 1e9, (t3 - t0) / 1e9, heap >> 20);
     }
 }

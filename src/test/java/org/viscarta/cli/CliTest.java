@@ -313,15 +313,29 @@ class CliTest {
     void quickStartReportOnTheDemoDataWritesAReadableWorkbook() throws IOException {
         // The README's quick start, with the output in a temporary folder.
         Path out = dir.resolve("demo-report");
-        CliRun r = CliRun.of("report", "demo-data", "--library", "reference-materials", "--basis", "tensile", "--out", out.toString());
+        CliRun r = CliRun.of("report", "demo-data", "--library", "reference-materials", "--basis", "tensile", "--target",
+                "target-soft-tissue", "--out", out.toString());
         assertEquals(0, r.exitCode(), r.err());
         Path xlsx = out.resolve("report.xlsx");
         assertTrue(Files.isRegularFile(xlsx));
         try (InputStream in = Files.newInputStream(xlsx); Workbook wb = WorkbookFactory.create(in)) {
             List<String> names = new ArrayList<>();
             wb.forEach(s -> names.add(s.getSheetName()));
-            assertEquals(List.of("Read me", "Summary", "Damping ranking", "Model fits", "Derived quantities", "Correlations", "Data",
-                    "Reference library", "Provenance"), names);
+            assertEquals(List.of("Read me", "Summary", "Damping ranking", "Group comparison", "Reference matches", "Mimic ranking",
+                    "Model fits", "Derived quantities", "Correlations", "Data", "Reference library", "Provenance"), names);
+            // both questions of the demo answered: the aged linseed film is closest to the aged reference film,
+            // and a gel formulation (not a paint) is the best mimic of the target tissue
+            Sheet matches = wb.getSheet("Reference matches");
+            boolean agedFound = false;
+            for (Row row : matches) {
+                if (row.getRowNum() > 0 && row.getCell(0).getStringCellValue().equals("linseed-1500h") && row.getCell(1) != null
+                        && row.getCell(1).getNumericCellValue() == 1) {
+                    agedFound = row.getCell(2).getStringCellValue().equals("linseed-film-aged");
+                }
+            }
+            assertTrue(agedFound, "linseed-1500h closest to linseed-film-aged");
+            Row bestMimic = wb.getSheet("Mimic ranking").getRow(1);
+            assertTrue(List.of("gelatin", "agarose", "polyacrylamide").contains(bestMimic.getCell(3).getStringCellValue()));
             Sheet summary = wb.getSheet("Summary");
             assertEquals(15, summary.getLastRowNum(), "15 demo samples");
             Sheet data = wb.getSheet("Data");
