@@ -1,0 +1,264 @@
+package org.viscarta.library;
+
+import java.io.IOException;
+import java.io.OutputStreamWriter;
+import java.io.Writer;
+import java.nio.channels.FileChannel;
+import java.nio.channels.FileLock;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.locks.ReentrantLock;
+import org.viscarta.io.AtomicOutput;
+import org.viscarta.io.InputCollector;
+import org.viscarta.io.InputException;
+import org.viscarta.io.SweepFile;
+import org.viscarta.io.SweepReader;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * Changes to the reference-library folder: add (validated, written in the canonical form
+ * atomically), remove (the file is kept in {@code .removed/}), and check. Changes hold a lock on
+ * the folder ({@code .viscarta.lock}) so that two runs at once cannot corrupt it.
+ */
+public final class LibraryFolder {
+
+    private static final Map<Path, ReentrantLock> IN_PROCESS = new ConcurrentHashMap<>();
+    private static final String LOCK_FILE = ".viscarta.lock";
+    private static final String REMOVED = ".removed";
+
+    /** What {@code library add} is told besides the file. */
+    public record Additions(String name, String clazz, String composition, String condition, String notes, String temperature,
+                            String method) {
+    }
+
+    /** A problem found by {@link #check()}: the file's own location and message. */
+    public record Problem(String message) {
+    }
+
+    private final Path folder;
+
+    public LibraryFolder(Path folder) {
+        this.folder = folder;
+    }
+
+    public Path folder() {
+        return folder;
+    }
+
+    /**
+     * Adds a sweep file as a reference in the canonical form (SI units, complete metadata).
+     *
+     * @return the file written
+     * @throws InputException for a bad file, missing metadata, or a name already used (without replace)
+     */
+    public Path add(Path source, Additions a, boolean replace) throws IOException {
+        requireFolder();
+        if (a.name() == null || a.name().isBlank()) {
+            throw new IllegalArgumentException("a reference needs a name: pass --name");
+        }
+        if (a.clazz() == null || a.clazz().isBlank()) {
+            throw new IllegalArgumentException("a reference needs a class (gel, tissue, paint film, ...): pass --class");
+        }
+        SweepFile sf = new SweepReader(null).read(source);
+        if (sf.sweeps().size() != 1) {
+            throw new InputException(source, sf.info().headerLine(), 0, "a reference is one sweep; this file holds "
+                    + sf.sweeps().size() + " (several samples, replicates or temperatures): add them one by one");
+        }
+        Sweep sw = sf.sweeps().get(0);
+        Map<String, String> meta = new LinkedHashMap<>();
+        meta.put("name", a.name().strip());
+        meta.put("class", a.clazz().strip());
+        String temperature = a.temperature() != null ? a.temperature() : sf.info().metadata().get("temperature");
+        if (temperature == null) {
+            throw new InputException(source, 1, 0, "the reference needs a test temperature: add '# temperature: 23 °C' to the file "
+                    + "or pass --temperature");
+        }
+        meta.put("temperature", temperature.strip());
+        String method = a.method() != null ? a.method() : sf.info().metadata().get("method");
+        if (method == null) {
+            throw new InputException(source, 1, 0, "the reference needs a test method: add '# method: dynamic indentation' "
+                    + "(or DMA, rheometer, ...) to the file or pass --method");
+        }
+        meta.put("method", method.strip());
+        meta.put("modulus", sw.kind().toString());
+        putIf(meta, "composition", a.composition());
+        putIf(meta, "condition", a.condition());
+        putIf(meta, "notes", a.notes());
+        for (Map.Entry<String, String> e : sf.info().metadata().entrySet()) {
+            meta.putIfAbsent(e.getKey(), e.getValue());
+        }
+        meta.put("source_file", source.getFileName().toString());
+        meta.put("source_sha256", sf.sha256());
+        Path target = folder.resolve(slug(a.name()) + ".csv");
+        try (AutoCloseable lock = lock()) {
+            Path existing = findByName(a.name().strip());
+            if (existing != null && !replace) {
+                throw new InputException(existing, 0, 0, "a reference named '" + a.name().strip()
+                        + "' is already in the library; pass --replace to replace it");
+            }
+            if (existing != null && !existing.equals(target)) {
+                keepRemoved(existing);
+            }
+            if (existing == null && Files.exists(target)) {
+                throw new InputException(target, 0, 0, "the file name is taken by another reference; choose another --name");
+            }
+            AtomicOutput.write(target, true, out -> {
+                Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
+                for (Map.Entry<String, String> e : meta.entrySet()) {
+                    w.write("# " + e.getKey() + ": " + e.getValue().replace('\n', ' ') + "\n");
+                }
+                w.write("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+                for (SweepPoint p : sw.points()) {
+                    w.write(p.frequencyHz() + "," + p.storage() + "," + p.loss() + "\n");
+                }
+                w.flush();
+            });
+        } catch (IOException | RuntimeException e) {
+            throw e;
+        } catch (Exception e) {
+            throw new IOException(e);
+        }
+        return target;
+    }
+
+    /**
+     * Removes a reference; its file is moved to {@code .removed/} (never deleted).
+     *
+     * @return where the file now is
+     */
+    public Path remove(String name) throws IOException {
+        requireFolder();
+        try (AutoCloseable lock = lock()) {
+            Path existing = findByName(name);
+            if (existing == null) {
+                throw new IllegalArgumentException("no reference named '" + name + "' in " + folder);
+            }
+            return keepRemoved(existing);
+        } catch (IOException | RuntimeException e) {
+            throw e;
+        } catch (Exception e) {
+            throw new IOException(e);
+        }
+    }
+
+    /** Validates every entry; each problem carries its file and line. */
+    public List<Problem> check() {
+        requireFolder();
+        List<Problem> problems = new ArrayList<>();
+        Map<String, Path> names = new LinkedHashMap<>();
+        List<Path> files;
+        try {
+            files = InputCollector.collect(List.of(folder));
+        } catch (InputException e) {
+            return List.of(new Problem(e.getMessage()));
+        }
+        for (Path f : files) {
+            try {
+                SweepFile sf = new SweepReader(null).read(f);
+                for (String key : ReferenceLibrary.REQUIRED_KEYS) {
+                    String v = sf.info().metadata().get(key);
+                    if (v == null || v.isBlank()) {
+                        problems.add(new Problem(f + ":1: missing '# " + key + ": ...'"));
+                    }
+                }
+                if (sf.sweeps().size() != 1) {
+                    problems.add(new Problem(f + ":" + sf.info().headerLine() + ": holds " + sf.sweeps().size()
+                            + " sweeps; a reference is one sweep"));
+                }
+                String name = sf.info().metadata().get("name");
+                if (name != null) {
+                    Path other = names.put(name, f);
+                    if (other != null) {
+                        problems.add(new Problem(f + ":1: the name '" + name + "' is also used by " + other));
+                    }
+                }
+            } catch (InputException e) {
+                problems.add(new Problem(e.getMessage()));
+            }
+        }
+        return problems;
+    }
+
+    /** The file of the reference with this name (its '# name:' line), or null. Tolerates bad files. */
+    Path findByName(String name) {
+        if (!Files.isDirectory(folder)) {
+            return null;
+        }
+        try (var s = Files.list(folder)) {
+            for (Path f : s.filter(Files::isRegularFile).filter(InputCollector::looksLikeSweepTable).sorted().toList()) {
+                for (String line : Files.readAllLines(f, StandardCharsets.UTF_8)) {
+                    String l = line.strip();
+                    if (!l.startsWith("#")) {
+                        break;
+                    }
+                    int colon = l.indexOf(':');
+                    if (colon > 0 && l.substring(1, colon).strip().equalsIgnoreCase("name") && l.substring(colon + 1).strip().equals(name)) {
+                        return f;
+                    }
+                }
+            }
+        } catch (IOException | java.io.UncheckedIOException e) {
+            throw new InputException(folder, 0, 0, "cannot read the library (" + e.getMessage() + ")");
+        }
+        return null;
+    }
+
+    private Path keepRemoved(Path file) throws IOException {
+        Path dir = folder.resolve(REMOVED);
+        Files.createDirectories(dir);
+        String base = file.getFileName().toString();
+        Path target = dir.resolve(base);
+        for (int k = 2; Files.exists(target); k++) {
+            target = dir.resolve(base.replaceFirst("(\\.[^.]*)?$", "." + k + "$1"));
+        }
+        return Files.move(file, target);
+    }
+
+    private AutoCloseable lock() throws IOException {
+        Path key = folder.toAbsolutePath().normalize();
+        ReentrantLock inProcess = IN_PROCESS.computeIfAbsent(key, k -> new ReentrantLock());
+        inProcess.lock();
+        try {
+            FileChannel ch = FileChannel.open(key.resolve(LOCK_FILE), StandardOpenOption.CREATE, StandardOpenOption.WRITE);
+            FileLock fl = ch.lock();
+            return () -> {
+                try {
+                    fl.release();
+                    ch.close();
+                } finally {
+                    inProcess.unlock();
+                }
+            };
+        } catch (IOException | RuntimeException e) {
+            inProcess.unlock();
+            throw e;
+        }
+    }
+
+    private void requireFolder() {
+        if (!Files.isDirectory(folder)) {
+            throw new InputException(folder, 0, 0, "the reference library is not a folder; create it or pass another --library");
+        }
+    }
+
+    private static void putIf(Map<String, String> m, String key, String value) {
+        if (value != null && !value.isBlank()) {
+            m.put(key, value.strip());
+        }
+    }
+
+    /** A file name from a reference name: letters, digits, dot, dash and underscore; others become '-'. */
+    static String slug(String name) {
+        String s = name.strip().toLowerCase(Locale.ROOT).replaceAll("[^a-z0-9._-]+", "-").replaceAll("^-+|-+$", "");
+        return s.isEmpty() ? "reference" : s;
+    }
+}
