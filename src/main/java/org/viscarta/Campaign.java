@@ -312,6 +312,13 @@ public final class Campaign {
 
     /** Fits every candidate model to every sample (replicates pooled), in parallel over samples. */
     public List<SampleFits> fit() {
+        return fit(() -> { });
+    }
+
+    /**
+     * The same, calling {@code onSampleDone} (from any thread) as each sample is finished, for progress.
+     */
+    public List<SampleFits> fit(Runnable onSampleDone) {
         ModelFitter fitter = new ModelFitter(settings.weighting());
         List<ViscoelasticModel> models = settings.modelIds().stream()
                 .map(id -> ModelCatalogue.byId(id).orElseThrow()).toList();
@@ -321,6 +328,7 @@ public final class Campaign {
             for (ViscoelasticModel m : models) {
                 fits.add(fitter.fit(s.name(), m, pts));
             }
+            onSampleDone.run();
             return new SampleFits(s, ModelSelection.rank(fits));
         }).toList();
     }

@@ -16,7 +16,10 @@ import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReferenceDistance;
 import org.viscarta.io.AtomicOutput;
 import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.report.HtmlReport;
 import org.viscarta.report.Provenance;
+import org.viscarta.report.RenderedFigure;
+import org.viscarta.report.ReportFigures;
 import org.viscarta.report.WorkbookReport;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -25,10 +28,10 @@ import picocli.CommandLine.Option;
 
 /** {@code viscarta report}: the main job, everything into a workbook. */
 @Command(name = "report", mixinStandardHelpOptions = true,
-        header = "The main job: fits, ranking and data into report.xlsx.",
-        description = {"The main job: read every input, fit every candidate model to every sample, rank the samples",
-            "by damping, and write DIR/report.xlsx with sheets Read me, Summary, Damping ranking, Model fits,",
-            "Data, Reference library and Provenance."})
+        header = "The main job: fits, ranking, matches and figures into a workbook and an HTML page.",
+        description = {"The main job: read every input, fit every candidate model to every sample, rank the samples by damping,",
+            "match them against the reference library, and write DIR/report.xlsx, DIR/report.html (one self-contained page)",
+            "and DIR/figures/ (PNG at 300 dpi and SVG)."})
 final class ReportCommand implements Callable<Integer> {
 
     @Mixin
@@ -50,7 +53,15 @@ final class ReportCommand implements Callable<Integer> {
             description = "Name of a sample to mimic: every other sample is ranked by its distance to it (sheet Mimic ranking).")
     String target;
 
-    @Option(names = "--force", description = "Replace an existing report.xlsx.")
+    @Option(names = "--timestamp", paramLabel = "TIME",
+            description = "The run time to state in Provenance (ISO-8601 UTC, e.g. 2026-12-01T12:00:00Z); default: now. "
+                    + "With the same inputs, settings and time, the outputs are byte for byte the same.")
+    String timestamp;
+
+    @Option(names = "--quiet", description = "No progress on stderr.")
+    boolean quiet;
+
+    @Option(names = "--force", description = "Replace an existing report.xlsx, report.html and figures.")
     boolean force;
 
     @CommandLine.Spec
@@ -61,18 +72,28 @@ final class ReportCommand implements Callable<Integer> {
         Campaign.Settings settings = rankOptions.applyTo(models.applyTo(input.applyTo(Campaign.Settings.defaults())),
                 spec.commandLine());
         Path xlsx = outDir.resolve("report.xlsx");
+        Path html = outDir.resolve("report.html");
+        Path figuresDir = outDir.resolve("figures");
         AtomicOutput.checkWritable(xlsx, force);
+        AtomicOutput.checkWritable(html, force);
+        if (java.nio.file.Files.isDirectory(figuresDir) && !force) {
+            throw new org.viscarta.io.InputException(figuresDir, 0, 0,
+                    "the figures folder already exists; choose another --out or pass --force to replace its figures");
+        }
+        Instant stated = timestamp == null ? Instant.now().truncatedTo(ChronoUnit.SECONDS) : parseTimestamp(timestamp);
         Path libraryDir = library.folderOrNull();
         ReferenceLibrary lib = libraryDir == null ? null : ReferenceLibrary.open(libraryDir);
         Campaign campaign = Campaign.read(input.inputs, settings);
         Warnings.print(spec, campaign);
-        List<Campaign.SampleFits> fits = campaign.fit();
+        Progress progress = new Progress(spec.commandLine().getErr(), quiet, campaign.samples().size());
+        List<Campaign.SampleFits> fits = campaign.fit(progress::done);
+        progress.finish();
         List<Campaign.RankRow> ranking = campaign.rank(fits);
         DampingComparison.Result comparison = campaign.compare(ranking);
         ReferenceDistance rd = new ReferenceDistance(ReferenceDistance.Metric.MODULI, 1, 2);
         List<FittedCurve> curves = campaign.curves(fits);
-        List<List<Matcher.Match>> matches = lib == null ? List.of()
-                : campaign.matchAll(fits, campaign.referenceCandidates(lib, null), rd);
+        List<Matcher.Candidate> references = lib == null ? List.of() : campaign.referenceCandidates(lib, null);
+        List<List<Matcher.Match>> matches = lib == null ? List.of() : campaign.matchAll(fits, references, rd);
         List<Matcher.Match> mimic = List.of();
         if (target != null) {
             int ti = -1;
@@ -88,16 +109,38 @@ final class ReportCommand implements Callable<Integer> {
             List<Matcher.Candidate> others = campaign.asCandidates(fits).stream().filter(x -> !x.name().equals(t)).toList();
             mimic = Matcher.rank(target, curves.get(ti), others, rd);
         }
-        Provenance prov = new Provenance(VersionProvider.version(), commandLine(),
-                Instant.now().truncatedTo(ChronoUnit.SECONDS).toString(), settingsMap(settings, libraryDir));
+        Provenance prov = new Provenance(VersionProvider.version(), commandLine(), stated.toString(),
+                settingsMap(settings, libraryDir));
         WorkbookReport.Content content = new WorkbookReport.Content(campaign, fits, ranking, comparison, lib, matches, target, mimic, prov);
-        AtomicOutput.write(xlsx, force, out -> WorkbookReport.write(content, out));
+        List<RenderedFigure> figures = ReportFigures.render(ReportFigures.build(content, references));
+        java.nio.file.Files.createDirectories(figuresDir);
+        for (RenderedFigure f : figures) {
+            AtomicOutput.write(figuresDir.resolve(f.stem() + ".png"), true, o -> o.write(f.png()));
+            AtomicOutput.write(figuresDir.resolve(f.stem() + ".svg"), true,
+                    o -> o.write(f.svg().getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+        }
+        AtomicOutput.write(xlsx, force, o -> WorkbookReport.write(content, figures, o));
+        String page = HtmlReport.write(content, figures, WorkbookReport.isDemo(content));
+        AtomicOutput.write(html, force, o -> o.write(page.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
         PrintWriter out = spec.commandLine().getOut();
         out.printf("%d sample(s) from %d file(s); %d model(s) each; ranked at %s%n", campaign.samples().size(),
                 campaign.files().size(), settings.modelIds().size(), settings.rankingFrequency());
+        if (campaign.samples().size() > ReportFigures.MAX_SAMPLE_FIGURES) {
+            out.printf("per-sample figures left out: more than %d samples%n", ReportFigures.MAX_SAMPLE_FIGURES);
+        }
         out.println("wrote " + xlsx);
+        out.println("wrote " + html);
+        out.println("wrote " + figures.size() + " figure(s) as PNG and SVG in " + figuresDir);
         out.flush();
         return CommandLine.ExitCode.OK;
+    }
+
+    private static Instant parseTimestamp(String text) {
+        try {
+            return Instant.parse(text);
+        } catch (java.time.format.DateTimeParseException e) {
+            throw new IllegalArgumentException("--timestamp takes an ISO-8601 UTC time such as 2026-12-01T12:00:00Z, not '" + text + "'");
+        }
     }
 
     private String commandLine() {

@@ -52,6 +52,10 @@ public final class WorkbookReport {
         }
     }
 
+    /** Columns (12 characters wide) and rows a figure spans in the Figures sheet: about 6.5 × 4.2 inches. */
+    private static final int FIGURE_COLUMNS = 9;
+    private static final int FIGURE_ROWS = 21;
+
     /** References listed per sample in Reference matches. */
     private static final int MATCHES_SHOWN = 5;
 
@@ -62,9 +66,23 @@ public final class WorkbookReport {
     private WorkbookReport() {
     }
 
-    /** Writes the workbook to {@code out} (the caller closes it). */
+    /** Writes the workbook without figures. */
     public static void write(Content c, OutputStream out) throws IOException {
+        write(c, List.of(), out);
+    }
+
+    /**
+     * Writes the workbook to {@code out} (the caller closes it). The same content gives the same
+     * bytes: the document's creation time is the run time stated in Provenance, and every ZIP entry
+     * carries that time too.
+     */
+    public static void write(Content c, List<RenderedFigure> figures, OutputStream out) throws IOException {
+        java.time.Instant stated = java.time.Instant.parse(c.provenance().runAtUtc());
+        java.io.ByteArrayOutputStream buffer = new java.io.ByteArrayOutputStream();
         try (SXSSFWorkbook wb = new SXSSFWorkbook(200)) {
+            var core = wb.getXSSFWorkbook().getProperties().getCoreProperties();
+            core.setCreated(java.util.Optional.of(java.util.Date.from(stated)));
+            core.setCreator("Viscarta " + c.provenance().toolVersion());
             Styles st = new Styles(wb);
             readMe(wb, st, c);
             summary(wb, st, c);
@@ -79,10 +97,36 @@ public final class WorkbookReport {
             correlations(wb, st, c);
             data(wb, st, c);
             library(wb, st, c);
+            if (!figures.isEmpty()) {
+                figures(wb, st, figures);
+            }
             provenance(wb, st, c);
-            wb.write(out);
+            wb.write(buffer);
             wb.dispose();
         }
+        out.write(ReproducibleZip.rewrite(buffer.toByteArray(), stated.toEpochMilli()));
+    }
+
+    private static void figures(SXSSFWorkbook wb, Styles st, List<RenderedFigure> figures) {
+        Sheet s = wb.createSheet("Figures");
+        Rows rows = new Rows(s);
+        rows.styled(st.title, "Figures (also written as PNG at 300 dpi and SVG under figures/)");
+        org.apache.poi.ss.usermodel.Drawing<?> drawing = s.createDrawingPatriarch();
+        org.apache.poi.ss.usermodel.CreationHelper helper = wb.getCreationHelper();
+        int row = 2;
+        for (RenderedFigure f : figures) {
+            Row caption = s.createRow(row);
+            caption.createCell(0).setCellValue(f.stem() + ": " + f.caption());
+            int picture = wb.addPicture(f.png(), Workbook.PICTURE_TYPE_PNG);
+            org.apache.poi.ss.usermodel.ClientAnchor a = helper.createClientAnchor();
+            a.setCol1(0);
+            a.setRow1(row + 1);
+            a.setCol2(FIGURE_COLUMNS);
+            a.setRow2(row + 1 + FIGURE_ROWS);
+            drawing.createPicture(a, picture);
+            row += FIGURE_ROWS + 3;
+        }
+        widths(s, 12, 12, 12, 12, 12, 12, 12, 12, 12);
     }
 
     /** Cell styles, created once per workbook. */
@@ -267,7 +311,8 @@ public final class WorkbookReport {
         widths(s, LABEL_WIDTH, TEXT_WIDTH);
     }
 
-    private static boolean isDemo(Content c) {
+    /** True when an input says it is invented demo data. */
+    public static boolean isDemo(Content c) {
         for (SweepFile f : c.campaign().files()) {
             for (String v : f.info().metadata().values()) {
                 if (v.toLowerCase(Locale.ROOT).contains("demo data")) {

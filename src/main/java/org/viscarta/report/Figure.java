@@ -1,0 +1,52 @@
+package org.viscarta.report;
+
+import java.awt.Graphics2D;
+import java.awt.geom.Rectangle2D;
+import java.awt.image.BufferedImage;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import javax.imageio.ImageIO;
+import org.jfree.chart.JFreeChart;
+import org.jfree.svg.SVGGraphics2D;
+
+/**
+ * One figure of the report: a chart, a file stem, a caption, and its renderings as PNG (300 dpi)
+ * and SVG. Both renderings are deterministic: the same chart gives the same bytes.
+ *
+ * @param stem    file name without extension, e.g. {@code tan-delta}
+ * @param caption what the figure shows, in a sentence
+ * @param chart   the chart
+ */
+public record Figure(String stem, String caption, JFreeChart chart) {
+
+    /** Size on the page: 6.5 × 4.2 inches. */
+    static final int WIDTH_PT = 468;
+    static final int HEIGHT_PT = 302;
+    private static final double DPI = 300;
+
+    /** PNG at 300 dots per inch. */
+    public byte[] png() throws IOException {
+        double scale = DPI / 72.0;
+        int w = (int) Math.round(WIDTH_PT * scale);
+        int h = (int) Math.round(HEIGHT_PT * scale);
+        BufferedImage img = new BufferedImage(w, h, BufferedImage.TYPE_INT_RGB);
+        Graphics2D g = img.createGraphics();
+        try {
+            g.scale(scale, scale);
+            chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, HEIGHT_PT));
+        } finally {
+            g.dispose();
+        }
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ImageIO.write(img, "png", out);
+        return out.toByteArray();
+    }
+
+    /** SVG, with definition keys fixed so that two runs write the same text. */
+    public String svg() {
+        SVGGraphics2D g = new SVGGraphics2D(WIDTH_PT, HEIGHT_PT);
+        g.setDefsKeyPrefix(stem.replaceAll("[^A-Za-z0-9]", "_") + "_");
+        chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, HEIGHT_PT));
+        return g.getSVGElement();
+    }
+}

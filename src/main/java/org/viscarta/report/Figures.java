@@ -1,0 +1,352 @@
+package org.viscarta.report;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.text.DecimalFormat;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.axis.LogAxis;
+import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.axis.NumberTickUnit;
+import org.jfree.chart.axis.SymbolAxis;
+import org.jfree.chart.plot.CombinedDomainXYPlot;
+import org.jfree.chart.plot.ValueMarker;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.xy.DeviationRenderer;
+import org.jfree.chart.renderer.xy.XYErrorRenderer;
+import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.data.xy.XYIntervalSeries;
+import org.jfree.data.xy.XYIntervalSeriesCollection;
+import org.jfree.data.xy.XYSeries;
+import org.jfree.data.xy.XYSeriesCollection;
+import org.jfree.data.xy.YIntervalSeries;
+import org.jfree.data.xy.YIntervalSeriesCollection;
+import org.viscarta.Campaign;
+import org.viscarta.compare.FittedCurve;
+import org.viscarta.compare.Matcher;
+import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * Builds the report's figures: per sample, E′ and E″ against frequency with replicate error bars,
+ * the best-supported model and its 95 % band, and the fit's residuals; per sample, the sample
+ * against its closest references; tan δ against frequency for all samples; and the damping ranking
+ * as intervals with letter groups. Axes name quantity and unit; series differ by colour, marker
+ * and dash ({@link Palette}).
+ */
+public final class Figures {
+
+    /** Points of a model curve across a measured range. */
+    private static final int CURVE_POINTS = 60;
+    /** Normal quantile of a two-sided 95 % band (the band is on log moduli, by the delta method). */
+    private static final double Z95 = 1.959963984540054;
+
+    private Figures() {
+    }
+
+    /** Replicate mean and SD of ln M′, ln M″ and tan δ at each measured frequency. */
+    record Aggregate(double f, double storage, double storageLo, double storageHi, double loss, double lossLo, double lossHi,
+                     double tanDelta) {
+    }
+
+    static List<Aggregate> aggregate(Campaign.Sample s) {
+        Map<Long, List<SweepPoint>> byF = new TreeMap<>();
+        for (Sweep r : s.replicates()) {
+            for (SweepPoint p : r.fittablePoints()) {
+                byF.computeIfAbsent(Math.round(Math.log10(p.frequencyHz()) * 1e6), k -> new ArrayList<>()).add(p);
+            }
+        }
+        List<Aggregate> out = new ArrayList<>();
+        for (List<SweepPoint> pts : byF.values()) {
+            double[] ls = pts.stream().mapToDouble(p -> Math.log(p.storage())).toArray();
+            double[] ll = pts.stream().mapToDouble(p -> Math.log(p.loss())).toArray();
+            double[] lt = pts.stream().mapToDouble(p -> Math.log(p.lossTangent())).toArray();
+            ReplicateSummary rs = ReplicateSummary.of(ls);
+            ReplicateSummary rl = ReplicateSummary.of(ll);
+            double sdS = Double.isNaN(rs.sd()) ? 0 : rs.sd();
+            double sdL = Double.isNaN(rl.sd()) ? 0 : rl.sd();
+            double f = Math.exp(pts.stream().mapToDouble(p -> Math.log(p.frequencyHz())).average().orElseThrow());
+            out.add(new Aggregate(f, Math.exp(rs.mean()), Math.exp(rs.mean() - sdS), Math.exp(rs.mean() + sdS), Math.exp(rl.mean()),
+                    Math.exp(rl.mean() - sdL), Math.exp(rl.mean() + sdL), Math.exp(ReplicateSummary.of(lt).mean())));
+        }
+        return out;
+    }
+
+    private static LogAxis frequencyAxis() {
+        LogAxis x = new LogAxis("frequency [Hz]");
+        x.setTickUnit(new NumberTickUnit(1.0));
+        x.setMinorTickMarksVisible(true);
+        x.setNumberFormatOverride(new DecimalFormat("0.####"));
+        x.setLabelFont(Palette.LABEL);
+        x.setTickLabelFont(Palette.TICK);
+        return x;
+    }
+
+    private static LogAxis logAxis(String label) {
+        LogAxis y = new LogAxis(label);
+        y.setTickUnit(new NumberTickUnit(1.0));
+        y.setMinorTickMarksVisible(true);
+        y.setNumberFormatOverride(new DecimalFormat("0.####E0"));
+        y.setLabelFont(Palette.LABEL);
+        y.setTickLabelFont(Palette.TICK);
+        return y;
+    }
+
+    private static JFreeChart chart(String title, XYPlot plot, boolean legend) {
+        JFreeChart c = new JFreeChart(title, Palette.TITLE, plot, legend);
+        finish(c, plot);
+        return c;
+    }
+
+    private static void finish(JFreeChart c, XYPlot plot) {
+        c.setBackgroundPaint(Color.WHITE);
+        c.setAntiAlias(true);
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setDomainGridlinePaint(new Color(0xDDDDDD));
+        plot.setRangeGridlinePaint(new Color(0xDDDDDD));
+        if (c.getLegend() != null) {
+            c.getLegend().setItemFont(Palette.TICK);
+        }
+    }
+
+    /**
+     * E′ and E″ (or G′, G″) against frequency with replicate means ± SD, the best-supported model
+     * with its 95 % band, and a residual panel below.
+     */
+    public static Figure fit(Campaign.Sample s, FittedCurve curve, String stem) {
+        String m = s.kind().letter();
+        List<Aggregate> agg = aggregate(s);
+        YIntervalSeriesCollection measured = new YIntervalSeriesCollection();
+        YIntervalSeries ms = new YIntervalSeries(m + "′ measured (mean ± SD of replicates)");
+        YIntervalSeries ml = new YIntervalSeries(m + "″ measured");
+        for (Aggregate a : agg) {
+            ms.add(a.f(), a.storage(), a.storageLo(), a.storageHi());
+            ml.add(a.f(), a.loss(), a.lossLo(), a.lossHi());
+        }
+        measured.addSeries(ms);
+        measured.addSeries(ml);
+        XYPlot top = new XYPlot();
+        top.setRangeAxis(logAxis("moduli " + m + "′, " + m + "″ [Pa]"));
+        top.setDataset(0, measured);
+        XYErrorRenderer points = new XYErrorRenderer();
+        points.setDrawXError(false);
+        points.setDefaultLinesVisible(false);
+        for (int i = 0; i < 2; i++) {
+            points.setSeriesPaint(i, Palette.colour(i));
+            points.setSeriesShape(i, Palette.shape(i));
+        }
+        points.setErrorPaint(Color.DARK_GRAY);
+        top.setRenderer(0, points);
+        XYPlot residuals = new XYPlot();
+        NumberAxis ry = new NumberAxis("ln(model/data)");
+        ry.setLabelFont(Palette.LABEL);
+        ry.setTickLabelFont(Palette.TICK);
+        residuals.setRangeAxis(ry);
+        residuals.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(0.8f)));
+        String title = s.name();
+        if (curve != null) {
+            double[] p = curve.params();
+            YIntervalSeriesCollection model = new YIntervalSeriesCollection();
+            YIntervalSeries cs = new YIntervalSeries(curve.model().id() + " " + m + "′ (95 % band)");
+            YIntervalSeries cl = new YIntervalSeries(curve.model().id() + " " + m + "″");
+            for (int k = 0; k < CURVE_POINTS; k++) {
+                double f = s.minFrequencyHz() * Math.pow(s.maxFrequencyHz() / s.minFrequencyHz(), k / (double) (CURVE_POINTS - 1));
+                double[] band = logBand(curve, p, f);
+                cs.add(f, band[0], band[0] * Math.exp(-Z95 * band[1]), band[0] * Math.exp(Z95 * band[1]));
+                cl.add(f, band[2], band[2] * Math.exp(-Z95 * band[3]), band[2] * Math.exp(Z95 * band[3]));
+            }
+            model.addSeries(cs);
+            model.addSeries(cl);
+            top.setDataset(1, model);
+            DeviationRenderer lines = new DeviationRenderer(true, false);
+            for (int i = 0; i < 2; i++) {
+                lines.setSeriesPaint(i, Palette.colour(i));
+                lines.setSeriesFillPaint(i, Palette.band(i));
+                lines.setSeriesStroke(i, Palette.line(i));
+            }
+            lines.setAlpha(0.25f);
+            top.setRenderer(1, lines);
+            XYSeriesCollection res = new XYSeriesCollection();
+            XYSeries rs = new XYSeries(m + "′ residual");
+            XYSeries rl = new XYSeries(m + "″ residual");
+            double[] out = new double[2];
+            for (Aggregate a : agg) {
+                curve.model().modulus(2 * Math.PI * a.f(), p, out);
+                rs.add(a.f(), Math.log(out[0] / a.storage()));
+                rl.add(a.f(), Math.log(out[1] / a.loss()));
+            }
+            res.addSeries(rs);
+            res.addSeries(rl);
+            residuals.setDataset(res);
+            XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
+            for (int i = 0; i < 2; i++) {
+                rr.setSeriesPaint(i, Palette.colour(i));
+                rr.setSeriesShape(i, Palette.shape(i));
+                rr.setSeriesVisibleInLegend(i, false);
+            }
+            residuals.setRenderer(rr);
+            title = s.name() + ": " + curve.model().id() + " (best supported)";
+        }
+        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(frequencyAxis());
+        plot.setGap(6);
+        plot.add(top, 3);
+        plot.add(residuals, 1);
+        JFreeChart c = new JFreeChart(title, Palette.TITLE, plot, true);
+        finish(c, top);
+        finish(c, residuals);
+        c.setBackgroundPaint(Color.WHITE);
+        return new Figure(stem, "Storage and loss moduli of " + s.name() + " against frequency (replicate mean ± SD), the "
+                + (curve == null ? "no model converged" : "best-supported model " + curve.model().id() + " with its 95 % band")
+                + ", and the residuals of the fit on a log scale.", c);
+    }
+
+    /** ln M′ and its SE, ln M″ and its SE, from the curve's covariance (delta method); SE 0 when unknown. */
+    private static double[] logBand(FittedCurve curve, double[] p, double f) {
+        double w = 2 * Math.PI * f;
+        double[] base = new double[2];
+        curve.model().modulus(w, p, base);
+        double[][] cov = curve.covariance();
+        double vs = 0;
+        double vl = 0;
+        if (cov != null) {
+            double[] gs = new double[p.length];
+            double[] gl = new double[p.length];
+            double[] up = new double[2];
+            double[] dn = new double[2];
+            for (int j = 0; j < p.length; j++) {
+                double h = 1e-6 * Math.max(Math.abs(p[j]), 1e-12);
+                double[] pu = p.clone();
+                double[] pd = p.clone();
+                pu[j] += h;
+                pd[j] -= h;
+                curve.model().modulus(w, pu, up);
+                curve.model().modulus(w, pd, dn);
+                gs[j] = (Math.log(up[0]) - Math.log(dn[0])) / (2 * h);
+                gl[j] = (Math.log(up[1]) - Math.log(dn[1])) / (2 * h);
+            }
+            for (int i = 0; i < p.length; i++) {
+                for (int j = 0; j < p.length; j++) {
+                    vs += gs[i] * cov[i][j] * gs[j];
+                    vl += gl[i] * cov[i][j] * gl[j];
+                }
+            }
+        }
+        return new double[] {base[0], Math.sqrt(Math.max(vs, 0)), base[1], Math.sqrt(Math.max(vl, 0))};
+    }
+
+    /** tan δ against frequency, one series (replicate geometric mean) per sample. */
+    public static Figure tanDelta(List<Campaign.Sample> samples) {
+        XYSeriesCollection data = new XYSeriesCollection();
+        for (Campaign.Sample s : samples) {
+            XYSeries series = new XYSeries(s.name());
+            for (Aggregate a : aggregate(s)) {
+                series.add(a.f(), a.tanDelta());
+            }
+            data.addSeries(series);
+        }
+        XYPlot plot = new XYPlot(data, frequencyAxis(), logAxis("loss tangent tan δ [–]"), null);
+        XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
+        for (int i = 0; i < samples.size(); i++) {
+            r.setSeriesPaint(i, Palette.colour(i));
+            r.setSeriesShape(i, Palette.shape(i));
+            r.setSeriesStroke(i, Palette.line(i / 7));
+        }
+        plot.setRenderer(r);
+        return new Figure("tan-delta", "Loss tangent tan δ = E″/E′ against frequency for every sample (geometric mean of "
+                + "replicates); higher means more damping.", chart("Loss tangent of every sample", plot, samples.size() <= 24));
+    }
+
+    /** The damping ranking: mean tan δ with its 95 % interval per sample, labelled with the letter group. */
+    public static Figure ranking(List<Campaign.RankRow> rows, String at) {
+        List<Campaign.RankRow> ranked = rows.stream().filter(r -> r.tanDelta() != null).toList();
+        XYIntervalSeriesCollection data = new XYIntervalSeriesCollection();
+        XYIntervalSeries series = new XYIntervalSeries("mean tan δ with 95 % interval");
+        String[] labels = new String[ranked.size()];
+        for (int i = 0; i < ranked.size(); i++) {
+            Campaign.RankRow r = ranked.get(i);
+            ReplicateSummary t = r.tanDelta();
+            double y = ranked.size() - 1 - i;
+            double lo = Double.isNaN(t.ci95Low()) ? t.mean() : t.ci95Low();
+            double hi = Double.isNaN(t.ci95High()) ? t.mean() : t.ci95High();
+            series.add(t.mean(), lo, hi, y, y, y);
+            labels[ranked.size() - 1 - i] = r.sample().name() + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
+        }
+        data.addSeries(series);
+        NumberAxis x = new NumberAxis("loss tangent tan δ at " + at + " [–]");
+        x.setLabelFont(Palette.LABEL);
+        x.setTickLabelFont(Palette.TICK);
+        x.setAutoRangeIncludesZero(true);
+        SymbolAxis y = new SymbolAxis(null, labels);
+        y.setTickLabelFont(Palette.TICK);
+        y.setGridBandsVisible(false);
+        XYErrorRenderer r = new XYErrorRenderer();
+        r.setDrawYError(false);
+        r.setDefaultLinesVisible(false);
+        r.setSeriesPaint(0, Palette.colour(0));
+        r.setSeriesShape(0, Palette.shape(0));
+        r.setErrorPaint(Palette.colour(0));
+        XYPlot plot = new XYPlot(data, x, y, r);
+        JFreeChart c = chart("Damping ranking (samples sharing a letter are not distinguishable)", plot, false);
+        return new Figure("damping-ranking", "Mean tan δ of each sample with its 95 % interval over replicates, highest damping at "
+                + "the top; the letters in brackets are the letter groups.", c);
+    }
+
+    /** A sample's measured E′ and E″ against the fitted curves of its closest references. */
+    public static Figure references(Campaign.Sample s, List<Matcher.Match> matches, Map<String, FittedCurve> references,
+                                    int shown, String stem) {
+        XYSeriesCollection data = new XYSeriesCollection();
+        String m = s.kind().letter();
+        XYSeries ms = new XYSeries(s.name() + " " + m + "′");
+        XYSeries ml = new XYSeries(s.name() + " " + m + "″");
+        for (Aggregate a : aggregate(s)) {
+            ms.add(a.f(), a.storage());
+            ml.add(a.f(), a.loss());
+        }
+        data.addSeries(ms);
+        data.addSeries(ml);
+        int k = 0;
+        for (Matcher.Match match : matches) {
+            FittedCurve c = references.get(match.reference());
+            if (match.rank() == 0 || c == null || k >= shown) {
+                continue;
+            }
+            XYSeries rs = new XYSeries(String.format(Locale.ROOT, "%d. %s %s′ (d = %.3f)", match.rank(), match.reference(), m,
+                    match.result().distance()));
+            XYSeries rl = new XYSeries(String.format(Locale.ROOT, "%d. %s %s″", match.rank(), match.reference(), m));
+            double[] out = new double[2];
+            double[] p = c.params();
+            for (int i = 0; i < CURVE_POINTS; i++) {
+                double f = c.lowHz() * Math.pow(c.highHz() / c.lowHz(), i / (double) (CURVE_POINTS - 1));
+                c.model().modulus(2 * Math.PI * f, p, out);
+                rs.add(f, out[0]);
+                rl.add(f, out[1]);
+            }
+            data.addSeries(rs);
+            data.addSeries(rl);
+            k++;
+        }
+        XYPlot plot = new XYPlot(data, frequencyAxis(), logAxis("moduli " + m + "′, " + m + "″ [Pa]"), null);
+        XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
+        r.setSeriesLinesVisible(0, false);
+        r.setSeriesLinesVisible(1, false);
+        r.setSeriesPaint(0, Color.BLACK);
+        r.setSeriesPaint(1, Color.BLACK);
+        r.setSeriesShape(0, Palette.shape(0));
+        r.setSeriesShape(1, Palette.shape(1));
+        for (int i = 2; i < data.getSeriesCount(); i++) {
+            int ref = (i - 2) / 2;
+            r.setSeriesShapesVisible(i, false);
+            r.setSeriesPaint(i, Palette.colour(ref + 1));
+            r.setSeriesStroke(i, Palette.line((i - 2) % 2 == 0 ? 0 : 1));
+        }
+        plot.setRenderer(r);
+        return new Figure(stem, "Measured moduli of " + s.name() + " (markers) against the fitted curves of its " + k
+                + " closest references (solid: storage, dashed: loss), each within its measured range.",
+                chart(s.name() + " and its closest references", plot, true));
+    }
+}

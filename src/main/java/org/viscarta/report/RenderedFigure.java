@@ -1,0 +1,12 @@
+package org.viscarta.report;
+
+/**
+ * A figure rendered for writing.
+ *
+ * @param stem    file name without extension
+ * @param caption what it shows
+ * @param png     PNG bytes at 300 dpi
+ * @param svg     SVG text
+ */
+public record RenderedFigure(String stem, String caption, byte[] png, String svg) {
+}
