@@ -1,0 +1,115 @@
+package org.viscarta.cli;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.stream.Stream;
+import org.apache.poi.ss.usermodel.Workbook;
+import org.apache.poi.ss.usermodel.WorkbookFactory;
+import org.jsoup.Jsoup;
+import org.jsoup.nodes.Document;
+import org.jsoup.nodes.Element;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The report's HTML page, figures and reproducibility, from one run on the demo data (and a second for byte stability). */
+class ReportOutputTest {
+
+    @TempDir
+    static Path dir;
+
+    static Path first;
+    static java.util.Map<Path, byte[]> firstBytes;
+    static java.util.Map<Path, byte[]> secondBytes;
+
+    private static final String STATED = "2026-12-01T12:00:00Z";
+
+    /** Runs the demo report twice into the same folder (the command line, which names it, is then the same too). */
+    @BeforeAll
+    static void runTwice() throws IOException {
+        first = dir.resolve("report");
+        for (int k = 0; k < 2; k++) {
+            CliRun r = CliRun.of("report", "demo-data", "--library", "reference-materials", "--basis", "tensile", "--target",
+                    "target-soft-tissue", "--timestamp", STATED, "--out", first.toString(), "--quiet", "--force");
+            assertEquals(0, r.exitCode(), r.err());
+            java.util.Map<Path, byte[]> bytes = new java.util.TreeMap<>();
+            try (Stream<Path> s = Files.walk(first)) {
+                for (Path p : s.filter(Files::isRegularFile).toList()) {
+                    bytes.put(first.relativize(p), Files.readAllBytes(p));
+                }
+            }
+            if (k == 0) {
+                firstBytes = bytes;
+            } else {
+                secondBytes = bytes;
+            }
+        }
+    }
+
+    @Test
+    void htmlIsSelfContainedAndHoldsTheTables() throws IOException {
+        Document doc = Jsoup.parse(first.resolve("report.html").toFile(), "UTF-8");
+        assertTrue(doc.select("script, link, iframe, object, embed").isEmpty(), "no script or external resource");
+        for (Element e : doc.select("[src], [href]")) {
+            String ref = e.hasAttr("src") ? e.attr("src") : e.attr("href");
+            assertFalse(ref.startsWith("http") || ref.startsWith("//"), "nothing fetched from elsewhere: " + ref);
+        }
+        assertTrue(doc.select("style").size() == 1);
+        List<String> headings = doc.select("h2").eachText();
+        assertEquals(List.of("Read me", "Summary", "Damping ranking", "Closest reference materials", "Best mimic of target-soft-tissue",
+                "Figures", "Provenance"), headings);
+        Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
+        assertEquals(1 + 15, ranking.select("tr").size(), "a row per sample");
+        assertTrue(doc.text().contains("not clinical or structural verdicts"));
+        assertTrue(doc.text().contains("invented demo data"));
+        assertEquals(doc.select("figure").size(), doc.select("figure svg").size(), "every figure is inline SVG");
+        assertTrue(doc.select("figure").size() >= 2 + 15, "overview figures and one fit figure per sample");
+    }
+
+    @Test
+    void figuresExistAsNonEmptyPngAndSvg() throws IOException {
+        try (Stream<Path> s = Files.list(first.resolve("figures"))) {
+            List<Path> files = s.toList();
+            long png = files.stream().filter(p -> p.toString().endsWith(".png")).count();
+            long svg = files.stream().filter(p -> p.toString().endsWith(".svg")).count();
+            assertEquals(png, svg);
+            assertTrue(png >= 17, "figures: " + png);
+            for (Path p : files) {
+                byte[] b = Files.readAllBytes(p);
+                assertTrue(b.length > 1000, p + " is too small");
+                if (p.toString().endsWith(".png")) {
+                    assertArrayEquals(new byte[] {(byte) 0x89, 'P', 'N', 'G'}, java.util.Arrays.copyOf(b, 4), p.toString());
+                }
+            }
+        }
+    }
+
+    @Test
+    void theWorkbookEmbedsTheFigures() throws IOException {
+        try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            assertTrue(wb.getSheet("Figures") != null);
+            long pngs;
+            try (Stream<Path> s = Files.list(first.resolve("figures"))) {
+                pngs = s.filter(p -> p.toString().endsWith(".png")).count();
+            }
+            assertEquals(pngs, wb.getAllPictures().size());
+        }
+    }
+
+    @Test
+    void theSameInputsAndTimeGiveTheSameBytes() {
+        assertEquals(firstBytes.keySet(), secondBytes.keySet());
+        assertTrue(firstBytes.size() >= 2 + 34, "workbook, page and figures: " + firstBytes.size());
+        for (Path p : firstBytes.keySet()) {
+            assertArrayEquals(firstBytes.get(p), secondBytes.get(p), p.toString());
+        }
+    }
+}

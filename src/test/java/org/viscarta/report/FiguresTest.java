@@ -1,0 +1,43 @@
+package org.viscarta.report;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Path;
+import java.util.List;
+import org.jfree.chart.plot.CombinedDomainXYPlot;
+import org.jfree.chart.plot.XYPlot;
+import org.junit.jupiter.api.Test;
+import org.viscarta.Campaign;
+import org.viscarta.compare.FittedCurve;
+
+/** The figures carry the series they promise. */
+class FiguresTest {
+
+    private static final Campaign CAMPAIGN = Campaign.read(List.of(Path.of("demo-data", "paint-light-ageing.csv")),
+            Campaign.Settings.defaults().withModels(List.of("zener", "springpot")));
+
+    @Test
+    void fitFigureHasMeasuredModelAndResidualSeries() throws Exception {
+        List<Campaign.SampleFits> fits = CAMPAIGN.fit();
+        FittedCurve curve = CAMPAIGN.curves(fits).get(0);
+        Figure f = Figures.fit(fits.get(0).sample(), curve, "fit-test");
+        CombinedDomainXYPlot plot = (CombinedDomainXYPlot) f.chart().getPlot();
+        XYPlot top = plot.getSubplots().get(0);
+        XYPlot residuals = plot.getSubplots().get(1);
+        assertEquals(2, top.getDataset(0).getSeriesCount(), "E′ and E″ measured");
+        assertEquals(12, top.getDataset(0).getItemCount(0), "12 frequencies, replicates averaged");
+        assertEquals(2, top.getDataset(1).getSeriesCount(), "E′ and E″ of the model");
+        assertEquals(2, residuals.getDataset().getSeriesCount());
+        assertTrue(f.png().length > 10_000);
+        assertTrue(f.svg().startsWith("<svg"));
+    }
+
+    @Test
+    void overviewFiguresHaveASeriesPerSampleAndAPointPerRankedSample() {
+        Figure tan = Figures.tanDelta(CAMPAIGN.samples());
+        assertEquals(9, ((XYPlot) tan.chart().getPlot()).getDataset().getSeriesCount());
+        Figure ranking = Figures.ranking(CAMPAIGN.rank(List.of()), "1 Hz");
+        assertEquals(9, ((XYPlot) ranking.chart().getPlot()).getDataset().getItemCount(0));
+    }
+}
