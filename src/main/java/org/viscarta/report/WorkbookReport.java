@@ -229,6 +229,11 @@ public final class WorkbookReport {
             next++;
         }
 
+        /** Index of the last row written. */
+        int last() {
+            return next - 1;
+        }
+
         /**
          * A label and a wrapped paragraph. SXSSF cannot measure text, so the row height is
          * estimated from the text length and the column widths (in characters).
@@ -261,6 +266,38 @@ public final class WorkbookReport {
     private static void freezeHeader(Sheet s) {
         s.createFreezePane(0, 1);
         s.setRepeatingRows(org.apache.poi.ss.util.CellRangeAddress.valueOf("1:1"));
+    }
+
+    /** An autofilter over a table that starts with its header in row 0 and spans columns 0 … lastColumn. */
+    private static void table(Sheet s, Rows rows, int lastColumn) {
+        if (rows.last() >= 1) {
+            s.setAutoFilter(new org.apache.poi.ss.util.CellRangeAddress(0, rows.last(), 0, lastColumn));
+        }
+    }
+
+    /**
+     * A colour scale on a column of tan δ values: white for the lowest, dark blue for the highest
+     * damping (a sequential blue scale, readable by colour-blind readers and in greyscale).
+     */
+    private static void tanDeltaScale(Sheet s, Rows rows, int column) {
+        if (rows.last() < 1) {
+            return;
+        }
+        var scf = s.getSheetConditionalFormatting();
+        var rule = scf.createConditionalFormattingColorScaleRule();
+        var scale = rule.getColorScaleFormatting();
+        scale.setNumControlPoints(3);
+        scale.getThresholds()[0].setRangeType(org.apache.poi.ss.usermodel.ConditionalFormattingThreshold.RangeType.MIN);
+        scale.getThresholds()[1].setRangeType(org.apache.poi.ss.usermodel.ConditionalFormattingThreshold.RangeType.PERCENTILE);
+        scale.getThresholds()[1].setValue(50d);
+        scale.getThresholds()[2].setRangeType(org.apache.poi.ss.usermodel.ConditionalFormattingThreshold.RangeType.MAX);
+        scale.setColors(new org.apache.poi.ss.usermodel.Color[] {rgb(0xFF, 0xFF, 0xFF), rgb(0x9E, 0xCA, 0xE1), rgb(0x31, 0x82, 0xBD)});
+        scf.addConditionalFormatting(new org.apache.poi.ss.util.CellRangeAddress[] {
+            new org.apache.poi.ss.util.CellRangeAddress(1, rows.last(), column, column)}, rule);
+    }
+
+    private static org.apache.poi.xssf.usermodel.XSSFColor rgb(int r, int g, int b) {
+        return new org.apache.poi.xssf.usermodel.XSSFColor(new byte[] {(byte) r, (byte) g, (byte) b}, null);
     }
 
     /** Landscape, one page wide, so that a printed or PDF sheet keeps its columns together. */
@@ -375,6 +412,8 @@ public final class WorkbookReport {
                     String.join(", ", alsoSupported(sf)), closest == null ? "" : closest.reference(),
                     closest == null ? null : closest.result().distance(), String.join("; ", notes));
         }
+        table(s, rows, 18);
+        tanDeltaScale(s, rows, 8);
         widths(s, 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 10, 22, 14, 14, 30, 24, 14, 60);
     }
 
@@ -402,6 +441,8 @@ public final class WorkbookReport {
                     t == null ? null : t.mean(), t == null ? null : t.sd(), t == null ? null : t.ci95Low(),
                     t == null ? null : t.ci95High(), r.storage(), r.loss(), r.source().description(), r.letters(), r.note());
         }
+        table(s, rows, 13);
+        tanDeltaScale(s, rows, 5);
         widths(s, 7, 28, 16, 12, 14, 14, 12, 14, 14, 18, 18, 30, 60);
     }
 
@@ -460,6 +501,7 @@ public final class WorkbookReport {
                 matchRow(rows, m);
             }
         }
+        table(s, rows, 11);
         widths(s, 28, 6, 24, 12, 12, 14, 12, 12, 11, 14, 14, 50);
     }
 
@@ -481,6 +523,7 @@ public final class WorkbookReport {
         }
         rows.blank();
         rows.row("first and second distinguishable: " + Matcher.distinguishable(c.mimic()));
+        table(s, rows, 11);
         widths(s, 24, 6, 24, 14, 12, 14, 12, 12, 11, 14, 16, 50);
     }
 
@@ -503,6 +546,7 @@ public final class WorkbookReport {
                 }
             }
         }
+        table(s, rows, 14);
         widths(s, 28, 16, 10, 10, 14, 14, 14, 14, 12, 12, 10, 12, 8, 11, 70);
     }
 
@@ -518,6 +562,7 @@ public final class WorkbookReport {
                 }
             }
         }
+        table(s, rows, 6);
         widths(s, 28, 24, 26, 8, 14, 14, 8);
     }
 
@@ -540,6 +585,7 @@ public final class WorkbookReport {
                 }
             }
         }
+        table(s, rows, 4);
         widths(s, 28, 24, 14, 16, 16);
     }
 
@@ -560,6 +606,7 @@ public final class WorkbookReport {
                 }
             }
         }
+        table(s, rows, 13);
         widths(s, 28, 10, 16, 34, 7, 14, 16, 16, 16, 12, 16, 12, 10, 14);
     }
 
@@ -579,6 +626,7 @@ public final class WorkbookReport {
             rows.row(e.name(), e.clazz(), sw.temperatureC(), sw.meta("method").orElse(""), sw.minFrequencyHz(),
                     sw.maxFrequencyHz(), sw.points().size(), e.file().toString(), e.sha256());
         }
+        table(s, rows, 8);
         widths(s, 30, 14, 16, 16, 14, 14, 8, 40, 66);
     }
 
