@@ -1,0 +1,298 @@
+package org.viscarta.temperature;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import org.apache.commons.math3.optim.MaxEval;
+import org.apache.commons.math3.optim.nonlinear.scalar.GoalType;
+import org.apache.commons.math3.optim.univariate.BrentOptimizer;
+import org.apache.commons.math3.optim.univariate.SearchInterval;
+import org.apache.commons.math3.optim.univariate.UnivariateObjectiveFunction;
+import org.apache.commons.math3.optim.univariate.UnivariatePointValuePair;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * Time–temperature superposition of one sample's sweeps at several temperatures (DOMAIN.md
+ * section 6): G(ω; T) = b_T G(a_T ω; T0). Each curve is superposed on its warmer neighbour by the
+ * horizontal shift log10 a that minimises, on a log-frequency grid over their overlap, the squared
+ * differences of log10 tan δ (which no vertical factor changes) and of log10 |E*| (divided by b_T):
+ * a pairwise, geometric superposition in the spirit of the minimum-distance methods (Bae, Cho, Seo
+ * &amp; Kang 2011, Korea-Aust. Rheol. J. 23:81–87; estimate a_T from tan δ first, common practice [P]).
+ * The pairwise shifts are chained to the reference temperature; their variances add. A pair whose
+ * best overlap is shorter than the minimum is reported, not forced, and breaks the chain.
+ */
+public final class ShiftAnalysis {
+
+    /** Grid points over an overlap. */
+    private static final int GRID = 25;
+    /** Scan step of the shift before refinement [decades]. */
+    private static final double SCAN_STEP = 0.02;
+    /** RMS misfit of superposed curves [decades] above which superposition is called poor (lab convention [P]). */
+    public static final double POOR_SUPERPOSITION = 0.05;
+
+    /** How vertical factors b_T are set. */
+    public enum Vertical {
+        /** b_T = 1. */
+        NONE,
+        /** b_T = T/T0 in kelvin (ρ = ρ0), the entropic-elasticity factor (Ferry 1980). */
+        ENTROPIC;
+
+        public static Vertical parse(String s) {
+            switch (s.strip().toLowerCase(Locale.ROOT)) {
+                case "none": return NONE;
+                case "entropic": return ENTROPIC;
+                default: throw new IllegalArgumentException("--vertical takes none or entropic, not '" + s + "'");
+            }
+        }
+    }
+
+    /** The superposition of one colder curve on its warmer neighbour. */
+    public record PairShift(double coldC, double warmC, double log10Shift, double stdError, double overlapDecades, double rmsMisfit,
+                            boolean shifted, String note) {
+    }
+
+    /** The factors of one temperature, relative to the reference. */
+    public record Factor(double temperatureC, double log10aT, double log10aTStdError, double bT, boolean placed) {
+        public double aT() {
+            return Math.pow(10, log10aT);
+        }
+    }
+
+    /**
+     * @param referenceC  the reference temperature
+     * @param factors     one per temperature, coldest first
+     * @param pairs       the neighbour superpositions
+     * @param wlf         the WLF fit (null with fewer than three shifted temperatures besides the reference)
+     * @param arrhenius   the Arrhenius fit (null with fewer than two)
+     * @param master      the master curve at the reference temperature (placed temperatures only)
+     * @param notes       conclusions and warnings in words
+     */
+    public record Result(double referenceC, List<Factor> factors, List<PairShift> pairs, ShiftFits.Fit wlf, ShiftFits.Fit arrhenius,
+                         List<SweepPoint> master, List<String> notes) {
+    }
+
+    private record Curve(double tC, double[] logF, double[] logTan, double[] logMag) {
+    }
+
+    private final double minOverlapDecades;
+    private final Vertical vertical;
+
+    public ShiftAnalysis(double minOverlapDecades, Vertical vertical) {
+        this.minOverlapDecades = minOverlapDecades;
+        this.vertical = vertical;
+    }
+
+    /**
+     * @param sweeps     the sample's sweeps (replicates allowed) at two or more temperatures
+     * @param referenceC one of the measured temperatures
+     */
+    public Result analyse(List<Sweep> sweeps, double referenceC) {
+        Map<Double, List<Sweep>> byT = new TreeMap<>();
+        for (Sweep s : sweeps) {
+            if (!Double.isFinite(s.temperatureC())) {
+                throw new IllegalArgumentException("sample '" + s.sample() + "' has a sweep without a temperature; "
+                        + "add '# temperature: 23 °C' or a temperature column");
+            }
+            byT.computeIfAbsent(s.temperatureC(), k -> new ArrayList<>()).add(s);
+        }
+        if (byT.size() < 2) {
+            throw new IllegalArgumentException("superposition needs sweeps at two or more temperatures; found " + byT.size());
+        }
+        if (!byT.containsKey(referenceC)) {
+            throw new IllegalArgumentException(String.format(Locale.ROOT, "the reference temperature %s °C is not one of the measured "
+                    + "temperatures (%s); choose one of them (the WLF constants can then be referred to any temperature)",
+                    plain(referenceC), String.join(", ", byT.keySet().stream().map(ShiftAnalysis::plain).toList())));
+        }
+        List<Curve> curves = new ArrayList<>();
+        for (Map.Entry<Double, List<Sweep>> e : byT.entrySet()) {
+            curves.add(curve(e.getKey(), e.getValue(), referenceC));
+        }
+        List<PairShift> pairs = new ArrayList<>();
+        for (int i = 0; i + 1 < curves.size(); i++) {
+            pairs.add(pair(curves.get(i), curves.get(i + 1)));
+        }
+        int ref = new ArrayList<>(byT.keySet()).indexOf(referenceC);
+        List<Factor> factors = new ArrayList<>();
+        for (int i = 0; i < curves.size(); i++) {
+            double log = 0;
+            double var = 0;
+            boolean placed = true;
+            for (int k = Math.min(i, ref); k < Math.max(i, ref); k++) {
+                PairShift p = pairs.get(k);
+                placed &= p.shifted();
+                log += p.log10Shift();
+                var += p.stdError() * p.stdError();
+            }
+            double sign = i < ref ? 1 : -1;
+            double t = curves.get(i).tC();
+            factors.add(new Factor(t, placed ? sign * log : Double.NaN, placed ? Math.sqrt(var) : Double.NaN, bT(t, referenceC), placed));
+        }
+        List<String> notes = new ArrayList<>();
+        double worst = 0;
+        for (PairShift p : pairs) {
+            if (!p.shifted()) {
+                notes.add(p.note());
+            } else {
+                worst = Math.max(worst, p.rmsMisfit());
+            }
+        }
+        if (worst > POOR_SUPERPOSITION) {
+            notes.add(String.format(Locale.ROOT, "Superposition is poor: after shifting, neighbouring curves still differ by up to "
+                    + "%.3f decades (RMS of log tan δ and log |E*|), more than %.2f; the material may not be thermorheologically "
+                    + "simple (check the van Gurp–Palmen plot).", worst, POOR_SUPERPOSITION));
+        } else {
+            notes.add(String.format(Locale.ROOT, "Neighbouring curves superpose to within %.3f decades (RMS), consistent with "
+                    + "thermorheological simplicity.", worst));
+        }
+        ShiftFits.Fit wlf = ShiftFits.wlf(factors, referenceC);
+        ShiftFits.Fit arr = ShiftFits.arrhenius(factors, referenceC);
+        notes.add(ShiftFits.whichSupported(wlf, arr));
+        List<SweepPoint> master = new ArrayList<>();
+        for (Factor f : factors) {
+            if (!f.placed()) {
+                continue;
+            }
+            for (Sweep s : byT.get(f.temperatureC())) {
+                for (SweepPoint p : s.points()) {
+                    master.add(new SweepPoint(p.frequencyHz() * f.aT(), p.storage() / f.bT(), p.loss() / f.bT(), p.line()));
+                }
+            }
+        }
+        master.sort(Comparator.comparingDouble(SweepPoint::frequencyHz));
+        return new Result(referenceC, factors, pairs, wlf, arr, master, notes);
+    }
+
+    /** The master curve as a sweep at the reference temperature. */
+    public static Sweep masterSweep(Result r, Sweep template, String name) {
+        return new Sweep(name, "master", template.group(), template.kind(), r.referenceC(), template.source(), template.metadata(),
+                r.master());
+    }
+
+    private double bT(double tC, double refC) {
+        return vertical == Vertical.ENTROPIC ? (tC + ShiftLaws.KELVIN_OFFSET) / (refC + ShiftLaws.KELVIN_OFFSET) : 1.0;
+    }
+
+    private Curve curve(double tC, List<Sweep> sweeps, double refC) {
+        Map<Long, double[]> acc = new TreeMap<>();
+        double b = bT(tC, refC);
+        for (Sweep s : sweeps) {
+            for (SweepPoint p : s.fittablePoints()) {
+                double[] a = acc.computeIfAbsent(Math.round(Math.log10(p.frequencyHz()) * 1e6), k -> new double[4]);
+                a[0] += Math.log10(p.frequencyHz());
+                a[1] += Math.log10(p.lossTangent());
+                a[2] += Math.log10(p.magnitude() / b);
+                a[3]++;
+            }
+        }
+        int n = acc.size();
+        double[] lf = new double[n];
+        double[] lt = new double[n];
+        double[] lm = new double[n];
+        int i = 0;
+        for (double[] a : acc.values()) {
+            lf[i] = a[0] / a[3];
+            lt[i] = a[1] / a[3];
+            lm[i] = a[2] / a[3];
+            i++;
+        }
+        return new Curve(tC, lf, lt, lm);
+    }
+
+    /** Mean squared difference over the overlap when the cold curve is shifted by x decades; NaN when the overlap is too short. */
+    private double misfit(Curve cold, Curve warm, double x) {
+        double lo = Math.max(cold.logF()[0] + x, warm.logF()[0]);
+        double hi = Math.min(cold.logF()[cold.logF().length - 1] + x, warm.logF()[warm.logF().length - 1]);
+        if (hi - lo < minOverlapDecades) {
+            return Double.NaN;
+        }
+        double sum = 0;
+        for (int k = 0; k < GRID; k++) {
+            double g = lo + (hi - lo) * k / (GRID - 1);
+            double dt = interp(cold.logF(), cold.logTan(), g - x) - interp(warm.logF(), warm.logTan(), g);
+            double dm = interp(cold.logF(), cold.logMag(), g - x) - interp(warm.logF(), warm.logMag(), g);
+            sum += dt * dt + dm * dm;
+        }
+        return sum / (2 * GRID);
+    }
+
+    private PairShift pair(Curve cold, Curve warm) {
+        double xMin = warm.logF()[0] - cold.logF()[cold.logF().length - 1] + minOverlapDecades;
+        double xMax = warm.logF()[warm.logF().length - 1] - cold.logF()[0] - minOverlapDecades;
+        if (!(xMax > xMin)) {
+            return notShifted(cold, warm, "the curves are too short to overlap by " + plain(minOverlapDecades) + " decades");
+        }
+        double bestX = Double.NaN;
+        double best = Double.POSITIVE_INFINITY;
+        for (double x = xMin; x <= xMax + 1e-12; x += SCAN_STEP) {
+            double m = misfit(cold, warm, x);
+            if (m < best) {
+                best = m;
+                bestX = x;
+            }
+        }
+        if (Double.isNaN(bestX)) {
+            return notShifted(cold, warm, "no shift gives an overlap of " + plain(minOverlapDecades) + " decades");
+        }
+        double lo = Math.max(xMin, bestX - 2 * SCAN_STEP);
+        double hi = Math.min(xMax, bestX + 2 * SCAN_STEP);
+        if (hi > lo) {
+            UnivariatePointValuePair r = new BrentOptimizer(1e-10, 1e-12).optimize(new MaxEval(200), GoalType.MINIMIZE,
+                    new SearchInterval(lo, hi, bestX), new UnivariateObjectiveFunction(x -> {
+                        double m = misfit(cold, warm, x);
+                        return Double.isNaN(m) ? Double.MAX_VALUE : m;
+                    }));
+            if (r.getValue() <= best) {
+                bestX = r.getPoint();
+                best = r.getValue();
+            }
+        }
+        double overlap = Math.min(cold.logF()[cold.logF().length - 1] + bestX, warm.logF()[warm.logF().length - 1])
+                - Math.max(cold.logF()[0] + bestX, warm.logF()[0]);
+        boolean atEdge = bestX <= xMin + 1e-9 || bestX >= xMax - 1e-9;
+        // standard error from the curvature of the sum of squares S(x) = 2K·misfit(x): var = 2σ²/S''(x), σ² = S_min/(2K − 1)
+        double h = 0.01;
+        double mUp = misfit(cold, warm, bestX + h);
+        double mDn = misfit(cold, warm, bestX - h);
+        double se = Double.NaN;
+        if (Double.isFinite(mUp) && Double.isFinite(mDn)) {
+            double curvature = 2 * GRID * (mUp - 2 * best + mDn) / (h * h);
+            double sigma2 = 2 * GRID * best / (2 * GRID - 1);
+            se = curvature > 0 ? Math.sqrt(2 * sigma2 / curvature) : Double.NaN;
+        }
+        if (atEdge) {
+            return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), false, String.format(Locale.ROOT,
+                    "%s °C on %s °C: the best shift lies at the edge of the allowed overlap; the curves do not overlap enough "
+                            + "to be superposed", plain(cold.tC()), plain(warm.tC())));
+        }
+        return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), true, "");
+    }
+
+    private PairShift notShifted(Curve cold, Curve warm, String why) {
+        return new PairShift(cold.tC(), warm.tC(), Double.NaN, Double.NaN, 0, Double.NaN, false,
+                plain(cold.tC()) + " °C on " + plain(warm.tC()) + " °C: " + why);
+    }
+
+    private static double interp(double[] x, double[] y, double at) {
+        int n = x.length;
+        if (at <= x[0]) {
+            return y[0];
+        }
+        if (at >= x[n - 1]) {
+            return y[n - 1];
+        }
+        int i = 1;
+        while (x[i] < at) {
+            i++;
+        }
+        double w = (at - x[i - 1]) / (x[i] - x[i - 1]);
+        return (1 - w) * y[i - 1] + w * y[i];
+    }
+
+    static String plain(double v) {
+        return java.math.BigDecimal.valueOf(v).round(new java.math.MathContext(6)).stripTrailingZeros().toPlainString();
+    }
+}
