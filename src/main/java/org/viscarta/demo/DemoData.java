@@ -45,7 +45,7 @@ public final class DemoData {
      * @param model     model identifier
      * @param params    the replicate's true parameters (natural, SI), by name
      */
-    public record Truth(String sample, String replicate, String model, Map<String, Double> params) {
+    public record Truth(String sample, String replicate, double temperatureC, String model, Map<String, Double> params) {
     }
 
     /** All demo files and the truth behind them. */
@@ -66,6 +66,7 @@ public final class DemoData {
         paintAgeing(rng, files, truths);
         hydrogelScreen(rng, files, truths);
         references(rng, files, truths);
+        temperatureSeries(rng, files, truths);
         return new Generated(files, truths);
     }
 
@@ -161,6 +162,41 @@ public final class DemoData {
         }
     }
 
+    /** WLF constants of the demo's temperature series, at its reference temperature. */
+    public static final double SERIES_C1 = 9.0;
+    public static final double SERIES_C2_K = 90.0;
+    public static final double SERIES_REFERENCE_C = 20.0;
+
+    private static void temperatureSeries(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {
+        // One acrylic film at 10–50 °C: a fractional Zener whose time τ follows WLF, τ(T) = a_T τ(T0).
+        Spec film = new Spec("acrylic-film-ts", "acrylic-emulsion", "fractional-zener", new double[] {3e6, 900e6, 0.5, 0.35});
+        double[] f = frequencies(0.1, 20, 12);
+        StringBuilder sb = new StringBuilder();
+        sb.append("# title: temperature series of one acrylic-emulsion film, dynamic indentation\n");
+        sb.append("# note: ").append(DEMO_NOTE).append('\n');
+        sb.append("# method: dynamic indentation\n");
+        sb.append("# modulus: tensile\n");
+        sb.append(String.format(Locale.ROOT, "# shift law of the generator: WLF, C1 = %s, C2 = %s K at %s °C%n", num(SERIES_C1),
+                num(SERIES_C2_K), num(SERIES_REFERENCE_C)));
+        sb.append("sample,replicate,group,temperature [°C],frequency [Hz],storage_modulus [MPa],loss_modulus [MPa]\n");
+        for (double t : new double[] {10, 20, 30, 40, 50}) {
+            double log10aT = -SERIES_C1 * (t - SERIES_REFERENCE_C) / (SERIES_C2_K + t - SERIES_REFERENCE_C);
+            double[] p = film.nominal().clone();
+            p[2] *= Math.pow(10, log10aT);
+            ViscoelasticModel m = ModelCatalogue.byId(film.model()).orElseThrow();
+            Map<String, Double> byName = new LinkedHashMap<>();
+            for (int j = 0; j < p.length; j++) {
+                byName.put(m.parameters().get(j).name(), p[j]);
+            }
+            truths.add(new Truth(film.sample(), "1", t, film.model(), byName));
+            for (double[] pt : points(rng, film.model(), p, f)) {
+                sb.append(String.format(Locale.ROOT, "%s,1,%s,%s,%s,%s,%s%n", film.sample(), film.group(), num(t), num(pt[0]),
+                        num(pt[1] / 1e6), num(pt[2] / 1e6)));
+            }
+        }
+        files.add(new DemoFile("demo-data", "temperature-series/acrylic-film-10-to-50C.csv", sb.toString()));
+    }
+
     private static void references(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {
         record Ref(String name, String clazz, String composition, String condition, String method, Spec spec, double lo,
                    double hi, String unit, double unitFactor) {
@@ -242,7 +278,7 @@ public final class DemoData {
         for (int j = 0; j < p.length; j++) {
             byName.put(m.parameters().get(j).name(), p[j]);
         }
-        return new Truth(s.sample(), replicate, s.model(), byName);
+        return new Truth(s.sample(), replicate, 23, s.model(), byName);
     }
 
     /** Standard normal deviate by the Box–Muller transform (Box &amp; Muller 1958), portable across JDKs. */

@@ -127,9 +127,9 @@ public final class ShiftAnalysis {
                 log += p.log10Shift();
                 var += p.stdError() * p.stdError();
             }
-            double sign = i < ref ? 1 : -1;
+            double sign = i < ref ? 1 : i == ref ? 0 : -1;
             double t = curves.get(i).tC();
-            factors.add(new Factor(t, placed ? sign * log : Double.NaN, placed ? Math.sqrt(var) : Double.NaN, bT(t, referenceC), placed));
+            factors.add(new Factor(t, placed ? (i == ref ? 0.0 : sign * log) : Double.NaN, placed ? Math.sqrt(var) : Double.NaN, bT(t, referenceC), placed));
         }
         List<String> notes = new ArrayList<>();
         double worst = 0;

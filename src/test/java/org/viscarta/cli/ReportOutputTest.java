@@ -67,7 +67,7 @@ class ReportOutputTest {
         assertEquals(List.of("Read me", "Summary", "Damping ranking", "Closest reference materials", "Best mimic of target-soft-tissue",
                 "Figures", "Provenance"), headings);
         Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
-        assertEquals(1 + 15, ranking.select("tr").size(), "a row per sample");
+        assertEquals(1 + 20, ranking.select("tr").size(), "a row per sample");
         assertTrue(doc.text().contains("not clinical or structural verdicts"));
         assertTrue(doc.text().contains("invented demo data"));
         assertEquals(doc.select("figure").size(), doc.select("figure svg").size(), "every figure is inline SVG");

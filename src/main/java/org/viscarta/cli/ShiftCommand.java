@@ -1,0 +1,147 @@
+package org.viscarta.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.viscarta.Campaign;
+import org.viscarta.io.AtomicOutput;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+import org.viscarta.temperature.ShiftAnalysis;
+import org.viscarta.temperature.ShiftFits;
+import org.viscarta.temperature.ShiftLaws;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+
+/** {@code viscarta shift}: a master curve from one sample's sweeps at several temperatures. */
+@Command(name = "shift", mixinStandardHelpOptions = true,
+        header = "Build a master curve from sweeps at several temperatures (time–temperature superposition).",
+        description = {"Shifts each sweep of one sample along the frequency axis onto its warmer neighbour (matching log tan δ,",
+            "which no vertical factor changes, and log |E*|), chains the shifts to the reference temperature, fits WLF and",
+            "Arrhenius laws to the shift factors, and builds the master curve at the reference temperature."})
+final class ShiftCommand implements Callable<Integer> {
+
+    @Mixin
+    InputOptions input;
+
+    @Option(names = "--reference-temperature", paramLabel = "°C", required = true,
+            description = "One of the measured temperatures, in °C.")
+    double reference;
+
+    @Option(names = "--sample", paramLabel = "NAME", description = "The sample to shift, when the inputs hold several.")
+    String sample;
+
+    @Option(names = "--vertical", paramLabel = "none|entropic", defaultValue = "none",
+            description = "Vertical factors b_T: none (default), or entropic b_T = T/T0 (kelvin; density taken as constant).")
+    String vertical;
+
+    @Option(names = "--min-overlap", paramLabel = "DECADES", defaultValue = "0.3",
+            description = "Shortest overlap of neighbouring curves that may be superposed (default: ${DEFAULT-VALUE}).")
+    double minOverlap;
+
+    @Option(names = "--wlf-at", paramLabel = "°C", description = "Also give the WLF constants referred to this temperature.")
+    Double wlfAt;
+
+    @Option(names = {"-o", "--out"}, paramLabel = "DIR",
+            description = "Write shift-factors.csv, shift-fits.csv and master-curve.csv into this folder.")
+    Path outDir;
+
+    @Option(names = "--force", description = "Replace existing output files.")
+    boolean force;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() throws IOException {
+        Campaign.Settings settings = input.applyTo(Campaign.Settings.defaults());
+        if (outDir != null) {
+            for (String f : List.of("shift-factors.csv", "shift-fits.csv", "master-curve.csv")) {
+                AtomicOutput.checkWritable(outDir.resolve(f), force);
+            }
+        }
+        Campaign c = Campaign.read(input.inputs, settings);
+        Warnings.print(spec, c);
+        List<Sweep> sweeps = new ArrayList<>();
+        java.util.Set<String> names = new java.util.TreeSet<>();
+        for (Campaign.Sample s : c.samples()) {
+            for (Sweep sw : s.replicates()) {
+                names.add(sw.sample());
+                if (sample == null || sw.sample().equals(sample)) {
+                    sweeps.add(sw);
+                }
+            }
+        }
+        if (sample == null && names.size() > 1) {
+            throw new IllegalArgumentException("the inputs hold several samples (" + String.join(", ", names)
+                    + "); choose one with --sample");
+        }
+        if (sweeps.isEmpty()) {
+            throw new IllegalArgumentException("no sweeps of sample '" + sample + "' in the inputs");
+        }
+        ShiftAnalysis.Result r = new ShiftAnalysis(minOverlap, ShiftAnalysis.Vertical.parse(vertical)).analyse(sweeps, reference);
+        PrintWriter out = spec.commandLine().getOut();
+        out.printf("Shift factors of %s, reference %s °C (a_T > 1 below it)%n", sweeps.get(0).sample(), Campaign.plain(reference));
+        TextTable t = new TextTable("temperature [°C]", "log10 a_T", "± SE", "a_T", "b_T", "placed");
+        List<List<String>> factorRows = new ArrayList<>();
+        for (ShiftAnalysis.Factor f : r.factors()) {
+            t.add(Campaign.plain(f.temperatureC()), Format.g4(f.log10aT()), Format.g4(f.log10aTStdError()), Format.g4(f.aT()),
+                    Format.g4(f.bT()), f.placed() ? "yes" : "no");
+            factorRows.add(List.of(Format.csv(f.temperatureC()), Format.csv(f.placed() ? f.aT() : Double.NaN), Format.csv(f.log10aT()),
+                    Format.csv(f.log10aTStdError()), Format.csv(f.bT())));
+        }
+        t.print(out);
+        List<List<String>> fitRows = new ArrayList<>();
+        for (ShiftFits.Fit fit : java.util.Arrays.asList(r.wlf(), r.arrhenius())) {
+            if (fit == null) {
+                continue;
+            }
+            StringBuilder sb = new StringBuilder("  " + fit.law() + ":");
+            for (ShiftFits.Parameter p : fit.parameters()) {
+                sb.append(String.format(java.util.Locale.ROOT, " %s = %s ± %s %s [%s, %s];", p.name(), Format.g4(p.value()),
+                        Format.g4(p.stdError()), p.unit().equals("-") ? "" : p.unit(), Format.g4(p.ci95Low()), Format.g4(p.ci95High())));
+                fitRows.add(List.of(fit.law(), p.name(), Format.csv(p.value()), Format.csv(p.stdError()), Format.csv(p.ci95Low()),
+                        Format.csv(p.ci95High()), p.unit()));
+            }
+            out.println(sb.append(" AICc ").append(Format.g4(fit.aicc())));
+        }
+        if (wlfAt != null && r.wlf() != null) {
+            double[] c2 = ShiftLaws.rereference(r.wlf().parameter("C1").value(), r.wlf().parameter("C2").value(), wlfAt - reference);
+            out.printf("  WLF at %s °C: C1 = %s, C2 = %s K%n", Campaign.plain(wlfAt), Format.g4(c2[0]), Format.g4(c2[1]));
+            fitRows.add(List.of("WLF at " + Campaign.plain(wlfAt) + " °C", "C1", Format.csv(c2[0]), "", "", "", "-"));
+            fitRows.add(List.of("WLF at " + Campaign.plain(wlfAt) + " °C", "C2", Format.csv(c2[1]), "", "", "", "K"));
+        }
+        for (String n : r.notes()) {
+            out.println(n);
+        }
+        out.printf("master curve: %d points, %s–%s Hz at %s °C%n", r.master().size(), Format.g4(r.master().get(0).frequencyHz()),
+                Format.g4(r.master().get(r.master().size() - 1).frequencyHz()), Campaign.plain(reference));
+        out.flush();
+        if (outDir != null) {
+            OutputOptions.writeCsv(outDir.resolve("shift-factors.csv"), force,
+                    List.of("temperature_c", "a_t", "log10_a_t", "log10_a_t_std_error", "b_t"), factorRows);
+            OutputOptions.writeCsv(outDir.resolve("shift-fits.csv"), force,
+                    List.of("model", "parameter", "value", "std_error", "ci95_low", "ci95_high", "unit"), fitRows);
+            Sweep template = sweeps.get(0);
+            String unitLetter = template.kind().letter();
+            StringBuilder master = new StringBuilder();
+            master.append("# sample: ").append(template.sample()).append(" master curve\n");
+            master.append("# temperature: ").append(Campaign.plain(reference)).append(" °C\n");
+            master.append("# modulus: ").append(template.kind()).append('\n');
+            master.append("# note: time–temperature superposition by Viscarta shift; frequencies are reduced frequencies a_T f\n");
+            master.append("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+            for (SweepPoint p : r.master()) {
+                master.append(p.frequencyHz()).append(',').append(p.storage()).append(',').append(p.loss()).append('\n');
+            }
+            AtomicOutput.write(outDir.resolve("master-curve.csv"), force,
+                    o -> o.write(master.toString().getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+            out.println("wrote shift-factors.csv, shift-fits.csv and master-curve.csv (" + unitLetter + " moduli) in " + outDir);
+        }
+        return CommandLine.ExitCode.OK;
+    }
+}
