@@ -292,6 +292,13 @@ public final class Campaign {
         return settings;
     }
 
+    /** The same campaign with more samples (e.g. master curves built from temperature series), analysed like the others. */
+    public Campaign withSamples(List<Sample> extra) {
+        List<Sample> all = new ArrayList<>(samples);
+        all.addAll(extra);
+        return new Campaign(settings, files, all, warnings, notes);
+    }
+
     public List<SweepFile> files() {
         return files;
     }

@@ -20,6 +20,8 @@ import org.viscarta.report.HtmlReport;
 import org.viscarta.report.Provenance;
 import org.viscarta.report.RenderedFigure;
 import org.viscarta.report.ReportFigures;
+import org.viscarta.temperature.ShiftAnalysis;
+import org.viscarta.temperature.TemperatureSeries;
 import org.viscarta.report.WorkbookReport;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -53,6 +55,11 @@ final class ReportCommand implements Callable<Integer> {
             description = "Name of a sample to mimic: every other sample is ranked by its distance to it (sheet Mimic ranking).")
     String target;
 
+    @Option(names = "--reference-temperature", paramLabel = "°C", defaultValue = "23",
+            description = "Samples measured at three or more temperatures get a master curve at this temperature, or at the "
+                    + "measured one closest to it (default: ${DEFAULT-VALUE}).")
+    double referenceTemperature;
+
     @Option(names = "--timestamp", paramLabel = "TIME",
             description = "The run time to state in Provenance (ISO-8601 UTC, e.g. 2026-12-01T12:00:00Z); default: now. "
                     + "With the same inputs, settings and time, the outputs are byte for byte the same.")
@@ -83,8 +90,16 @@ final class ReportCommand implements Callable<Integer> {
         Instant stated = timestamp == null ? Instant.now().truncatedTo(ChronoUnit.SECONDS) : parseTimestamp(timestamp);
         Path libraryDir = library.folderOrNull();
         ReferenceLibrary lib = libraryDir == null ? null : ReferenceLibrary.open(libraryDir);
-        Campaign campaign = Campaign.read(input.inputs, settings);
-        Warnings.print(spec, campaign);
+        Campaign read = Campaign.read(input.inputs, settings);
+        Warnings.print(spec, read);
+        List<TemperatureSeries> series = TemperatureSeries.find(read.samples().stream().flatMap(x -> x.replicates().stream()).toList(),
+                referenceTemperature, new ShiftAnalysis(0.3, ShiftAnalysis.Vertical.NONE));
+        List<Campaign.Sample> masters = new java.util.ArrayList<>();
+        for (TemperatureSeries ts : series) {
+            org.viscarta.sweep.Sweep m = ShiftAnalysis.masterSweep(ts.result(), ts.sweeps().get(0), ts.masterName());
+            masters.add(new Campaign.Sample(ts.masterName(), m.group(), m.kind(), m.temperatureC(), List.of(m)));
+        }
+        Campaign campaign = read.withSamples(masters);
         Progress progress = new Progress(spec.commandLine().getErr(), quiet, campaign.samples().size());
         List<Campaign.SampleFits> fits = campaign.fit(progress::done);
         progress.finish();
@@ -111,7 +126,8 @@ final class ReportCommand implements Callable<Integer> {
         }
         Provenance prov = new Provenance(VersionProvider.version(), commandLine(), stated.toString(),
                 settingsMap(settings, libraryDir));
-        WorkbookReport.Content content = new WorkbookReport.Content(campaign, fits, ranking, comparison, lib, matches, target, mimic, prov);
+        WorkbookReport.Content content = new WorkbookReport.Content(campaign, fits, ranking, comparison, lib, matches, target, mimic,
+                series, prov);
         List<RenderedFigure> figures = ReportFigures.render(ReportFigures.build(content, references));
         java.nio.file.Files.createDirectories(figuresDir);
         for (RenderedFigure f : figures) {

@@ -30,6 +30,9 @@ import org.viscarta.compare.FittedCurve;
 import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReplicateSummary;
 import org.viscarta.sweep.Sweep;
+import org.viscarta.temperature.ShiftAnalysis;
+import org.viscarta.temperature.ShiftLaws;
+import org.viscarta.temperature.TemperatureSeries;
 import org.viscarta.sweep.SweepPoint;
 
 /**
@@ -348,5 +351,133 @@ public final class Figures {
         return new Figure(stem, "Measured moduli of " + s.name() + " (markers) against the fitted curves of its " + k
                 + " closest references (solid: storage, dashed: loss), each within its measured range.",
                 chart(s.name() + " and its closest references", plot, true));
+    }
+
+    /** The master curve: every temperature's E′ and E″ against reduced frequency a_T f, one colour and marker per temperature. */
+    public static Figure master(TemperatureSeries ts, String stem) {
+        ShiftAnalysis.Result r = ts.result();
+        XYSeriesCollection data = new XYSeriesCollection();
+        String m = ts.sweeps().get(0).kind().letter();
+        for (ShiftAnalysis.Factor f : r.factors()) {
+            if (!f.placed()) {
+                continue;
+            }
+            XYSeries ss = new XYSeries(Campaign.plain(f.temperatureC()) + " °C " + m + "′");
+            XYSeries sl = new XYSeries(Campaign.plain(f.temperatureC()) + " °C " + m + "″");
+            for (Sweep s : ts.sweeps()) {
+                if (s.temperatureC() != f.temperatureC()) {
+                    continue;
+                }
+                for (SweepPoint p : s.fittablePoints()) {
+                    ss.add(p.frequencyHz() * f.aT(), p.storage() / f.bT());
+                    sl.add(p.frequencyHz() * f.aT(), p.loss() / f.bT());
+                }
+            }
+            data.addSeries(ss);
+            data.addSeries(sl);
+        }
+        LogAxis x = frequencyAxis();
+        x.setLabel("reduced frequency a_T f [Hz] at " + Campaign.plain(r.referenceC()) + " °C");
+        XYPlot plot = new XYPlot(data, x, logAxis("moduli " + m + "′ (filled), " + m + "″ [Pa]"), null);
+        XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
+        for (int i = 0; i < data.getSeriesCount(); i++) {
+            rr.setSeriesPaint(i, Palette.colour(i / 2));
+            rr.setSeriesShape(i, Palette.shape(i / 2));
+            rr.setSeriesShapesFilled(i, i % 2 == 0);
+            rr.setSeriesVisibleInLegend(i, i % 2 == 0);
+        }
+        rr.setUseFillPaint(false);
+        plot.setRenderer(rr);
+        return new Figure(stem, "Master curve of " + ts.sample() + " at " + Campaign.plain(r.referenceC()) + " °C: each temperature's "
+                + "storage (filled markers) and loss moduli (open markers) shifted along the frequency axis by its factor a_T.",
+                chart(ts.sample() + ": master curve", plot, true));
+    }
+
+    /** log10 a_T against temperature with its standard errors and the WLF and Arrhenius fits. */
+    public static Figure shiftFactors(TemperatureSeries ts, String stem) {
+        ShiftAnalysis.Result r = ts.result();
+        YIntervalSeriesCollection points = new YIntervalSeriesCollection();
+        YIntervalSeries pts = new YIntervalSeries("log10 a_T ± SE");
+        double tMin = Double.POSITIVE_INFINITY;
+        double tMax = Double.NEGATIVE_INFINITY;
+        for (ShiftAnalysis.Factor f : r.factors()) {
+            if (f.placed()) {
+                pts.add(f.temperatureC(), f.log10aT(), f.log10aT() - f.log10aTStdError(), f.log10aT() + f.log10aTStdError());
+                tMin = Math.min(tMin, f.temperatureC());
+                tMax = Math.max(tMax, f.temperatureC());
+            }
+        }
+        points.addSeries(pts);
+        NumberAxis x = new NumberAxis("temperature [°C]");
+        x.setAutoRangeIncludesZero(false);
+        x.setLabelFont(Palette.LABEL);
+        NumberAxis y = new NumberAxis("log10 a_T [–]");
+        y.setAutoRangeIncludesZero(false);
+        y.setLabelFont(Palette.LABEL);
+        XYErrorRenderer er = new XYErrorRenderer();
+        er.setDrawXError(false);
+        er.setDefaultLinesVisible(false);
+        er.setSeriesPaint(0, Color.BLACK);
+        er.setSeriesShape(0, Palette.shape(0));
+        XYPlot plot = new XYPlot(points, x, y, er);
+        XYSeriesCollection laws = new XYSeriesCollection();
+        double t0 = r.referenceC();
+        if (r.wlf() != null) {
+            XYSeries w = new XYSeries(String.format(Locale.ROOT, "WLF, C1 = %.3g, C2 = %.3g K", r.wlf().parameter("C1").value(),
+                    r.wlf().parameter("C2").value()));
+            for (int k = 0; k <= 40; k++) {
+                double t = tMin + (tMax - tMin) * k / 40.0;
+                w.add(t, ShiftLaws.wlf(r.wlf().parameter("C1").value(), r.wlf().parameter("C2").value(), t - t0));
+            }
+            laws.addSeries(w);
+        }
+        if (r.arrhenius() != null) {
+            double ea = r.arrhenius().parameter("Ea").value() * 1000;
+            XYSeries a = new XYSeries(String.format(Locale.ROOT, "Arrhenius, Ea = %.3g kJ/mol", ea / 1000));
+            for (int k = 0; k <= 40; k++) {
+                double t = tMin + (tMax - tMin) * k / 40.0;
+                a.add(t, ShiftLaws.arrhenius(ea, t + ShiftLaws.KELVIN_OFFSET, t0 + ShiftLaws.KELVIN_OFFSET));
+            }
+            laws.addSeries(a);
+        }
+        plot.setDataset(1, laws);
+        XYLineAndShapeRenderer lr = new XYLineAndShapeRenderer(true, false);
+        for (int i = 0; i < 2; i++) {
+            lr.setSeriesPaint(i, Palette.colour(i));
+            lr.setSeriesStroke(i, Palette.line(i));
+        }
+        plot.setRenderer(1, lr);
+        return new Figure(stem, "Shift factors of " + ts.sample() + " against temperature (reference " + Campaign.plain(t0)
+                + " °C) with the WLF and Arrhenius fits.", chart(ts.sample() + ": shift factors", plot, true));
+    }
+
+    /**
+     * The van Gurp–Palmen plot: phase angle against |E*| for every temperature. Curves that fall on one
+     * line support thermorheological simplicity (van Gurp &amp; Palmen 1998, Rheol. Bull. 67:5).
+     */
+    public static Figure vanGurpPalmen(TemperatureSeries ts, String stem) {
+        XYSeriesCollection data = new XYSeriesCollection();
+        java.util.TreeMap<Double, XYSeries> byT = new java.util.TreeMap<>();
+        for (Sweep s : ts.sweeps()) {
+            XYSeries series = byT.computeIfAbsent(s.temperatureC(), t -> new XYSeries(Campaign.plain(t) + " °C", true, true));
+            for (SweepPoint p : s.fittablePoints()) {
+                series.add(p.magnitude(), Math.toDegrees(p.phaseAngle()));
+            }
+        }
+        byT.values().forEach(data::addSeries);
+        NumberAxis y = new NumberAxis("phase angle δ [°]");
+        y.setLabelFont(Palette.LABEL);
+        y.setAutoRangeIncludesZero(false);
+        String m = ts.sweeps().get(0).kind().letter();
+        XYPlot plot = new XYPlot(data, logAxis("|" + m + "*| [Pa]"), y, null);
+        XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
+        for (int i = 0; i < data.getSeriesCount(); i++) {
+            r.setSeriesPaint(i, Palette.colour(i));
+            r.setSeriesShape(i, Palette.shape(i));
+        }
+        plot.setRenderer(r);
+        return new Figure(stem, "van Gurp–Palmen plot of " + ts.sample() + ": phase angle against |" + m + "*| at every temperature; "
+                + "if the curves fall on one line, time–temperature superposition holds.", chart(ts.sample() + ": van Gurp–Palmen check",
+                plot, true));
     }
 }

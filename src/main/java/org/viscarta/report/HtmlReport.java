@@ -55,6 +55,7 @@ public final class HtmlReport {
         summary(h, c);
         ranking(h, c);
         matches(h, c);
+        series(h, c);
         if (!figures.isEmpty()) {
             h.append("<h2>Figures</h2>\n");
             for (RenderedFigure f : figures) {
@@ -135,6 +136,35 @@ public final class HtmlReport {
             }
             h.append("</table>\n<p>").append(esc("First and second distinguishable: " + Matcher.distinguishable(c.mimic())))
                     .append("</p>\n");
+        }
+    }
+
+    private static void series(StringBuilder h, WorkbookReport.Content c) {
+        for (org.viscarta.temperature.TemperatureSeries ts : c.series()) {
+            var r = ts.result();
+            h.append("<h2>Temperature series: ").append(esc(ts.sample())).append("</h2>\n<p>Master curve at ")
+                    .append(num(r.referenceC())).append(" °C, analysed as the sample ").append(esc(ts.masterName()))
+                    .append(".</p>\n<table>\n<tr><th>temperature [°C]</th><th>log10 a_T [–]</th><th>± SE</th></tr>\n");
+            for (var f : r.factors()) {
+                h.append("<tr><td class=\"n\">").append(num(f.temperatureC())).append("</td><td class=\"n\">")
+                        .append(f.placed() ? num(f.log10aT()) : "not placed").append("</td><td class=\"n\">")
+                        .append(num(f.log10aTStdError())).append("</td></tr>\n");
+            }
+            h.append("</table>\n");
+            for (var fit : java.util.Arrays.asList(r.wlf(), r.arrhenius())) {
+                if (fit == null) {
+                    continue;
+                }
+                StringBuilder sb = new StringBuilder(fit.law() + ":");
+                for (var p : fit.parameters()) {
+                    sb.append(' ').append(p.name()).append(" = ").append(num(p.value())).append(" [").append(num(p.ci95Low()))
+                            .append(", ").append(num(p.ci95High())).append("] ").append(p.unit().equals("-") ? "" : p.unit()).append(';');
+                }
+                h.append("<p>").append(esc(sb.toString())).append("</p>\n");
+            }
+            for (String n : r.notes()) {
+                h.append("<p>").append(esc(n)).append("</p>\n");
+            }
         }
     }
 

@@ -35,6 +35,12 @@ public final class ReportFigures {
         List<Figure> out = new ArrayList<>();
         out.add(Figures.ranking(c.ranking(), c.campaign().settings().rankingFrequency()));
         out.add(Figures.tanDelta(c.campaign().samples()));
+        for (org.viscarta.temperature.TemperatureSeries ts : c.series()) {
+            String slug = slug(ts.sample());
+            out.add(Figures.master(ts, "master-" + slug));
+            out.add(Figures.shiftFactors(ts, "shift-factors-" + slug));
+            out.add(Figures.vanGurpPalmen(ts, "van-gurp-palmen-" + slug));
+        }
         if (c.fits().size() > MAX_SAMPLE_FIGURES) {
             return out;
         }

@@ -60,6 +60,11 @@ public final class Texts {
                     + "measured at: the typical difference on a logarithmic scale. 0 is identical; 0.1 means about 26 % apart "
                     + "on average; 1 means a factor of ten. 'Distinguishable' says whether the closest and the second closest "
                     + "differ by more than their uncertainties."},
+            new String[] {"Master curve and shift factor a_T", "Many soft materials behave at a lower temperature as they do at "
+                    + "a higher frequency. Shifting each temperature's curve along the frequency axis by a factor a_T joins them into "
+                    + "one master curve at the reference temperature, spanning far more frequencies than one measurement. WLF and "
+                    + "Arrhenius are the two usual laws for how a_T depends on temperature. If the shifted curves do not line up "
+                    + "(van Gurp–Palmen plot: phase angle against |E*|), the master curve should not be trusted."},
             new String[] {"RSS and RMS misfit",
                 "Residual sum of squares of the natural-log differences between model and data; the RMS misfit is its root "
                     + "mean square, roughly the typical relative misfit (0.05 ≈ 5 %)."});
@@ -73,6 +78,9 @@ public final class Texts {
             new String[] {"Reference matches", "For each sample, the closest reference materials of the library, with the "
                     + "distance, its uncertainty, the band compared and where the curves differ most."},
             new String[] {"Mimic ranking", "With a target sample: every other sample ranked by how closely it mimics the target."},
+            new String[] {"Temperature series", "For a sample measured at several temperatures: the shift factors a_T that "
+                    + "superpose its curves into one master curve at the reference temperature, WLF and Arrhenius fits to them, "
+                    + "and whether superposition holds."},
             new String[] {"Model fits", "Every model fitted to every sample: parameters with units, standard errors, 95 % intervals, AICc and Akaike weights."},
             new String[] {"Derived quantities", "Quantities computed from each fit (relaxation and retardation times, crossover "
                     + "frequency, relaxed and unrelaxed moduli, viscosities), with standard errors."},

@@ -19,6 +19,9 @@ import org.viscarta.compare.DampingComparison;
 import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReferenceDistance;
 import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.temperature.ShiftAnalysis;
+import org.viscarta.temperature.ShiftFits;
+import org.viscarta.temperature.TemperatureSeries;
 import org.viscarta.fit.DerivedEstimate;
 import org.viscarta.fit.FitResult;
 import org.viscarta.fit.ModelSelection;
@@ -40,10 +43,11 @@ public final class WorkbookReport {
     /** Everything the workbook shows. */
     public record Content(Campaign campaign, List<Campaign.SampleFits> fits, List<Campaign.RankRow> ranking,
                           DampingComparison.Result comparison, ReferenceLibrary library, List<List<Matcher.Match>> matches,
-                          String target, List<Matcher.Match> mimic, Provenance provenance) {
+                          String target, List<Matcher.Match> mimic, List<TemperatureSeries> series, Provenance provenance) {
         public Content {
             matches = List.copyOf(matches);
             mimic = List.copyOf(mimic);
+            series = List.copyOf(series);
         }
 
         /** The matches of the i-th sample of {@code fits}, or an empty list. */
@@ -91,6 +95,9 @@ public final class WorkbookReport {
             referenceMatches(wb, st, c);
             if (c.target() != null) {
                 mimic(wb, st, c);
+            }
+            if (!c.series().isEmpty()) {
+                temperatureSeries(wb, st, c);
             }
             modelFits(wb, st, c);
             derived(wb, st, c);
@@ -525,6 +532,34 @@ public final class WorkbookReport {
         rows.row("first and second distinguishable: " + Matcher.distinguishable(c.mimic()));
         table(s, rows, 11);
         widths(s, 24, 6, 24, 14, 12, 14, 12, 12, 11, 14, 16, 50);
+    }
+
+    private static void temperatureSeries(Workbook wb, Styles st, Content c) {
+        Sheet s = wb.createSheet("Temperature series");
+        Rows rows = new Rows(s, st.dec2, st.dec4, st.dec4, st.sci, st.dec4, null);
+        for (TemperatureSeries ts : c.series()) {
+            ShiftAnalysis.Result r = ts.result();
+            rows.styled(st.title, ts.sample() + ": time–temperature superposition at " + Campaign.plain(r.referenceC()) + " °C");
+            for (String n : r.notes()) {
+                rows.paragraph(st.wrap, st.wrap, "", n, 14, 110);
+            }
+            rows.row("The master curve is analysed as the sample '" + ts.masterName() + "' in the other sheets.");
+            rows.styled(st.header, "temperature [°C]", "log10 a_T [–]", "log10 a_T standard error [–]", "a_T [–]", "b_T [–]", "placed");
+            for (ShiftAnalysis.Factor f : r.factors()) {
+                rows.row(f.temperatureC(), f.log10aT(), f.log10aTStdError(), f.placed() ? f.aT() : null, f.bT(), f.placed() ? "yes" : "no");
+            }
+            rows.styled(st.header, "law", "parameter", "value", "standard error", "95 % CI low", "95 % CI high", "unit", "AICc [–]");
+            for (ShiftFits.Fit fit : java.util.Arrays.asList(r.wlf(), r.arrhenius())) {
+                if (fit == null) {
+                    continue;
+                }
+                for (ShiftFits.Parameter p : fit.parameters()) {
+                    rows.row(fit.law(), p.name(), p.value(), p.stdError(), p.ci95Low(), p.ci95High(), p.unit(), fit.aicc());
+                }
+            }
+            rows.blank();
+        }
+        widths(s, 16, 14, 16, 14, 14, 14, 10, 12);
     }
 
     private static void modelFits(Workbook wb, Styles st, Content c) {

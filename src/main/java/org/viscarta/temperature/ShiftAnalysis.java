@@ -253,15 +253,17 @@ public final class ShiftAnalysis {
         double overlap = Math.min(cold.logF()[cold.logF().length - 1] + bestX, warm.logF()[warm.logF().length - 1])
                 - Math.max(cold.logF()[0] + bestX, warm.logF()[0]);
         boolean atEdge = bestX <= xMin + 1e-9 || bestX >= xMax - 1e-9;
-        // standard error from the curvature of the sum of squares S(x) = 2K·misfit(x): var = 2σ²/S''(x), σ² = S_min/(2K − 1)
+        // Standard error from the curvature of the sum of squares S(x) = n·misfit(x): var = 2σ²/S''(x), σ² = S_min/(n − 1),
+        // so var = 2·misfit_min/((n − 1)·misfit''). The grid points are interpolated, not independent: n counts the measured
+        // values (log tan δ and log |E*| of both curves) inside the overlap.
         double h = 0.01;
         double mUp = misfit(cold, warm, bestX + h);
         double mDn = misfit(cold, warm, bestX - h);
         double se = Double.NaN;
-        if (Double.isFinite(mUp) && Double.isFinite(mDn)) {
-            double curvature = 2 * GRID * (mUp - 2 * best + mDn) / (h * h);
-            double sigma2 = 2 * GRID * best / (2 * GRID - 1);
-            se = curvature > 0 ? Math.sqrt(2 * sigma2 / curvature) : Double.NaN;
+        int n = 2 * (pointsWithin(cold.logF(), bestX, warm) + pointsWithin(warm.logF(), 0, cold, bestX));
+        if (Double.isFinite(mUp) && Double.isFinite(mDn) && n > 1) {
+            double curvature = (mUp - 2 * best + mDn) / (h * h);
+            se = curvature > 0 ? Math.sqrt(2 * best / ((n - 1) * curvature)) : Double.NaN;
         }
         if (atEdge) {
             return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), false, String.format(Locale.ROOT,
@@ -269,6 +271,24 @@ public final class ShiftAnalysis {
                             + "to be superposed", plain(cold.tC()), plain(warm.tC())));
         }
         return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), true, "");
+    }
+
+    /** Measured points of the cold curve (shifted by x) inside the warm curve's range. */
+    private static int pointsWithin(double[] logF, double x, Curve other) {
+        return pointsWithin(logF, x, other, 0);
+    }
+
+    /** Points of logF (shifted by x) inside the range of other's log frequencies (shifted by otherX). */
+    private static int pointsWithin(double[] logF, double x, Curve other, double otherX) {
+        double lo = other.logF()[0] + otherX;
+        double hi = other.logF()[other.logF().length - 1] + otherX;
+        int n = 0;
+        for (double f : logF) {
+            if (f + x >= lo - 1e-9 && f + x <= hi + 1e-9) {
+                n++;
+            }
+        }
+        return n;
     }
 
     private PairShift notShifted(Curve cold, Curve warm, String why) {

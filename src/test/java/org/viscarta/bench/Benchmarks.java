@@ -244,7 +244,7 @@ public final class Benchmarks {
         long t2c = System.nanoTime();
         Provenance prov = new Provenance("bench", "benchmark", "-", java.util.Map.of());
         try (OutputStream os = Files.newOutputStream(dir.resolve("report.xlsx"))) {
-            WorkbookReport.write(new WorkbookReport.Content(c, fits, ranking, comparison, lib, matches, null, List.of(), prov), os);
+            WorkbookReport.write(new WorkbookReport.Content(c, fits, ranking, comparison, lib, matches, null, List.of(), List.of(), prov), os);
         }
         long t3 = System.nanoTime();
         long heap = 0;

@@ -65,13 +65,28 @@ class ReportOutputTest {
         assertTrue(doc.select("style").size() == 1);
         List<String> headings = doc.select("h2").eachText();
         assertEquals(List.of("Read me", "Summary", "Damping ranking", "Closest reference materials", "Best mimic of target-soft-tissue",
-                "Figures", "Provenance"), headings);
+                "Temperature series: acrylic-film-ts", "Figures", "Provenance"), headings);
         Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
-        assertEquals(1 + 20, ranking.select("tr").size(), "a row per sample");
+        assertEquals(1 + 21, ranking.select("tr").size(), "a row per sample, the master curve included");
         assertTrue(doc.text().contains("not clinical or structural verdicts"));
         assertTrue(doc.text().contains("invented demo data"));
         assertEquals(doc.select("figure").size(), doc.select("figure svg").size(), "every figure is inline SVG");
         assertTrue(doc.select("figure").size() >= 2 + 15, "overview figures and one fit figure per sample");
+    }
+
+    @Test
+    void theDemoMasterCurveSpansSeveralMoreDecadesThanOneSweep() throws IOException {
+        try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            org.apache.poi.ss.usermodel.Sheet summary = wb.getSheet("Summary");
+            for (org.apache.poi.ss.usermodel.Row row : summary) {
+                if (row.getRowNum() > 0 && row.getCell(0).getStringCellValue().equals("acrylic-film-ts master @ 20 °C")) {
+                    double decades = Math.log10(row.getCell(7).getNumericCellValue() / row.getCell(6).getNumericCellValue());
+                    assertTrue(decades > Math.log10(200) + 2, "master curve spans " + decades + " decades");
+                    return;
+                }
+            }
+        }
+        throw new AssertionError("no master curve in the Summary");
     }
 
     @Test
