@@ -301,6 +301,29 @@ class CliTest {
     }
 
     @Test
+    void shiftWritesFactorsFitsAndMasterCurve() throws IOException {
+        Path out = dir.resolve("tts");
+        CliRun r = CliRun.of("shift", "demo-data/temperature-series", "--reference-temperature", "20", "--wlf-at", "30",
+                "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        List<CSVRecord> factors = csv(out.resolve("shift-factors.csv"));
+        assertEquals(List.of("temperature_c", "a_t", "log10_a_t", "log10_a_t_std_error", "b_t"), factors.get(0).toList());
+        assertEquals(1 + 5, factors.size());
+        // the demo series was generated with WLF C1 = 9, C2 = 90 K at 20 °C (DemoData): log10 a_T(10 °C) = 9·10/80 = 1.125
+        double log10aT = Double.parseDouble(factors.get(1).get(2));
+        double se = Double.parseDouble(factors.get(1).get(3));
+        assertEquals(1.125, log10aT, 4 * se + 0.01);
+        List<CSVRecord> fits = csv(out.resolve("shift-fits.csv"));
+        assertEquals(List.of("model", "parameter", "value", "std_error", "ci95_low", "ci95_high", "unit"), fits.get(0).toList());
+        CSVRecord c1 = fits.stream().filter(x -> x.get(0).equals("WLF") && x.get(1).equals("C1")).findFirst().orElseThrow();
+        assertTrue(Double.parseDouble(c1.get(4)) <= 9 && 9 <= Double.parseDouble(c1.get(5)), "C1 interval covers 9");
+        assertTrue(fits.stream().anyMatch(x -> x.get(0).equals("WLF at 30 °C")));
+        assertTrue(Files.readString(out.resolve("master-curve.csv")).contains("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]"));
+        assertEquals(2, CliRun.of("shift", "demo-data/temperature-series", "--reference-temperature", "25").exitCode(),
+                "25 °C was not measured");
+    }
+
+    @Test
     void inspectDescribesColumnsAndSamples() throws IOException {
         Path in = zenerFile("film", 1.0e6, 2.0e6, 0.1);
         CliRun r = CliRun.of("inspect", in.toString());
