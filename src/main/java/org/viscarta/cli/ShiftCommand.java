@@ -37,7 +37,8 @@ final class ShiftCommand implements Callable<Integer> {
     String sample;
 
     @Option(names = "--vertical", paramLabel = "none|entropic", defaultValue = "none",
-            description = "Vertical factors b_T: none (default), or entropic b_T = T/T0 (kelvin; density taken as constant).")
+            description = "Vertical factors b_T: none (default), entropic b_T = T/T0 (kelvin; density taken as constant), or "
+                    + "fitted (horizontal shifts from tan δ alone, then the offset of log |E*|).")
     String vertical;
 
     @Option(names = "--min-overlap", paramLabel = "DECADES", defaultValue = "0.3",

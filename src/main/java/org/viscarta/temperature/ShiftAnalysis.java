@@ -39,24 +39,30 @@ public final class ShiftAnalysis {
         /** b_T = 1. */
         NONE,
         /** b_T = T/T0 in kelvin (ρ = ρ0), the entropic-elasticity factor (Ferry 1980). */
-        ENTROPIC;
+        ENTROPIC,
+        /**
+         * b_T fitted: the horizontal shift from log tan δ alone, then the vertical offset of log |E*|
+         * over the overlap at that shift.
+         */
+        FITTED;
 
         public static Vertical parse(String s) {
             switch (s.strip().toLowerCase(Locale.ROOT)) {
                 case "none": return NONE;
                 case "entropic": return ENTROPIC;
-                default: throw new IllegalArgumentException("--vertical takes none or entropic, not '" + s + "'");
+                case "fitted": return FITTED;
+                default: throw new IllegalArgumentException("--vertical takes none, entropic or fitted, not '" + s + "'");
             }
         }
     }
 
     /** The superposition of one colder curve on its warmer neighbour. */
     public record PairShift(double coldC, double warmC, double log10Shift, double stdError, double overlapDecades, double rmsMisfit,
-                            boolean shifted, String note) {
+                            boolean shifted, String note, double log10Vertical, double verticalStdError) {
     }
 
     /** The factors of one temperature, relative to the reference. */
-    public record Factor(double temperatureC, double log10aT, double log10aTStdError, double bT, boolean placed) {
+    public record Factor(double temperatureC, double log10aT, double log10aTStdError, double bT, boolean placed, double log10bTStdError) {
         public double aT() {
             return Math.pow(10, log10aT);
         }
@@ -121,15 +127,21 @@ public final class ShiftAnalysis {
             double log = 0;
             double var = 0;
             boolean placed = true;
+            double logB = 0;
+            double varB = 0;
             for (int k = Math.min(i, ref); k < Math.max(i, ref); k++) {
                 PairShift p = pairs.get(k);
                 placed &= p.shifted();
                 log += p.log10Shift();
                 var += p.stdError() * p.stdError();
+                logB += p.log10Vertical();
+                varB += p.verticalStdError() * p.verticalStdError();
             }
             double sign = i < ref ? 1 : i == ref ? 0 : -1;
             double t = curves.get(i).tC();
-            factors.add(new Factor(t, placed ? (i == ref ? 0.0 : sign * log) : Double.NaN, placed ? Math.sqrt(var) : Double.NaN, bT(t, referenceC), placed));
+            double b = vertical == Vertical.FITTED ? Math.pow(10, i == ref ? 0.0 : sign * logB) : bT(t, referenceC);
+            factors.add(new Factor(t, placed ? (i == ref ? 0.0 : sign * log) : Double.NaN, placed ? Math.sqrt(var) : Double.NaN, b,
+                    placed, vertical == Vertical.FITTED ? Math.sqrt(varB) : 0));
         }
         List<String> notes = new ArrayList<>();
         double worst = 0;
@@ -172,6 +184,7 @@ public final class ShiftAnalysis {
                 r.master());
     }
 
+    /** The vertical factor used when building curves: entropic, or 1 (fitted factors are applied to the master curve only). */
     private double bT(double tC, double refC) {
         return vertical == Vertical.ENTROPIC ? (tC + ShiftLaws.KELVIN_OFFSET) / (refC + ShiftLaws.KELVIN_OFFSET) : 1.0;
     }
@@ -213,10 +226,13 @@ public final class ShiftAnalysis {
         for (int k = 0; k < GRID; k++) {
             double g = lo + (hi - lo) * k / (GRID - 1);
             double dt = interp(cold.logF(), cold.logTan(), g - x) - interp(warm.logF(), warm.logTan(), g);
-            double dm = interp(cold.logF(), cold.logMag(), g - x) - interp(warm.logF(), warm.logMag(), g);
-            sum += dt * dt + dm * dm;
+            sum += dt * dt;
+            if (vertical != Vertical.FITTED) {
+                double dm = interp(cold.logF(), cold.logMag(), g - x) - interp(warm.logF(), warm.logMag(), g);
+                sum += dm * dm;
+            }
         }
-        return sum / (2 * GRID);
+        return sum / (vertical == Vertical.FITTED ? GRID : 2 * GRID);
     }
 
     private PairShift pair(Curve cold, Curve warm) {
@@ -265,12 +281,35 @@ public final class ShiftAnalysis {
             double curvature = (mUp - 2 * best + mDn) / (h * h);
             se = curvature > 0 ? Math.sqrt(2 * best / ((n - 1) * curvature)) : Double.NaN;
         }
+        double[] vert = vertical == Vertical.FITTED ? verticalOffset(cold, warm, bestX, n) : new double[] {0, 0};
         if (atEdge) {
             return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), false, String.format(Locale.ROOT,
                     "%s °C on %s °C: the best shift lies at the edge of the allowed overlap; the curves do not overlap enough "
-                            + "to be superposed", plain(cold.tC()), plain(warm.tC())));
+                            + "to be superposed", plain(cold.tC()), plain(warm.tC())), vert[0], vert[1]);
         }
-        return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), true, "");
+        return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), true, "", vert[0], vert[1]);
+    }
+
+    /**
+     * The vertical offset log10 b of the cold curve on the warm one at horizontal shift x: the mean
+     * difference of log10 |E*| over the overlap, with its standard error (SD over √(n/2), n measured values).
+     */
+    private static double[] verticalOffset(Curve cold, Curve warm, double x, int n) {
+        double lo = Math.max(cold.logF()[0] + x, warm.logF()[0]);
+        double hi = Math.min(cold.logF()[cold.logF().length - 1] + x, warm.logF()[warm.logF().length - 1]);
+        double[] d = new double[GRID];
+        double mean = 0;
+        for (int k = 0; k < GRID; k++) {
+            double g = lo + (hi - lo) * k / (GRID - 1);
+            d[k] = interp(cold.logF(), cold.logMag(), g - x) - interp(warm.logF(), warm.logMag(), g);
+            mean += d[k] / GRID;
+        }
+        double ss = 0;
+        for (double v : d) {
+            ss += (v - mean) * (v - mean);
+        }
+        double sd = Math.sqrt(ss / (GRID - 1));
+        return new double[] {mean, sd / Math.sqrt(Math.max(1, n / 2.0))};
     }
 
     /** Measured points of the cold curve (shifted by x) inside the warm curve's range. */
@@ -293,7 +332,7 @@ public final class ShiftAnalysis {
 
     private PairShift notShifted(Curve cold, Curve warm, String why) {
         return new PairShift(cold.tC(), warm.tC(), Double.NaN, Double.NaN, 0, Double.NaN, false,
-                plain(cold.tC()) + " °C on " + plain(warm.tC()) + " °C: " + why);
+                plain(cold.tC()) + " °C on " + plain(warm.tC()) + " °C: " + why, Double.NaN, Double.NaN);
     }
 
     private static double interp(double[] x, double[] y, double at) {

@@ -27,6 +27,11 @@ class ShiftAnalysisTest {
 
     /** Sweeps 0.1–20 Hz (12 points) at each temperature, shifted by log10 a_T(T), with 1 % noise. */
     private static List<Sweep> series(double[] temps, DoubleUnaryOperator log10aT, long seed) {
+        return series(temps, log10aT, t -> 1, seed);
+    }
+
+    /** The same with a vertical factor: M(ω; T) = b_T M(a_T ω; T0). */
+    private static List<Sweep> series(double[] temps, DoubleUnaryOperator log10aT, DoubleUnaryOperator bT, long seed) {
         SplittableRandom rng = new SplittableRandom(seed);
         FractionalZener m = new FractionalZener();
         List<Sweep> out = new ArrayList<>();
@@ -37,7 +42,8 @@ class ShiftAnalysisTest {
             for (int i = 0; i < 12; i++) {
                 double f = 0.1 * Math.pow(200, i / 11.0);
                 m.modulus(2 * Math.PI * f * a, MATERIAL, mod);
-                pts.add(new SweepPoint(f, mod[0] * Math.exp(0.01 * rng.nextGaussian()), mod[1] * Math.exp(0.01 * rng.nextGaussian()), 0));
+                double b = bT.applyAsDouble(t);
+                pts.add(new SweepPoint(f, b * mod[0] * Math.exp(0.01 * rng.nextGaussian()), b * mod[1] * Math.exp(0.01 * rng.nextGaussian()), 0));
             }
             out.add(new Sweep("film", "1", "", ModulusKind.TENSILE, t, Path.of("synthetic.csv"), Map.of(), pts));
         }
@@ -116,6 +122,18 @@ class ShiftAnalysisTest {
         ShiftFits.Parameter ea = r.arrhenius().parameter("Ea");
         assertEquals(120, ea.value(), 0.05 * 120, "Ea [kJ/mol]");
         assertFalse(r.notes().stream().anyMatch(n -> n.contains("support WLF")), r.notes().toString());
+    }
+
+    @Test
+    void fittedVerticalFactorsAreRecovered() {
+        double[] temps = {10, 20, 30, 40, 50};
+        DoubleUnaryOperator wlf = t -> ShiftLaws.wlf(10, 80, t - 30);
+        DoubleUnaryOperator b = t -> Math.pow(10, -0.004 * (t - 30)); // 20 % softer per 50 K, made up for the test
+        ShiftAnalysis.Result r = new ShiftAnalysis(0.3, ShiftAnalysis.Vertical.FITTED).analyse(series(temps, wlf, b, 5), 30);
+        for (ShiftAnalysis.Factor f : r.factors()) {
+            assertEquals(b.applyAsDouble(f.temperatureC()), f.bT(), 0.02, "b_T at " + f.temperatureC());
+            assertEquals(wlf.applyAsDouble(f.temperatureC()), f.log10aT(), Math.max(0.05, 4 * f.log10aTStdError()));
+        }
     }
 
     @Test
