@@ -276,12 +276,13 @@ public final class ShiftAnalysis {
         double mUp = misfit(cold, warm, bestX + h);
         double mDn = misfit(cold, warm, bestX - h);
         double se = Double.NaN;
-        int n = 2 * (pointsWithin(cold.logF(), bestX, warm) + pointsWithin(warm.logF(), 0, cold, bestX));
+        int quantities = vertical == Vertical.FITTED ? 1 : 2; // log tan δ only, or log tan δ and log |E*|
+        int n = quantities * (pointsWithin(cold.logF(), bestX, warm) + pointsWithin(warm.logF(), 0, cold, bestX));
         if (Double.isFinite(mUp) && Double.isFinite(mDn) && n > 1) {
             double curvature = (mUp - 2 * best + mDn) / (h * h);
             se = curvature > 0 ? Math.sqrt(2 * best / ((n - 1) * curvature)) : Double.NaN;
         }
-        double[] vert = vertical == Vertical.FITTED ? verticalOffset(cold, warm, bestX, n) : new double[] {0, 0};
+        double[] vert = vertical == Vertical.FITTED ? verticalOffset(cold, warm, bestX, 2 * n) : new double[] {0, 0};
         if (atEdge) {
             return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), false, String.format(Locale.ROOT,
                     "%s °C on %s °C: the best shift lies at the edge of the allowed overlap; the curves do not overlap enough "
