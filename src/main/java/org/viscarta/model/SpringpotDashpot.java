@@ -3,7 +3,6 @@ package org.viscarta.model;
 import java.util.ArrayList;
 import java.util.List;
 import org.apache.commons.math3.complex.Complex;
-import org.apache.commons.math3.special.Gamma;
 import org.viscarta.sweep.SweepPoint;
 
 /**
@@ -42,26 +41,19 @@ public final class SpringpotDashpot implements ViscoelasticModel {
         return PARAMETERS;
     }
 
+    private static final Springpot POWER_LAW = new Springpot();
+
+    /** The springpot part (c, alpha come first, as in {@link Springpot}) plus iωη. */
     @Override
     public void modulus(double omega, double[] p, double[] out) {
-        double w = Math.pow(omega, p[1]);
-        out[0] = p[0] * w * Math.cos(p[1] * Math.PI / 2);
-        out[1] = p[0] * w * Math.sin(p[1] * Math.PI / 2) + omega * p[2];
+        POWER_LAW.modulus(omega, p, out);
+        out[1] += omega * p[2];
     }
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        double c = p[0];
-        double a = p[1];
-        double w = Math.pow(omega, a);
-        double ca = Math.cos(a * Math.PI / 2);
-        double sa = Math.sin(a * Math.PI / 2);
-        double lnw = Math.log(omega);
-        dStorage[0] = w * ca;
-        dStorage[1] = c * w * (lnw * ca - Math.PI / 2 * sa);
+        POWER_LAW.derivatives(omega, p, dStorage, dLoss);
         dStorage[2] = 0;
-        dLoss[0] = w * sa;
-        dLoss[1] = c * w * (lnw * sa + Math.PI / 2 * ca);
         dLoss[2] = omega;
     }
 
@@ -73,7 +65,7 @@ public final class SpringpotDashpot implements ViscoelasticModel {
             etas[i] = points.get(i).loss() / points.get(i).omega();
         }
         double eta = DataFeatures.median(etas);
-        for (double[] sp : new Springpot().startValues(points)) {
+        for (double[] sp : POWER_LAW.startValues(points)) {
             starts.add(new double[] {sp[0], sp[1], 0.1 * eta});
         }
         return starts;
@@ -81,12 +73,13 @@ public final class SpringpotDashpot implements ViscoelasticModel {
 
     @Override
     public Complex modulusAt(Complex s, double[] p) {
-        return s.pow(p[1]).multiply(p[0]).add(s.multiply(p[2]));
+        return POWER_LAW.modulusAt(s, p).add(s.multiply(p[2]));
     }
 
+    /** The springpot's c t^{−α}/Γ(1 − α); the dashpot adds only η δ(t) at t = 0. */
     @Override
     public double relaxationModulus(double t, double[] p) {
-        return p[0] * Math.pow(t, -p[1]) / Gamma.gamma(1 - p[1]);
+        return POWER_LAW.relaxationModulus(t, p);
     }
 
     @Override
