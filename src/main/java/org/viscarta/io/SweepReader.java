@@ -350,7 +350,7 @@ public final class SweepReader {
      * ({@code [+-]?(d+.?d*|.d+)([eE][+-]?d+)?}); rejects what Double.parseDouble would also take
      * but a table should not hold (NaN, Infinity, hex, a trailing d or f).
      */
-    static boolean isPlainNumber(String t) {
+    public static boolean isPlainNumber(String t) {
         int n = t.length();
         int i = 0;
         if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {

@@ -1,0 +1,191 @@
+package org.viscarta.raw;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import org.apache.commons.math3.complex.Complex;
+import org.viscarta.io.InputException;
+
+/**
+ * Raw oscillation signals to complex moduli: per segment, demodulation of force and displacement
+ * over an integer number of cycles after the settling ones, k* = F̂/ĥ, removal of the instrument's
+ * phase (from a calibration on a rigid reference) and of the hydrodynamic drag iωb(0), and the
+ * geometry's conversion to E* (or G*), with the harmonic distortion of each channel.
+ */
+public final class RawConverter {
+
+    /** Settings of a conversion. */
+    public record Settings(int skipCycles, double distortionLimit) {
+        public Settings {
+            if (skipCycles < 0) {
+                throw new IllegalArgumentException("--skip-cycles must be >= 0");
+            }
+            if (!(distortionLimit > 0)) {
+                throw new IllegalArgumentException("the distortion limit must be > 0");
+            }
+        }
+
+        /** One settling cycle skipped; 5 % distortion (a lab convention, not a standard [P]). */
+        public static Settings defaults() {
+            return new Settings(1, 0.05);
+        }
+    }
+
+    /**
+     * One drive frequency's result.
+     *
+     * @param frequencyHz       drive frequency
+     * @param storage           M′ [Pa]
+     * @param loss              M″ [Pa]
+     * @param storageStdError   standard error of M′ (from the demodulation's standard errors)
+     * @param lossStdError      standard error of M″
+     * @param forceDistortion   THD of the force
+     * @param displacementDistortion THD of the displacement
+     * @param contactHarmonic   the second harmonic the contact geometry itself produces (0 when none)
+     * @param cycles            cycles used
+     * @param linear            whether the material's own distortion stays within the limit
+     * @param note              why not, or ""
+     * @param firstLine         line of the segment's first sample
+     */
+    public record Point(double frequencyHz, double storage, double loss, double storageStdError, double lossStdError,
+                        double forceDistortion, double displacementDistortion, double contactHarmonic, int cycles, boolean linear,
+                        String note, int firstLine) {
+    }
+
+    /** The instrument's phase at each calibration frequency (a rigid, elastic reference should show none). */
+    public record Calibration(double[] frequencyHz, double[] phase) {
+        public Calibration {
+            frequencyHz = frequencyHz.clone();
+            phase = phase.clone();
+        }
+
+        /** φ_inst(f), interpolated linearly in log f; NaN outside the calibrated range. */
+        double phaseAt(double f) {
+            int n = frequencyHz.length;
+            if (f < frequencyHz[0] * (1 - 1e-9) || f > frequencyHz[n - 1] * (1 + 1e-9)) {
+                return Double.NaN;
+            }
+            for (int i = 0; i < n; i++) {
+                if (Math.abs(f / frequencyHz[i] - 1) < 1e-9) {
+                    return phase[i];
+                }
+            }
+            int i = 1;
+            while (frequencyHz[i] < f) {
+                i++;
+            }
+            double w = Math.log(f / frequencyHz[i - 1]) / Math.log(frequencyHz[i] / frequencyHz[i - 1]);
+            return (1 - w) * phase[i - 1] + w * phase[i];
+        }
+    }
+
+    private RawConverter() {
+    }
+
+    /** Demodulates a calibration measurement on a rigid reference into its phase per frequency. */
+    public static Calibration calibration(RawReader.Measurement m, Settings s) {
+        List<double[]> rows = new ArrayList<>();
+        for (RawReader.Segment seg : m.segments()) {
+            Complex k = stiffness(m, seg, s);
+            rows.add(new double[] {seg.frequencyHz(), k.getArgument()});
+        }
+        rows.sort((a, b) -> Double.compare(a[0], b[0]));
+        return new Calibration(rows.stream().mapToDouble(r -> r[0]).toArray(), rows.stream().mapToDouble(r -> r[1]).toArray());
+    }
+
+    /**
+     * Converts every segment.
+     *
+     * @param calibration null for none
+     * @throws InputException for a bad geometry, too short a segment, or a frequency outside the calibration
+     */
+    public static List<Point> convert(RawReader.Measurement m, Settings s, Calibration calibration) {
+        Geometry g;
+        try {
+            g = Geometry.from(m.metadata());
+        } catch (IllegalArgumentException e) {
+            throw new InputException(m.file(), 1, 0, e.getMessage());
+        }
+        double drag = 0;
+        if (m.metadata().containsKey("drag")) {
+            try {
+                drag = Units.drag(m.metadata(), "drag");
+            } catch (IllegalArgumentException e) {
+                throw new InputException(m.file(), 1, 0, e.getMessage());
+            }
+        }
+        List<Point> out = new ArrayList<>();
+        for (RawReader.Segment seg : m.segments()) {
+            Demodulated d = demodulate(m, seg, s);
+            Complex k = d.force.divide(d.displacement);
+            if (calibration != null) {
+                double phi = calibration.phaseAt(seg.frequencyHz());
+                if (Double.isNaN(phi)) {
+                    throw new InputException(m.file(), seg.firstLine(), 0, String.format(Locale.ROOT,
+                            "drive frequency %.4g Hz lies outside the calibration's range (%.4g–%.4g Hz); calibrate at this frequency "
+                                    + "too", seg.frequencyHz(), calibration.frequencyHz()[0],
+                            calibration.frequencyHz()[calibration.frequencyHz().length - 1]));
+                }
+                k = k.multiply(new Complex(Math.cos(-phi), Math.sin(-phi)));
+            }
+            double w = 2 * Math.PI * seg.frequencyHz();
+            k = k.subtract(new Complex(0, w * drag));
+            Complex e = g.modulus(k);
+            double rel = Math.hypot(d.relForce, d.relDisplacement);
+            double contact = g.contactSecondHarmonic(d.displacement.abs());
+            double material = Math.max(0, d.forceThd - contact);
+            boolean linear = material <= s.distortionLimit() && d.displacementThd <= s.distortionLimit();
+            String note = linear ? "" : String.format(Locale.ROOT, "outside the linear range: force distortion %.1f %% (of which the "
+                    + "contact geometry accounts for %.1f %%), displacement distortion %.1f %%, limit %.1f %%", 100 * d.forceThd,
+                    100 * contact, 100 * d.displacementThd, 100 * s.distortionLimit());
+            out.add(new Point(seg.frequencyHz(), e.getReal(), e.getImaginary(), e.abs() * rel, e.abs() * rel, d.forceThd,
+                    d.displacementThd, contact, d.cycles, linear, note, seg.firstLine()));
+        }
+        return out;
+    }
+
+    /** The geometry of a measurement (for the output's metadata). */
+    public static Geometry geometry(RawReader.Measurement m) {
+        try {
+            return Geometry.from(m.metadata());
+        } catch (IllegalArgumentException e) {
+            throw new InputException(m.file(), 1, 0, e.getMessage());
+        }
+    }
+
+    private record Demodulated(Complex force, Complex displacement, double relForce, double relDisplacement, double forceThd,
+                               double displacementThd, int cycles) {
+    }
+
+    private static Complex stiffness(RawReader.Measurement m, RawReader.Segment seg, Settings s) {
+        Demodulated d = demodulate(m, seg, s);
+        return d.force.divide(d.displacement);
+    }
+
+    private static Demodulated demodulate(RawReader.Measurement m, RawReader.Segment seg, Settings s) {
+        double f = seg.frequencyHz();
+        double[] t = seg.time();
+        double start = t[0] + s.skipCycles() / f;
+        int cycles = (int) Math.floor((t[t.length - 1] - start) * f + 1e-9);
+        if (cycles < 2) {
+            throw new InputException(m.file(), seg.firstLine(), 0, String.format(Locale.ROOT, "the %.4g Hz segment holds fewer than "
+                    + "2 cycles after %d settling cycle(s); record longer or lower --skip-cycles", f, s.skipCycles()));
+        }
+        double end = start + cycles / f;
+        int from = 0;
+        while (from < t.length && t[from] < start - 1e-12) {
+            from++;
+        }
+        int to = from;
+        while (to < t.length && t[to] < end - 1e-12) {
+            to++;
+        }
+        double[] tt = Arrays.copyOfRange(t, from, to);
+        Demodulator.Phasor pf = Demodulator.fit(tt, Arrays.copyOfRange(seg.force(), from, to), f);
+        Demodulator.Phasor ph = Demodulator.fit(tt, Arrays.copyOfRange(seg.displacement(), from, to), f);
+        return new Demodulated(new Complex(pf.re(), pf.im()), new Complex(ph.re(), ph.im()),
+                Math.hypot(pf.seRe(), pf.seIm()) / pf.amplitude(), Math.hypot(ph.seRe(), ph.seIm()) / ph.amplitude(),
+                pf.distortion(), ph.distortion(), cycles);
+    }
+}

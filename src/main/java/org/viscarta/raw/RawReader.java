@@ -1,0 +1,214 @@
+package org.viscarta.raw;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.viscarta.io.InputException;
+import org.viscarta.io.SweepReader;
+
+/**
+ * Reads Viscarta's raw-signal table (PRODUCT.md "Raw signals"): {@code # key: value} metadata, then
+ * {@code time [s]}, either {@code force} and {@code displacement} (or {@code indentation}), or
+ * {@code deflection} and {@code position} with {@code # cantilever_stiffness:} (force = k·deflection,
+ * indentation = position − deflection), and {@code drive_frequency [Hz]}; consecutive rows of one
+ * drive frequency form a segment.
+ */
+public final class RawReader {
+
+    private static final Pattern HEADER = Pattern.compile("^(.*?)\\s*[\\[(]([^\\])]*)[\\])]\\s*$");
+
+    /** One drive frequency's samples, in SI. */
+    public record Segment(double frequencyHz, double[] time, double[] force, double[] displacement, int firstLine) {
+    }
+
+    /** A whole raw file. */
+    public record Measurement(Path file, String sha256, Map<String, String> metadata, List<Segment> segments) {
+        public boolean isCalibration() {
+            return "calibration".equalsIgnoreCase(metadata.getOrDefault("role", ""));
+        }
+    }
+
+    private RawReader() {
+    }
+
+    /** True when the file's header row starts with a time column (a raw-signal table, not a sweep table). */
+    public static boolean isRaw(Path file) {
+        try {
+            for (String line : Files.readAllLines(file, StandardCharsets.UTF_8)) {
+                String l = line.strip();
+                if (l.isEmpty() || l.startsWith("#")) {
+                    continue;
+                }
+                return l.toLowerCase(Locale.ROOT).replace("\"", "").startsWith("time");
+            }
+        } catch (IOException | java.io.UncheckedIOException e) {
+            return false;
+        }
+        return false;
+    }
+
+    public static Measurement read(Path file) {
+        byte[] bytes;
+        List<String> lines;
+        try {
+            bytes = Files.readAllBytes(file);
+            lines = List.of(new String(bytes, StandardCharsets.UTF_8).split("\r?\n", -1));
+        } catch (IOException e) {
+            throw new InputException(file, 0, 0, "cannot read the file (" + e.getMessage() + ")");
+        }
+        Map<String, String> meta = new LinkedHashMap<>();
+        int i = 0;
+        while (i < lines.size() && (lines.get(i).isBlank() || lines.get(i).strip().startsWith("#"))) {
+            String l = lines.get(i).strip();
+            if (l.startsWith("#")) {
+                for (String part : l.substring(1).split(";")) {
+                    int c = part.indexOf(':');
+                    if (c > 0) {
+                        meta.put(part.substring(0, c).strip().toLowerCase(Locale.ROOT).replaceAll("\\s+", "_"), part.substring(c + 1).strip());
+                    }
+                }
+            }
+            i++;
+        }
+        if (i >= lines.size()) {
+            throw new InputException(file, lines.size(), 0, "no header row; write 'time [s],force [N],displacement [m],drive_frequency [Hz]'");
+        }
+        int headerLine = i + 1;
+        String[] header = lines.get(i).split(",");
+        int tCol = -1;
+        int fCol = -1;
+        int dCol = -1;
+        int defCol = -1;
+        int posCol = -1;
+        int freqCol = -1;
+        double[] scale = new double[header.length];
+        for (int c = 0; c < header.length; c++) {
+            Matcher m = HEADER.matcher(header[c].strip().replace("\"", ""));
+            String name = m.matches() ? m.group(1).strip().toLowerCase(Locale.ROOT) : header[c].strip().toLowerCase(Locale.ROOT);
+            String unit = m.matches() ? m.group(2).strip() : "";
+            try {
+                switch (name) {
+                    case "time": tCol = c; scale[c] = timeUnit(unit); break;
+                    case "force": fCol = c; scale[c] = forceUnit(unit); break;
+                    case "displacement": case "indentation": dCol = c; scale[c] = Units.lengthFactor(unit, name); break;
+                    case "deflection": defCol = c; scale[c] = Units.lengthFactor(unit, name); break;
+                    case "position": posCol = c; scale[c] = Units.lengthFactor(unit, name); break;
+                    case "drive_frequency": freqCol = c; scale[c] = freqUnit(unit); break;
+                    default: throw new IllegalArgumentException("unknown column '" + header[c].strip() + "'; a raw table has time [s], "
+                            + "force [N] and displacement [m] (or deflection and position), and drive_frequency [Hz]");
+                }
+            } catch (IllegalArgumentException e) {
+                throw new InputException(file, headerLine, c + 1, e.getMessage());
+            }
+        }
+        boolean cantilever = fCol < 0 && defCol >= 0 && posCol >= 0;
+        if (tCol < 0 || freqCol < 0 || (!cantilever && (fCol < 0 || dCol < 0))) {
+            throw new InputException(file, headerLine, 0, "a raw table needs time, drive_frequency, and force with displacement "
+                    + "(or deflection with position)");
+        }
+        double k = 0;
+        if (cantilever) {
+            try {
+                k = Units.stiffness(meta, "cantilever_stiffness");
+            } catch (IllegalArgumentException e) {
+                throw new InputException(file, headerLine, 0, "deflection and position need '# cantilever_stiffness: 0.05 N/m' ("
+                        + e.getMessage() + ")");
+            }
+        }
+        List<Segment> segments = new ArrayList<>();
+        List<double[]> rows = new ArrayList<>();
+        double current = Double.NaN;
+        int first = 0;
+        for (int r = i + 1; r < lines.size(); r++) {
+            String l = lines.get(r).strip();
+            if (l.isEmpty() || l.startsWith("#")) {
+                continue;
+            }
+            String[] cells = l.split(",");
+            if (cells.length != header.length) {
+                throw new InputException(file, r + 1, 0, "row has " + cells.length + " fields but the header has " + header.length);
+            }
+            double[] v = new double[header.length];
+            for (int c = 0; c < header.length; c++) {
+                String cell = cells[c].strip();
+                if (!SweepReader.isPlainNumber(cell)) {
+                    throw new InputException(file, r + 1, c + 1, "'" + cell + "' is not a number");
+                }
+                v[c] = Double.parseDouble(cell) * scale[c];
+            }
+            if (!(v[freqCol] > 0)) {
+                throw new InputException(file, r + 1, freqCol + 1, "drive frequency must be greater than zero");
+            }
+            if (v[freqCol] != current) {
+                if (!rows.isEmpty()) {
+                    segments.add(segment(current, rows, tCol, fCol, dCol, defCol, posCol, k, cantilever, first));
+                }
+                rows.clear();
+                current = v[freqCol];
+                first = r + 1;
+            }
+            rows.add(v);
+        }
+        if (!rows.isEmpty()) {
+            segments.add(segment(current, rows, tCol, fCol, dCol, defCol, posCol, k, cantilever, first));
+        }
+        if (segments.isEmpty()) {
+            throw new InputException(file, headerLine, 0, "the header is not followed by any samples");
+        }
+        return new Measurement(file, SweepReader.sha256(bytes), meta, segments);
+    }
+
+    private static Segment segment(double f, List<double[]> rows, int tCol, int fCol, int dCol, int defCol, int posCol, double k,
+                                   boolean cantilever, int firstLine) {
+        int n = rows.size();
+        double[] t = new double[n];
+        double[] force = new double[n];
+        double[] disp = new double[n];
+        for (int j = 0; j < n; j++) {
+            double[] v = rows.get(j);
+            t[j] = v[tCol];
+            if (cantilever) {
+                force[j] = k * v[defCol];
+                disp[j] = v[posCol] - v[defCol];
+            } else {
+                force[j] = v[fCol];
+                disp[j] = v[dCol];
+            }
+        }
+        return new Segment(f, t, force, disp, firstLine);
+    }
+
+    private static double timeUnit(String u) {
+        switch (u) {
+            case "s": return 1;
+            case "ms": return 1e-3;
+            default: throw new IllegalArgumentException("time needs s or ms, not '" + u + "'");
+        }
+    }
+
+    private static double forceUnit(String u) {
+        switch (u) {
+            case "N": return 1;
+            case "mN": return 1e-3;
+            case "µN": case "μN": case "uN": return 1e-6;
+            case "nN": return 1e-9;
+            default: throw new IllegalArgumentException("force needs N, mN, µN or nN, not '" + u + "'");
+        }
+    }
+
+    private static double freqUnit(String u) {
+        switch (u) {
+            case "Hz": return 1;
+            case "kHz": return 1e3;
+            default: throw new IllegalArgumentException("drive_frequency needs Hz or kHz, not '" + u + "'");
+        }
+    }
+}
