@@ -26,6 +26,10 @@ import org.viscarta.io.InputException;
 import org.viscarta.io.ReadWarning;
 import org.viscarta.io.SweepFile;
 import org.viscarta.io.SweepReader;
+import org.viscarta.io.TableInfo;
+import org.viscarta.raw.RawConverter;
+import org.viscarta.raw.RawReader;
+import org.viscarta.raw.RawSweeps;
 import org.viscarta.library.ReferenceLibrary;
 import org.viscarta.model.ModelCatalogue;
 import org.viscarta.model.ViscoelasticModel;
@@ -235,7 +239,21 @@ public final class Campaign {
         Map<String, List<Sweep>> bySample = new LinkedHashMap<>();
         Map<String, Path> replicateSeen = new LinkedHashMap<>();
         for (Path file : InputCollector.collect(inputs)) {
-            SweepFile sf = reader.read(file);
+            SweepFile sf;
+            if (RawReader.isRaw(file)) {
+                RawReader.Measurement m = RawReader.read(file);
+                if (m.isCalibration()) {
+                    notes.add(file + ": a calibration measurement, used by the raw files that name it, not analysed as a sample");
+                    continue;
+                }
+                RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
+                notes.add(file + ": raw signals converted to moduli (" + rs.geometry().describe() + ", calibration: "
+                        + rs.sweep().metadata().get("calibration_used") + ")");
+                sf = new SweepFile(file, m.sha256(), new TableInfo("raw oscillation signals", ',', '.', "UTF-8", 0, List.of(),
+                        m.metadata()), List.of(rs.sweep()), rs.warnings());
+            } else {
+                sf = reader.read(file);
+            }
             files.add(sf);
             warnings.addAll(sf.warnings());
             for (Sweep s : sf.sweeps()) {

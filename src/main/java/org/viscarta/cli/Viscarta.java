@@ -16,7 +16,7 @@ import picocli.CommandLine.Command;
         versionProvider = VersionProvider.class,
         description = "Fits viscoelastic models to oscillatory frequency sweeps (E′, E″ or G′, G″ against frequency), "
                 + "ranks samples by damping (tan δ) and writes a workbook a collaborator can read.",
-        subcommands = {InspectCommand.class, FitCommand.class, RankCommand.class, MatchCommand.class, ShiftCommand.class, LibraryCommand.class, ReportCommand.class,
+        subcommands = {InspectCommand.class, FitCommand.class, RankCommand.class, MatchCommand.class, ShiftCommand.class, ModuliCommand.class, LibraryCommand.class, ReportCommand.class,
             CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
@@ -32,7 +32,7 @@ public final class Viscarta implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "a verb is needed: inspect, fit, rank, match, shift, library or report");
+        throw new CommandLine.ParameterException(spec.commandLine(), "a verb is needed: inspect, fit, rank, match, shift, moduli, library or report");
     }
 
     public static void main(String[] args) {

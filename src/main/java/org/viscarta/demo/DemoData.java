@@ -67,6 +67,7 @@ public final class DemoData {
         hydrogelScreen(rng, files, truths);
         references(rng, files, truths);
         temperatureSeries(rng, files, truths);
+        rawSignals(rng, files, truths);
         return new Generated(files, truths);
     }
 
@@ -195,6 +196,79 @@ public final class DemoData {
             }
         }
         files.add(new DemoFile("demo-data", "temperature-series/acrylic-film-10-to-50C.csv", sb.toString()));
+    }
+
+    /** The demo instrument's phase lag [rad] at f [Hz], which the calibration file records. */
+    static double instrumentPhase(double f) {
+        return 0.02 + 0.01 * Math.log10(f);
+    }
+
+    private static void rawSignals(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {
+        // Raw force and displacement of two unaged films by sphere indentation, through an instrument with a phase lag,
+        // and the calibration of that instrument on a rigid, elastic reference (sapphire, made up for the demo).
+        double[] freqs = {0.1, 0.3, 1, 3, 10, 20};
+        double radius = 50e-6;
+        double depth = 4e-6;
+        double nu = 0.35;
+        double amp = 20e-9;
+        double contact = 2 * Math.sqrt(radius * depth) / (1 - nu * nu);
+        List<Spec> films = List.of(new Spec("linseed-unaged-raw", "linseed-oil", "zener", new double[] {30e6, 60e6, 0.15}),
+                new Spec("alkyd-unaged-raw", "alkyd", "springpot", new double[] {120e6, 0.14}));
+        for (Spec film : films) {
+            ViscoelasticModel m = ModelCatalogue.byId(film.model()).orElseThrow();
+            StringBuilder sb = new StringBuilder();
+            sb.append("# sample: ").append(film.sample()).append('\n');
+            sb.append("# group: ").append(film.group()).append('\n');
+            sb.append("# note: ").append(DEMO_NOTE).append('\n');
+            sb.append("# temperature: 23 °C\n");
+            sb.append("# geometry: sphere; tip_radius: 50 µm; indentation_depth: 4 µm; poisson_ratio: 0.35\n");
+            sb.append("# calibration: calibration-sapphire.csv\n");
+            sb.append("time [s],force [N],displacement [m],drive_frequency [Hz]\n");
+            double t0 = 0;
+            for (double f : freqs) {
+                double[] mod = new double[2];
+                m.modulus(2 * Math.PI * f, film.nominal(), mod);
+                double kRe = mod[0] * contact;
+                double kIm = mod[1] * contact;
+                double lag = instrumentPhase(f);
+                int perCycle = 100;
+                int n = 6 * perCycle;
+                for (int i = 0; i < n; i++) {
+                    double t = i / (perCycle * f);
+                    double ph = 2 * Math.PI * f * t;
+                    double h = depth + amp * Math.cos(ph) + 0.2e-9 * f * t + 1e-9 * Math.exp(-3 * f * t) + 0.05e-9 * gaussian(rng);
+                    double kAbs = Math.hypot(kRe, kIm);
+                    double force = depth * kRe / 1.5 + amp * (kRe * Math.cos(ph + lag) - kIm * Math.sin(ph + lag))
+                            + amp * kAbs * (amp / depth / 8) * Math.cos(2 * ph + lag) + 0.005 * amp * kAbs * gaussian(rng);
+                    sb.append(String.format(Locale.ROOT, "%s,%s,%s,%s%n", num(t0 + t), num(force), num(h), num(f)));
+                }
+                t0 += n / (perCycle * f) + 0.5;
+            }
+            files.add(new DemoFile("demo-data", "raw-signals/" + film.sample() + ".csv", sb.toString()));
+            Map<String, Double> byName = new LinkedHashMap<>();
+            for (int j = 0; j < film.nominal().length; j++) {
+                byName.put(m.parameters().get(j).name(), film.nominal()[j]);
+            }
+            truths.add(new Truth(film.sample(), film.sample(), 23, film.model(), byName));
+        }
+        StringBuilder cal = new StringBuilder();
+        cal.append("# role: calibration\n");
+        cal.append("# reference: sapphire disc, rigid and elastic (made up for the demo)\n");
+        cal.append("# note: ").append(DEMO_NOTE).append('\n');
+        cal.append("time [s],force [N],displacement [m],drive_frequency [Hz]\n");
+        double t0 = 0;
+        for (double f : new double[] {0.05, 0.1, 0.3, 1, 3, 10, 20, 50}) {
+            int n = 600;
+            for (int i = 0; i < n; i++) {
+                double t = i / (100 * f);
+                double ph = 2 * Math.PI * f * t;
+                double h = 1e-6 + amp * Math.cos(ph);
+                double force = 5.0 + 1e5 * amp * Math.cos(ph + instrumentPhase(f));
+                cal.append(String.format(Locale.ROOT, "%s,%s,%s,%s%n", num(t0 + t), num(force), num(h), num(f)));
+            }
+            t0 += n / (100 * f) + 0.5;
+        }
+        files.add(new DemoFile("demo-data", "raw-signals/calibration-sapphire.csv", cal.toString()));
     }
 
     private static void references(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {

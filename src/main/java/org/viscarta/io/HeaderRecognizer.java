@@ -83,6 +83,9 @@ final class HeaderRecognizer {
             unitText = m.group(2).strip();
         }
         String key = name.strip().toLowerCase(Locale.ROOT).replace('’', '\'').replaceAll("[\\s-]+", "_");
+        if (key.startsWith("quality_")) {
+            return new Result(new ColumnSpec(index, header, Quantity.QUALITY, null, null), null);
+        }
         Named n = NAMES.get(key);
         if (n == null) {
             return new Result(null, "unknown column header '" + header + "'; name it like 'frequency [Hz]', "

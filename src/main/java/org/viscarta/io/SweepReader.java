@@ -133,6 +133,10 @@ public final class SweepReader {
             if (r.column() == null) {
                 throw new InputException(path, headerLine, c + 1, r.problem());
             }
+            if (r.column().quantity() == Quantity.QUALITY) {
+                columns.add(r.column());
+                continue;
+            }
             ColumnSpec prev = byQuantity.put(r.column().quantity(), r.column());
             if (prev != null) {
                 throw new InputException(path, headerLine, c + 1, "columns " + (prev.index() + 1) + " and " + (c + 1)

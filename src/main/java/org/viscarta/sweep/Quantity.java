@@ -32,7 +32,9 @@ public enum Quantity {
     /** Position on the sample, x, stored in m. */
     POSITION_X("x", Dimension.LENGTH),
     /** Position on the sample, y, stored in m. */
-    POSITION_Y("y", Dimension.LENGTH);
+    POSITION_Y("y", Dimension.LENGTH),
+    /** A quality column written by {@code moduli} (name starting with {@code quality_}): kept in the file, not used. */
+    QUALITY("quality", Dimension.LABEL);
 
     /** What kind of unit a quantity takes. */
     public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH }

@@ -360,7 +360,7 @@ class CliTest {
             Row bestMimic = wb.getSheet("Mimic ranking").getRow(1);
             assertTrue(List.of("gelatin", "agarose", "polyacrylamide").contains(bestMimic.getCell(3).getStringCellValue()));
             Sheet summary = wb.getSheet("Summary");
-            assertEquals(21, summary.getLastRowNum(), "21 samples: 15 at 23 °C, one film at five temperatures, and its master curve");
+            assertEquals(23, summary.getLastRowNum(), "23 samples: 15 at 23 °C, two from raw signals, one film at five temperatures, its master curve");
             Sheet data = wb.getSheet("Data");
             Row first = data.getRow(1);
             assertEquals(CellType.NUMERIC, first.getCell(5).getCellType(), "frequency stored as a number");

@@ -67,7 +67,7 @@ class ReportOutputTest {
         assertEquals(List.of("Read me", "Summary", "Damping ranking", "Closest reference materials", "Best mimic of target-soft-tissue",
                 "Temperature series: acrylic-film-ts", "Figures", "Provenance"), headings);
         Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
-        assertEquals(1 + 21, ranking.select("tr").size(), "a row per sample, the master curve included");
+        assertEquals(1 + 23, ranking.select("tr").size(), "a row per sample, the master curve included");
         assertTrue(doc.text().contains("not clinical or structural verdicts"));
         assertTrue(doc.text().contains("invented demo data"));
         assertEquals(doc.select("figure").size(), doc.select("figure svg").size(), "every figure is inline SVG");
