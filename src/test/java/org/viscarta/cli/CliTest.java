@@ -324,6 +324,33 @@ class CliTest {
     }
 
     @Test
+    void moduliTurnsTheDemoRawSignalsIntoSweepsOfTheKnownMaterial() throws IOException {
+        Path out = dir.resolve("moduli");
+        CliRun r = CliRun.of("moduli", "demo-data/raw-signals", "--out", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        Path table = out.resolve("alkyd-unaged-raw-moduli.csv");
+        // DemoData made these signals from a springpot c = 120 MPa·s^α, α = 0.14 through a 50 µm sphere at 4 µm,
+        // behind an instrument phase lag that the calibration file records: E′(1 Hz) = c ω^α cos(απ/2)
+        double w = 2 * Math.PI;
+        double truth = 120e6 * Math.pow(w, 0.14) * Math.cos(0.14 * Math.PI / 2);
+        CSVRecord at1 = csvAfterMetadata(table).stream().filter(x -> x.get(0).equals("1.0")).findFirst().orElseThrow();
+        assertEquals(truth, Double.parseDouble(at1.get(1)), 0.005 * truth);
+        assertEquals(Math.tan(0.14 * Math.PI / 2), Double.parseDouble(at1.get(2)) / Double.parseDouble(at1.get(1)), 0.005);
+        CliRun fit = CliRun.of("fit", table.toString(), "--models", "springpot");
+        assertEquals(0, fit.exitCode(), fit.err());
+        CliRun missing = CliRun.of("moduli", "demo-data/raw-signals/alkyd-unaged-raw.csv", "--calibration",
+                dir.resolve("nope.csv").toString(), "--out", dir.resolve("m2").toString());
+        assertEquals(2, missing.exitCode());
+    }
+
+    private static List<CSVRecord> csvAfterMetadata(Path p) throws IOException {
+        String body = Files.readString(p).lines().filter(l -> !l.startsWith("#")).reduce("", (a, b) -> a + b + "\n");
+        try (CSVParser parser = CSVParser.parse(body, CSVFormat.DEFAULT)) {
+            return parser.getRecords();
+        }
+    }
+
+    @Test
     void inspectDescribesColumnsAndSamples() throws IOException {
         Path in = zenerFile("film", 1.0e6, 2.0e6, 0.1);
         CliRun r = CliRun.of("inspect", in.toString());
