@@ -46,6 +46,10 @@ public final class Benchmarks {
         System.out.printf(Locale.ROOT, "machine: %d cores available to the JVM, max heap %d MB, Java %s, %s %s%n",
                 Runtime.getRuntime().availableProcessors(), Runtime.getRuntime().maxMemory() >> 20,
                 System.getProperty("java.version"), System.getProperty("os.name"), System.getProperty("os.arch"));
+        if (args.length >= 2 && args[1].equals("raw-only")) {
+            raw(out);
+            return;
+        }
         if (args.length < 2 || !args[1].equals("campaign-only")) {
             singleFit(out);
             catalogue(out);
@@ -171,6 +175,38 @@ public final class Benchmarks {
 
     private static double singleStart(ModelFitter fitter, Zener zener, List<SweepPoint> pts, double[] start) {
         return fitter.fitFrom("b", zener, pts, List.of(start)).rss();
+    }
+
+    /** Raw signals: 10 drive frequencies × 100,000 samples of force and displacement, read and demodulated. */
+    private static void raw(Path out) throws IOException {
+        Path file = out.resolve("raw-signals.csv");
+        SplittableRandom rng = new SplittableRandom(12);
+        try (Writer w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+            w.write("# geometry: tension; length: 10 mm; area: 5 mm²\ntime [s],force [N],displacement [m],drive_frequency [Hz]\n");
+            double t0 = 0;
+            for (int k = 0; k < 10; k++) {
+                double f = 0.5 * Math.pow(2, k);
+                for (int i = 0; i < 100_000; i++) {
+                    double t = i / (1000.0 * f);
+                    double ph = 2 * Math.PI * f * t;
+                    w.write(String.format(Locale.ROOT, "%.9g,%.9g,%.9g,%s%n", t0 + t, 1e-3 * Math.cos(ph + 0.2) + 1e-6 * rng.nextGaussian(),
+                            1e-6 * Math.cos(ph) + 1e-9 * rng.nextGaussian(), f));
+                }
+                t0 += 100.0 / f + 1;
+            }
+        }
+        long bytes = Files.size(file);
+        for (int warm = 0; warm < 2; warm++) {
+            org.viscarta.raw.RawConverter.convert(org.viscarta.raw.RawReader.read(file), org.viscarta.raw.RawConverter.Settings.defaults(), null);
+        }
+        long t0 = System.nanoTime();
+        var m = org.viscarta.raw.RawReader.read(file);
+        long t1 = System.nanoTime();
+        org.viscarta.raw.RawConverter.convert(m, org.viscarta.raw.RawConverter.Settings.defaults(), null);
+        long t2 = System.nanoTime();
+        System.out.printf(Locale.ROOT, "raw signals: %.1f MB, 1,000,000 samples: read %.2f s (%.1f MB/s), demodulated %.2f s "
+                + "(%.2g samples/s), one thread%n", bytes / 1e6, (t1 - t0) / 1e9, bytes / 1e6 / ((t1 - t0) / 1e9), (t2 - t1) / 1e9,
+                1e6 / ((t2 - t1) / 1e9));
     }
 
     private static void reading(Path out) throws IOException {
