@@ -34,6 +34,11 @@ final class ModuliCommand implements Callable<Integer> {
             description = "Raw measurement on a rigid reference at the same drive frequencies (overrides a file's '# calibration:').")
     Path calibration;
 
+    @Option(names = "--calibration-mode", paramLabel = "phase|compliance", defaultValue = "phase",
+            description = "phase: subtract the instrument's phase (default); compliance: remove the measuring system's own "
+                    + "compliance in series, 1/k* = 1/k*_measured − 1/k*_reference (amplitude and phase; for cantilevers and frames).")
+    String calibrationMode;
+
     @Option(names = "--skip-cycles", paramLabel = "N", defaultValue = "1",
             description = "Settling cycles left out at the start of each segment (default: ${DEFAULT-VALUE}).")
     int skipCycles;
@@ -55,7 +60,14 @@ final class ModuliCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         RawConverter.Settings settings = new RawConverter.Settings(skipCycles, distortionLimit);
-        RawConverter.Calibration cal = calibration == null ? null : RawConverter.calibration(RawReader.read(calibration), settings);
+        RawConverter.CalibrationMode mode;
+        switch (calibrationMode.strip().toLowerCase(java.util.Locale.ROOT)) {
+            case "phase": mode = RawConverter.CalibrationMode.PHASE; break;
+            case "compliance": mode = RawConverter.CalibrationMode.COMPLIANCE; break;
+            default: throw new IllegalArgumentException("--calibration-mode takes phase or compliance, not '" + calibrationMode + "'");
+        }
+        RawConverter.Calibration cal = calibration == null ? null
+                : RawConverter.calibration(RawReader.read(calibration), settings).withMode(mode);
         List<RawSweeps> results = new ArrayList<>();
         List<Path> targets = new ArrayList<>();
         for (Path file : InputCollector.collect(inputs)) {

@@ -53,11 +53,48 @@ public final class RawConverter {
                         String note, int firstLine) {
     }
 
-    /** The instrument's phase at each calibration frequency (a rigid, elastic reference should show none). */
-    public record Calibration(double[] frequencyHz, double[] phase) {
+    /** How a calibration corrects the measured stiffness. */
+    public enum CalibrationMode {
+        /** Subtract the instrument's phase φ_inst(f) measured on the rigid reference: δ_sample = δ_meas − φ_inst. */
+        PHASE,
+        /**
+         * Remove the system's own compliance in series (a cantilever or frame): 1/k*_sample = 1/k*_meas − 1/k*_ref, with k*_ref
+         * the complex stiffness measured on the rigid reference (amplitude and phase; DOMAIN.md section 5.2).
+         */
+        COMPLIANCE
+    }
+
+    /**
+     * The instrument's transfer at each calibration frequency, measured on a rigid, elastic reference.
+     *
+     * @param phase     arg k*_ref [rad] (a rigid, elastic reference should show none)
+     * @param magnitude |k*_ref| [N/m]
+     */
+    public record Calibration(double[] frequencyHz, double[] phase, double[] magnitude, CalibrationMode mode) {
         public Calibration {
             frequencyHz = frequencyHz.clone();
             phase = phase.clone();
+            magnitude = magnitude.clone();
+        }
+
+        public Calibration(double[] frequencyHz, double[] phase) {
+            this(frequencyHz, phase, new double[frequencyHz.length], CalibrationMode.PHASE);
+        }
+
+        /** The same calibration applied the other way. */
+        public Calibration withMode(CalibrationMode m) {
+            return new Calibration(frequencyHz, phase, magnitude, m);
+        }
+
+        /** |k*_ref|, interpolated linearly in log f and log |k| (the range is checked by {@link #phaseAt}). */
+        double magnitudeAt(double f) {
+            int n = frequencyHz.length;
+            int i = 1;
+            while (i < n - 1 && frequencyHz[i] < f) {
+                i++;
+            }
+            double w = Math.log(f / frequencyHz[i - 1]) / Math.log(frequencyHz[i] / frequencyHz[i - 1]);
+            return Math.exp((1 - w) * Math.log(magnitude[i - 1]) + w * Math.log(magnitude[i]));
         }
 
         /** φ_inst(f), interpolated linearly in log f; NaN outside the calibrated range. */
@@ -88,10 +125,14 @@ public final class RawConverter {
         List<double[]> rows = new ArrayList<>();
         for (RawReader.Segment seg : m.segments()) {
             Complex k = stiffness(m, seg, s);
-            rows.add(new double[] {seg.frequencyHz(), k.getArgument()});
+            rows.add(new double[] {seg.frequencyHz(), k.getArgument(), k.abs()});
         }
         rows.sort((a, b) -> Double.compare(a[0], b[0]));
-        return new Calibration(rows.stream().mapToDouble(r -> r[0]).toArray(), rows.stream().mapToDouble(r -> r[1]).toArray());
+        if (rows.size() < 2 && rows.size() > 0) {
+            rows.add(rows.get(0).clone());
+        }
+        return new Calibration(rows.stream().mapToDouble(r -> r[0]).toArray(), rows.stream().mapToDouble(r -> r[1]).toArray(),
+                rows.stream().mapToDouble(r -> r[2]).toArray(), CalibrationMode.PHASE);
     }
 
     /**
@@ -127,7 +168,13 @@ public final class RawConverter {
                                     + "too", seg.frequencyHz(), calibration.frequencyHz()[0],
                             calibration.frequencyHz()[calibration.frequencyHz().length - 1]));
                 }
-                k = k.multiply(new Complex(Math.cos(-phi), Math.sin(-phi)));
+                if (calibration.mode() == CalibrationMode.PHASE) {
+                    k = k.multiply(new Complex(Math.cos(-phi), Math.sin(-phi)));
+                } else {
+                    double mag = calibration.magnitudeAt(seg.frequencyHz());
+                    Complex kRef = new Complex(mag * Math.cos(phi), mag * Math.sin(phi));
+                    k = k.reciprocal().subtract(kRef.reciprocal()).reciprocal();
+                }
             }
             double w = 2 * Math.PI * seg.frequencyHz();
             k = k.subtract(new Complex(0, w * drag));

@@ -89,6 +89,7 @@ public final class RawReader {
         int defCol = -1;
         int posCol = -1;
         int freqCol = -1;
+        int segCol = -1;
         double[] scale = new double[header.length];
         for (int c = 0; c < header.length; c++) {
             Matcher m = HEADER.matcher(header[c].strip().replace("\"", ""));
@@ -102,6 +103,7 @@ public final class RawReader {
                     case "deflection": defCol = c; scale[c] = Units.lengthFactor(unit, name); break;
                     case "position": posCol = c; scale[c] = Units.lengthFactor(unit, name); break;
                     case "drive_frequency": freqCol = c; scale[c] = freqUnit(unit); break;
+                    case "segment": segCol = c; scale[c] = 1; break;
                     default: throw new IllegalArgumentException("unknown column '" + header[c].strip() + "'; a raw table has time [s], "
                             + "force [N] and displacement [m] (or deflection and position), and drive_frequency [Hz]");
                 }
@@ -110,10 +112,12 @@ public final class RawReader {
             }
         }
         boolean cantilever = fCol < 0 && defCol >= 0 && posCol >= 0;
-        if (tCol < 0 || freqCol < 0 || (!cantilever && (fCol < 0 || dCol < 0))) {
-            throw new InputException(file, headerLine, 0, "a raw table needs time, drive_frequency, and force with displacement "
-                    + "(or deflection with position)");
+        if (tCol < 0 || (freqCol < 0 && segCol < 0) || (!cantilever && (fCol < 0 || dCol < 0))) {
+            throw new InputException(file, headerLine, 0, "a raw table needs time, drive_frequency (or segment with a "
+                    + "'# drive_frequencies:' line), and force with displacement (or deflection with position)");
         }
+        double[] segmentFrequencies = freqCol < 0 ? segmentFrequencies(file, meta, headerLine) : null;
+        Map<Double, Double> segmentToFrequency = new LinkedHashMap<>();
         double k = 0;
         if (cantilever) {
             try {
@@ -144,15 +148,30 @@ public final class RawReader {
                 }
                 v[c] = Double.parseDouble(cell) * scale[c];
             }
-            if (!(v[freqCol] > 0)) {
-                throw new InputException(file, r + 1, freqCol + 1, "drive frequency must be greater than zero");
+            double freq;
+            if (freqCol >= 0) {
+                freq = v[freqCol];
+                if (!(freq > 0)) {
+                    throw new InputException(file, r + 1, freqCol + 1, "drive frequency must be greater than zero");
+                }
+            } else {
+                Double known = segmentToFrequency.get(v[segCol]);
+                if (known == null) {
+                    if (segmentToFrequency.size() >= segmentFrequencies.length) {
+                        throw new InputException(file, r + 1, segCol + 1, "more segments than the " + segmentFrequencies.length
+                                + " frequencies of '# drive_frequencies:'; list one frequency per segment, in order");
+                    }
+                    known = segmentFrequencies[segmentToFrequency.size()];
+                    segmentToFrequency.put(v[segCol], known);
+                }
+                freq = known;
             }
-            if (v[freqCol] != current) {
+            if (freq != current) {
                 if (!rows.isEmpty()) {
                     segments.add(segment(current, rows, tCol, fCol, dCol, defCol, posCol, k, cantilever, first));
                 }
                 rows.clear();
-                current = v[freqCol];
+                current = freq;
                 first = r + 1;
             }
             rows.add(v);
@@ -164,6 +183,32 @@ public final class RawReader {
             throw new InputException(file, headerLine, 0, "the header is not followed by any samples");
         }
         return new Measurement(file, SweepReader.sha256(bytes), meta, segments);
+    }
+
+    /** The frequencies of '# drive_frequencies: 0.1, 1, 10 Hz', in segment order. */
+    private static double[] segmentFrequencies(Path file, Map<String, String> meta, int headerLine) {
+        String list = meta.get("drive_frequencies");
+        if (list == null) {
+            throw new InputException(file, headerLine, 0, "a segment column needs '# drive_frequencies: 0.1, 1, 10 Hz' (one per segment, in order)");
+        }
+        String body = list.strip();
+        double factor = 1;
+        if (body.endsWith("kHz")) {
+            factor = 1e3;
+            body = body.substring(0, body.length() - 3);
+        } else if (body.endsWith("Hz")) {
+            body = body.substring(0, body.length() - 2);
+        }
+        String[] parts = body.split(",");
+        double[] out = new double[parts.length];
+        for (int i = 0; i < parts.length; i++) {
+            String p = parts[i].strip();
+            if (!SweepReader.isPlainNumber(p) || !(Double.parseDouble(p) > 0)) {
+                throw new InputException(file, headerLine, 0, "'# drive_frequencies: " + list + "' must list positive numbers in Hz");
+            }
+            out[i] = Double.parseDouble(p) * factor;
+        }
+        return out;
     }
 
     private static Segment segment(double f, List<double[]> rows, int tCol, int fCol, int dCol, int defCol, int posCol, double k,

@@ -218,4 +218,67 @@ class RawSignalsTest {
                 () -> RawConverter.convert(RawReader.read(g), RawConverter.Settings.defaults(), null));
         assertTrue(ge.problem().contains("geometry"), ge.problem());
     }
+
+    @Test
+    void aSegmentColumnWithListedFrequenciesReadsLikeADriveFrequencyColumn() throws IOException {
+        Path p = rawFile("bycolumn", "# geometry: tension; length: 10 mm; area: 5 mm²", new Geometry.Tension(10e-3, 5e-6), 0.001, 0, 0);
+        List<String> lines = Files.readAllLines(p);
+        StringBuilder sb = new StringBuilder();
+        java.util.Map<String, String> segOf = new java.util.LinkedHashMap<>();
+        for (String l : lines) {
+            if (l.startsWith("#")) {
+                sb.append(l).append('\n');
+            } else if (l.startsWith("time")) {
+                sb.append("# drive_frequencies: 0.5, 2, 8 Hz\ntime [s],force [N],displacement [m],segment\n");
+            } else {
+                String[] c = l.split(",");
+                segOf.putIfAbsent(c[3], Integer.toString(segOf.size() + 1));
+                sb.append(c[0]).append(',').append(c[1]).append(',').append(c[2]).append(',').append(segOf.get(c[3])).append('\n');
+            }
+        }
+        Path q = dir.resolve("segments.csv");
+        Files.writeString(q, sb.toString());
+        List<RawConverter.Point> a = RawConverter.convert(RawReader.read(p), RawConverter.Settings.defaults(), null);
+        List<RawConverter.Point> b = RawConverter.convert(RawReader.read(q), RawConverter.Settings.defaults(), null);
+        assertEquals(a.size(), b.size());
+        for (int i = 0; i < a.size(); i++) {
+            assertEquals(a.get(i).frequencyHz(), b.get(i).frequencyHz());
+            assertEquals(a.get(i).storage(), b.get(i).storage(), 1e-12 * a.get(i).storage());
+        }
+    }
+
+    @Test
+    void complianceCalibrationRemovesASeriesSpring() throws IOException {
+        // The sample seen through a frame of stiffness 2e5 N/m with a small loss: 1/k_meas = 1/k_sample + 1/k_frame.
+        Complex frame = new Complex(2e5, 2e3);
+        Geometry g = new Geometry.Tension(10e-3, 5e-6);
+        StringBuilder sb = new StringBuilder("# geometry: tension; length: 10 mm; area: 5 mm²\ntime [s],force [N],displacement [m],drive_frequency [Hz]\n");
+        StringBuilder cal = new StringBuilder("# role: calibration\ntime [s],force [N],displacement [m],drive_frequency [Hz]\n");
+        double t0 = 0;
+        for (double f : new double[] {0.5, 2, 8}) {
+            Complex ks = zener(f).divide(g.modulus(Complex.ONE));
+            Complex km = ks.reciprocal().add(frame.reciprocal()).reciprocal();
+            for (int i = 0; i < 1400; i++) {
+                double tt = i / (200 * f);
+                double ph = 2 * Math.PI * f * tt;
+                double h = 1e-8 * Math.cos(ph);
+                sb.append(String.format(Locale.ROOT, "%.9g,%.12g,%.12g,%s%n", t0 + tt, 1e-8 * (km.getReal() * Math.cos(ph)
+                        - km.getImaginary() * Math.sin(ph)), h, f));
+                cal.append(String.format(Locale.ROOT, "%.9g,%.12g,%.12g,%s%n", t0 + tt, 1e-8 * (frame.getReal() * Math.cos(ph)
+                        - frame.getImaginary() * Math.sin(ph)), h, f));
+            }
+            t0 += 1400 / (200 * f) + 1;
+        }
+        Path p = dir.resolve("framed.csv");
+        Path c = dir.resolve("frame-cal.csv");
+        Files.writeString(p, sb.toString());
+        Files.writeString(c, cal.toString());
+        RawConverter.Calibration calibration = RawConverter.calibration(RawReader.read(c), RawConverter.Settings.defaults())
+                .withMode(RawConverter.CalibrationMode.COMPLIANCE);
+        for (RawConverter.Point pt : RawConverter.convert(RawReader.read(p), RawConverter.Settings.defaults(), calibration)) {
+            Complex truth = zener(pt.frequencyHz());
+            assertEquals(truth.getReal(), pt.storage(), 1e-6 * truth.abs());
+            assertEquals(truth.getImaginary(), pt.loss(), 1e-6 * truth.abs());
+        }
+    }
 }
