@@ -142,12 +142,7 @@ public final class RawConverter {
      * @throws InputException for a bad geometry, too short a segment, or a frequency outside the calibration
      */
     public static List<Point> convert(RawReader.Measurement m, Settings s, Calibration calibration) {
-        Geometry g;
-        try {
-            g = Geometry.from(m.metadata());
-        } catch (IllegalArgumentException e) {
-            throw new InputException(m.file(), 1, 0, e.getMessage());
-        }
+        Geometry g = geometry(m);
         double drag = 0;
         if (m.metadata().containsKey("drag")) {
             try {
@@ -192,10 +187,24 @@ public final class RawConverter {
         return out;
     }
 
-    /** The geometry of a measurement (for the output's metadata). */
+    /**
+     * The geometry of a measurement. Without an {@code indentation_depth}, a {@code contact_point}
+     * (the displacement, or position minus deflection, at first contact) gives the static depth as the
+     * mean indentation of the first segment minus the contact point.
+     */
     public static Geometry geometry(RawReader.Measurement m) {
         try {
-            return Geometry.from(m.metadata());
+            java.util.Map<String, String> meta = new java.util.LinkedHashMap<>(m.metadata());
+            if (!meta.containsKey("indentation_depth") && meta.containsKey("contact_point")) {
+                double contact = Units.length(meta, "contact_point");
+                double[] d = m.segments().get(0).displacement();
+                double mean = java.util.Arrays.stream(d).average().orElseThrow();
+                if (!(mean - contact > 0)) {
+                    throw new IllegalArgumentException("the mean indentation does not exceed the contact point; check '# contact_point:'");
+                }
+                meta.put("indentation_depth", (mean - contact) + " m");
+            }
+            return Geometry.from(meta);
         } catch (IllegalArgumentException e) {
             throw new InputException(m.file(), 1, 0, e.getMessage());
         }

@@ -281,4 +281,14 @@ class RawSignalsTest {
             assertEquals(truth.getImaginary(), pt.loss(), 1e-6 * truth.abs());
         }
     }
+
+    @Test
+    void aContactPointGivesTheStaticDepth() throws IOException {
+        // rawFile's displacement oscillates about 4 µm (+ 1 nm/s drift and a small transient); with the contact at 1 µm the static
+        // depth is about 3 µm, so the sphere's contact radius is sqrt(50 µm · 3 µm)
+        Path p = rawFile("contact", "# geometry: sphere; tip_radius: 50 µm; contact_point: 1 µm; poisson_ratio: 0.5",
+                new Geometry.Sphere(50e-6, 3e-6, 0.5), 0, 0, 0);
+        Geometry g = RawConverter.geometry(RawReader.read(p));
+        assertEquals(3e-6, ((Geometry.Sphere) g).staticDepth(), 0.01e-6);
+    }
 }
