@@ -48,9 +48,10 @@ public final class Campaign {
     /** What the analysis was asked to do; every field goes into the report's provenance. */
     public record Settings(List<String> modelIds, double atHz, boolean modelOutsideRange, ModulusKind basis,
                            OptionalDouble poisson, ModulusKind declaredKind, Weighting weighting, double bandLowHz,
-                           double bandHighHz, double alpha) {
+                           double bandHighHz, double alpha, Map<String, String> columns, boolean strict) {
 
         public Settings {
+            columns = Map.copyOf(columns);
             if (!Double.isNaN(bandLowHz) && !(bandLowHz > 0 && bandHighHz > bandLowHz && Double.isFinite(bandHighHz))) {
                 throw new IllegalArgumentException("the band must run from a lower to a higher positive frequency, got "
                         + bandLowHz + "–" + bandHighHz + " Hz");
@@ -77,40 +78,52 @@ public final class Campaign {
 
         /** All implemented models, 1 Hz, no extrapolation, no basis conversion, log residuals. */
         public static Settings defaults() {
-            return new Settings(ModelCatalogue.ids(), 1.0, false, null, OptionalDouble.empty(), null, Weighting.LOG, Double.NaN, Double.NaN, 0.05);
+            return new Settings(ModelCatalogue.ids(), 1.0, false, null, OptionalDouble.empty(), null, Weighting.LOG, Double.NaN, Double.NaN, 0.05, Map.of(), false);
         }
 
         public Settings withModels(List<String> ids) {
-            return new Settings(ids, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
+            return new Settings(ids, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha, columns, strict);
         }
 
         public Settings withAt(double hz) {
-            return new Settings(modelIds, hz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
+            return new Settings(modelIds, hz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha, columns, strict);
         }
 
         public Settings withModelOutsideRange(boolean allow) {
-            return new Settings(modelIds, atHz, allow, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
+            return new Settings(modelIds, atHz, allow, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha, columns, strict);
         }
 
         public Settings withBasis(ModulusKind kind, OptionalDouble nu) {
-            return new Settings(modelIds, atHz, modelOutsideRange, kind, nu, declaredKind, weighting, bandLowHz, bandHighHz, alpha);
+            return new Settings(modelIds, atHz, modelOutsideRange, kind, nu, declaredKind, weighting, bandLowHz, bandHighHz, alpha, columns, strict);
         }
 
         public Settings withDeclaredKind(ModulusKind kind) {
-            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, kind, weighting, bandLowHz, bandHighHz, alpha);
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, kind, weighting, bandLowHz, bandHighHz, alpha, columns, strict);
         }
 
         public Settings withWeighting(Weighting w) {
-            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, w, bandLowHz, bandHighHz, alpha);
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, w, bandLowHz, bandHighHz, alpha, columns, strict);
         }
 
         /** Rank by the geometric mean of tan δ over [low, high] Hz instead of its value at one frequency. */
         public Settings withBand(double lowHz, double highHz) {
-            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, lowHz, highHz, alpha);
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, lowHz, highHz, alpha, columns, strict);
         }
 
         public Settings withAlpha(double a) {
-            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, a);
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, a, columns, strict);
+        }
+
+        /** Headers (as written) mapped to what they hold, e.g. "Gstar_abs_Pa" to "complex_modulus_magnitude [Pa]". */
+        public Settings withColumns(Map<String, String> map) {
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha,
+                    map, strict);
+        }
+
+        /** With strict, the first bad file stops the run; without, bad files are reported and left out. */
+        public Settings withStrict(boolean s) {
+            return new Settings(modelIds, atHz, modelOutsideRange, basis, poisson, declaredKind, weighting, bandLowHz, bandHighHz, alpha,
+                    columns, s);
         }
 
         /** True when ranking over a band. */
@@ -232,27 +245,28 @@ public final class Campaign {
      * @throws InputException for the first bad input
      */
     public static Campaign read(List<Path> inputs, Settings settings) {
-        SweepReader reader = new SweepReader(settings.declaredKind());
+        SweepReader reader = new SweepReader(settings.declaredKind(), settings.columns());
+        List<InputException> skipped = new ArrayList<>();
         List<SweepFile> files = new ArrayList<>();
         List<ReadWarning> warnings = new ArrayList<>();
         List<String> notes = new ArrayList<>();
         Map<String, List<Sweep>> bySample = new LinkedHashMap<>();
         Map<String, Path> replicateSeen = new LinkedHashMap<>();
-        for (Path file : InputCollector.collect(inputs)) {
+        List<Path> all = InputCollector.collect(inputs);
+        for (Path file : all) {
             SweepFile sf;
-            if (RawReader.isRaw(file)) {
-                RawReader.Measurement m = RawReader.read(file);
-                if (m.isCalibration()) {
-                    notes.add(file + ": a calibration measurement, used by the raw files that name it, not analysed as a sample");
-                    continue;
+            try {
+                sf = readOne(file, reader, notes);
+            } catch (InputException e) {
+                if (settings.strict() || all.size() == 1) {
+                    throw e;
                 }
-                RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
-                notes.add(file + ": raw signals converted to moduli (" + rs.geometry().describe() + ", calibration: "
-                        + rs.sweep().metadata().get("calibration_used") + ")");
-                sf = new SweepFile(file, m.sha256(), new TableInfo("raw oscillation signals", ',', '.', "UTF-8", 0, List.of(),
-                        m.metadata()), List.of(rs.sweep()), rs.warnings());
-            } else {
-                sf = reader.read(file);
+                skipped.add(e);
+                warnings.add(new ReadWarning(file, e.line(), "left out: " + e.getMessage()));
+                continue;
+            }
+            if (sf == null) {
+                continue;
             }
             files.add(sf);
             warnings.addAll(sf.warnings());
@@ -280,6 +294,31 @@ public final class Campaign {
                 bySample.computeIfAbsent(key, k -> new ArrayList<>()).add(sweep);
             }
         }
+        if (files.isEmpty() && !skipped.isEmpty()) {
+            throw skipped.get(0);
+        }
+        return assemble(settings, files, bySample, warnings, notes);
+    }
+
+    /** Reads one file: a raw-signal table (converted) or a sweep table; null for a calibration table. */
+    private static SweepFile readOne(Path file, SweepReader reader, List<String> notes) {
+        if (!RawReader.isRaw(file)) {
+            return reader.read(file);
+        }
+        RawReader.Measurement m = RawReader.read(file);
+        if (m.isCalibration()) {
+            notes.add(file + ": a calibration measurement, used by the raw files that name it, not analysed as a sample");
+            return null;
+        }
+        RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
+        notes.add(file + ": raw signals converted to moduli (" + rs.geometry().describe() + ", calibration: "
+                + rs.sweep().metadata().get("calibration_used") + ")");
+        return new SweepFile(file, m.sha256(), new TableInfo("raw oscillation signals", ',', '.', "UTF-8", 0, List.of(),
+                m.metadata()), List.of(rs.sweep()), rs.warnings());
+    }
+
+    private static Campaign assemble(Settings settings, List<SweepFile> files, Map<String, List<Sweep>> bySample,
+                                     List<ReadWarning> warnings, List<String> notes) {
         Map<String, Long> temperaturesPerName = bySample.values().stream()
                 .collect(Collectors.groupingBy(l -> l.get(0).sample(), Collectors.counting()));
         List<Sample> samples = new ArrayList<>();

@@ -21,13 +21,27 @@ final class InspectCommand implements Callable<Integer> {
     @Mixin
     InputOptions input;
 
+    @picocli.CommandLine.Option(names = {"-o", "--out"}, paramLabel = "FILE.json", description = "Also write the same as JSON.")
+    java.nio.file.Path out;
+
+    @picocli.CommandLine.Option(names = "--force", description = "Replace an existing output file.")
+    boolean force;
+
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
     @Override
-    public Integer call() {
+    public Integer call() throws java.io.IOException {
+        if (out != null) {
+            org.viscarta.io.AtomicOutput.checkWritable(out, force);
+        }
         Campaign campaign = Campaign.read(input.inputs, input.applyTo(Campaign.Settings.defaults()));
         PrintWriter out = spec.commandLine().getOut();
+        for (ReadWarning w : campaign.warnings()) {
+            if (w.message().startsWith("left out: ")) {
+                out.println("left out: " + w.message().substring("left out: ".length()));
+            }
+        }
         for (SweepFile f : campaign.files()) {
             out.println(f.path());
             out.printf("  layout: %s; separator: %s; decimal mark: '%s'; encoding: %s; header on line %d%n",
@@ -55,6 +69,10 @@ final class InspectCommand implements Callable<Integer> {
                 campaign.samples().size(), campaign.files().stream().mapToInt(f -> f.sweeps().size()).sum(),
                 campaign.warnings().size());
         out.flush();
+        if (this.out != null) {
+            String json = Json.inspect(campaign);
+            org.viscarta.io.AtomicOutput.write(this.out, force, o -> o.write(json.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+        }
         return CommandLine.ExitCode.OK;
     }
 }

@@ -20,6 +20,13 @@ final class ReadOptions {
             description = "Poisson's ratio for --basis; overrides each file's '# poisson_ratio:'.")
     Double poisson;
 
+    @Option(names = "--column", paramLabel = "HEADER=quantity [unit]",
+            description = "What a header holds, when it is not recognised: e.g. --column \"G_storage_Pa=G' [Pa]\" (repeatable).")
+    java.util.Map<String, String> columns = new java.util.LinkedHashMap<>();
+
+    @Option(names = "--strict", description = "Stop at the first bad file; by default a bad file among several is reported and left out.")
+    boolean strict;
+
     Campaign.Settings applyTo(Campaign.Settings s) {
         ModulusKind declared = modulus == null ? null : kind(modulus, "--modulus");
         ModulusKind target = basis == null ? null : kind(basis, "--basis");
@@ -27,7 +34,8 @@ final class ReadOptions {
             throw new IllegalArgumentException("--poisson must lie in (-1, 0.5], got " + poisson);
         }
         return s.withDeclaredKind(declared)
-                .withBasis(target, poisson == null ? OptionalDouble.empty() : OptionalDouble.of(poisson));
+                .withBasis(target, poisson == null ? OptionalDouble.empty() : OptionalDouble.of(poisson))
+                .withColumns(columns).withStrict(strict);
     }
 
     private static ModulusKind kind(String text, String option) {

@@ -42,13 +42,22 @@ public final class SweepReader {
     private static final Pattern META_VALUE_WITH_UNIT = Pattern.compile("^\\s*([+-]?[0-9.]+(?:[eE][+-]?\\d+)?)\\s*(.*)$");
 
     private final ModulusKind declaredKind;
+    private final Map<String, String> columnMap;
 
     /**
      * @param declaredKind what the moduli are when neither headers nor metadata say; null means
      *                     "assume tensile and say so"
      */
     public SweepReader(ModulusKind declaredKind) {
+        this(declaredKind, Map.of());
+    }
+
+    /**
+     * @param columnMap headers (as written) mapped to what they hold, e.g. {@code "Gstar_abs_Pa" → "complex_modulus_magnitude [Pa]"}
+     */
+    public SweepReader(ModulusKind declaredKind, Map<String, String> columnMap) {
         this.declaredKind = declaredKind;
+        this.columnMap = Map.copyOf(columnMap);
     }
 
     /** Reads one file. */
@@ -129,9 +138,16 @@ public final class SweepReader {
             if (h.isEmpty()) {
                 throw new InputException(path, headerLine, c + 1, "empty column header; give every column a name and unit, e.g. 'loss_modulus [Pa]'");
             }
-            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, h);
+            String mapped = columnMap.get(h);
+            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, mapped == null ? h : mapped);
             if (r.column() == null) {
-                throw new InputException(path, headerLine, c + 1, r.problem());
+                throw new InputException(path, headerLine, c + 1, mapped == null
+                        ? r.problem() + ", or map it with --column \"" + h + "=quantity [unit]\""
+                        : "--column \"" + h + "=" + mapped + "\": " + r.problem());
+            }
+            if (mapped != null) {
+                ColumnSpec m = r.column();
+                r = new HeaderRecognizer.Result(new ColumnSpec(m.index(), h, m.quantity(), m.unit(), m.kindHint()), null);
             }
             if (r.column().quantity() == Quantity.QUALITY) {
                 columns.add(r.column());
@@ -235,11 +251,14 @@ public final class SweepReader {
                     "both frequency and angular_frequency columns are present; keep one of them");
         }
         boolean pair = q.containsKey(Quantity.STORAGE_MODULUS) && q.containsKey(Quantity.LOSS_MODULUS);
-        boolean magnitude = q.containsKey(Quantity.COMPLEX_MODULUS_MAGNITUDE)
-                && (q.containsKey(Quantity.LOSS_TANGENT) || q.containsKey(Quantity.PHASE_ANGLE));
-        if (!pair && !magnitude) {
+        boolean angle = q.containsKey(Quantity.LOSS_TANGENT) || q.containsKey(Quantity.PHASE_ANGLE);
+        boolean magnitude = (q.containsKey(Quantity.COMPLEX_MODULUS_MAGNITUDE) || q.containsKey(Quantity.COMPLEX_VISCOSITY_MAGNITUDE)) && angle;
+        boolean compliance = q.containsKey(Quantity.STORAGE_COMPLIANCE) && q.containsKey(Quantity.LOSS_COMPLIANCE);
+        boolean viscosity = q.containsKey(Quantity.DYNAMIC_VISCOSITY) && q.containsKey(Quantity.OUT_OF_PHASE_VISCOSITY);
+        if (!pair && !magnitude && !compliance && !viscosity) {
             throw new InputException(path, headerLine, 0, "the moduli are incomplete; give storage_modulus and loss_modulus, "
-                    + "or complex_modulus_magnitude with loss_tangent or phase_angle");
+                    + "complex_modulus_magnitude (or complex_viscosity_magnitude) with loss_tangent or phase_angle, "
+                    + "storage_compliance and loss_compliance, or dynamic_viscosity and out_of_phase_viscosity");
         }
     }
 
@@ -291,12 +310,28 @@ public final class SweepReader {
         }
         double storage;
         double loss;
+        double omega = 2 * Math.PI * f;
         if (q.containsKey(Quantity.STORAGE_MODULUS) && q.containsKey(Quantity.LOSS_MODULUS)) {
             storage = number(rec, q.get(Quantity.STORAGE_MODULUS), dm, path, line);
             loss = number(rec, q.get(Quantity.LOSS_MODULUS), dm, path, line);
+        } else if (q.containsKey(Quantity.STORAGE_COMPLIANCE) && q.containsKey(Quantity.LOSS_COMPLIANCE)) {
+            // J* = J′ − iJ″ = 1/M* ⇒ M′ = J′/(J′² + J″²), M″ = J″/(J′² + J″²) (DOMAIN.md section 0)
+            double jp = number(rec, q.get(Quantity.STORAGE_COMPLIANCE), dm, path, line);
+            double jpp = number(rec, q.get(Quantity.LOSS_COMPLIANCE), dm, path, line);
+            double n = jp * jp + jpp * jpp;
+            if (!(n > 0)) {
+                throw new InputException(path, line, q.get(Quantity.STORAGE_COMPLIANCE).index() + 1, "the compliances are both zero");
+            }
+            storage = jp / n;
+            loss = jpp / n;
+        } else if (q.containsKey(Quantity.DYNAMIC_VISCOSITY) && q.containsKey(Quantity.OUT_OF_PHASE_VISCOSITY)) {
+            // η* = G*/(iω) = η′ − iη″ ⇒ G′ = ωη″, G″ = ωη′ (ISO 6721-10; DOMAIN.md section 1)
+            loss = omega * number(rec, q.get(Quantity.DYNAMIC_VISCOSITY), dm, path, line);
+            storage = omega * number(rec, q.get(Quantity.OUT_OF_PHASE_VISCOSITY), dm, path, line);
         } else {
-            ColumnSpec mc = q.get(Quantity.COMPLEX_MODULUS_MAGNITUDE);
-            double mag = number(rec, mc, dm, path, line);
+            boolean viscous = !q.containsKey(Quantity.COMPLEX_MODULUS_MAGNITUDE);
+            ColumnSpec mc = viscous ? q.get(Quantity.COMPLEX_VISCOSITY_MAGNITUDE) : q.get(Quantity.COMPLEX_MODULUS_MAGNITUDE);
+            double mag = number(rec, mc, dm, path, line) * (viscous ? omega : 1);
             if (!(mag > 0)) {
                 throw new InputException(path, line, mc.index() + 1, "|E*| must be greater than zero, found '"
                         + rec.get(mc.index()) + "'");
@@ -311,7 +346,9 @@ public final class SweepReader {
             loss = mag * Math.sin(delta);
         }
         if (!(storage > 0)) {
-            ColumnSpec sc = q.getOrDefault(Quantity.STORAGE_MODULUS, q.get(Quantity.COMPLEX_MODULUS_MAGNITUDE));
+            ColumnSpec sc = q.getOrDefault(Quantity.STORAGE_MODULUS, q.getOrDefault(Quantity.COMPLEX_MODULUS_MAGNITUDE,
+                    q.getOrDefault(Quantity.STORAGE_COMPLIANCE, q.getOrDefault(Quantity.OUT_OF_PHASE_VISCOSITY,
+                            q.get(Quantity.COMPLEX_VISCOSITY_MAGNITUDE)))));
             throw new InputException(path, line, sc.index() + 1, "storage modulus must be greater than zero, found "
                     + String.format(Locale.ROOT, "%g", storage) + " Pa; remove or correct the row");
         }

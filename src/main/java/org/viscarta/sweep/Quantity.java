@@ -19,6 +19,16 @@ public enum Quantity {
     LOSS_TANGENT("loss_tangent", Dimension.NONE),
     /** Magnitude of the complex modulus |E*| = sqrt(E′² + E″²), stored in Pa. */
     COMPLEX_MODULUS_MAGNITUDE("complex_modulus_magnitude", Dimension.STRESS),
+    /** Storage compliance J′ (J* = J′ − iJ″ = 1/M*), stored in 1/Pa. */
+    STORAGE_COMPLIANCE("storage_compliance", Dimension.COMPLIANCE),
+    /** Loss compliance J″, stored in 1/Pa. */
+    LOSS_COMPLIANCE("loss_compliance", Dimension.COMPLIANCE),
+    /** Dynamic viscosity η′ = G″/ω (η* = η′ − iη″, ISO 6721-10), stored in Pa·s. */
+    DYNAMIC_VISCOSITY("dynamic_viscosity", Dimension.VISCOSITY),
+    /** Out-of-phase viscosity η″ = G′/ω, stored in Pa·s. */
+    OUT_OF_PHASE_VISCOSITY("out_of_phase_viscosity", Dimension.VISCOSITY),
+    /** |η*| = |G*|/ω, stored in Pa·s. */
+    COMPLEX_VISCOSITY_MAGNITUDE("complex_viscosity_magnitude", Dimension.VISCOSITY),
     /** Phase angle δ = atan2(E″, E′), stored in rad. */
     PHASE_ANGLE("phase_angle", Dimension.ANGLE),
     /** Test temperature, stored in °C (a relative scale kept as users write it). */
@@ -37,7 +47,7 @@ public enum Quantity {
     QUALITY("quality", Dimension.LABEL);
 
     /** What kind of unit a quantity takes. */
-    public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH }
+    public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH, COMPLIANCE, VISCOSITY }
 
     private final String canonical;
     private final Dimension dimension;

@@ -21,6 +21,13 @@ public enum Unit {
     DEGREE(Quantity.Dimension.ANGLE, Math.PI / 180.0, "°", "deg", "degree", "degrees"),
     RADIAN(Quantity.Dimension.ANGLE, 1.0, "rad", "radian", "radians"),
     CELSIUS(Quantity.Dimension.TEMPERATURE, 1.0, "°C", "degC", "C", "deg C", "celsius"),
+    PER_PA(Quantity.Dimension.COMPLIANCE, 1.0, "1/Pa", "Pa^-1", "Pa-1", "Pa⁻¹"),
+    PER_KPA(Quantity.Dimension.COMPLIANCE, 1.0e-3, "1/kPa", "kPa^-1", "kPa-1", "kPa⁻¹"),
+    PER_MPA(Quantity.Dimension.COMPLIANCE, 1.0e-6, "1/MPa", "MPa^-1", "MPa-1", "MPa⁻¹"),
+    PER_GPA(Quantity.Dimension.COMPLIANCE, 1.0e-9, "1/GPa", "GPa^-1", "GPa-1", "GPa⁻¹"),
+    PA_S(Quantity.Dimension.VISCOSITY, 1.0, "Pa·s", "Pa.s", "Pa s", "Pas", "Pa*s"),
+    MPA_S(Quantity.Dimension.VISCOSITY, 1.0e-3, "mPa·s", "mPa.s", "mPa s", "mPas", "cP"),
+    KPA_S(Quantity.Dimension.VISCOSITY, 1.0e3, "kPa·s", "kPa.s", "kPa s"),
     METRE(Quantity.Dimension.LENGTH, 1.0, "m"),
     MILLIMETRE(Quantity.Dimension.LENGTH, 1.0e-3, "mm"),
     MICROMETRE(Quantity.Dimension.LENGTH, 1.0e-6, "µm", "μm", "um", "micron"),
@@ -64,7 +71,7 @@ public enum Unit {
             }
             for (String s : u.spellings) {
                 // a lower-case match is accepted only when it cannot confuse mPa with MPa
-                if (!s.isEmpty() && s.equalsIgnoreCase(t) && !t.equals("mPa")) {
+                if (!s.isEmpty() && s.equalsIgnoreCase(t) && !t.equals("mPa") && !t.startsWith("mPa")) {
                     return Optional.of(u);
                 }
             }

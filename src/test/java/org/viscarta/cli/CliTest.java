@@ -351,6 +351,29 @@ class CliTest {
     }
 
     @Test
+    void aBadFileAmongSeveralIsLeftOutUnlessStrict() throws IOException {
+        Path good = zenerFile("good", 1e6, 2e6, 0.1);
+        Path bad = write("bad.csv", "frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,x,1\n");
+        CliRun r = CliRun.of("rank", good.toString(), bad.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.err().contains("left out: " + bad + ":2:2: "), r.err());
+        assertTrue(r.out().contains("good"), r.out());
+        CliRun strict = CliRun.of("rank", good.toString(), bad.toString(), "--strict");
+        assertEquals(2, strict.exitCode());
+        assertTrue(strict.err().startsWith(bad + ":2:2: "), strict.err());
+    }
+
+    @Test
+    void inspectWritesJson() throws IOException {
+        Path out = dir.resolve("inspect.json");
+        CliRun r = CliRun.of("inspect", zenerFile("film", 1e6, 2e6, 0.1).toString(), "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        String json = Files.readString(out);
+        assertTrue(json.contains("\"quantity\": \"storage_modulus\"") && json.contains("\"sample\": \"film\""), json);
+        assertTrue(json.startsWith("{") && json.strip().endsWith("}"));
+    }
+
+    @Test
     void inspectDescribesColumnsAndSamples() throws IOException {
         Path in = zenerFile("film", 1.0e6, 2.0e6, 0.1);
         CliRun r = CliRun.of("inspect", in.toString());

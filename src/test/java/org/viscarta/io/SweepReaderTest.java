@@ -274,4 +274,45 @@ class SweepReaderTest {
         SweepFile f = read("\"sample\",\"frequency [Hz]\",\"storage_modulus [Pa]\",\"loss_modulus [Pa]\"\n\"gel, soft\",1,100,10\n");
         assertEquals("gel, soft", f.sweeps().get(0).sample());
     }
+
+    @Test
+    void compliancesBecomeModuli() throws IOException {
+        // J* = J′ − iJ″ = 1/M*: J′ = 3e-4, J″ = 4e-4 1/Pa ⇒ |J*| = 5e-4 ⇒ M′ = J′/|J*|² = 1200, M″ = J″/|J*|² = 1600 Pa
+        SweepFile f = read("frequency [Hz],J' [1/Pa],J'' [1/Pa]\n1,3e-4,4e-4\n");
+        SweepPoint p = f.sweeps().get(0).points().get(0);
+        assertEquals(1200, p.storage(), 1e-9);
+        assertEquals(1600, p.loss(), 1e-9);
+        SweepFile k = read("frequency [Hz],storage_compliance [1/kPa],loss_compliance [1/kPa]\n1,0.3,0.4\n");
+        assertEquals(1200, k.sweeps().get(0).points().get(0).storage(), 1e-9); // 0.3 /kPa = 3e-4 /Pa, as above
+    }
+
+    @Test
+    void viscositiesBecomeShearModuli() throws IOException {
+        // η* = G*/(iω) = η′ − iη″ ⇒ G′ = ωη″, G″ = ωη′ (ISO 6721-10); at ω = 2 rad/s, η′ = 50, η″ = 20 Pa·s ⇒ G′ = 40, G″ = 100 Pa
+        SweepFile f = read("angular_frequency [rad/s],η' [Pa·s],η'' [Pa·s]\n2,50,20\n");
+        SweepPoint p = f.sweeps().get(0).points().get(0);
+        assertEquals(40, p.storage(), 1e-9);
+        assertEquals(100, p.loss(), 1e-9);
+        assertEquals(ModulusKind.SHEAR, f.sweeps().get(0).kind());
+        // |η*| with the phase angle: |G*| = ω|η*| = 2·50 = 100 Pa at δ = 30°
+        SweepFile m = read("angular_frequency [rad/s],complex_viscosity [mPa·s],phase_angle [deg]\n2,50000,30\n");
+        assertEquals(100 * Math.cos(Math.PI / 6), m.sweeps().get(0).points().get(0).storage(), 1e-9);
+    }
+
+    @Test
+    void aColumnMapNamesWhatAnUnknownHeaderHolds() throws IOException {
+        Path p = write("mapped.csv", "angular_frequency_rad_s,G_storage_Pa,G_loss_Pa\n6.283185307179586,100,30\n");
+        SweepFile f = new SweepReader(null, java.util.Map.of("angular_frequency_rad_s", "angular_frequency [rad/s]",
+                "G_storage_Pa", "G' [Pa]", "G_loss_Pa", "G'' [Pa]")).read(p);
+        assertEquals(1.0, f.sweeps().get(0).points().get(0).frequencyHz(), 1e-12);
+        assertEquals("G_storage_Pa", f.info().columns().get(1).header());
+        InputException e = assertThrows(InputException.class, () -> reader.read(p));
+        assertTrue(e.problem().contains("--column \"angular_frequency_rad_s=quantity [unit]\""), e.problem());
+    }
+
+    @Test
+    void qualityColumnsAreAcceptedAndIgnored() throws IOException {
+        SweepFile f = read("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],quality_force_distortion,quality_linear\n1,100,10,0.01,yes\n");
+        assertEquals(100, f.sweeps().get(0).points().get(0).storage());
+    }
 }

@@ -1,0 +1,40 @@
+package org.viscarta.realdata;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Collectors;
+import org.junit.jupiter.api.Test;
+import org.viscarta.Campaign;
+
+/**
+ * Real measured sweeps from ../shared/real-data (measured by others; read in place, never copied,
+ * as its README asks; skipped where it is absent): Viscarta reads the exports with a column map and
+ * gives answers that agree with what the sources say about the materials.
+ */
+class RealDataTest {
+
+    private static final Path CONDENSATES = Path.of("..", "shared", "real-data", "condensate-microrheology", "condensate_moduli_by_set.csv");
+
+    @Test
+    void condensatesReadAndDampAsTheirModuliSay() {
+        assumeTrue(Files.exists(CONDENSATES), "../shared/real-data is not here");
+        Campaign c = Campaign.read(List.of(CONDENSATES), Campaign.Settings.defaults().withColumns(Map.of(
+                "condensate", "sample", "set", "replicate", "angular_frequency_rad_s", "angular_frequency [rad/s]",
+                "G_storage_Pa", "G' [Pa]", "G_loss_Pa", "G'' [Pa]")));
+        assertEquals(4, c.samples().size(), "four condensate materials (SOURCE.md)");
+        // the first rows of the file: SL at 3.14 rad/s has G′ ≈ 10–11 Pa and G″ ≈ 32–34 Pa, a liquid (G″ > G′)
+        Map<String, Double> tan = c.rank(List.of()).stream().filter(r -> r.tanDelta() != null)
+                .collect(Collectors.toMap(r -> r.sample().name(), r -> r.tanDelta().mean()));
+        assertTrue(tan.get("SL") > 1, "SL is liquid-like at 1 Hz: tan δ = " + tan.get("SL"));
+        List<Campaign.SampleFits> fits = c.fit();
+        for (Campaign.SampleFits sf : fits) {
+            assertTrue(sf.best().isPresent(), sf.sample().name() + ": some model converges");
+        }
+    }
+}
