@@ -12,7 +12,7 @@ import java.util.stream.Stream;
 
 /**
  * Turns the INPUT arguments of a verb into a list of files: a file is taken as it is, a folder is
- * searched recursively for sweep tables (.csv, .tsv, .txt), in name order, skipping hidden files
+ * searched recursively for sweep tables (.csv, .tsv, .txt, .xlsx, .xls), in name order, skipping hidden files
  * and folders.
  */
 public final class InputCollector {
@@ -23,7 +23,7 @@ public final class InputCollector {
     /** Files whose names end like this are read from folders. */
     public static boolean looksLikeSweepTable(Path p) {
         String n = p.getFileName().toString().toLowerCase(Locale.ROOT);
-        return n.endsWith(".csv") || n.endsWith(".tsv") || n.endsWith(".txt");
+        return n.endsWith(".csv") || n.endsWith(".tsv") || n.endsWith(".txt") || n.endsWith(".xlsx") || n.endsWith(".xls");
     }
 
     /**

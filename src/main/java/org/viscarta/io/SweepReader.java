@@ -70,8 +70,7 @@ public final class SweepReader {
         }
         String name = path.getFileName().toString().toLowerCase(Locale.ROOT);
         if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
-            throw new InputException(path, 0, 0,
-                    "spreadsheet input is not read by this version; save the sheet as CSV (UTF-8) and pass that file");
+            return readWorkbook(path, bytes);
         }
         String[] encodingUsed = new String[1];
         String text = decode(bytes, encodingUsed);
@@ -79,6 +78,91 @@ public final class SweepReader {
             throw new InputException(path, 1, 0, "the file is empty; a sweep table needs a header row and data rows");
         }
         return parse(path, text, encodingUsed[0], sha256(bytes));
+    }
+
+    /**
+     * Reads every non-empty sheet of an XLSX or XLS workbook (Apache POI) as its own table — one
+     * sample per sheet (named after the sheet unless a '# sample:' cell says otherwise), or a tidy
+     * table; cells holding formulas are read as their cached values. Locations read
+     * {@code book.xlsx#Sheet:row:column}.
+     */
+    private SweepFile readWorkbook(Path path, byte[] bytes) {
+        List<Sweep> sweeps = new ArrayList<>();
+        List<ReadWarning> warnings = new ArrayList<>();
+        TableInfo first = null;
+        int sheets = 0;
+        try (org.apache.poi.ss.usermodel.Workbook wb = org.apache.poi.ss.usermodel.WorkbookFactory.create(
+                new java.io.ByteArrayInputStream(bytes))) {
+            org.apache.poi.ss.usermodel.DataFormatter fmt = new org.apache.poi.ss.usermodel.DataFormatter(Locale.ROOT);
+            for (org.apache.poi.ss.usermodel.Sheet sheet : wb) {
+                StringBuilder text = new StringBuilder();
+                int last = sheet.getLastRowNum();
+                boolean any = false;
+                for (int r = 0; r <= last; r++) {
+                    org.apache.poi.ss.usermodel.Row row = sheet.getRow(r);
+                    if (row != null) {
+                        short lastCell = row.getLastCellNum();
+                        List<String> cells = new ArrayList<>();
+                        for (int c = 0; c < lastCell; c++) {
+                            cells.add(cellText(row.getCell(c), fmt));
+                        }
+                        while (!cells.isEmpty() && cells.get(cells.size() - 1).isEmpty()) {
+                            cells.remove(cells.size() - 1);
+                        }
+                        if (!cells.isEmpty()) {
+                            any = true;
+                            text.append(cells.get(0).startsWith("#") ? String.join(" ", cells) : String.join("\t", cells));
+                        }
+                    }
+                    text.append('\n');
+                }
+                if (!any) {
+                    continue;
+                }
+                Path where = path.resolveSibling(path.getFileName() + "#" + sheet.getSheetName());
+                SweepFile sf = parse(where, text.toString(), "XLSX/XLS workbook, sheet '" + sheet.getSheetName() + "'", "");
+                sweeps.addAll(sf.sweeps());
+                warnings.addAll(sf.warnings());
+                if (first == null) {
+                    first = sf.info();
+                }
+                sheets++;
+            }
+        } catch (IOException | RuntimeException e) {
+            if (e instanceof InputException ie) {
+                throw ie;
+            }
+            throw new InputException(path, 0, 0, "the workbook cannot be read (" + e.getMessage() + "); save it again from a "
+                    + "spreadsheet program or export the sheet as CSV");
+        }
+        if (first == null) {
+            throw new InputException(path, 1, 0, "the workbook has no sheet with data");
+        }
+        TableInfo info = new TableInfo("workbook, " + sheets + " sheet(s): " + first.layout(), '\t', '.', "XLSX/XLS",
+                first.headerLine(), first.columns(), first.metadata());
+        return new SweepFile(path, sha256(bytes), info, sweeps, warnings);
+    }
+
+    private static String cellText(org.apache.poi.ss.usermodel.Cell cell, org.apache.poi.ss.usermodel.DataFormatter fmt) {
+        if (cell == null) {
+            return "";
+        }
+        org.apache.poi.ss.usermodel.CellType type = cell.getCellType();
+        if (type == org.apache.poi.ss.usermodel.CellType.FORMULA) {
+            type = cell.getCachedFormulaResultType();
+        }
+        switch (type) {
+            case NUMERIC:
+                return Double.toString(cell.getNumericCellValue());
+            case STRING:
+                return cell.getStringCellValue().strip();
+            case BOOLEAN:
+                return Boolean.toString(cell.getBooleanCellValue());
+            case ERROR:
+                return "#ERROR";
+            default:
+                return fmt.formatCellValue(cell).strip();
+        }
     }
 
     private SweepFile parse(Path path, String text, String encoding, String sha) {
@@ -548,6 +632,10 @@ public final class SweepReader {
 
     private static String stem(Path path) {
         String n = path.getFileName().toString();
+        int sheet = n.indexOf(".xls");
+        if (sheet > 0 && n.indexOf('#', sheet) > 0) {
+            return n.substring(n.indexOf('#', sheet) + 1);
+        }
         int dot = n.lastIndexOf('.');
         return dot > 0 ? n.substring(0, dot) : n;
     }

@@ -41,18 +41,16 @@ public final class RawReader {
 
     /** True when the file's header row starts with a time column (a raw-signal table, not a sweep table). */
     public static boolean isRaw(Path file) {
-        try {
-            for (String line : Files.readAllLines(file, StandardCharsets.UTF_8)) {
-                String l = line.strip();
-                if (l.isEmpty() || l.startsWith("#")) {
-                    continue;
-                }
-                return l.toLowerCase(Locale.ROOT).replace("\"", "").startsWith("time");
-            }
+        String name = file.getFileName().toString().toLowerCase(Locale.ROOT);
+        if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
+            return false;
+        }
+        try (java.util.stream.Stream<String> lines = Files.lines(file, StandardCharsets.UTF_8)) {
+            return lines.map(String::strip).filter(l -> !l.isEmpty() && !l.startsWith("#")).findFirst()
+                    .map(l -> l.toLowerCase(Locale.ROOT).replace("\"", "").startsWith("time")).orElse(false);
         } catch (IOException | java.io.UncheckedIOException e) {
             return false;
         }
-        return false;
     }
 
     public static Measurement read(Path file) {

@@ -256,10 +256,74 @@ class SweepReaderTest {
     }
 
     @Test
-    void rejectsSpreadsheetFilesWithAClearMessage() throws IOException {
+    void rejectsABrokenWorkbookWithAClearMessage() throws IOException {
         Path p = write("book.xlsx", "not really a workbook");
         InputException e = assertThrows(InputException.class, () -> reader.read(p));
-        assertTrue(e.problem().contains("save the sheet as CSV"), e.problem());
+        assertTrue(e.problem().contains("the workbook cannot be read"), e.problem());
+    }
+
+    @Test
+    void readsEverySheetOfAWorkbookWithCachedFormulaValues() throws IOException {
+        Path p = dir.resolve("book.xlsx");
+        try (org.apache.poi.xssf.usermodel.XSSFWorkbook wb = new org.apache.poi.xssf.usermodel.XSSFWorkbook()) {
+            var one = wb.createSheet("gel A");
+            one.createRow(0).createCell(0).setCellValue("# temperature: 25 °C");
+            var h = one.createRow(1);
+            h.createCell(0).setCellValue("frequency [Hz]");
+            h.createCell(1).setCellValue("storage_modulus [kPa]");
+            h.createCell(2).setCellValue("loss_modulus [kPa]");
+            for (int i = 0; i < 3; i++) {
+                var r = one.createRow(2 + i);
+                r.createCell(0).setCellValue(Math.pow(10, i - 1));
+                r.createCell(1).setCellValue(10 + i);
+                r.createCell(2).setCellFormula("B" + (3 + i) + "/10");
+            }
+            var tidy = wb.createSheet("tidy");
+            var th = tidy.createRow(0);
+            String[] headers = {"sample", "frequency [Hz]", "storage_modulus [Pa]", "loss_modulus [Pa]"};
+            for (int c = 0; c < 4; c++) {
+                th.createCell(c).setCellValue(headers[c]);
+            }
+            for (int i = 0; i < 2; i++) {
+                var r = tidy.createRow(1 + i);
+                r.createCell(0).setCellValue(i == 0 ? "x" : "y");
+                r.createCell(1).setCellValue(1);
+                r.createCell(2).setCellValue(100);
+                r.createCell(3).setCellValue(10);
+            }
+            org.apache.poi.ss.usermodel.FormulaEvaluator ev = wb.getCreationHelper().createFormulaEvaluator();
+            ev.evaluateAll();
+            try (var out = Files.newOutputStream(p)) {
+                wb.write(out);
+            }
+        }
+        SweepFile f = reader.read(p);
+        assertEquals(List.of("gel A", "x", "y"), f.sweeps().stream().map(Sweep::sample).toList());
+        Sweep gel = f.sweeps().get(0);
+        assertEquals(25.0, gel.temperatureC());
+        assertEquals(1100.0, gel.points().get(1).loss(), 1e-9, "formula B4/10 = 1.1 kPa, read as its cached value");
+        assertEquals(4, gel.points().get(1).line(), "spreadsheet row number");
+    }
+
+    @Test
+    void aBadCellInASheetNamesSheetRowAndColumn() throws IOException {
+        Path p = dir.resolve("bad.xlsx");
+        try (org.apache.poi.xssf.usermodel.XSSFWorkbook wb = new org.apache.poi.xssf.usermodel.XSSFWorkbook()) {
+            var s = wb.createSheet("run 2");
+            var h = s.createRow(0);
+            h.createCell(0).setCellValue("frequency [Hz]");
+            h.createCell(1).setCellValue("storage_modulus [Pa]");
+            h.createCell(2).setCellValue("loss_modulus [Pa]");
+            var r = s.createRow(1);
+            r.createCell(0).setCellValue(1);
+            r.createCell(1).setCellValue("n/a");
+            r.createCell(2).setCellValue(3);
+            try (var out = Files.newOutputStream(p)) {
+                wb.write(out);
+            }
+        }
+        InputException e = assertThrows(InputException.class, () -> reader.read(p));
+        assertTrue(e.getMessage().startsWith(p + "#run 2:2:2: "), e.getMessage());
     }
 
     @ParameterizedTest(name = "''{0}'' is a number: {1}")
