@@ -215,6 +215,10 @@ public final class SweepReader {
         }
         Row headerRecord = records.get(0);
         int headerLine = headerRecord.line();
+        SweepFile wide = wideLayout(path, records, metadata, metadataLines, encoding, sha, sep);
+        if (wide != null) {
+            return wide;
+        }
         List<ColumnSpec> columns = new ArrayList<>();
         EnumMap<Quantity, ColumnSpec> byQuantity = new EnumMap<>(Quantity.class);
         for (int c = 0; c < headerRecord.size(); c++) {
@@ -295,6 +299,94 @@ public final class SweepReader {
         boolean tidy = byQuantity.containsKey(Quantity.SAMPLE) || byQuantity.containsKey(Quantity.REPLICATE);
         TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, decimalMark,
                 encoding, headerLine, columns, metadata);
+        return new SweepFile(path, sha, info, sweeps, warnings);
+    }
+
+    private static final Pattern WIDE_HEADER = Pattern.compile(
+            "^(.+?)[\\s_]+(E'|E′|E''|E″|G'|G′|G''|G″|storage[ _]modulus|loss[ _]modulus)\\s*([\\[(][^\\])]*[\\])])$",
+            Pattern.CASE_INSENSITIVE);
+
+    /**
+     * The wide layout spreadsheets produce: one frequency column, then a storage and a loss column per
+     * sample, the sample's name leading each header ("gel A E' [kPa]", "gel A E'' [kPa]"). Returns null
+     * when the header is not of this shape.
+     */
+    private SweepFile wideLayout(Path path, List<Row> records, Map<String, String> metadata, Map<String, Integer> metadataLines,
+                                 String encoding, String sha, char sep) {
+        Row header = records.get(0);
+        int freqCol = -1;
+        ColumnSpec freq = null;
+        Map<String, ColumnSpec[]> bySample = new LinkedHashMap<>();
+        List<ColumnSpec> columns = new ArrayList<>();
+        for (int c = 0; c < header.size(); c++) {
+            String h = header.get(c);
+            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, columnMap.getOrDefault(h, h));
+            if (r.column() != null && (r.column().quantity() == Quantity.FREQUENCY || r.column().quantity() == Quantity.ANGULAR_FREQUENCY)
+                    && freqCol < 0) {
+                freqCol = c;
+                freq = new ColumnSpec(c, h, r.column().quantity(), r.column().unit(), null);
+                columns.add(freq);
+                continue;
+            }
+            Matcher m = WIDE_HEADER.matcher(h.strip());
+            if (!m.matches()) {
+                return null;
+            }
+            HeaderRecognizer.Result q = HeaderRecognizer.recognize(c, m.group(2) + " " + m.group(3));
+            if (q.column() == null) {
+                throw new InputException(path, header.line(), c + 1, q.problem());
+            }
+            ColumnSpec spec = new ColumnSpec(c, h, q.column().quantity(), q.column().unit(), q.column().kindHint());
+            ColumnSpec[] pair = bySample.computeIfAbsent(m.group(1).strip(), k -> new ColumnSpec[2]);
+            pair[spec.quantity() == Quantity.STORAGE_MODULUS ? 0 : 1] = spec;
+            columns.add(spec);
+        }
+        if (freqCol < 0 || bySample.isEmpty()) {
+            return null;
+        }
+        for (Map.Entry<String, ColumnSpec[]> e : bySample.entrySet()) {
+            if (e.getValue()[0] == null || e.getValue()[1] == null) {
+                throw new InputException(path, header.line(), 0, "sample '" + e.getKey() + "' has only one of its two moduli columns; "
+                        + "a wide table gives each sample a storage and a loss column");
+            }
+        }
+        List<ReadWarning> warnings = new ArrayList<>();
+        Map<Quantity, ColumnSpec> kinds = new EnumMap<>(Quantity.class);
+        kinds.put(Quantity.STORAGE_MODULUS, bySample.values().iterator().next()[0]);
+        ModulusKind kind = resolveKind(path, header.line(), kinds, metadata, metadataLines, warnings);
+        char dm = detectDecimalMark(sep, records);
+        double temperature = metadataTemperature(path, metadata, metadataLines.getOrDefault("temperature", 0));
+        List<Sweep> sweeps = new ArrayList<>();
+        for (Map.Entry<String, ColumnSpec[]> e : bySample.entrySet()) {
+            Map<Quantity, ColumnSpec> q = new EnumMap<>(Quantity.class);
+            q.put(freq.quantity(), freq);
+            q.put(Quantity.STORAGE_MODULUS, e.getValue()[0]);
+            q.put(Quantity.LOSS_MODULUS, e.getValue()[1]);
+            List<SweepPoint> pts = new ArrayList<>();
+            for (int r = 1; r < records.size(); r++) {
+                Row rec = records.get(r);
+                if (rec.size() == 1 && rec.get(0).isEmpty()) {
+                    continue;
+                }
+                if (rec.size() != header.size()) {
+                    throw new InputException(path, rec.line(), Math.min(rec.size(), header.size()) + 1, "row has " + rec.size()
+                            + " fields but the header has " + header.size() + "; fill or remove the missing or extra cells");
+                }
+                if (rec.get(e.getValue()[0].index()).isEmpty() && rec.get(e.getValue()[1].index()).isEmpty()) {
+                    continue; // a sample measured at fewer frequencies than the others
+                }
+                pts.add(point(rec, q, dm, path, rec.line()));
+            }
+            if (pts.isEmpty()) {
+                throw new InputException(path, header.line(), e.getValue()[0].index() + 1, "sample '" + e.getKey() + "' has no values");
+            }
+            Sweep sw = new Sweep(e.getKey(), metadata.getOrDefault("replicate", "1"), metadata.getOrDefault("group", ""), kind,
+                    temperature, path, metadata, pts);
+            checkPoints(path, sw, warnings);
+            sweeps.add(sw);
+        }
+        TableInfo info = new TableInfo("wide table (a storage and a loss column per sample)", sep, dm, encoding, header.line(), columns,
+                metadata);
         return new SweepFile(path, sha, info, sweeps, warnings);
     }
 

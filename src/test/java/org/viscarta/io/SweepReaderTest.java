@@ -379,4 +379,27 @@ class SweepReaderTest {
         SweepFile f = read("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],quality_force_distortion,quality_linear\n1,100,10,0.01,yes\n");
         assertEquals(100, f.sweeps().get(0).points().get(0).storage());
     }
+
+    @Test
+    void readsTheWideLayoutWithOneColumnPairPerSample() throws IOException {
+        SweepFile f = read("""
+                # temperature: 23 °C
+                frequency [Hz],gel A E' [kPa],gel A E'' [kPa],gel_B storage_modulus [Pa],gel_B loss_modulus [Pa]
+                0.1,10,1,9000,800
+                1,11,1.5,,
+                10,12,2,9500,900
+                """);
+        assertTrue(f.info().layout().startsWith("wide table"), f.info().layout());
+        assertEquals(List.of("gel A", "gel_B"), f.sweeps().stream().map(Sweep::sample).toList());
+        assertEquals(3, f.sweeps().get(0).points().size());
+        assertEquals(2, f.sweeps().get(1).points().size(), "empty cells: gel_B was not measured at 1 Hz");
+        assertEquals(11000, f.sweeps().get(0).points().get(1).storage(), 1e-9);
+        assertEquals(23.0, f.sweeps().get(1).temperatureC());
+    }
+
+    @Test
+    void aWideTableNeedsBothModuliPerSample() throws IOException {
+        InputException e = bad("frequency [Hz],gel A E' [Pa],gel B E' [Pa],gel B E'' [Pa]\n1,1,2,3\n");
+        assertTrue(e.problem().contains("'gel A' has only one"), e.problem());
+    }
 }
