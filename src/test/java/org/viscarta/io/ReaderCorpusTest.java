@@ -1,0 +1,121 @@
+package org.viscarta.io;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.net.URISyntaxException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SplittableRandom;
+import java.util.stream.Stream;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+
+/**
+ * The reader corpus (src/test/resources/reader-corpus, written with its expectations by
+ * make_corpus.py): every file read as expected or refused with its one-line message; and a property
+ * test: random and mutated files give a clean result or a clean input error, never another exception.
+ */
+class ReaderCorpusTest {
+
+    private static Path corpus() throws URISyntaxException {
+        return Path.of(ReaderCorpusTest.class.getResource("/reader-corpus/expected.csv").toURI()).getParent();
+    }
+
+    static Stream<Arguments> cases() throws IOException, URISyntaxException {
+        List<Arguments> out = new ArrayList<>();
+        try (InputStream in = Files.newInputStream(corpus().resolve("expected.csv"));
+             CSVParser p = CSVParser.parse(new InputStreamReader(in, StandardCharsets.UTF_8),
+                     CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).get())) {
+            for (CSVRecord r : p) {
+                out.add(Arguments.of(r.get("file"), r.get("outcome"), r.get("detail")));
+            }
+        }
+        assertTrue(out.size() >= 40, "at least 40 corpus files");
+        return out.stream();
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("cases")
+    void readsAsExpected(String file, String outcome, String detail) throws URISyntaxException {
+        Path p = corpus().resolve(file);
+        String[] d = detail.split(";", 3);
+        if (outcome.equals("ok")) {
+            SweepFile f = new SweepReader(null).read(p);
+            assertEquals(Integer.parseInt(d[0]), f.sweeps().size(), "sweeps");
+            assertEquals(Integer.parseInt(d[1]), f.sweeps().stream().mapToInt(s -> s.points().size()).sum(), "points");
+            double expected = Double.parseDouble(d[2]);
+            assertEquals(expected, f.sweeps().get(0).points().get(0).storage(), 1e-9 * expected, "first storage modulus [Pa]");
+        } else {
+            InputException e = assertThrows(InputException.class, () -> new SweepReader(null).read(p));
+            assertEquals(Integer.parseInt(d[0]), e.line(), "line: " + e.getMessage());
+            assertEquals(Integer.parseInt(d[1]), e.column(), "column: " + e.getMessage());
+            assertTrue(e.problem().contains(d[2]), e.getMessage());
+            assertFalse(e.getMessage().contains("\n"), "one line");
+        }
+    }
+
+    @TempDir
+    Path dir;
+
+    @Test
+    void randomAndMutatedFilesGiveAResultOrACleanInputErrorOnly() throws IOException, URISyntaxException {
+        List<byte[]> seeds = new ArrayList<>();
+        try (Stream<Path> s = Files.list(corpus())) {
+            for (Path p : s.filter(x -> x.getFileName().toString().matches("\\d\\d-.*")).sorted().toList()) {
+                seeds.add(Files.readAllBytes(p));
+            }
+        }
+        byte[] alphabet = "0123456789.,;\t -+eE#[]()\"'\n\r|*/µ°abcdefghijklmnopqrstuvwxyzHzPaGMk_".getBytes(StandardCharsets.UTF_8);
+        SplittableRandom rng = new SplittableRandom(20261201);
+        int clean = 0;
+        int refused = 0;
+        for (int trial = 0; trial < 3000; trial++) {
+            byte[] base = seeds.get(rng.nextInt(seeds.size()));
+            byte[] data;
+            if (trial % 10 == 0) {
+                data = new byte[rng.nextInt(200)];
+                for (int i = 0; i < data.length; i++) {
+                    data[i] = alphabet[rng.nextInt(alphabet.length)];
+                }
+            } else {
+                data = base.clone();
+                int edits = 1 + rng.nextInt(4);
+                for (int k = 0; k < edits && data.length > 0; k++) {
+                    int at = rng.nextInt(data.length);
+                    switch (rng.nextInt(3)) {
+                        case 0 -> data[at] = alphabet[rng.nextInt(alphabet.length)];
+                        case 1 -> data[at] = (byte) rng.nextInt(256);
+                        default -> data = java.util.Arrays.copyOf(data, at);
+                    }
+                }
+            }
+            Path p = dir.resolve("fuzz.csv");
+            Files.write(p, data);
+            try {
+                new SweepReader(null).read(p);
+                clean++;
+            } catch (InputException e) {
+                assertFalse(e.getMessage().contains("\n"), "one line: " + e.getMessage());
+                assertTrue(e.getMessage().startsWith(p.toString()), e.getMessage());
+                refused++;
+            }
+        }
+        System.out.printf("reader property test: %d read, %d refused cleanly, 0 other exceptions%n", clean, refused);
+        assertTrue(clean >= 10 && refused >= 100, "both outcomes exercised: " + clean + " read, " + refused + " refused");
+    }
+}
