@@ -1,78 +1,124 @@
 package org.viscarta.cli;
 
+import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.concurrent.Callable;
-import org.viscarta.Campaign;
+import org.viscarta.io.AtomicOutput;
 import org.viscarta.io.ColumnSpec;
+import org.viscarta.io.InputCollector;
+import org.viscarta.io.InputException;
 import org.viscarta.io.ReadWarning;
-import org.viscarta.io.SweepFile;
-import org.viscarta.sweep.Sweep;
+import org.viscarta.io.SweepReader;
+import org.viscarta.io.TableInfo;
+import org.viscarta.raw.RawConverter;
+import org.viscarta.raw.RawReader;
+import org.viscarta.raw.RawSweeps;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
 
-/** {@code viscarta inspect}: how each input file was understood. */
+/** {@code viscarta inspect}: how each input file was understood, in one streaming pass per file. */
 @Command(name = "inspect", mixinStandardHelpOptions = true,
         header = "Show how each input file was understood.",
         description = "Show how each input file was understood: layout, separator, columns and units, samples, "
-                + "replicates, frequency range, and every warning. Reads only; writes nothing.")
+                + "replicates, frequency range, and every warning. Sweep tables are read in one streaming pass, so files of "
+                + "any size can be inspected. Writes nothing unless -o is given.")
 final class InspectCommand implements Callable<Integer> {
 
     @Mixin
     InputOptions input;
 
-    @picocli.CommandLine.Option(names = {"-o", "--out"}, paramLabel = "FILE.json", description = "Also write the same as JSON.")
-    java.nio.file.Path out;
+    @Option(names = {"-o", "--out"}, paramLabel = "FILE.json", description = "Also write the same as JSON.")
+    Path out;
 
-    @picocli.CommandLine.Option(names = "--force", description = "Replace an existing output file.")
+    @Option(names = "--force", description = "Replace an existing output file.")
     boolean force;
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
     @Override
-    public Integer call() throws java.io.IOException {
+    public Integer call() throws IOException {
         if (out != null) {
-            org.viscarta.io.AtomicOutput.checkWritable(out, force);
+            AtomicOutput.checkWritable(out, force);
         }
-        Campaign campaign = Campaign.read(input.inputs, input.applyTo(Campaign.Settings.defaults()));
-        PrintWriter out = spec.commandLine().getOut();
-        for (ReadWarning w : campaign.warnings()) {
-            if (w.message().startsWith("left out: ")) {
-                out.println("left out: " + w.message().substring("left out: ".length()));
+        ReadOptions r = input.read;
+        org.viscarta.Campaign.Settings settings = r.applyTo(org.viscarta.Campaign.Settings.defaults());
+        SweepReader reader = new SweepReader(settings.declaredKind(), settings.columns());
+        List<Path> files = InputCollector.collect(input.inputs);
+        List<SweepReader.Summary> summaries = new ArrayList<>();
+        List<String> leftOut = new ArrayList<>();
+        for (Path f : files) {
+            try {
+                summaries.add(summarize(reader, f));
+            } catch (InputException e) {
+                if (r.strict || files.size() == 1) {
+                    throw e;
+                }
+                leftOut.add(e.getMessage());
             }
         }
-        for (SweepFile f : campaign.files()) {
-            out.println(f.path());
-            out.printf("  layout: %s; separator: %s; decimal mark: '%s'; encoding: %s; header on line %d%n",
-                    f.info().layout(), f.info().separatorName(), f.info().decimalMark(), f.info().encoding(),
-                    f.info().headerLine());
-            for (ColumnSpec c : f.info().columns()) {
-                out.printf("  column %d '%s' -> %s%n", c.index() + 1, c.header(), c.describe());
+        if (summaries.isEmpty() && !leftOut.isEmpty()) {
+            throw new InputException(files.get(0), 0, 0, leftOut.get(0));
+        }
+        PrintWriter o = spec.commandLine().getOut();
+        for (String l : leftOut) {
+            o.println("left out: " + l);
+        }
+        int sweeps = 0;
+        int warnings = 0;
+        for (SweepReader.Summary s : summaries) {
+            TableInfo info = s.info();
+            o.println(s.path());
+            o.printf("  layout: %s; separator: %s; decimal mark: '%s'; encoding: %s; header on line %d%n", info.layout(),
+                    info.separatorName(), info.decimalMark(), info.encoding(), info.headerLine());
+            for (ColumnSpec c : info.columns()) {
+                o.printf("  column %d '%s' -> %s%n", c.index() + 1, c.header(), c.describe());
             }
-            f.info().metadata().forEach((k, v) -> out.printf("  metadata %s: %s%n", k, v));
+            info.metadata().forEach((k, v) -> o.printf("  metadata %s: %s%n", k, v));
             TextTable t = new TextTable("sample", "replicate", "group", "basis", "points", "frequency [Hz]", "temperature [°C]");
-            for (Sweep s : f.sweeps()) {
-                t.add(s.sample(), s.replicate(), s.group(), s.kind().toString(), Integer.toString(s.points().size()),
-                        Format.g4(s.minFrequencyHz()) + "–" + Format.g4(s.maxFrequencyHz()), Format.g4(s.temperatureC()));
+            for (SweepReader.SweepSummary w : s.sweeps()) {
+                t.add(w.sample(), w.replicate(), w.group(), w.kind().toString(), Long.toString(w.points()),
+                        Format.g4(w.minFrequencyHz()) + "–" + Format.g4(w.maxFrequencyHz()), Format.g4(w.temperatureC()));
             }
-            t.print(out);
-            for (ReadWarning w : f.warnings()) {
-                out.println("  warning: " + w);
+            t.print(o);
+            for (ReadWarning w : s.warnings()) {
+                o.println("  warning: " + w);
             }
-            out.println();
+            o.println();
+            sweeps += s.sweeps().size();
+            warnings += s.warnings().size();
         }
-        for (String note : campaign.notes()) {
-            out.println("conversion: " + note);
-        }
-        out.printf("%d file(s), %d sample(s), %d sweep(s), %d warning(s)%n", campaign.files().size(),
-                campaign.samples().size(), campaign.files().stream().mapToInt(f -> f.sweeps().size()).sum(),
-                campaign.warnings().size());
-        out.flush();
-        if (this.out != null) {
-            String json = Json.inspect(campaign);
-            org.viscarta.io.AtomicOutput.write(this.out, force, o -> o.write(json.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+        long samples = summaries.stream().flatMap(s -> s.sweeps().stream()).map(w -> w.sample() + "\u0000" + w.temperatureC())
+                .distinct().count();
+        o.printf("%d file(s), %d sample(s), %d sweep(s), %d warning(s)%s%n", summaries.size(), samples, sweeps, warnings,
+                leftOut.isEmpty() ? "" : ", " + leftOut.size() + " file(s) left out");
+        o.flush();
+        if (out != null) {
+            String json = Json.inspect(summaries, leftOut);
+            AtomicOutput.write(out, force, w -> w.write(json.getBytes(StandardCharsets.UTF_8)));
         }
         return CommandLine.ExitCode.OK;
+    }
+
+    private static SweepReader.Summary summarize(SweepReader reader, Path f) {
+        if (!RawReader.isRaw(f)) {
+            return reader.summarize(f);
+        }
+        RawReader.Measurement m = RawReader.read(f);
+        if (m.isCalibration()) {
+            return new SweepReader.Summary(f, new TableInfo("raw oscillation signals: a calibration on a rigid reference", ',', '.',
+                    "UTF-8", 0, List.of(), m.metadata()), List.of(), List.of());
+        }
+        RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
+        var s = rs.sweep();
+        return new SweepReader.Summary(f, new TableInfo("raw oscillation signals (" + rs.geometry().describe() + ")", ',', '.',
+                "UTF-8", 0, List.of(), m.metadata()), List.of(new SweepReader.SweepSummary(s.sample(), s.replicate(), s.group(),
+                s.kind(), s.temperatureC(), s.points().size(), s.minFrequencyHz(), s.maxFrequencyHz())), rs.warnings());
     }
 }

@@ -3,11 +3,9 @@ package org.viscarta.cli;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.viscarta.Campaign;
 import org.viscarta.io.ColumnSpec;
 import org.viscarta.io.ReadWarning;
-import org.viscarta.io.SweepFile;
-import org.viscarta.sweep.Sweep;
+import org.viscarta.io.SweepReader;
 
 /** The JSON that {@code inspect -o} writes: how each file was understood. Hand-written: one small, fixed shape. */
 final class Json {
@@ -15,13 +13,11 @@ final class Json {
     private Json() {
     }
 
-    static String inspect(Campaign c) {
+    static String inspect(List<SweepReader.Summary> files, List<String> leftOut) {
         StringBuilder b = new StringBuilder("{\n  \"files\": [");
-        List<SweepFile> files = c.files();
         for (int i = 0; i < files.size(); i++) {
-            SweepFile f = files.get(i);
+            SweepReader.Summary f = files.get(i);
             b.append(i == 0 ? "\n" : ",\n").append("    {\"path\": ").append(str(f.path().toString()))
-                    .append(", \"sha256\": ").append(str(f.sha256()))
                     .append(", \"layout\": ").append(str(f.info().layout()))
                     .append(", \"separator\": ").append(str(f.info().separatorName()))
                     .append(", \"decimal_mark\": ").append(str(String.valueOf(f.info().decimalMark())))
@@ -42,10 +38,10 @@ final class Json {
             }
             b.append("},\n     \"sweeps\": [");
             k = 0;
-            for (Sweep s : f.sweeps()) {
+            for (SweepReader.SweepSummary s : f.sweeps()) {
                 b.append(k++ == 0 ? "" : ", ").append("{\"sample\": ").append(str(s.sample())).append(", \"replicate\": ")
                         .append(str(s.replicate())).append(", \"group\": ").append(str(s.group())).append(", \"basis\": ")
-                        .append(str(s.kind().toString())).append(", \"points\": ").append(s.points().size())
+                        .append(str(s.kind().toString())).append(", \"points\": ").append(s.points())
                         .append(", \"frequency_min_hz\": ").append(num(s.minFrequencyHz())).append(", \"frequency_max_hz\": ")
                         .append(num(s.maxFrequencyHz())).append(", \"temperature_c\": ").append(num(s.temperatureC())).append('}');
             }
@@ -56,17 +52,10 @@ final class Json {
             }
             b.append("]}");
         }
-        b.append("\n  ],\n  \"notes\": [");
+        b.append("\n  ],\n  \"left_out\": [");
         int k = 0;
-        for (String n : c.notes()) {
-            b.append(k++ == 0 ? "" : ", ").append(str(n));
-        }
-        b.append("],\n  \"left_out\": [");
-        k = 0;
-        for (ReadWarning w : c.warnings()) {
-            if (w.message().startsWith("left out: ")) {
-                b.append(k++ == 0 ? "" : ", ").append(str(w.message().substring("left out: ".length())));
-            }
+        for (String l : leftOut) {
+            b.append(k++ == 0 ? "" : ", ").append(str(l));
         }
         return b.append("]\n}\n").toString();
     }

@@ -219,37 +219,10 @@ public final class SweepReader {
         if (wide != null) {
             return wide;
         }
-        List<ColumnSpec> columns = new ArrayList<>();
-        EnumMap<Quantity, ColumnSpec> byQuantity = new EnumMap<>(Quantity.class);
-        for (int c = 0; c < headerRecord.size(); c++) {
-            String h = headerRecord.get(c);
-            if (h.isEmpty()) {
-                throw new InputException(path, headerLine, c + 1, "empty column header; give every column a name and unit, e.g. 'loss_modulus [Pa]'");
-            }
-            String mapped = columnMap.get(h);
-            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, mapped == null ? h : mapped);
-            if (r.column() == null) {
-                throw new InputException(path, headerLine, c + 1, mapped == null
-                        ? r.problem() + ", or map it with --column \"" + h + "=quantity [unit]\""
-                        : "--column \"" + h + "=" + mapped + "\": " + r.problem());
-            }
-            if (mapped != null) {
-                ColumnSpec m = r.column();
-                r = new HeaderRecognizer.Result(new ColumnSpec(m.index(), h, m.quantity(), m.unit(), m.kindHint()), null);
-            }
-            if (r.column().quantity() == Quantity.QUALITY) {
-                columns.add(r.column());
-                continue;
-            }
-            ColumnSpec prev = byQuantity.put(r.column().quantity(), r.column());
-            if (prev != null) {
-                throw new InputException(path, headerLine, c + 1, "columns " + (prev.index() + 1) + " and " + (c + 1)
-                        + " both hold " + r.column().quantity().canonical() + "; keep one of them");
-            }
-            columns.add(r.column());
-        }
-        checkRequiredColumns(path, headerLine, byQuantity);
-        ModulusKind kind = resolveKind(path, headerLine, byQuantity, metadata, metadataLines, warnings);
+        Header hd = header(path, headerRecord, metadata, metadataLines, warnings);
+        List<ColumnSpec> columns = hd.columns();
+        Map<Quantity, ColumnSpec> byQuantity = hd.byQuantity();
+        ModulusKind kind = hd.kind();
         char decimalMark = detectDecimalMark(sep, records);
 
         String defaultSample = metadata.getOrDefault("sample", stem(path));
@@ -300,6 +273,267 @@ public final class SweepReader {
         TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, decimalMark,
                 encoding, headerLine, columns, metadata);
         return new SweepFile(path, sha, info, sweeps, warnings);
+    }
+
+    /**
+     * What {@link #summarize} reports of one sweep, without its points.
+     *
+     * @param points number of points
+     */
+    public record SweepSummary(String sample, String replicate, String group, ModulusKind kind, double temperatureC, long points,
+                               double minFrequencyHz, double maxFrequencyHz) {
+    }
+
+    /** A file summarised: how it was understood, and each sweep's extent. */
+    public record Summary(Path path, TableInfo info, List<SweepSummary> sweeps, List<ReadWarning> warnings) {
+    }
+
+    /** Warnings kept per summarised file; the rest are counted. */
+    private static final int MAX_WARNINGS = 50;
+
+    /**
+     * Reads a sweep table in one streaming pass, keeping for each sweep only its labels, point count
+     * and frequency range, so that memory does not grow with the file (a tidy CSV of any size). Every
+     * row is validated as {@link #read} does. Workbooks and wide tables are read whole.
+     */
+    public Summary summarize(Path path) {
+        String name = path.getFileName().toString().toLowerCase(Locale.ROOT);
+        if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
+            return summaryOf(read(path));
+        }
+        try {
+            return stream(path, StandardCharsets.UTF_8);
+        } catch (CharacterCodingException e) {
+            try {
+                return stream(path, Charset.forName("windows-1252"));
+            } catch (CharacterCodingException impossible) {
+                throw new InputException(path, 0, 0, "cannot decode the file");
+            }
+        }
+    }
+
+    private static Summary summaryOf(SweepFile f) {
+        List<SweepSummary> out = new ArrayList<>();
+        for (Sweep s : f.sweeps()) {
+            out.add(new SweepSummary(s.sample(), s.replicate(), s.group(), s.kind(), s.temperatureC(), s.points().size(),
+                    s.minFrequencyHz(), s.maxFrequencyHz()));
+        }
+        return new Summary(f.path(), f.info(), out, f.warnings());
+    }
+
+    private static final class Extent {
+        final String sample;
+        final String replicate;
+        final String group;
+        final double temperature;
+        long points;
+        double min = Double.POSITIVE_INFINITY;
+        double max = 0;
+
+        Extent(String sample, String replicate, String group, double temperature) {
+            this.sample = sample;
+            this.replicate = replicate;
+            this.group = group;
+            this.temperature = temperature;
+        }
+    }
+
+    private Summary stream(Path path, Charset charset) throws CharacterCodingException {
+        java.nio.charset.CharsetDecoder decoder = charset.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                .onUnmappableCharacter(CodingErrorAction.REPORT);
+        try (java.io.BufferedReader in = new java.io.BufferedReader(
+                new java.io.InputStreamReader(Files.newInputStream(path), decoder), 1 << 16)) {
+            Map<String, String> metadata = new LinkedHashMap<>();
+            Map<String, Integer> metadataLines = new LinkedHashMap<>();
+            List<ReadWarning> warnings = new ArrayList<>();
+            String line;
+            int n = 0;
+            String headerText = null;
+            boolean bom = false;
+            while ((line = in.readLine()) != null) {
+                n++;
+                if (n == 1 && line.startsWith("\uFEFF")) {
+                    line = line.substring(1);
+                    bom = true;
+                }
+                String l = line.strip();
+                if (l.isEmpty()) {
+                    continue;
+                }
+                if (l.startsWith("#")) {
+                    for (String key : parseMetadataLine(l.substring(1), metadata)) {
+                        metadataLines.put(key, n);
+                    }
+                    continue;
+                }
+                headerText = line;
+                break;
+            }
+            if (headerText == null) {
+                throw new InputException(path, Math.max(1, n), 0, n == 0 ? "the file is empty; a sweep table needs a header row and data rows"
+                        : "no header row found; after the '# key: value' lines, write a header such as 'frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]'");
+            }
+            char sep = detectSeparator(headerText);
+            Row headerRow = row(path, headerText, n, sep);
+            // the first rows decide the decimal mark and show whether the table is wide; a wide table is read whole
+            List<Row> first = new ArrayList<>();
+            first.add(headerRow);
+            while (first.size() < 1000 && (line = in.readLine()) != null) {
+                n++;
+                if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
+                    first.add(row(path, line, n, sep));
+                }
+            }
+            String encoding = charset.equals(StandardCharsets.UTF_8) ? (bom ? "UTF-8 with byte-order mark" : "UTF-8") : "windows-1252";
+            if (wideLayout(path, first, metadata, metadataLines, encoding, "", sep) != null) {
+                return summaryOf(read(path));
+            }
+            Header hd = header(path, headerRow, metadata, metadataLines, warnings);
+            char dm = detectDecimalMark(sep, first);
+            RowParser rp = new RowParser(path, hd, dm, metadata, metadataLines);
+            Map<List<String>, Extent> extents = new LinkedHashMap<>();
+            long dropped = 0;
+            for (int i = 1; i < first.size(); i++) {
+                dropped += rp.accept(first.get(i), extents, warnings);
+            }
+            while ((line = in.readLine()) != null) {
+                n++;
+                if (line.isBlank() || line.stripLeading().startsWith("#")) {
+                    continue;
+                }
+                dropped += rp.accept(row(path, line, n, sep), extents, warnings);
+            }
+            if (extents.isEmpty()) {
+                throw new InputException(path, headerRow.line(), 0, "the header is not followed by any data rows");
+            }
+            if (dropped > 0) {
+                warnings.add(new ReadWarning(path, 0, dropped + " more warnings like the above"));
+            }
+            List<SweepSummary> out = new ArrayList<>();
+            for (Extent e : extents.values()) {
+                out.add(new SweepSummary(e.sample, e.replicate, e.group, hd.kind(), e.temperature, e.points, e.min, e.max));
+            }
+            boolean tidy = hd.byQuantity().containsKey(Quantity.SAMPLE) || hd.byQuantity().containsKey(Quantity.REPLICATE);
+            TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, dm, encoding,
+                    headerRow.line(), hd.columns(), metadata);
+            return new Summary(path, info, out, warnings);
+        } catch (java.nio.charset.MalformedInputException | java.nio.charset.UnmappableCharacterException e) {
+            throw e;
+        } catch (IOException e) {
+            throw new InputException(path, 0, 0, "cannot read the file (" + e.getMessage() + ")");
+        }
+    }
+
+    /** Validates rows one at a time, as {@link #parse} does, into sweep extents. */
+    private final class RowParser {
+        private final Path path;
+        private final Header hd;
+        private final char dm;
+        private final String defaultSample;
+        private final String defaultReplicate;
+        private final String defaultGroup;
+        private final double defaultTemperature;
+
+        RowParser(Path path, Header hd, char dm, Map<String, String> metadata, Map<String, Integer> metadataLines) {
+            this.path = path;
+            this.hd = hd;
+            this.dm = dm;
+            this.defaultSample = metadata.getOrDefault("sample", stem(path));
+            this.defaultReplicate = metadata.getOrDefault("replicate", "1");
+            this.defaultGroup = metadata.getOrDefault("group", "");
+            this.defaultTemperature = metadataTemperature(path, metadata, metadataLines.getOrDefault("temperature", 0));
+        }
+
+        /** @return 1 when a warning was counted but not kept */
+        int accept(Row rec, Map<List<String>, Extent> extents, List<ReadWarning> warnings) {
+            int line = rec.line();
+            if (rec.size() != hd.columns().size()) {
+                throw new InputException(path, line, Math.min(rec.size(), hd.columns().size()) + 1, "row has " + rec.size()
+                        + " fields but the header has " + hd.columns().size() + "; fill or remove the missing or extra cells");
+            }
+            Map<Quantity, ColumnSpec> q = hd.byQuantity();
+            String sample = label(rec, q.get(Quantity.SAMPLE), defaultSample, path, line);
+            String replicate = label(rec, q.get(Quantity.REPLICATE), defaultReplicate, path, line);
+            String group = label(rec, q.get(Quantity.GROUP), defaultGroup, path, line);
+            double temperature = q.containsKey(Quantity.TEMPERATURE) ? number(rec, q.get(Quantity.TEMPERATURE), dm, path, line)
+                    : defaultTemperature;
+            SweepPoint p = point(rec, q, dm, path, line);
+            Extent e = extents.computeIfAbsent(List.of(sample, replicate, Double.toString(temperature)),
+                    k -> new Extent(sample, replicate, group, temperature));
+            if (!e.group.equals(group)) {
+                throw new InputException(path, line, q.get(Quantity.GROUP).index() + 1, "sample '" + sample + "' is in group '"
+                        + e.group + "' and in group '" + group + "'; a sample belongs to one group");
+            }
+            e.points++;
+            e.min = Math.min(e.min, p.frequencyHz());
+            e.max = Math.max(e.max, p.frequencyHz());
+            if (!(p.loss() > 0)) {
+                if (warnings.size() >= MAX_WARNINGS) {
+                    return 1;
+                }
+                warnings.add(new ReadWarning(path, line, String.format(Locale.ROOT,
+                        "loss modulus %g Pa is not positive (sample '%s'); the point is kept in the data but left out of model fits",
+                        p.loss(), sample)));
+            }
+            return 0;
+        }
+    }
+
+    private static Row row(Path path, String line, int n, char sep) {
+        if (line.indexOf('"') < 0) {
+            return new Row(n, splitPlain(line, sep));
+        }
+        CSVFormat format = CSVFormat.DEFAULT.builder().setDelimiter(sep).setIgnoreSurroundingSpaces(true).setTrim(true).get();
+        try (CSVParser parser = CSVParser.parse(line, format)) {
+            List<CSVRecord> recs = parser.getRecords();
+            if (recs.size() != 1) {
+                throw new InputException(path, n, 0, "the line cannot be read as one table row; check its quotes");
+            }
+            return new Row(n, recs.get(0).toList());
+        } catch (IOException | UncheckedIOException e) {
+            throw new InputException(path, n, 0, "the line cannot be read as a table row (" + e.getMessage() + "); check its quotes");
+        }
+    }
+
+    /** How the header row was understood. */
+    private record Header(List<ColumnSpec> columns, Map<Quantity, ColumnSpec> byQuantity, ModulusKind kind) {
+    }
+
+    private Header header(Path path, Row headerRecord, Map<String, String> metadata, Map<String, Integer> metadataLines,
+                          List<ReadWarning> warnings) {
+        int headerLine = headerRecord.line();
+        List<ColumnSpec> columns = new ArrayList<>();
+        EnumMap<Quantity, ColumnSpec> byQuantity = new EnumMap<>(Quantity.class);
+        for (int c = 0; c < headerRecord.size(); c++) {
+            String h = headerRecord.get(c);
+            if (h.isEmpty()) {
+                throw new InputException(path, headerLine, c + 1, "empty column header; give every column a name and unit, e.g. 'loss_modulus [Pa]'");
+            }
+            String mapped = columnMap.get(h);
+            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, mapped == null ? h : mapped);
+            if (r.column() == null) {
+                throw new InputException(path, headerLine, c + 1, mapped == null
+                        ? r.problem() + ", or map it with --column \"" + h + "=quantity [unit]\""
+                        : "--column \"" + h + "=" + mapped + "\": " + r.problem());
+            }
+            if (mapped != null) {
+                ColumnSpec m = r.column();
+                r = new HeaderRecognizer.Result(new ColumnSpec(m.index(), h, m.quantity(), m.unit(), m.kindHint()), null);
+            }
+            if (r.column().quantity() == Quantity.QUALITY) {
+                columns.add(r.column());
+                continue;
+            }
+            ColumnSpec prev = byQuantity.put(r.column().quantity(), r.column());
+            if (prev != null) {
+                throw new InputException(path, headerLine, c + 1, "columns " + (prev.index() + 1) + " and " + (c + 1)
+                        + " both hold " + r.column().quantity().canonical() + "; keep one of them");
+            }
+            columns.add(r.column());
+        }
+        checkRequiredColumns(path, headerLine, byQuantity);
+        ModulusKind kind = resolveKind(path, headerLine, byQuantity, metadata, metadataLines, warnings);
+        return new Header(columns, byQuantity, kind);
     }
 
     private static final Pattern WIDE_HEADER = Pattern.compile(

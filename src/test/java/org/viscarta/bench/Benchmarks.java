@@ -46,6 +46,10 @@ public final class Benchmarks {
         System.out.printf(Locale.ROOT, "machine: %d cores available to the JVM, max heap %d MB, Java %s, %s %s%n",
                 Runtime.getRuntime().availableProcessors(), Runtime.getRuntime().maxMemory() >> 20,
                 System.getProperty("java.version"), System.getProperty("os.name"), System.getProperty("os.arch"));
+        if (args.length >= 2 && args[1].equals("stream-only")) {
+            streaming(out, Long.parseLong(args[0]));
+            return;
+        }
         if (args.length >= 2 && args[1].equals("raw-only")) {
             raw(out);
             return;
@@ -175,6 +179,47 @@ public final class Benchmarks {
 
     private static double singleStart(ModelFitter fitter, Zener zener, List<SweepPoint> pts, double[] start) {
         return fitter.fitFrom("b", zener, pts, List.of(start)).rss();
+    }
+
+    /**
+     * Streaming a large tidy table ({@code inspect}'s pass): writes a file of about {@code megabytes}
+     * MB (unless it is there), then summarises it; run with a small heap (-Xmx256m) to show that
+     * memory does not grow with the file.
+     */
+    private static void streaming(Path out, long megabytes) throws IOException {
+        Path file = out.resolve("big-" + megabytes + "mb.csv");
+        if (!Files.exists(file)) {
+            try (Writer w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+                w.write("sample,replicate,group,frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+                long bytes = 0;
+                StringBuilder sb = new StringBuilder(128);
+                for (long row = 0; bytes < megabytes * 1_000_000L; row++) {
+                    sb.setLength(0);
+                    long s = row / 20;
+                    sb.append("sample-").append(s % 10_000).append(',').append(1 + (s / 10_000) % 3).append(",g").append(s % 10_000 % 7).append(',')
+                            .append(0.1 * (1 + row % 20)).append(',').append(10_000 + row % 977).append(',').append(1_000 + row % 331)
+                            .append('\n');
+                    w.write(sb.toString());
+                    bytes += sb.length();
+                }
+            }
+        }
+        long size = Files.size(file);
+        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+            pool.resetPeakUsage();
+        }
+        long t0 = System.nanoTime();
+        SweepReader.Summary s = new SweepReader(null).summarize(file);
+        double sec = (System.nanoTime() - t0) / 1e9;
+        long heap = 0;
+        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+            if (pool.getType() == MemoryType.HEAP) {
+                heap += pool.getPeakUsage().getUsed();
+            }
+        }
+        System.out.printf(Locale.ROOT, "streaming summary of a %.0f MB tidy table (%d sweeps): %.1f s = %.1f MB/s on one thread; "
+                + "peak heap %d MB with max heap %d MB%n", size / 1e6, s.sweeps().size(), sec, size / 1e6 / sec, heap >> 20,
+                Runtime.getRuntime().maxMemory() >> 20);
     }
 
     /** Raw signals: 10 drive frequencies × 100,000 samples of force and displacement, read and demodulated. */

@@ -69,6 +69,31 @@ class ReaderCorpusTest {
         }
     }
 
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("cases")
+    void theStreamingSummaryAgreesWithTheFullReading(String file, String outcome, String detail) throws URISyntaxException {
+        Path p = corpus().resolve(file);
+        SweepReader reader = new SweepReader(null);
+        if (outcome.equals("ok")) {
+            SweepFile full = reader.read(p);
+            SweepReader.Summary sum = reader.summarize(p);
+            assertEquals(full.sweeps().size(), sum.sweeps().size());
+            for (int i = 0; i < full.sweeps().size(); i++) {
+                assertEquals(full.sweeps().get(i).sample(), sum.sweeps().get(i).sample());
+                assertEquals(full.sweeps().get(i).points().size(), sum.sweeps().get(i).points());
+                assertEquals(full.sweeps().get(i).minFrequencyHz(), sum.sweeps().get(i).minFrequencyHz());
+                assertEquals(full.sweeps().get(i).maxFrequencyHz(), sum.sweeps().get(i).maxFrequencyHz());
+            }
+            assertEquals(full.info().encoding(), sum.info().encoding());
+            assertEquals(full.info().decimalMark(), sum.info().decimalMark());
+        } else {
+            InputException a = assertThrows(InputException.class, () -> reader.read(p));
+            InputException b = assertThrows(InputException.class, () -> reader.summarize(p));
+            assertEquals(a.line(), b.line(), b.getMessage());
+            assertEquals(a.column(), b.column(), b.getMessage());
+        }
+    }
+
     @TempDir
     Path dir;
 
