@@ -108,6 +108,8 @@ class SweepReaderTest {
         assertEquals(30.0, f.sweeps().get(1).temperatureC());
     }
 
+    // SI prefixes k = 1e3, M = 1e6, G = 1e9 (BIPM, The International System of Units, 9th ed. 2019, table 7);
+    // 1 Pa = 1 N/m², so 1 N/mm² = 1e6 Pa = 1 MPa
     @ParameterizedTest(name = "{0} → ×{1}")
     @CsvSource({"Pa,1", "kPa,1e3", "MPa,1e6", "GPa,1e9", "N/mm²,1e6", "N/m²,1"})
     void convertsModulusUnitsToPascal(String unit, double factor) throws IOException {
@@ -117,6 +119,7 @@ class SweepReaderTest {
         assertEquals(0.5 * factor, p.loss(), 1e-12 * factor);
     }
 
+    // ω = 2πf (ISO 80000-3; DOMAIN.md section 0); 1 kHz = 1e3 Hz (BIPM SI prefixes)
     @ParameterizedTest(name = "{0} {1} → Hz")
     @CsvSource({"frequency,Hz,2,2", "frequency,kHz,2,2000", "f,Hz,3,3", "angular_frequency,rad/s,6.283185307179586,1",
         "omega,rad/s,12.566370614359172,2", "frequency,rad/s,6.283185307179586,1"})
