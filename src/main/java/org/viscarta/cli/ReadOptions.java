@@ -21,7 +21,8 @@ final class ReadOptions {
     Double poisson;
 
     @Option(names = "--column", paramLabel = "HEADER=quantity [unit]",
-            description = "What a header holds, when it is not recognised: e.g. --column \"G_storage_Pa=G' [Pa]\" (repeatable).")
+            description = "What a header holds, when it is not recognised: e.g. --column \"G_storage_Pa=G' [Pa]\"; "
+                    + "HEADER=ignore leaves a column out (repeatable).")
     java.util.Map<String, String> columns = new java.util.LinkedHashMap<>();
 
     @Option(names = "--strict", description = "Stop at the first bad file; by default a bad file among several is reported and left out.")

@@ -101,7 +101,7 @@ final class HeaderRecognizer {
             unitText = m.group(2).strip();
         }
         String key = name.strip().toLowerCase(Locale.ROOT).replace('’', '\'').replaceAll("[\\s-]+", "_");
-        if (key.startsWith("quality_")) {
+        if (key.startsWith("quality_") || key.equals("ignore")) {
             return new Result(new ColumnSpec(index, header, Quantity.QUALITY, null, null), null);
         }
         Named n = NAMES.get(key);

@@ -375,6 +375,9 @@ class SweepReaderTest {
         assertEquals("G_storage_Pa", f.info().columns().get(1).header());
         InputException e = assertThrows(InputException.class, () -> reader.read(p));
         assertTrue(e.problem().contains("--column \"angular_frequency_rad_s=quantity [unit]\""), e.problem());
+        Path extra = write("extra.csv", "frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],acrylamide_conc_percent\n1,100,10,12.5\n");
+        assertEquals(100, new SweepReader(null, java.util.Map.of("acrylamide_conc_percent", "ignore")).read(extra).sweeps().get(0)
+                .points().get(0).storage());
     }
 
     @Test
