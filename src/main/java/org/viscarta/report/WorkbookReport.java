@@ -347,7 +347,7 @@ public final class WorkbookReport {
         List<String> warnings = warningTexts(c);
         if (!warnings.isEmpty()) {
             rows.blank();
-            rows.styled(st.header, "Warnings", "(" + warnings.size() + "; also listed in Provenance)");
+            rows.styled(st.header, "Warnings and notes", "(" + warnings.size() + "; also listed in Provenance)");
             for (String w : warnings) {
                 rows.paragraph(st.wrap, st.wrap, "", w, LABEL_WIDTH, TEXT_WIDTH);
             }
