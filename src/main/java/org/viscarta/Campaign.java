@@ -531,11 +531,8 @@ public final class Campaign {
                 }).toList();
     }
 
-    /** A number without trailing zeros, e.g. 1, 0.5, 23.5. */
+    /** A number without trailing zeros, e.g. 1, 0.5, 23.5 ({@link org.viscarta.sweep.Numbers#plain}). */
     public static String plain(double v) {
-        if (Double.isNaN(v)) {
-            return "?";
-        }
-        return java.math.BigDecimal.valueOf(v).round(new java.math.MathContext(6)).stripTrailingZeros().toPlainString();
+        return org.viscarta.sweep.Numbers.plain(v);
     }
 }

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import org.viscarta.sweep.Numbers;
 import java.util.Map;
 
 /**
@@ -95,7 +96,7 @@ public final class DampingComparison {
         long supported = pairs.stream().filter(Pair::significant).count();
         statements.add(String.format(Locale.ROOT, "Samples that share a letter are not distinguishable in tan δ at α = %s "
                 + "(Welch t-tests between replicates, Holm-adjusted over %d pairs); %d of the %d differences are supported.",
-                plain(alpha), pairs.size(), supported, pairs.size()));
+                Numbers.plain(alpha), pairs.size(), supported, pairs.size()));
         if (untestable > 0) {
             statements.add(untestable + " sample(s) with a single replicate cannot be tested and share letters with all others.");
         }
@@ -150,7 +151,4 @@ public final class DampingComparison {
         return new Result(alpha, letters, pairs, summaries, anova, kruskal, statements);
     }
 
-    private static String plain(double v) {
-        return java.math.BigDecimal.valueOf(v).stripTrailingZeros().toPlainString();
-    }
 }

@@ -1,6 +1,7 @@
 package org.viscarta.compare;
 
 import java.util.Locale;
+import org.viscarta.sweep.Numbers;
 
 /**
  * The distance between two materials' viscoelastic behaviour over the frequency band both were
@@ -84,7 +85,7 @@ public final class ReferenceDistance {
         double decades = hi > lo ? Math.log10(hi / lo) : 0;
         if (decades < minOverlapDecades) {
             return notComparable(lo, hi, String.format(Locale.ROOT, "the measured bands overlap over %.2f decades, less than %s",
-                    decades, plain(minOverlapDecades)));
+                    decades, Numbers.plain(minOverlapDecades)));
         }
         double[] grid = new double[GRID];
         for (int k = 0; k < GRID; k++) {
@@ -136,7 +137,7 @@ public final class ReferenceDistance {
         String note = "";
         if (Double.isFinite(a.temperatureC()) && Double.isFinite(b.temperatureC())
                 && Math.abs(a.temperatureC() - b.temperatureC()) > maxTemperatureDifferenceC) {
-            note = String.format(Locale.ROOT, "measured at temperatures %s °C apart", plain(Math.abs(a.temperatureC() - b.temperatureC())));
+            note = String.format(Locale.ROOT, "measured at temperatures %s °C apart", Numbers.plain(Math.abs(a.temperatureC() - b.temperatureC())));
         }
         return new Result(d, known && var >= 0 ? Math.sqrt(var) : Double.NaN, lo, hi, true, worstF, worst, note);
     }
@@ -166,7 +167,4 @@ public final class ReferenceDistance {
         return new Result(Double.NaN, Double.NaN, lo, hi, false, Double.NaN, Double.NaN, "not comparable: " + why);
     }
 
-    private static String plain(double v) {
-        return java.math.BigDecimal.valueOf(v).round(new java.math.MathContext(4)).stripTrailingZeros().toPlainString();
-    }
 }

@@ -45,11 +45,8 @@ public final class BasisConversion {
             pts.add(p.scaled(applied));
         }
         String note = String.format(Locale.ROOT, "%s moduli converted to %s with E = 2(1 + ν)G, ν = %s",
-                sweep.kind(), target, stripZeros(nu.getAsDouble()));
+                sweep.kind(), target, Numbers.plain(nu.getAsDouble()));
         return new Converted(sweep.withPoints(target, pts), note);
     }
 
-    private static String stripZeros(double v) {
-        return java.math.BigDecimal.valueOf(v).stripTrailingZeros().toPlainString();
-    }
 }

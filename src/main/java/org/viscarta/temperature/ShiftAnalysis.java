@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
+import org.viscarta.sweep.Numbers;
 import java.util.Map;
 import java.util.TreeMap;
 import org.apache.commons.math3.optim.MaxEval;
@@ -111,7 +112,7 @@ public final class ShiftAnalysis {
         if (!byT.containsKey(referenceC)) {
             throw new IllegalArgumentException(String.format(Locale.ROOT, "the reference temperature %s °C is not one of the measured "
                     + "temperatures (%s); choose one of them (the WLF constants can then be referred to any temperature)",
-                    plain(referenceC), String.join(", ", byT.keySet().stream().map(ShiftAnalysis::plain).toList())));
+                    Numbers.plain(referenceC), String.join(", ", byT.keySet().stream().map(Numbers::plain).toList())));
         }
         List<Curve> curves = new ArrayList<>();
         for (Map.Entry<Double, List<Sweep>> e : byT.entrySet()) {
@@ -239,7 +240,7 @@ public final class ShiftAnalysis {
         double xMin = warm.logF()[0] - cold.logF()[cold.logF().length - 1] + minOverlapDecades;
         double xMax = warm.logF()[warm.logF().length - 1] - cold.logF()[0] - minOverlapDecades;
         if (!(xMax > xMin)) {
-            return notShifted(cold, warm, "the curves are too short to overlap by " + plain(minOverlapDecades) + " decades");
+            return notShifted(cold, warm, "the curves are too short to overlap by " + Numbers.plain(minOverlapDecades) + " decades");
         }
         double bestX = Double.NaN;
         double best = Double.POSITIVE_INFINITY;
@@ -251,7 +252,7 @@ public final class ShiftAnalysis {
             }
         }
         if (Double.isNaN(bestX)) {
-            return notShifted(cold, warm, "no shift gives an overlap of " + plain(minOverlapDecades) + " decades");
+            return notShifted(cold, warm, "no shift gives an overlap of " + Numbers.plain(minOverlapDecades) + " decades");
         }
         double lo = Math.max(xMin, bestX - 2 * SCAN_STEP);
         double hi = Math.min(xMax, bestX + 2 * SCAN_STEP);
@@ -286,7 +287,7 @@ public final class ShiftAnalysis {
         if (atEdge) {
             return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), false, String.format(Locale.ROOT,
                     "%s °C on %s °C: the best shift lies at the edge of the allowed overlap; the curves do not overlap enough "
-                            + "to be superposed", plain(cold.tC()), plain(warm.tC())), vert[0], vert[1]);
+                            + "to be superposed", Numbers.plain(cold.tC()), Numbers.plain(warm.tC())), vert[0], vert[1]);
         }
         return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), true, "", vert[0], vert[1]);
     }
@@ -333,7 +334,7 @@ public final class ShiftAnalysis {
 
     private PairShift notShifted(Curve cold, Curve warm, String why) {
         return new PairShift(cold.tC(), warm.tC(), Double.NaN, Double.NaN, 0, Double.NaN, false,
-                plain(cold.tC()) + " °C on " + plain(warm.tC()) + " °C: " + why, Double.NaN, Double.NaN);
+                Numbers.plain(cold.tC()) + " °C on " + Numbers.plain(warm.tC()) + " °C: " + why, Double.NaN, Double.NaN);
     }
 
     private static double interp(double[] x, double[] y, double at) {
@@ -352,7 +353,4 @@ public final class ShiftAnalysis {
         return (1 - w) * y[i - 1] + w * y[i];
     }
 
-    static String plain(double v) {
-        return java.math.BigDecimal.valueOf(v).round(new java.math.MathContext(6)).stripTrailingZeros().toPlainString();
-    }
 }

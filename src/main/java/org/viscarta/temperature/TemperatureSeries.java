@@ -43,7 +43,7 @@ public record TemperatureSeries(String sample, List<Sweep> sweeps, ShiftAnalysis
             double ref = temps.stream().min((a, b) -> Double.compare(Math.abs(a - preferredReferenceC), Math.abs(b - preferredReferenceC)))
                     .orElseThrow();
             ShiftAnalysis.Result r = analysis.analyse(e.getValue(), ref);
-            String master = String.format(Locale.ROOT, "%s master @ %s °C", e.getKey(), ShiftAnalysis.plain(ref));
+            String master = String.format(Locale.ROOT, "%s master @ %s °C", e.getKey(), org.viscarta.sweep.Numbers.plain(ref));
             out.add(new TemperatureSeries(e.getKey(), e.getValue(), r, master));
         }
         return out;
