@@ -178,17 +178,18 @@ public final class ModelFitter {
             lnLoss[i] = Math.log(loss[i]);
         }
         boolean relative = weighting == Weighting.RELATIVE;
+        // work arrays of this residual function; each fit builds its own, so fits may run in parallel
+        double[] theta = new double[p];
+        double[] dtheta = new double[p];
+        double[] mod = new double[2];
+        double[] ds = new double[p];
+        double[] dl = new double[p];
+        Transform[] transforms = specs.stream().map(ParameterSpec::transform).toArray(Transform[]::new);
         return (u, r, jac) -> {
-            double[] theta = new double[p];
-            double[] dtheta = new double[p];
             for (int j = 0; j < p; j++) {
-                Transform t = specs.get(j).transform();
-                theta[j] = t.toNatural(u[j]);
-                dtheta[j] = t.derivative(u[j]);
+                theta[j] = transforms[j].toNatural(u[j]);
+                dtheta[j] = transforms[j].derivative(u[j]);
             }
-            double[] mod = new double[2];
-            double[] ds = new double[p];
-            double[] dl = new double[p];
             for (int i = 0; i < m; i++) {
                 model.modulus(omega[i], theta, mod);
                 model.derivatives(omega[i], theta, ds, dl);
