@@ -40,27 +40,18 @@ public final class FractionalKelvinVoigt implements ViscoelasticModel {
         return PARAMETERS;
     }
 
+    /** E plus the springpot term (c, α). */
     @Override
     public void modulus(double omega, double[] p, double[] out) {
-        double w = Math.pow(omega, p[2]);
-        out[0] = p[0] + p[1] * w * Math.cos(p[2] * Math.PI / 2);
-        out[1] = p[1] * w * Math.sin(p[2] * Math.PI / 2);
+        Springpot.powerLaw(omega, p[1], p[2], out);
+        out[0] += p[0];
     }
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        double c = p[1];
-        double a = p[2];
-        double w = Math.pow(omega, a);
-        double ca = Math.cos(a * Math.PI / 2);
-        double sa = Math.sin(a * Math.PI / 2);
-        double lnw = Math.log(omega);
         dStorage[0] = 1;
-        dStorage[1] = w * ca;
-        dStorage[2] = c * w * (lnw * ca - Math.PI / 2 * sa);
         dLoss[0] = 0;
-        dLoss[1] = w * sa;
-        dLoss[2] = c * w * (lnw * sa + Math.PI / 2 * ca);
+        Springpot.powerLawDerivatives(omega, p[1], p[2], dStorage, dLoss, 1);
     }
 
     @Override

@@ -42,8 +42,11 @@ public final class Springpot implements ViscoelasticModel {
 
     @Override
     public void modulus(double omega, double[] p, double[] out) {
-        double c = p[0];
-        double a = p[1];
+        powerLaw(omega, p[0], p[1], out);
+    }
+
+    /** c ω^α cos(απ/2) and c ω^α sin(απ/2) into out[0], out[1]: the springpot term other models add to. */
+    static void powerLaw(double omega, double c, double a, double[] out) {
         double w = Math.pow(omega, a);
         out[0] = c * w * Math.cos(a * Math.PI / 2);
         out[1] = c * w * Math.sin(a * Math.PI / 2);
@@ -51,16 +54,19 @@ public final class Springpot implements ViscoelasticModel {
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        double c = p[0];
-        double a = p[1];
+        powerLawDerivatives(omega, p[0], p[1], dStorage, dLoss, 0);
+    }
+
+    /** ∂/∂c and ∂/∂α of the springpot term, written at indices {@code at} and {@code at + 1}. */
+    static void powerLawDerivatives(double omega, double c, double a, double[] dStorage, double[] dLoss, int at) {
         double w = Math.pow(omega, a);
         double ca = Math.cos(a * Math.PI / 2);
         double sa = Math.sin(a * Math.PI / 2);
         double lnw = Math.log(omega);
-        dStorage[0] = w * ca;
-        dStorage[1] = c * w * (lnw * ca - Math.PI / 2 * sa);
-        dLoss[0] = w * sa;
-        dLoss[1] = c * w * (lnw * sa + Math.PI / 2 * ca);
+        dStorage[at] = w * ca;
+        dStorage[at + 1] = c * w * (lnw * ca - Math.PI / 2 * sa);
+        dLoss[at] = w * sa;
+        dLoss[at + 1] = c * w * (lnw * sa + Math.PI / 2 * ca);
     }
 
     @Override
