@@ -1,8 +1,8 @@
 package org.viscarta.cli;
 
-import java.util.Locale;
+import org.viscarta.table.Cells;
 
-/** Number formatting for the terminal and CSV outputs (Locale.ROOT everywhere). */
+/** Number formatting for the terminal and CSV outputs (Locale.ROOT everywhere; {@link Cells} decides). */
 final class Format {
 
     private Format() {
@@ -10,14 +10,11 @@ final class Format {
 
     /** Four significant digits for reading; "–" for NaN. */
     static String g4(double v) {
-        if (!Double.isFinite(v)) {
-            return Double.isNaN(v) ? "–" : (v > 0 ? "inf" : "-inf");
-        }
-        return String.format(Locale.ROOT, "%.4g", v);
+        return Cells.g4(v);
     }
 
     /** Full precision for machines; empty for NaN. */
     static String csv(double v) {
-        return Double.isFinite(v) ? Double.toString(v) : "";
+        return Cells.csv(v);
     }
 }

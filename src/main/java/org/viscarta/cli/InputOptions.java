@@ -3,7 +3,7 @@ package org.viscarta.cli;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.AnalysisRequest;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Parameters;
 
@@ -11,13 +11,14 @@ import picocli.CommandLine.Parameters;
 final class InputOptions {
 
     @Parameters(paramLabel = "INPUT", arity = "1..*",
-            description = "Sweep tables (CSV, TSV) or folders, read recursively.")
+            description = "Sweep tables (CSV, TSV, XLSX, XLS) or folders, read recursively.")
     List<Path> inputs = new ArrayList<>();
 
     @Mixin
     ReadOptions read;
 
-    Campaign.Settings applyTo(Campaign.Settings s) {
-        return read.applyTo(s);
+    /** A request for these inputs, read as the options say. */
+    AnalysisRequest.Builder request() {
+        return read.applyTo(AnalysisRequest.builder(inputs));
     }
 }

@@ -48,8 +48,8 @@ final class InspectCommand implements Callable<Integer> {
             AtomicOutput.checkWritable(out, force);
         }
         ReadOptions r = input.read;
-        org.viscarta.Campaign.Settings settings = r.applyTo(org.viscarta.Campaign.Settings.defaults());
-        SweepReader reader = new SweepReader(settings.declaredKind(), settings.columns());
+        org.viscarta.analysis.ReadSettings settings = r.settings();
+        SweepReader reader = new SweepReader(settings.declaredKind().orElse(null), settings.columns());
         List<Path> files = InputCollector.collect(input.inputs);
         List<SweepReader.Summary> summaries = new ArrayList<>();
         List<String> leftOut = new ArrayList<>();

@@ -1,5 +1,6 @@
 package org.viscarta.cli;
 
+import org.viscarta.io.UsageException;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -121,7 +122,7 @@ final class LibraryCommand implements Runnable {
         public Integer call() {
             ReferenceLibrary.Entry e = ReferenceLibrary.open(library.folder()).entries().stream()
                     .filter(x -> x.name().equals(name)).findFirst()
-                    .orElseThrow(() -> new IllegalArgumentException("no reference named '" + name + "'; 'library list' shows the names"));
+                    .orElseThrow(() -> new UsageException("no reference named '" + name + "'; 'library list' shows the names"));
             PrintWriter out = spec.commandLine().getOut();
             out.println(e.file());
             e.sweep().metadata().entrySet().stream().sorted(java.util.Map.Entry.comparingByKey())

@@ -1,5 +1,6 @@
 package org.viscarta.cli;
 
+import org.viscarta.io.UsageException;
 import java.nio.file.Path;
 import picocli.CommandLine.Option;
 
@@ -13,20 +14,20 @@ final class LibraryOption {
             description = "Folder of reference-material sweeps (default: $" + LIBRARY_ENV + ").")
     Path library;
 
-    /** The folder, or null when neither the option nor the variable names one. */
-    Path folderOrNull() {
+    /** The folder, when the option or the variable names one. */
+    java.util.Optional<Path> folderIfNamed() {
         if (library != null) {
-            return library;
+            return java.util.Optional.of(library);
         }
         String env = System.getenv(LIBRARY_ENV);
-        return env == null || env.isBlank() ? null : Path.of(env);
+        return env == null || env.isBlank() ? java.util.Optional.empty() : java.util.Optional.of(Path.of(env));
     }
 
     /** The folder, or an error that says how to name one. */
     Path folder() {
-        Path p = folderOrNull();
+        Path p = folderIfNamed().orElse(null);
         if (p == null) {
-            throw new IllegalArgumentException("no reference library: pass --library DIR or set the environment variable "
+            throw new UsageException("no reference library: pass --library DIR or set the environment variable "
                     + LIBRARY_ENV + " to the folder of reference sweeps");
         }
         return p;

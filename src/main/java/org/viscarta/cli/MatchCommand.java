@@ -6,11 +6,19 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.viscarta.Campaign;
-import org.viscarta.compare.FittedCurve;
+import java.util.Optional;
+import org.viscarta.analysis.Analysis;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.MatchSettings;
+import org.viscarta.analysis.SampleAnalysis;
+import org.viscarta.analysis.Target;
 import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReferenceDistance;
-import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.report.OutputTables;
+import org.viscarta.table.CsvTable;
+import org.viscarta.table.Table;
+import org.viscarta.table.TerminalTable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -26,6 +34,7 @@ import picocli.CommandLine.Parameters;
             "in (never extrapolated), each side from its best-supported fitted model, with a standard error from the fits."})
 final class MatchCommand implements Callable<Integer> {
 
+    /** The published columns of {@code match -o} (README); the tests hold the declared table to them. */
     static final List<String> CSV_HEADER = List.of("sample", "reference", "rank", "distance", "distance_uncertainty",
             "band_low_hz", "band_high_hz", "comparable", "note");
 
@@ -59,17 +68,11 @@ final class MatchCommand implements Callable<Integer> {
             description = "Flag comparisons of materials measured further apart in temperature (default: ${DEFAULT-VALUE}).")
     double maxTemperatureDifference;
 
-    @Mixin
-    ReadOptions read;
+    @Mixin ReadOptions read;
+    @Mixin ModelOptions models;
+    @Mixin OutputOptions output;
 
-    @Mixin
-    ModelOptions models;
-
-    @Mixin
-    OutputOptions output;
-
-    @CommandLine.Spec
-    CommandLine.Model.CommandSpec spec;
+    @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() throws IOException {
@@ -84,67 +87,42 @@ final class MatchCommand implements Callable<Integer> {
         if (top < 1) {
             throw new CommandLine.ParameterException(spec.commandLine(), "--top must be at least 1");
         }
-        Campaign.Settings settings = models.applyTo(read.applyTo(Campaign.Settings.defaults()));
-        ReferenceDistance rd = new ReferenceDistance(ReferenceDistance.Metric.parse(metric), minOverlap, maxTemperatureDifference);
+        AnalysisRequest request = Requests.build(spec, () -> {
+            AnalysisRequest.Builder b = models.applyTo(read.applyTo(AnalysisRequest.builder(mimic ? candidates : samples)))
+                    .matching(new MatchSettings(ReferenceDistance.Metric.parse(metric), minOverlap, maxTemperatureDifference,
+                            Optional.ofNullable(clazz)));
+            return mimic ? b.target(new Target.FromFile(target)).compute(AnalysisRequest.Part.FITS)
+                    : b.library(library.folder()).compute(AnalysisRequest.Part.MATCHES);
+        });
         output.check();
+        AnalysisResult result = Analysis.run(request, new Progress(spec.commandLine().getErr(), output.quiet));
         PrintWriter out = spec.commandLine().getOut();
-        List<List<String>> rows = new ArrayList<>();
+        Table<Matcher.Match> table = OutputTables.matches(mimic);
+        List<Matcher.Match> rows = new ArrayList<>();
         if (mimic) {
-            Campaign t = Campaign.read(List.of(target), settings);
-            if (t.samples().size() != 1) {
-                throw new IllegalArgumentException(target + " holds " + t.samples().size() + " samples; the target must be one");
-            }
-            Campaign c = Campaign.read(candidates, settings);
-            Warnings.print(spec, t);
-            Warnings.print(spec, c);
-            List<Campaign.SampleFits> tf = t.fit();
-            FittedCurve targetCurve = t.curves(tf).get(0);
-            List<Matcher.Candidate> cands = c.asCandidates(c.fit()).stream()
-                    .filter(x -> !x.name().equals(t.samples().get(0).name())).toList();
-            String name = t.samples().get(0).name();
-            out.printf("Best mimic of %s (distance in decades of E′ and E″; closest first)%n", name);
-            print(out, rows, name, Matcher.rank(name, targetCurve, cands, rd), Integer.MAX_VALUE, true);
+            AnalysisResult.Mimic m = result.mimic().orElseThrow();
+            m.targetInputs().ifPresent(t -> Warnings.print(spec, t));
+            Warnings.print(spec, result.inputs());
+            out.printf("Best mimic of %s (distance in decades of E′ and E″; closest first)%n", m.target());
+            print(out, table, m.matches(), Integer.MAX_VALUE);
+            rows.addAll(m.matches());
         } else {
-            ReferenceLibrary lib = ReferenceLibrary.open(library.folder());
-            Campaign c = Campaign.read(samples, settings);
-            Warnings.print(spec, c);
-            List<Matcher.Candidate> refs = c.referenceCandidates(lib, clazz);
-            if (refs.isEmpty()) {
-                throw new IllegalArgumentException("the library holds no reference" + (clazz == null ? "" : " of class '" + clazz + "'"));
-            }
-            List<Campaign.SampleFits> fits = c.fit();
-            List<List<Matcher.Match>> all = c.matchAll(fits, refs, rd);
-            for (int i = 0; i < fits.size(); i++) {
-                String name = fits.get(i).sample().name();
-                out.printf("%s: closest references%n", name);
-                print(out, rows, name, all.get(i), top, false);
+            Warnings.print(spec, result.inputs());
+            for (SampleAnalysis sa : result.samples()) {
+                out.printf("%s: closest references%n", sa.sample().name());
+                print(out, table, sa.matches(), top);
+                rows.addAll(sa.matches());
             }
         }
         out.flush();
-        output.writeCsv(CSV_HEADER, rows);
+        if (output.out != null) {
+            CsvTable.write(table, rows, output.out, output.force);
+        }
         return CommandLine.ExitCode.OK;
     }
 
-    private static void print(PrintWriter out, List<List<String>> rows, String sample, List<Matcher.Match> ranked, int top,
-                              boolean departure) {
-        TextTable t = new TextTable("rank", departure ? "candidate" : "reference", "class", "distance", "± SE", "band [Hz]",
-                departure ? "departs most at" : "note", departure ? "note" : "");
-        int shown = 0;
-        for (Matcher.Match m : ranked) {
-            ReferenceDistance.Result r = m.result();
-            rows.add(List.of(sample, m.reference(), m.rank() == 0 ? "" : Integer.toString(m.rank()), Format.csv(r.distance()),
-                    Format.csv(r.uncertainty()), Format.csv(r.bandLowHz()), Format.csv(r.bandHighHz()),
-                    Boolean.toString(r.comparable()), r.note()));
-            if (shown++ >= top) {
-                continue;
-            }
-            String band = r.comparable() ? Format.g4(r.bandLowHz()) + "–" + Format.g4(r.bandHighHz()) : "–";
-            String where = r.comparable() ? String.format(java.util.Locale.ROOT, "%s Hz (%+.3f decades)", Format.g4(r.departureHz()),
-                    r.departure()) : "";
-            t.add(m.rank() == 0 ? "" : Integer.toString(m.rank()), m.reference(), m.clazz(), Format.g4(r.distance()),
-                    Format.g4(r.uncertainty()), band, departure ? where : r.note(), departure ? r.note() : "");
-        }
-        t.print(out);
+    private static void print(PrintWriter out, Table<Matcher.Match> table, List<Matcher.Match> ranked, int top) {
+        TerminalTable.print(table, ranked.stream().limit(top).toList(), out);
         out.println("  first and second distinguishable: " + Matcher.distinguishable(ranked));
         out.println();
     }

@@ -2,12 +2,11 @@ package org.viscarta.cli;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.AnalysisRequest;
 import org.viscarta.fit.Weighting;
-import org.viscarta.model.ModelCatalogue;
 import picocli.CommandLine.Option;
 
-/** {@code --models a,b,...}. */
+/** {@code --models a,b,...} and {@code --weighting}. */
 final class ModelOptions {
 
     @Option(names = "--models", split = ",", paramLabel = "MODEL",
@@ -20,8 +19,10 @@ final class ModelOptions {
                     + "replicate-sd (log residuals divided by the replicates' SD at each frequency).")
     String weighting;
 
-    Campaign.Settings applyTo(Campaign.Settings s) {
-        Campaign.Settings m = models.isEmpty() ? s.withModels(ModelCatalogue.ids()) : s.withModels(models);
-        return m.withWeighting(Weighting.parse(weighting));
+    AnalysisRequest.Builder applyTo(AnalysisRequest.Builder b) {
+        if (!models.isEmpty()) {
+            b.models(models);
+        }
+        return b.weighting(Weighting.parse(weighting));
     }
 }

@@ -1,5 +1,6 @@
 package org.viscarta.cli;
 
+import org.viscarta.io.UsageException;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
@@ -64,7 +65,7 @@ final class ModuliCommand implements Callable<Integer> {
         switch (calibrationMode.strip().toLowerCase(java.util.Locale.ROOT)) {
             case "phase": mode = RawConverter.CalibrationMode.PHASE; break;
             case "compliance": mode = RawConverter.CalibrationMode.COMPLIANCE; break;
-            default: throw new IllegalArgumentException("--calibration-mode takes phase or compliance, not '" + calibrationMode + "'");
+            default: throw new UsageException("--calibration-mode takes phase or compliance, not '" + calibrationMode + "'");
         }
         RawConverter.Calibration cal = calibration == null ? null
                 : RawConverter.calibration(RawReader.read(calibration), settings).withMode(mode);
@@ -100,7 +101,7 @@ final class ModuliCommand implements Callable<Integer> {
             }
         }
         if (results.isEmpty()) {
-            throw new IllegalArgumentException("no raw measurement among the inputs (calibration files alone are not converted)");
+            throw new UsageException("no raw measurement among the inputs (calibration files alone are not converted)");
         }
         out.flush();
         err.flush();

@@ -11,30 +11,27 @@ import org.apache.commons.csv.CSVPrinter;
 import org.viscarta.io.AtomicOutput;
 import picocli.CommandLine.Option;
 
-/** {@code -o FILE.csv} and {@code --force}, shared by the verbs that write a table. */
+/** {@code -o/--out}, {@code --force} and {@code --quiet}, shared by every verb that writes. */
 final class OutputOptions {
 
-    @Option(names = {"-o", "--out"}, paramLabel = "FILE.csv", description = "Also write the table as CSV (SI units).")
+    @Option(names = {"-o", "--out"}, paramLabel = "PATH",
+            description = "Where to write: a CSV file (fit, rank, match, in SI units) or a folder (report, shift).")
     Path out;
 
-    @Option(names = "--force", description = "Replace an existing output file.")
+    @Option(names = "--force", description = "Replace existing output files.")
     boolean force;
 
-    /** Fails before any work when the output exists and --force was not given. */
+    @Option(names = "--quiet", description = "No progress on stderr (warnings are still printed).")
+    boolean quiet;
+
+    /** Fails before any work when the output file exists and --force was not given. */
     void check() {
         if (out != null) {
             AtomicOutput.checkWritable(out, force);
         }
     }
 
-    /** Writes rows of cells as CSV to {@code -o}, atomically (nothing when -o was not given). */
-    void writeCsv(List<String> header, List<List<String>> rows) throws IOException {
-        if (out != null) {
-            writeCsv(out, force, header, rows);
-        }
-    }
-
-    /** Writes rows of cells as CSV, atomically. */
+    /** Writes rows of cells as CSV, atomically, for the tables of {@code shift} that are not declared tables. */
     static void writeCsv(Path target, boolean force, List<String> header, List<List<String>> rows) throws IOException {
         AtomicOutput.write(target, force, stream -> {
             Writer w = new OutputStreamWriter(stream, StandardCharsets.UTF_8);

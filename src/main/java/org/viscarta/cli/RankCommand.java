@@ -2,12 +2,18 @@ package org.viscarta.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.Analysis;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.Sample;
 import org.viscarta.compare.DampingComparison;
-import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.compare.DampingRanking;
+import org.viscarta.report.OutputTables;
+import org.viscarta.table.CsvTable;
+import org.viscarta.table.Table;
+import org.viscarta.table.TerminalTable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -23,61 +29,38 @@ import picocli.CommandLine.Mixin;
             "--model-outside-range lets the best-supported model give one."})
 final class RankCommand implements Callable<Integer> {
 
+    /** The published columns of {@code rank -o} (README); the tests hold the declared table to them. */
     static final List<String> CSV_HEADER = List.of("rank", "sample", "group", "n_replicates", "frequency_hz", "tan_delta",
             "ci95_low", "ci95_high", "storage_modulus_pa", "loss_modulus_pa", "letters");
 
-    @Mixin
-    InputOptions input;
+    @Mixin InputOptions input;
+    @Mixin ModelOptions models;
+    @Mixin RankOptions rankOptions;
+    @Mixin OutputOptions output;
 
-    @Mixin
-    ModelOptions models;
-
-    @Mixin
-    RankOptions rankOptions;
-
-    @Mixin
-    OutputOptions output;
-
-    @CommandLine.Spec
-    CommandLine.Model.CommandSpec spec;
+    @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() throws IOException {
-        Campaign.Settings settings = rankOptions.applyTo(models.applyTo(input.applyTo(Campaign.Settings.defaults())),
-                spec.commandLine());
+        AnalysisRequest request = Requests.build(spec, () -> rankOptions.applyTo(models.applyTo(input.request()), spec.commandLine()));
         output.check();
-        Campaign campaign = Campaign.read(input.inputs, settings);
-        Warnings.print(spec, campaign);
-        List<Campaign.SampleFits> fits = settings.modelOutsideRange() ? campaign.fit() : List.of();
-        List<Campaign.RankRow> ranking = campaign.rank(fits);
-        DampingComparison.Result cmp = campaign.compare(ranking);
+        AnalysisResult result = Analysis.run(request, new Progress(spec.commandLine().getErr(), output.quiet));
+        Warnings.print(spec, result.inputs());
+        Table<DampingRanking.Row<Sample>> table = OutputTables.ranking(request);
+        List<DampingRanking.Row<Sample>> rows = result.rankingRows();
         PrintWriter out = spec.commandLine().getOut();
-        out.printf("Damping ranking at %s (highest tan δ first)%n", settings.rankingFrequency());
-        TextTable t = new TextTable("rank", "sample", "group", "n", "tan δ", "95 % CI", "letters", "E′ or G′ [Pa]", "E″ or G″ [Pa]",
-                "note");
-        List<List<String>> rows = new ArrayList<>();
-        for (Campaign.RankRow r : ranking) {
-            ReplicateSummary s = r.tanDelta();
-            String rank = r.rank() == 0 ? "" : Integer.toString(r.rank());
-            int n = s == null ? r.sample().replicates().size() : s.n();
-            t.add(rank, r.sample().name(), r.sample().group(), Integer.toString(n), s == null ? "–" : Format.g4(s.mean()),
-                    s == null || s.n() < 2 ? "–" : "[" + Format.g4(s.ci95Low()) + ", " + Format.g4(s.ci95High()) + "]",
-                    r.letters(), Format.g4(r.storage()), Format.g4(r.loss()), r.note());
-            double f = settings.hasBand() ? Math.sqrt(settings.bandLowHz() * settings.bandHighHz()) : settings.atHz();
-            rows.add(List.of(rank, r.sample().name(), r.sample().group(), Integer.toString(n), Format.csv(f),
-                    s == null ? "" : Format.csv(s.mean()), s == null ? "" : Format.csv(s.ci95Low()),
-                    s == null ? "" : Format.csv(s.ci95High()), Format.csv(r.storage()), Format.csv(r.loss()), r.letters()));
-        }
-        t.print(out);
-        for (String statement : cmp.statements()) {
-            out.println(statement);
-        }
+        out.printf("Damping ranking at %s (highest tan δ first)%n", request.rankingPoint().describe());
+        TerminalTable.print(table, rows, out);
+        DampingComparison.Result cmp = result.comparison().orElseThrow();
+        cmp.statements().forEach(out::println);
         for (DampingComparison.GroupSummary g : cmp.groups()) {
             out.printf("  group %s: %d sample(s), %d values, mean tan δ %s [%s, %s]%n", g.group(), g.samples(), g.values().n(),
                     Format.g4(g.values().mean()), Format.g4(g.values().ci95Low()), Format.g4(g.values().ci95High()));
         }
         out.flush();
-        output.writeCsv(CSV_HEADER, rows);
+        if (output.out != null) {
+            CsvTable.write(table, rows, output.out, output.force);
+        }
         return CommandLine.ExitCode.OK;
     }
 }

@@ -1,6 +1,8 @@
 package org.viscarta.cli;
 
-import org.viscarta.Campaign;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.compare.DampingRanking;
+import org.viscarta.compare.RankingPoint;
 import picocli.CommandLine;
 import picocli.CommandLine.Option;
 
@@ -25,20 +27,21 @@ final class RankOptions {
                     + "not with --band).")
     boolean modelOutsideRange;
 
-    Campaign.Settings applyTo(Campaign.Settings s, CommandLine cl) {
-        Campaign.Settings out = s.withAt(atHz).withModelOutsideRange(modelOutsideRange).withAlpha(alpha);
-        if (band != null) {
-            String[] parts = band.strip().split("(?<![eE])-", 2);
-            if (parts.length != 2) {
-                throw new CommandLine.ParameterException(cl, "--band takes LOW-HIGH, e.g. 0.5-5 or 0.5Hz-5Hz, not '" + band + "'");
-            }
-            FrequencyConverter fc = new FrequencyConverter();
-            try {
-                out = out.withBand(fc.convert(parts[0]), fc.convert(parts[1]));
-            } catch (CommandLine.TypeConversionException e) {
-                throw new CommandLine.ParameterException(cl, "--band: " + e.getMessage());
-            }
+    AnalysisRequest.Builder applyTo(AnalysisRequest.Builder b, CommandLine cl) {
+        b.alpha(alpha).outsideRange(modelOutsideRange ? DampingRanking.OutsideRange.BEST_MODEL : DampingRanking.OutsideRange.NOT_REPORTED)
+                .compute(AnalysisRequest.Part.RANKING);
+        if (band == null) {
+            return b.rankingPoint(new RankingPoint.At(atHz));
         }
-        return out;
+        String[] parts = band.strip().split("(?<![eE])-", 2);
+        if (parts.length != 2) {
+            throw new CommandLine.ParameterException(cl, "--band takes LOW-HIGH, e.g. 0.5-5 or 0.5Hz-5Hz, not '" + band + "'");
+        }
+        FrequencyConverter fc = new FrequencyConverter();
+        try {
+            return b.rankingPoint(new RankingPoint.Band(fc.convert(parts[0]), fc.convert(parts[1])));
+        } catch (CommandLine.TypeConversionException | IllegalArgumentException e) {
+            throw new CommandLine.ParameterException(cl, "--band: " + e.getMessage());
+        }
     }
 }

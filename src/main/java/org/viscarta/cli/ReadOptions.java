@@ -1,11 +1,12 @@
 package org.viscarta.cli;
 
-import java.util.OptionalDouble;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.ReadSettings;
+import org.viscarta.io.UsageException;
 import org.viscarta.sweep.ModulusKind;
 import picocli.CommandLine.Option;
 
-/** How inputs are read and put on one basis: {@code --modulus}, {@code --basis}, {@code --poisson}. */
+/** How inputs are read and put on one basis: {@code --modulus}, {@code --basis}, {@code --poisson}, {@code --column}, {@code --strict}. */
 final class ReadOptions {
 
     @Option(names = "--modulus", paramLabel = "shear|tensile",
@@ -28,21 +29,29 @@ final class ReadOptions {
     @Option(names = "--strict", description = "Stop at the first bad file; by default a bad file among several is reported and left out.")
     boolean strict;
 
-    Campaign.Settings applyTo(Campaign.Settings s) {
-        ModulusKind declared = modulus == null ? null : kind(modulus, "--modulus");
-        ModulusKind target = basis == null ? null : kind(basis, "--basis");
-        if (poisson != null && !(poisson > -1 && poisson <= 0.5)) {
-            throw new IllegalArgumentException("--poisson must lie in (-1, 0.5], got " + poisson);
+    /** Puts these options into a request. */
+    AnalysisRequest.Builder applyTo(AnalysisRequest.Builder b) {
+        if (modulus != null) {
+            b.declaredKind(kind(modulus, "--modulus"));
         }
-        return s.withDeclaredKind(declared)
-                .withBasis(target, poisson == null ? OptionalDouble.empty() : OptionalDouble.of(poisson))
-                .withColumns(columns).withStrict(strict);
+        if (basis != null) {
+            b.basis(kind(basis, "--basis"));
+        }
+        if (poisson != null) {
+            b.poisson(poisson);
+        }
+        return b.columns(columns).badFiles(strict ? ReadSettings.BadFiles.STOP : ReadSettings.BadFiles.LEAVE_OUT);
+    }
+
+    /** The reading settings alone, for verbs that read without analysing. */
+    ReadSettings settings() {
+        return applyTo(AnalysisRequest.builder(java.util.List.of())).build().reading();
     }
 
     private static ModulusKind kind(String text, String option) {
         ModulusKind k = ModulusKind.parse(text);
         if (k == null) {
-            throw new IllegalArgumentException(option + " takes 'tensile' or 'shear', not '" + text + "'");
+            throw new UsageException(option + " takes 'tensile' or 'shear', not '" + text + "'");
         }
         return k;
     }

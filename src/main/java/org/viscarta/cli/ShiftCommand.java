@@ -1,12 +1,15 @@
 package org.viscarta.cli;
 
+import org.viscarta.io.UsageException;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.Inputs;
+import org.viscarta.analysis.Sample;
+import org.viscarta.sweep.Numbers;
 import org.viscarta.io.AtomicOutput;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
@@ -48,29 +51,26 @@ final class ShiftCommand implements Callable<Integer> {
     @Option(names = "--wlf-at", paramLabel = "°C", description = "Also give the WLF constants referred to this temperature.")
     Double wlfAt;
 
-    @Option(names = {"-o", "--out"}, paramLabel = "DIR",
-            description = "Write shift-factors.csv, shift-fits.csv and master-curve.csv into this folder.")
-    Path outDir;
-
-    @Option(names = "--force", description = "Replace existing output files.")
-    boolean force;
+    @Mixin
+    OutputOptions output;
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() throws IOException {
-        Campaign.Settings settings = input.applyTo(Campaign.Settings.defaults());
+        Path outDir = output.out;
+        boolean force = output.force;
         if (outDir != null) {
             for (String f : List.of("shift-factors.csv", "shift-fits.csv", "master-curve.csv")) {
                 AtomicOutput.checkWritable(outDir.resolve(f), force);
             }
         }
-        Campaign c = Campaign.read(input.inputs, settings);
+        Inputs c = Inputs.read(input.inputs, input.read.settings());
         Warnings.print(spec, c);
         List<Sweep> sweeps = new ArrayList<>();
         java.util.Set<String> names = new java.util.TreeSet<>();
-        for (Campaign.Sample s : c.samples()) {
+        for (Sample s : c.samples()) {
             for (Sweep sw : s.replicates()) {
                 names.add(sw.sample());
                 if (sample == null || sw.sample().equals(sample)) {
@@ -79,19 +79,19 @@ final class ShiftCommand implements Callable<Integer> {
             }
         }
         if (sample == null && names.size() > 1) {
-            throw new IllegalArgumentException("the inputs hold several samples (" + String.join(", ", names)
+            throw new UsageException("the inputs hold several samples (" + String.join(", ", names)
                     + "); choose one with --sample");
         }
         if (sweeps.isEmpty()) {
-            throw new IllegalArgumentException("no sweeps of sample '" + sample + "' in the inputs");
+            throw new UsageException("no sweeps of sample '" + sample + "' in the inputs");
         }
         ShiftAnalysis.Result r = new ShiftAnalysis(minOverlap, ShiftAnalysis.Vertical.parse(vertical)).analyse(sweeps, reference);
         PrintWriter out = spec.commandLine().getOut();
-        out.printf("Shift factors of %s, reference %s °C (a_T > 1 below it)%n", sweeps.get(0).sample(), Campaign.plain(reference));
+        out.printf("Shift factors of %s, reference %s °C (a_T > 1 below it)%n", sweeps.get(0).sample(), Numbers.plain(reference));
         TextTable t = new TextTable("temperature [°C]", "log10 a_T", "± SE", "a_T", "b_T", "placed");
         List<List<String>> factorRows = new ArrayList<>();
         for (ShiftAnalysis.Factor f : r.factors()) {
-            t.add(Campaign.plain(f.temperatureC()), Format.g4(f.log10aT()), Format.g4(f.log10aTStdError()), Format.g4(f.aT()),
+            t.add(Numbers.plain(f.temperatureC()), Format.g4(f.log10aT()), Format.g4(f.log10aTStdError()), Format.g4(f.aT()),
                     Format.g4(f.bT()), f.placed() ? "yes" : "no");
             factorRows.add(List.of(Format.csv(f.temperatureC()), Format.csv(f.placed() ? f.aT() : Double.NaN), Format.csv(f.log10aT()),
                     Format.csv(f.log10aTStdError()), Format.csv(f.bT())));
@@ -113,15 +113,15 @@ final class ShiftCommand implements Callable<Integer> {
         }
         if (wlfAt != null && r.wlf() != null) {
             double[] c2 = ShiftLaws.rereference(r.wlf().parameter("C1").value(), r.wlf().parameter("C2").value(), wlfAt - reference);
-            out.printf("  WLF at %s °C: C1 = %s, C2 = %s K%n", Campaign.plain(wlfAt), Format.g4(c2[0]), Format.g4(c2[1]));
-            fitRows.add(List.of("WLF at " + Campaign.plain(wlfAt) + " °C", "C1", Format.csv(c2[0]), "", "", "", "-"));
-            fitRows.add(List.of("WLF at " + Campaign.plain(wlfAt) + " °C", "C2", Format.csv(c2[1]), "", "", "", "K"));
+            out.printf("  WLF at %s °C: C1 = %s, C2 = %s K%n", Numbers.plain(wlfAt), Format.g4(c2[0]), Format.g4(c2[1]));
+            fitRows.add(List.of("WLF at " + Numbers.plain(wlfAt) + " °C", "C1", Format.csv(c2[0]), "", "", "", "-"));
+            fitRows.add(List.of("WLF at " + Numbers.plain(wlfAt) + " °C", "C2", Format.csv(c2[1]), "", "", "", "K"));
         }
         for (String n : r.notes()) {
             out.println(n);
         }
         out.printf("master curve: %d points, %s–%s Hz at %s °C%n", r.master().size(), Format.g4(r.master().get(0).frequencyHz()),
-                Format.g4(r.master().get(r.master().size() - 1).frequencyHz()), Campaign.plain(reference));
+                Format.g4(r.master().get(r.master().size() - 1).frequencyHz()), Numbers.plain(reference));
         out.flush();
         if (outDir != null) {
             OutputOptions.writeCsv(outDir.resolve("shift-factors.csv"), force,
@@ -132,7 +132,7 @@ final class ShiftCommand implements Callable<Integer> {
             String unitLetter = template.kind().letter();
             StringBuilder master = new StringBuilder();
             master.append("# sample: ").append(template.sample()).append(" master curve\n");
-            master.append("# temperature: ").append(Campaign.plain(reference)).append(" °C\n");
+            master.append("# temperature: ").append(Numbers.plain(reference)).append(" °C\n");
             master.append("# modulus: ").append(template.kind()).append('\n');
             master.append("# note: time–temperature superposition by Viscarta shift; frequencies are reduced frequencies a_T f\n");
             master.append("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");

@@ -7,6 +7,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.viscarta.io.InputException;
+import org.viscarta.io.UsageException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -63,7 +64,7 @@ public final class Viscarta implements Runnable {
                 e.flush();
                 return CommandLine.ExitCode.USAGE;
             }
-            if (ex instanceof IllegalArgumentException) {
+            if (ex instanceof UsageException) {
                 e.println("viscarta: " + ex.getMessage());
                 e.flush();
                 return CommandLine.ExitCode.USAGE;

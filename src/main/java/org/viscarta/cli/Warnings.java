@@ -1,7 +1,7 @@
 package org.viscarta.cli;
 
 import java.io.PrintWriter;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.Inputs;
 import org.viscarta.io.ReadWarning;
 import picocli.CommandLine;
 
@@ -11,12 +11,12 @@ final class Warnings {
     private Warnings() {
     }
 
-    static void print(CommandLine.Model.CommandSpec spec, Campaign campaign) {
+    static void print(CommandLine.Model.CommandSpec spec, Inputs inputs) {
         PrintWriter err = spec.commandLine().getErr();
-        for (ReadWarning w : campaign.warnings()) {
+        for (ReadWarning w : inputs.warnings()) {
             err.println("warning: " + w);
         }
-        for (String n : campaign.notes()) {
+        for (String n : inputs.notes()) {
             err.println("note: " + n);
         }
         err.flush();

@@ -1,5 +1,6 @@
 package org.viscarta.compare;
 
+import org.viscarta.io.UsageException;
 import java.util.Locale;
 import org.viscarta.sweep.Numbers;
 
@@ -22,16 +23,24 @@ public final class ReferenceDistance {
 
     /** What is compared. */
     public enum Metric {
-        MODULI("moduli"), TAN_DELTA("tan-delta"), ALL("all");
+        MODULI("moduli", "log10 E′ and log10 E″"), TAN_DELTA("tan-delta", "log10 tan δ"),
+        ALL("all", "log10 E′, log10 E″ and log10 tan δ");
 
         private final String label;
+        private final String compared;
 
-        Metric(String label) {
+        Metric(String label, String compared) {
             this.label = label;
+            this.compared = compared;
         }
 
         public String label() {
             return label;
+        }
+
+        /** What is compared, in words. */
+        public String describe() {
+            return compared;
         }
 
         public static Metric parse(String text) {
@@ -40,12 +49,12 @@ public final class ReferenceDistance {
                     return m;
                 }
             }
-            throw new IllegalArgumentException("metric '" + text + "' is not known; use moduli, tan-delta or all");
+            throw new UsageException("metric '" + text + "' is not known; use moduli, tan-delta or all");
         }
     }
 
     /** Grid points across the shared band. */
-    private static final int GRID = 25;
+    public static final int GRID_POINTS = 25;
 
     /**
      * The comparison of a sample with one reference.
@@ -69,7 +78,7 @@ public final class ReferenceDistance {
 
     public ReferenceDistance(Metric metric, double minOverlapDecades, double maxTemperatureDifferenceC) {
         if (!(minOverlapDecades >= 0) || !(maxTemperatureDifferenceC >= 0)) {
-            throw new IllegalArgumentException("overlap and temperature limits must be >= 0");
+            throw new UsageException("overlap and temperature limits must be >= 0");
         }
         this.metric = metric;
         this.minOverlapDecades = minOverlapDecades;
@@ -87,9 +96,9 @@ public final class ReferenceDistance {
             return notComparable(lo, hi, String.format(Locale.ROOT, "the measured bands overlap over %.2f decades, less than %s",
                     decades, Numbers.plain(minOverlapDecades)));
         }
-        double[] grid = new double[GRID];
-        for (int k = 0; k < GRID; k++) {
-            grid[k] = k == GRID - 1 ? hi : lo * Math.pow(hi / lo, k / (double) (GRID - 1));
+        double[] grid = new double[GRID_POINTS];
+        for (int k = 0; k < GRID_POINTS; k++) {
+            grid[k] = k == GRID_POINTS - 1 ? hi : lo * Math.pow(hi / lo, k / (double) (GRID_POINTS - 1));
         }
         double[] pa = a.params();
         double[] pb = b.params();

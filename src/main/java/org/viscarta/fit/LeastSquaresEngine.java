@@ -31,9 +31,21 @@ public final class LeastSquaresEngine {
     /** Which Levenberg–Marquardt implementation runs. */
     public enum Method {
         /** Commons Math 3.6.1's MINPACK translation: the general, reference path. */
-        COMMONS_MATH,
+        COMMONS_MATH("Levenberg–Marquardt (Commons Math 3.6.1, its MINPACK translation)"),
         /** {@link CompactLevenbergMarquardt}: no matrix objects, for the many small fits of a campaign. */
-        COMPACT
+        COMPACT("Levenberg–Marquardt (Viscarta's compact solver: Cholesky on the damped normal equations, "
+                + "Nielsen's damping update; covariance from a Jacobi SVD of the Jacobian)");
+
+        private final String description;
+
+        Method(String description) {
+            this.description = description;
+        }
+
+        /** The solver in words, as Provenance names it. */
+        public String describe() {
+            return description;
+        }
     }
 
     /** Limits and tolerances of a solve. */
@@ -77,6 +89,11 @@ public final class LeastSquaresEngine {
 
     public LeastSquaresEngine(Settings settings) {
         this.settings = settings;
+    }
+
+    /** The solver and its evaluation limit, in words. */
+    public String describe() {
+        return settings.method().describe() + ", at most " + settings.maxEvaluations() + " evaluations per start";
     }
 
     /**

@@ -62,6 +62,12 @@ public final class ModelFitter {
         this(Weighting.LOG);
     }
 
+    /** How these fits are made, in words, as Provenance states it. */
+    public String describe() {
+        return engine.describe() + "; several data-derived starts per model; parameters moved in log space (positive "
+                + "values) or logit space (exponents); residuals: " + weighting.describe();
+    }
+
     /**
      * Fits a model (or, for a family, each of its variants, keeping the lowest AICc) from the
      * model's own data-derived starts.

@@ -1,5 +1,6 @@
 package org.viscarta.library;
 
+import org.viscarta.io.UsageException;
 import java.io.IOException;
 import java.io.OutputStreamWriter;
 import java.io.Writer;
@@ -63,10 +64,10 @@ public final class LibraryFolder {
     public Path add(Path source, Additions a, boolean replace) throws IOException {
         requireFolder();
         if (a.name() == null || a.name().isBlank()) {
-            throw new IllegalArgumentException("a reference needs a name: pass --name");
+            throw new UsageException("a reference needs a name: pass --name");
         }
         if (a.clazz() == null || a.clazz().isBlank()) {
-            throw new IllegalArgumentException("a reference needs a class (gel, tissue, paint film, ...): pass --class");
+            throw new UsageException("a reference needs a class (gel, tissue, paint film, ...): pass --class");
         }
         SweepFile sf = new SweepReader(null).read(source);
         if (sf.sweeps().size() != 1) {
@@ -140,7 +141,7 @@ public final class LibraryFolder {
         try (AutoCloseable lock = lock()) {
             Path existing = findByName(name);
             if (existing == null) {
-                throw new IllegalArgumentException("no reference named '" + name + "' in " + folder);
+                throw new UsageException("no reference named '" + name + "' in " + folder);
             }
             return keepRemoved(existing);
         } catch (IOException | RuntimeException e) {

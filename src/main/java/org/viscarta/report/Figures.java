@@ -25,7 +25,9 @@ import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
 import org.jfree.data.xy.YIntervalSeries;
 import org.jfree.data.xy.YIntervalSeriesCollection;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.Sample;
+import org.viscarta.compare.DampingRanking;
+import org.viscarta.sweep.Numbers;
 import org.viscarta.compare.FittedCurve;
 import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReplicateSummary;
@@ -57,7 +59,7 @@ public final class Figures {
                      double tanDelta) {
     }
 
-    static List<Aggregate> aggregate(Campaign.Sample s) {
+    static List<Aggregate> aggregate(Sample s) {
         Map<Long, List<SweepPoint>> byF = new TreeMap<>();
         for (Sweep r : s.replicates()) {
             for (SweepPoint p : r.fittablePoints()) {
@@ -121,7 +123,7 @@ public final class Figures {
      * E′ and E″ (or G′, G″) against frequency with replicate means ± SD, the best-supported model
      * with its 95 % band, and a residual panel below.
      */
-    public static Figure fit(Campaign.Sample s, FittedCurve curve, String stem) {
+    public static Figure fit(Sample s, FittedCurve curve, String stem) {
         String m = s.kind().letter();
         List<Aggregate> agg = aggregate(s);
         YIntervalSeriesCollection measured = new YIntervalSeriesCollection();
@@ -243,9 +245,9 @@ public final class Figures {
     }
 
     /** tan δ against frequency, one series (replicate geometric mean) per sample. */
-    public static Figure tanDelta(List<Campaign.Sample> samples) {
+    public static Figure tanDelta(List<Sample> samples) {
         XYSeriesCollection data = new XYSeriesCollection();
-        for (Campaign.Sample s : samples) {
+        for (Sample s : samples) {
             XYSeries series = new XYSeries(s.name());
             for (Aggregate a : aggregate(s)) {
                 series.add(a.f(), a.tanDelta());
@@ -265,19 +267,19 @@ public final class Figures {
     }
 
     /** The damping ranking: mean tan δ with its 95 % interval per sample, labelled with the letter group. */
-    public static Figure ranking(List<Campaign.RankRow> rows, String at) {
-        List<Campaign.RankRow> ranked = rows.stream().filter(r -> r.tanDelta() != null).toList();
+    public static Figure ranking(List<DampingRanking.Row<Sample>> rows, String at) {
+        List<DampingRanking.Row<Sample>> ranked = rows.stream().filter(r -> r.tanDelta() != null).toList();
         XYIntervalSeriesCollection data = new XYIntervalSeriesCollection();
         XYIntervalSeries series = new XYIntervalSeries("mean tan δ with 95 % interval");
         String[] labels = new String[ranked.size()];
         for (int i = 0; i < ranked.size(); i++) {
-            Campaign.RankRow r = ranked.get(i);
+            DampingRanking.Row<Sample> r = ranked.get(i);
             ReplicateSummary t = r.tanDelta();
             double y = ranked.size() - 1 - i;
             double lo = Double.isNaN(t.ci95Low()) ? t.mean() : t.ci95Low();
             double hi = Double.isNaN(t.ci95High()) ? t.mean() : t.ci95High();
             series.add(t.mean(), lo, hi, y, y, y);
-            labels[ranked.size() - 1 - i] = r.sample().name() + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
+            labels[ranked.size() - 1 - i] = r.name() + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
         }
         data.addSeries(series);
         NumberAxis x = new NumberAxis("loss tangent tan δ at " + at + " [–]");
@@ -295,12 +297,12 @@ public final class Figures {
         r.setErrorPaint(Palette.colour(0));
         XYPlot plot = new XYPlot(data, x, y, r);
         JFreeChart c = chart("Damping ranking (samples sharing a letter are not distinguishable)", plot, false);
-        return new Figure("damping-ranking", "Mean tan δ of each sample with its 95 % interval over replicates, highest damping at "
-                + "the top; the letters in brackets are the letter groups.", c);
+        return new Figure("damping-ranking", "Mean tan δ at " + at + " of each sample with its 95 % interval over replicates, "
+                + "highest damping at the top; the letters in brackets are the letter groups.", c);
     }
 
     /** A sample's measured E′ and E″ against the fitted curves of its closest references. */
-    public static Figure references(Campaign.Sample s, List<Matcher.Match> matches, Map<String, FittedCurve> references,
+    public static Figure references(Sample s, List<Matcher.Match> matches, Map<String, FittedCurve> references,
                                     int shown, String stem) {
         XYSeriesCollection data = new XYSeriesCollection();
         String m = s.kind().letter();
@@ -362,8 +364,8 @@ public final class Figures {
             if (!f.placed()) {
                 continue;
             }
-            XYSeries ss = new XYSeries(Campaign.plain(f.temperatureC()) + " °C " + m + "′");
-            XYSeries sl = new XYSeries(Campaign.plain(f.temperatureC()) + " °C " + m + "″");
+            XYSeries ss = new XYSeries(Numbers.plain(f.temperatureC()) + " °C " + m + "′");
+            XYSeries sl = new XYSeries(Numbers.plain(f.temperatureC()) + " °C " + m + "″");
             for (Sweep s : ts.sweeps()) {
                 if (s.temperatureC() != f.temperatureC()) {
                     continue;
@@ -377,7 +379,7 @@ public final class Figures {
             data.addSeries(sl);
         }
         LogAxis x = frequencyAxis();
-        x.setLabel("reduced frequency a_T f [Hz] at " + Campaign.plain(r.referenceC()) + " °C");
+        x.setLabel("reduced frequency a_T f [Hz] at " + Numbers.plain(r.referenceC()) + " °C");
         XYPlot plot = new XYPlot(data, x, logAxis("moduli " + m + "′ (filled), " + m + "″ [Pa]"), null);
         XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
         for (int i = 0; i < data.getSeriesCount(); i++) {
@@ -388,7 +390,7 @@ public final class Figures {
         }
         rr.setUseFillPaint(false);
         plot.setRenderer(rr);
-        return new Figure(stem, "Master curve of " + ts.sample() + " at " + Campaign.plain(r.referenceC()) + " °C: each temperature's "
+        return new Figure(stem, "Master curve of " + ts.sample() + " at " + Numbers.plain(r.referenceC()) + " °C: each temperature's "
                 + "storage (filled markers) and loss moduli (open markers) shifted along the frequency axis by its factor a_T.",
                 chart(ts.sample() + ": master curve", plot, true));
     }
@@ -447,7 +449,7 @@ public final class Figures {
             lr.setSeriesStroke(i, Palette.line(i));
         }
         plot.setRenderer(1, lr);
-        return new Figure(stem, "Shift factors of " + ts.sample() + " against temperature (reference " + Campaign.plain(t0)
+        return new Figure(stem, "Shift factors of " + ts.sample() + " against temperature (reference " + Numbers.plain(t0)
                 + " °C) with the WLF and Arrhenius fits.", chart(ts.sample() + ": shift factors", plot, true));
     }
 
@@ -459,7 +461,7 @@ public final class Figures {
         XYSeriesCollection data = new XYSeriesCollection();
         java.util.TreeMap<Double, XYSeries> byT = new java.util.TreeMap<>();
         for (Sweep s : ts.sweeps()) {
-            XYSeries series = byT.computeIfAbsent(s.temperatureC(), t -> new XYSeries(Campaign.plain(t) + " °C", true, true));
+            XYSeries series = byT.computeIfAbsent(s.temperatureC(), t -> new XYSeries(Numbers.plain(t) + " °C", true, true));
             for (SweepPoint p : s.fittablePoints()) {
                 series.add(p.magnitude(), Math.toDegrees(p.phaseAngle()));
             }

@@ -3,13 +3,15 @@ package org.viscarta.report;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.viscarta.Campaign;
-import org.viscarta.compare.DampingComparison;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.SampleAnalysis;
+import org.viscarta.analysis.Statements;
 import org.viscarta.compare.Matcher;
-import org.viscarta.compare.ReplicateSummary;
-import org.viscarta.fit.FitResult;
-import org.viscarta.fit.ParameterEstimate;
 import org.viscarta.io.SweepFile;
+import org.viscarta.table.Cells;
+import org.viscarta.table.Column;
+import org.viscarta.table.Medium;
+import org.viscarta.table.Table;
 
 /**
  * The report as one self-contained HTML page: inline CSS and SVG figures, no script, nothing
@@ -29,22 +31,19 @@ public final class HtmlReport {
     private HtmlReport() {
     }
 
-    public static String write(WorkbookReport.Content c, List<RenderedFigure> figures, boolean demo) {
+    public static String write(ReportContent c, List<RenderedFigure> figures) {
+        AnalysisResult r = c.result();
         StringBuilder h = new StringBuilder(64 * 1024);
         h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>Viscarta report</title>\n<style>")
                 .append(CSS).append("</style>\n</head>\n<body>\n");
         h.append("<h1>Viscarta report: oscillatory measurements of soft, lossy materials</h1>\n");
-        h.append("<p>Frequency sweeps of ").append(c.campaign().samples().size()).append(" sample(s) from ")
-                .append(c.campaign().files().size()).append(" file(s), fitted with viscoelastic models and ranked by damping "
-                        + "(tan δ) at ").append(esc(c.campaign().settings().rankingFrequency()))
-                .append(". The workbook report.xlsx beside this page holds every number, including every measured point with its "
-                        + "file and line.</p>\n");
-        if (demo) {
-            h.append("<p class=\"demo\">The inputs say they are invented demo data, generated from known models with noise. "
-                    + "They are not measurements of real materials.</p>\n");
+        h.append("<p>").append(esc(Statements.whatThisIs(r))).append(" The workbook report.xlsx beside this page holds every "
+                + "number, including every measured point with its file and line.</p>\n");
+        if (r.inputs().isDemo()) {
+            h.append("<p class=\"demo\">").append(esc(Texts.DEMO)).append("</p>\n");
         }
         h.append("<h2>Read me</h2>\n<dl>\n");
-        for (String[] d : Texts.DEFINITIONS) {
+        for (String[] d : Texts.definitions(r.request())) {
             h.append("<dt>").append(esc(d[0])).append("</dt><dd>").append(esc(d[1])).append("</dd>\n");
         }
         h.append("</dl>\n<h3>Cautions</h3>\n<div class=\"caution\">\n");
@@ -52,10 +51,16 @@ public final class HtmlReport {
             h.append("<p>").append(esc(caution)).append("</p>\n");
         }
         h.append("</div>\n");
-        summary(h, c);
-        ranking(h, c);
-        matches(h, c);
-        series(h, c);
+        table(h, OutputTables.summary(r), r.samples(), "");
+        r.ranking().ifPresent(rk -> {
+            table(h, OutputTables.ranking(r.request()), rk.rows(), Statements.rankedBy(r.request())
+                    + ", highest damping first; mean over replicates with its 95 % interval.");
+            for (String statement : rk.comparison().statements()) {
+                h.append("<p>").append(esc(statement)).append("</p>\n");
+            }
+        });
+        matches(h, r);
+        series(h, r);
         if (!figures.isEmpty()) {
             h.append("<h2>Figures</h2>\n");
             for (RenderedFigure f : figures) {
@@ -68,55 +73,40 @@ public final class HtmlReport {
         return h.toString();
     }
 
-    private static void summary(StringBuilder h, WorkbookReport.Content c) {
-        h.append("<h2>Summary</h2>\n<table>\n<tr><th>sample</th><th>group</th><th>replicates</th><th>frequency [Hz]</th>"
-                + "<th>best-supported model</th><th>Akaike weight [–]</th><th>not determined by the data</th></tr>\n");
-        for (Campaign.SampleFits sf : c.fits()) {
-            Campaign.Sample s = sf.sample();
-            FitResult best = sf.best().orElse(null);
-            long flagged = best == null ? 0 : best.parameters().stream().filter(ParameterEstimate::undetermined).count();
-            double weight = sf.fits().stream().filter(r -> r.best()).mapToDouble(r -> r.weight()).findFirst().orElse(Double.NaN);
-            h.append("<tr><td>").append(esc(s.name())).append("</td><td>").append(esc(s.group())).append("</td><td class=\"n\">")
-                    .append(s.replicates().size()).append("</td><td class=\"n\">").append(num(s.minFrequencyHz())).append("–")
-                    .append(num(s.maxFrequencyHz())).append("</td><td>").append(best == null ? "none converged" : esc(best.model()))
-                    .append("</td><td class=\"n\">").append(num(weight)).append("</td><td>")
-                    .append(flagged == 0 ? "" : flagged + " parameter(s)").append("</td></tr>\n");
+    /** Draws a declared table: a heading, an optional sentence, a header row with units, numbers right-aligned. */
+    private static <R> void table(StringBuilder h, Table<R> table, Iterable<R> items, String intro) {
+        List<Column<R>> cols = table.columnsFor(Medium.HTML);
+        h.append("<h2>").append(esc(table.name())).append("</h2>\n");
+        if (!intro.isEmpty()) {
+            h.append("<p>").append(esc(intro)).append("</p>\n");
+        }
+        h.append("<table>\n<tr>");
+        for (Column<R> col : cols) {
+            h.append("<th>").append(esc(col.header())).append("</th>");
+        }
+        h.append("</tr>\n");
+        for (R item : items) {
+            h.append("<tr>");
+            for (Column<R> col : cols) {
+                Object v = col.value().apply(item);
+                h.append(v instanceof Number ? "<td class=\"n\">" : "<td>").append(esc(Cells.readable(v))).append("</td>");
+            }
+            h.append("</tr>\n");
         }
         h.append("</table>\n");
     }
 
-    private static void ranking(StringBuilder h, WorkbookReport.Content c) {
-        h.append("<h2>Damping ranking</h2>\n<p>tan δ at ").append(esc(c.campaign().settings().rankingFrequency()))
-                .append(", highest damping first; mean over replicates with its 95 % interval.</p>\n<table>\n<tr><th>rank</th>"
-                        + "<th>sample</th><th>group</th><th>replicates</th><th>tan δ [–]</th><th>95 % interval [–]</th>"
-                        + "<th>letters</th><th>note</th></tr>\n");
-        for (Campaign.RankRow r : c.ranking()) {
-            ReplicateSummary t = r.tanDelta();
-            h.append("<tr><td class=\"n\">").append(r.rank() == 0 ? "" : r.rank()).append("</td><td>").append(esc(r.sample().name()))
-                    .append("</td><td>").append(esc(r.sample().group())).append("</td><td class=\"n\">")
-                    .append(t == null ? r.sample().replicates().size() : t.n()).append("</td><td class=\"n\">")
-                    .append(t == null ? "–" : num(t.mean())).append("</td><td class=\"n\">")
-                    .append(t == null || t.n() < 2 ? "–" : num(t.ci95Low()) + " – " + num(t.ci95High())).append("</td><td>")
-                    .append(esc(r.letters())).append("</td><td>").append(esc(r.note())).append("</td></tr>\n");
-        }
-        h.append("</table>\n");
-        DampingComparison.Result cmp = c.comparison();
-        for (String statement : cmp.statements()) {
-            h.append("<p>").append(esc(statement)).append("</p>\n");
-        }
-    }
-
-    private static void matches(StringBuilder h, WorkbookReport.Content c) {
-        if (c.library() != null) {
+    private static void matches(StringBuilder h, AnalysisResult r) {
+        if (r.library().isPresent()) {
             h.append("<h2>Closest reference materials</h2>\n<p>Distance: the typical difference of the E′ and E″ curves on a "
                     + "logarithmic scale over the frequencies both were measured at, in decades (0.1 ≈ 26 % apart).</p>\n<table>\n"
                     + "<tr><th>sample</th><th>closest</th><th>distance [decades]</th><th>second</th><th>distance [decades]</th>"
                     + "<th>first and second distinguishable</th></tr>\n");
-            for (int i = 0; i < c.fits().size(); i++) {
-                List<Matcher.Match> m = c.matchesOf(i);
+            for (SampleAnalysis sa : r.samples()) {
+                List<Matcher.Match> m = sa.matches();
                 Matcher.Match a = m.size() > 0 && m.get(0).rank() == 1 ? m.get(0) : null;
                 Matcher.Match b = m.size() > 1 && m.get(1).rank() == 2 ? m.get(1) : null;
-                h.append("<tr><td>").append(esc(c.fits().get(i).sample().name())).append("</td><td>")
+                h.append("<tr><td>").append(esc(sa.sample().name())).append("</td><td>")
                         .append(a == null ? "–" : esc(a.reference())).append("</td><td class=\"n\">")
                         .append(a == null ? "–" : num(a.result().distance()) + " ± " + num(a.result().uncertainty()))
                         .append("</td><td>").append(b == null ? "–" : esc(b.reference())).append("</td><td class=\"n\">")
@@ -125,22 +115,22 @@ public final class HtmlReport {
             }
             h.append("</table>\n");
         }
-        if (c.target() != null) {
-            h.append("<h2>Best mimic of ").append(esc(c.target())).append("</h2>\n<table>\n<tr><th>rank</th><th>candidate</th>"
+        r.mimic().ifPresent(mimic -> {
+            h.append("<h2>Best mimic of ").append(esc(mimic.target())).append("</h2>\n<table>\n<tr><th>rank</th><th>candidate</th>"
                     + "<th>distance [decades]</th><th>differs most at [Hz]</th><th>note</th></tr>\n");
-            for (Matcher.Match m : c.mimic()) {
+            for (Matcher.Match m : mimic.matches()) {
                 h.append("<tr><td class=\"n\">").append(m.rank() == 0 ? "" : m.rank()).append("</td><td>").append(esc(m.reference()))
                         .append("</td><td class=\"n\">").append(num(m.result().distance())).append(" ± ")
                         .append(num(m.result().uncertainty())).append("</td><td class=\"n\">").append(num(m.result().departureHz()))
                         .append("</td><td>").append(esc(m.result().note())).append("</td></tr>\n");
             }
-            h.append("</table>\n<p>").append(esc("First and second distinguishable: " + Matcher.distinguishable(c.mimic())))
+            h.append("</table>\n<p>").append(esc("First and second distinguishable: " + Matcher.distinguishable(mimic.matches())))
                     .append("</p>\n");
-        }
+        });
     }
 
-    private static void series(StringBuilder h, WorkbookReport.Content c) {
-        for (org.viscarta.temperature.TemperatureSeries ts : c.series()) {
+    private static void series(StringBuilder h, AnalysisResult res) {
+        for (org.viscarta.temperature.TemperatureSeries ts : res.series()) {
             var r = ts.result();
             h.append("<h2>Temperature series: ").append(esc(ts.sample())).append("</h2>\n<p>Master curve at ")
                     .append(num(r.referenceC())).append(" °C, analysed as the sample ").append(esc(ts.masterName()))
@@ -168,23 +158,23 @@ public final class HtmlReport {
         }
     }
 
-    private static void provenance(StringBuilder h, WorkbookReport.Content c) {
+    private static void provenance(StringBuilder h, ReportContent c) {
         Provenance p = c.provenance();
         h.append("<h2>Provenance</h2>\n<table>\n<tr><th>tool</th><td>Viscarta ").append(esc(p.toolVersion())).append("</td></tr>\n")
                 .append("<tr><th>command line</th><td><code>").append(esc(p.commandLine())).append("</code></td></tr>\n")
                 .append("<tr><th>run at (UTC)</th><td>").append(esc(p.runAtUtc())).append("</td></tr>\n");
-        for (Map.Entry<String, String> e : p.settings().entrySet()) {
+        for (Map.Entry<String, String> e : Statements.settings(c.result().request()).entrySet()) {
             h.append("<tr><th>").append(esc(e.getKey())).append("</th><td>").append(esc(e.getValue())).append("</td></tr>\n");
         }
         h.append("</table>\n<table>\n<tr><th>input file</th><th>SHA-256</th></tr>\n");
-        for (SweepFile f : c.campaign().files()) {
+        for (SweepFile f : c.result().inputs().files()) {
             h.append("<tr><td>").append(esc(f.path().toString())).append("</td><td><code>").append(f.sha256()).append("</code></td></tr>\n");
         }
         h.append("</table>\n");
-        if (!c.campaign().warnings().isEmpty() || !c.campaign().notes().isEmpty()) {
+        List<String> warnings = c.result().inputs().warningTexts();
+        if (!warnings.isEmpty()) {
             h.append("<h3>Warnings and conversions</h3>\n<ul>\n");
-            c.campaign().warnings().forEach(w -> h.append("<li>").append(esc(w.toString())).append("</li>\n"));
-            c.campaign().notes().forEach(n -> h.append("<li>").append(esc(n)).append("</li>\n"));
+            warnings.forEach(w -> h.append("<li>").append(esc(w)).append("</li>\n"));
             h.append("</ul>\n");
         }
     }

@@ -1,20 +1,22 @@
 package org.viscarta.report;
 
-import java.util.LinkedHashMap;
-import java.util.Map;
-
 /**
- * What a reader needs to trace a result back: the tool version, the exact command line, when it
- * ran (UTC), and every setting by name.
+ * What a reader needs to trace a result back, beyond the request's settings (which
+ * {@link org.viscarta.analysis.Statements#settings} states): the tool version, the exact command
+ * line, and when it ran (UTC).
  *
  * @param toolVersion Viscarta's version
  * @param commandLine the full command line as typed (arguments quoted where they hold spaces)
  * @param runAtUtc    ISO-8601 UTC time of the run
- * @param settings    every setting, in a stable order
  */
-public record Provenance(String toolVersion, String commandLine, String runAtUtc, Map<String, String> settings) {
+public record Provenance(String toolVersion, String commandLine, String runAtUtc) {
 
-    public Provenance {
-        settings = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(settings));
+    /** A command line as a shell would take it back: each argument quoted where it holds spaces or quotes. */
+    public static String quote(String program, java.util.List<String> args) {
+        StringBuilder sb = new StringBuilder(program);
+        for (String a : args) {
+            sb.append(' ').append(a.isEmpty() || a.matches(".*[\\s\"'].*") ? "'" + a.replace("'", "'\\''") + "'" : a);
+        }
+        return sb.toString();
     }
 }

@@ -2,12 +2,16 @@ package org.viscarta.report;
 
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.viscarta.Campaign;
+import java.util.Set;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.SampleAnalysis;
 import org.viscarta.compare.FittedCurve;
 import org.viscarta.compare.Matcher;
+import org.viscarta.temperature.TemperatureSeries;
 
 /** Chooses and builds the figures of a report. */
 public final class ReportFigures {
@@ -20,9 +24,7 @@ public final class ReportFigures {
     private ReportFigures() {
     }
 
-    /**
-     * @param references the library's candidates (for their curves); empty without a library
-     */
+    /** Draws every figure as PNG and SVG. */
     public static List<RenderedFigure> render(List<Figure> figures) throws java.io.IOException {
         List<RenderedFigure> out = new ArrayList<>();
         for (Figure f : figures) {
@@ -31,36 +33,37 @@ public final class ReportFigures {
         return out;
     }
 
-    public static List<Figure> build(WorkbookReport.Content c, List<Matcher.Candidate> references) {
+    /** The figures of a result: the ranking, tan δ of all samples, each temperature series, each sample's fit and references. */
+    public static List<Figure> build(AnalysisResult r) {
         List<Figure> out = new ArrayList<>();
-        out.add(Figures.ranking(c.ranking(), c.campaign().settings().rankingFrequency()));
-        out.add(Figures.tanDelta(c.campaign().samples()));
-        for (org.viscarta.temperature.TemperatureSeries ts : c.series()) {
+        if (r.ranking().isPresent()) {
+            out.add(Figures.ranking(r.rankingRows(), r.request().rankingPoint().describe()));
+        }
+        out.add(Figures.tanDelta(r.samples().stream().map(SampleAnalysis::sample).toList()));
+        for (TemperatureSeries ts : r.series()) {
             String slug = slug(ts.sample());
             out.add(Figures.master(ts, "master-" + slug));
             out.add(Figures.shiftFactors(ts, "shift-factors-" + slug));
             out.add(Figures.vanGurpPalmen(ts, "van-gurp-palmen-" + slug));
         }
-        if (c.fits().size() > MAX_SAMPLE_FIGURES) {
+        if (r.samples().size() > MAX_SAMPLE_FIGURES) {
             return out;
         }
         Map<String, FittedCurve> refCurves = new HashMap<>();
-        for (Matcher.Candidate r : references) {
-            if (r.curve() != null) {
-                refCurves.put(r.name(), r.curve());
+        for (Matcher.Candidate ref : r.references()) {
+            if (ref.curve() != null) {
+                refCurves.put(ref.name(), ref.curve());
             }
         }
-        List<FittedCurve> curves = c.campaign().curves(c.fits());
-        java.util.Set<String> used = new java.util.HashSet<>();
-        for (int i = 0; i < c.fits().size(); i++) {
-            Campaign.Sample s = c.fits().get(i).sample();
-            String slug = slug(s.name());
+        Set<String> used = new HashSet<>();
+        for (SampleAnalysis sa : r.samples()) {
+            String slug = slug(sa.sample().name());
             for (int k = 2; !used.add(slug); k++) {
-                slug = slug(s.name()) + "-" + k;
+                slug = slug(sa.sample().name()) + "-" + k;
             }
-            out.add(Figures.fit(s, curves.get(i), "fit-" + slug));
-            if (!c.matchesOf(i).isEmpty()) {
-                out.add(Figures.references(s, c.matchesOf(i), refCurves, REFERENCES_SHOWN, "references-" + slug));
+            out.add(Figures.fit(sa.sample(), sa.curve().orElse(null), "fit-" + slug));
+            if (!sa.matches().isEmpty()) {
+                out.add(Figures.references(sa.sample(), sa.matches(), refCurves, REFERENCES_SHOWN, "references-" + slug));
             }
         }
         return out;

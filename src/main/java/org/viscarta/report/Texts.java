@@ -1,12 +1,42 @@
 package org.viscarta.report;
 
+import java.util.ArrayList;
 import java.util.List;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.Statements;
 
-/** The plain-language texts every report carries (PRODUCT.md "Cautions the product shows"). */
+/**
+ * The plain-language texts every report carries (PRODUCT.md "Cautions the product shows"); the
+ * parts that depend on how the analysis was done are generated from its request.
+ */
 public final class Texts {
 
     private Texts() {
     }
+
+    /** Said when the inputs call themselves demo data. */
+    public static final String DEMO = "The inputs say they are invented demo data, generated from known models with noise. "
+            + "They are not measurements of real materials.";
+
+    /** The definitions, with the misfit described for the weighting that ran. */
+    public static List<String[]> definitions(AnalysisRequest request) {
+        List<String[]> out = new ArrayList<>(DEFINITIONS);
+        out.add(new String[] {"RSS and RMS misfit", Statements.rssDefinition(request)});
+        return out;
+    }
+
+    /** What each sheet holds, with the ranking point that ran. */
+    public static List<String[]> sheets(AnalysisRequest request) {
+        String at = Statements.rankedBy(request);
+        List<String[]> out = new ArrayList<>();
+        for (String[] s : SHEETS) {
+            out.add(new String[] {s[0], s[1].replace(AT_REFERENCE, at)});
+        }
+        return out;
+    }
+
+    /** Stands for the ranking point in the sheet descriptions. */
+    private static final String AT_REFERENCE = "tan δ at the reference frequency";
 
     /** The cautions, one paragraph each. */
     public static final List<String> CAUTIONS = List.of(
@@ -19,7 +49,7 @@ public final class Texts {
                     + "say so when citing that standard.");
 
     /** Definitions in words a non-specialist follows; each entry is a term and its explanation. */
-    public static final List<String[]> DEFINITIONS = List.of(
+    private static final List<String[]> DEFINITIONS = List.of(
             new String[] {"Storage modulus E′ (or G′ in shear) [Pa]",
                 "How stiff the material is when wobbled at a given frequency: the part of its resistance that stores "
                     + "energy and gives it back, like a spring. Higher means stiffer."},
@@ -64,13 +94,10 @@ public final class Texts {
                     + "a higher frequency. Shifting each temperature's curve along the frequency axis by a factor a_T joins them into "
                     + "one master curve at the reference temperature, spanning far more frequencies than one measurement. WLF and "
                     + "Arrhenius are the two usual laws for how a_T depends on temperature. If the shifted curves do not line up "
-                    + "(van Gurp–Palmen plot: phase angle against |E*|), the master curve should not be trusted."},
-            new String[] {"RSS and RMS misfit",
-                "Residual sum of squares of the natural-log differences between model and data; the RMS misfit is its root "
-                    + "mean square, roughly the typical relative misfit (0.05 ≈ 5 %)."});
+                    + "(van Gurp–Palmen plot: phase angle against |E*|), the master curve should not be trusted."});
 
     /** What each sheet holds. */
-    public static final List<String[]> SHEETS = List.of(
+    private static final List<String[]> SHEETS = List.of(
             new String[] {"Summary", "One row per sample: what was measured, tan δ at the reference frequency, the best-supported model."},
             new String[] {"Damping ranking", "Samples ordered by tan δ at the reference frequency, highest damping first, with 95 % intervals over replicates."},
             new String[] {"Group comparison", "Which differences in damping the replicates support: pairwise Welch t-tests with "

@@ -2,10 +2,7 @@ package org.viscarta.report;
 
 import java.io.IOException;
 import java.io.OutputStream;
-import java.util.ArrayList;
-import java.util.IdentityHashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import org.apache.poi.ss.usermodel.Cell;
 import org.apache.poi.ss.usermodel.CellStyle;
@@ -14,47 +11,28 @@ import org.apache.poi.ss.usermodel.Row;
 import org.apache.poi.ss.usermodel.Sheet;
 import org.apache.poi.ss.usermodel.Workbook;
 import org.apache.poi.xssf.streaming.SXSSFWorkbook;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.Statements;
 import org.viscarta.compare.DampingComparison;
 import org.viscarta.compare.Matcher;
-import org.viscarta.compare.ReferenceDistance;
-import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.io.SweepFile;
+import org.viscarta.sweep.Numbers;
+import org.viscarta.table.Column;
+import org.viscarta.table.Medium;
+import org.viscarta.table.Style;
+import org.viscarta.table.Table;
 import org.viscarta.temperature.ShiftAnalysis;
 import org.viscarta.temperature.ShiftFits;
 import org.viscarta.temperature.TemperatureSeries;
-import org.viscarta.fit.DerivedEstimate;
-import org.viscarta.fit.FitResult;
-import org.viscarta.fit.ModelSelection;
-import org.viscarta.fit.ParameterEstimate;
-import org.viscarta.io.ReadWarning;
-import org.viscarta.io.SweepFile;
-import org.viscarta.library.ReferenceLibrary;
-import org.viscarta.sweep.Sweep;
-import org.viscarta.sweep.SweepPoint;
 
 /**
  * Writes the report workbook: Read me, Summary, Damping ranking, Group comparison, Reference
- * matches, Mimic ranking (with a target), Model fits, Derived quantities, Correlations, Data,
- * Reference library and Provenance. Numbers are numeric cells; every header carries its unit. Streams rows
- * (SXSSF) so that large campaigns fit in memory.
+ * matches, Mimic ranking (with a target), Temperature series, Model fits, Derived quantities,
+ * Correlations, Data, Reference library, Figures and Provenance. The tables are drawn from their
+ * declarations in {@link OutputTables}; numbers are numeric cells; every header carries its unit.
+ * Streams rows (SXSSF) so that large campaigns fit in memory.
  */
 public final class WorkbookReport {
-
-    /** Everything the workbook shows. */
-    public record Content(Campaign campaign, List<Campaign.SampleFits> fits, List<Campaign.RankRow> ranking,
-                          DampingComparison.Result comparison, ReferenceLibrary library, List<List<Matcher.Match>> matches,
-                          String target, List<Matcher.Match> mimic, List<TemperatureSeries> series, Provenance provenance) {
-        public Content {
-            matches = List.copyOf(matches);
-            mimic = List.copyOf(mimic);
-            series = List.copyOf(series);
-        }
-
-        /** The matches of the i-th sample of {@code fits}, or an empty list. */
-        List<Matcher.Match> matchesOf(int i) {
-            return i < matches.size() ? matches.get(i) : List.of();
-        }
-    }
 
     /** Columns (12 characters wide) and rows a figure spans in the Figures sheet: about 6.5 × 4.2 inches. */
     private static final int FIGURE_COLUMNS = 9;
@@ -67,12 +45,10 @@ public final class WorkbookReport {
     private static final int LABEL_WIDTH = 34;
     private static final int TEXT_WIDTH = 100;
 
-    private WorkbookReport() {
-    }
+    /** Said in a table's sheet when no library was given. */
+    private static final String NO_LIBRARY = "(no reference library was given: pass --library DIR)";
 
-    /** Writes the workbook without figures. */
-    public static void write(Content c, OutputStream out) throws IOException {
-        write(c, List.of(), out);
+    private WorkbookReport() {
     }
 
     /**
@@ -80,30 +56,32 @@ public final class WorkbookReport {
      * bytes: the document's creation time is the run time stated in Provenance, and every ZIP entry
      * carries that time too.
      */
-    public static void write(Content c, List<RenderedFigure> figures, OutputStream out) throws IOException {
+    public static void write(ReportContent c, List<RenderedFigure> figures, OutputStream out) throws IOException {
         java.time.Instant stated = java.time.Instant.parse(c.provenance().runAtUtc());
+        AnalysisResult r = c.result();
         java.io.ByteArrayOutputStream buffer = new java.io.ByteArrayOutputStream();
         try (SXSSFWorkbook wb = new SXSSFWorkbook(200)) {
             var core = wb.getXSSFWorkbook().getProperties().getCoreProperties();
             core.setCreated(java.util.Optional.of(java.util.Date.from(stated)));
             core.setCreator("Viscarta " + c.provenance().toolVersion());
             Styles st = new Styles(wb);
-            readMe(wb, st, c);
-            summary(wb, st, c);
-            ranking(wb, st, c);
-            groupComparison(wb, st, c);
-            referenceMatches(wb, st, c);
-            if (c.target() != null) {
-                mimic(wb, st, c);
+            readMe(wb, st, r);
+            table(wb, st, OutputTables.summary(r), r.samples(), "", List.of());
+            table(wb, st, OutputTables.ranking(r.request()), r.rankingRows(), "", List.of());
+            r.comparison().ifPresent(cmp -> groupComparison(wb, st, cmp));
+            List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(MATCHES_SHOWN)).toList();
+            table(wb, st, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());
+            r.mimic().ifPresent(m -> table(wb, st, OutputTables.matches(true), m.matches(), "",
+                    List.of("first and second distinguishable: " + Matcher.distinguishable(m.matches()))));
+            if (!r.series().isEmpty()) {
+                temperatureSeries(wb, st, r);
             }
-            if (!c.series().isEmpty()) {
-                temperatureSeries(wb, st, c);
-            }
-            modelFits(wb, st, c);
-            derived(wb, st, c);
-            correlations(wb, st, c);
-            data(wb, st, c);
-            library(wb, st, c);
+            table(wb, st, OutputTables.modelFits(r.request()), OutputTables.fitRows(r.samples()), "", List.of());
+            table(wb, st, OutputTables.DERIVED, OutputTables.derivedRows(r.samples()), "", List.of());
+            table(wb, st, OutputTables.CORRELATIONS, OutputTables.correlationRows(r.samples()), "", List.of());
+            table(wb, st, OutputTables.DATA, OutputTables.dataRows(r.samples()), "", List.of());
+            table(wb, st, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
+                    r.library().isEmpty() ? NO_LIBRARY : "", List.of());
             if (!figures.isEmpty()) {
                 figures(wb, st, figures);
             }
@@ -112,6 +90,50 @@ public final class WorkbookReport {
             wb.dispose();
         }
         out.write(ReproducibleZip.rewrite(buffer.toByteArray(), stated.toEpochMilli()));
+    }
+
+    /**
+     * Draws a declared table as a sheet: a frozen, filtered header row with units, one row per item,
+     * numbers as numeric cells in the column's format, the column widths, a colour scale on tan δ.
+     *
+     * @param empty  said in the first row when the table has no rows for a reason ("" for none)
+     * @param footer lines after the table
+     */
+    private static <R> void table(Workbook wb, Styles st, Table<R> table, Iterable<R> items, String empty, List<String> footer) {
+        Sheet s = wb.createSheet(table.name());
+        List<Column<R>> cols = table.columnsFor(Medium.SHEET);
+        CellStyle[] formats = new CellStyle[cols.size()];
+        Object[] header = new Object[cols.size()];
+        for (int i = 0; i < cols.size(); i++) {
+            formats[i] = st.byStyle.get(cols.get(i).style());
+            header[i] = cols.get(i).header();
+        }
+        Rows rows = new Rows(s, formats);
+        rows.styled(st.header, header);
+        freezeHeader(s);
+        if (!empty.isEmpty()) {
+            rows.row(empty);
+        }
+        Object[] values = new Object[cols.size()];
+        for (R item : items) {
+            for (int i = 0; i < values.length; i++) {
+                values[i] = cols.get(i).value().apply(item);
+            }
+            rows.row(values);
+        }
+        if (empty.isEmpty()) {
+            table(s, rows, cols.size() - 1);
+            for (int i = 0; i < cols.size(); i++) {
+                if (table.colourScaled().contains(cols.get(i).csvName())) {
+                    tanDeltaScale(s, rows, i);
+                }
+            }
+        }
+        if (!footer.isEmpty()) {
+            rows.blank();
+            footer.forEach(rows::row);
+        }
+        widths(s, cols.stream().mapToInt(Column::width).toArray());
     }
 
     private static void figures(SXSSFWorkbook wb, Styles st, List<RenderedFigure> figures) {
@@ -151,6 +173,8 @@ public final class WorkbookReport {
         /** Frequencies: up to four decimals. */
         final CellStyle freq;
         final CellStyle integer;
+        /** The number format of each declared column style. */
+        final java.util.Map<Style, CellStyle> byStyle = new java.util.EnumMap<>(Style.class);
 
         Styles(Workbook wb) {
             sci = numberStyle(wb, "0.0000E+00");
@@ -158,6 +182,11 @@ public final class WorkbookReport {
             dec2 = numberStyle(wb, "0.00");
             freq = numberStyle(wb, "0.0###");
             integer = numberStyle(wb, "0");
+            byStyle.put(Style.SCIENTIFIC, sci);
+            byStyle.put(Style.DECIMAL4, dec4);
+            byStyle.put(Style.DECIMAL2, dec2);
+            byStyle.put(Style.FREQUENCY, freq);
+            byStyle.put(Style.INTEGER, integer);
             Font big = wb.createFont();
             big.setBold(true);
             big.setFontHeightInPoints((short) 14);
@@ -216,7 +245,7 @@ public final class WorkbookReport {
                         }
                     }
                 } else if (v instanceof Boolean b) {
-                    cell.setCellValue(b);
+                    cell.setCellValue(b ? "yes" : "no");
                 } else {
                     cell.setCellValue(v.toString());
                 }
@@ -315,28 +344,24 @@ public final class WorkbookReport {
         s.getPrintSetup().setFitHeight((short) 0);
     }
 
-    private static void readMe(Workbook wb, Styles st, Content c) {
+    private static void readMe(Workbook wb, Styles st, AnalysisResult r) {
         Sheet s = wb.createSheet("Read me");
         Rows rows = new Rows(s);
         rows.styled(st.title, "Viscarta report: oscillatory measurements of soft, lossy materials");
         rows.blank();
-        rows.paragraph(st.bold, st.wrap, "What this is", "Frequency sweeps of " + c.campaign().samples().size()
-                + " sample(s) from " + c.campaign().files().size() + " file(s), each fitted with viscoelastic models, and "
-                + "ranked by damping (tan δ) at " + Campaign.plain(c.campaign().settings().atHz()) + " Hz. Every number can "
-                + "be traced to its input file and line (sheet Data) and to the command that made it (sheet Provenance).",
-                LABEL_WIDTH, TEXT_WIDTH);
-        if (isDemo(c)) {
-            rows.paragraph(st.bold, st.wrap, "Demo data", "The inputs say they are invented demo data, generated from known "
-                    + "models with noise. They are not measurements of real materials.", LABEL_WIDTH, TEXT_WIDTH);
+        rows.paragraph(st.bold, st.wrap, "What this is", Statements.whatThisIs(r) + " Every number can be traced to its input "
+                + "file and line (sheet Data) and to the command that made it (sheet Provenance).", LABEL_WIDTH, TEXT_WIDTH);
+        if (r.inputs().isDemo()) {
+            rows.paragraph(st.bold, st.wrap, "Demo data", Texts.DEMO, LABEL_WIDTH, TEXT_WIDTH);
         }
         rows.blank();
         rows.styled(st.header, "Sheet", "What it holds");
-        for (String[] sh : Texts.SHEETS) {
+        for (String[] sh : Texts.sheets(r.request())) {
             rows.paragraph(st.wrap, st.wrap, sh[0], sh[1], LABEL_WIDTH, TEXT_WIDTH);
         }
         rows.blank();
         rows.styled(st.header, "Term", "Meaning");
-        for (String[] d : Texts.DEFINITIONS) {
+        for (String[] d : Texts.definitions(r.request())) {
             rows.paragraph(st.bold, st.wrap, d[0], d[1], LABEL_WIDTH, TEXT_WIDTH);
         }
         rows.blank();
@@ -344,7 +369,7 @@ public final class WorkbookReport {
         for (String caution : Texts.CAUTIONS) {
             rows.paragraph(st.wrap, st.wrap, "", caution, LABEL_WIDTH, TEXT_WIDTH);
         }
-        List<String> warnings = warningTexts(c);
+        List<String> warnings = r.inputs().warningTexts();
         if (!warnings.isEmpty()) {
             rows.blank();
             rows.styled(st.header, "Warnings and notes", "(" + warnings.size() + "; also listed in Provenance)");
@@ -355,120 +380,16 @@ public final class WorkbookReport {
         widths(s, LABEL_WIDTH, TEXT_WIDTH);
     }
 
-    /** True when an input says it is invented demo data. */
-    public static boolean isDemo(Content c) {
-        for (SweepFile f : c.campaign().files()) {
-            for (String v : f.info().metadata().values()) {
-                if (v.toLowerCase(Locale.ROOT).contains("demo data")) {
-                    return true;
-                }
-            }
-        }
-        return false;
-    }
-
-    private static List<String> warningTexts(Content c) {
-        List<String> out = new ArrayList<>();
-        for (ReadWarning w : c.campaign().warnings()) {
-            out.add(w.toString());
-        }
-        out.addAll(c.campaign().notes());
-        return out;
-    }
-
-    private static String atHeader(Content c, String what) {
-        return what + " at " + c.campaign().settings().rankingFrequency();
-    }
-
-    private static void summary(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Summary");
-        Rows rows = new Rows(s, null, null, null, st.dec2, st.integer, st.integer, st.freq, st.freq, st.dec4, st.dec4, st.dec4, null,
-                null, st.dec4, st.dec4, null, null, st.dec4);
-        rows.styled(st.header, "sample", "group", "modulus basis", "temperature [°C]", "replicates", "points",
-                "lowest frequency [Hz]", "highest frequency [Hz]", atHeader(c, "tan δ [–]"), "tan δ 95 % CI low [–]",
-                "tan δ 95 % CI high [–]", "damping letter group", "best-supported model", "Akaike weight of best [–]",
-                "RMS log misfit of best [–]", "also supported (ΔAICc < 2)", "closest reference", "distance to it [decades]", "notes");
-        freezeHeader(s);
-        Map<Campaign.Sample, Campaign.RankRow> rankOf = new IdentityHashMap<>();
-        for (Campaign.RankRow r : c.ranking()) {
-            rankOf.put(r.sample(), r);
-        }
-        for (int i = 0; i < c.fits().size(); i++) {
-            Campaign.SampleFits sf = c.fits().get(i);
-            Campaign.Sample smp = sf.sample();
-            Campaign.RankRow rr = rankOf.get(smp);
-            Matcher.Match closest = c.matchesOf(i).stream().filter(m -> m.rank() == 1).findFirst().orElse(null);
-            ReplicateSummary t = rr == null ? null : rr.tanDelta();
-            ModelSelection.Ranked best = sf.fits().stream().filter(ModelSelection.Ranked::best).findFirst().orElse(null);
-            List<String> notes = new ArrayList<>();
-            if (rr != null && !rr.note().isEmpty()) {
-                notes.add(rr.note());
-            }
-            if (best == null) {
-                notes.add("no model converged");
-            } else {
-                best.fit().parameters().stream().filter(ParameterEstimate::undetermined)
-                        .forEach(p -> notes.add(best.fit().model() + " " + p.name() + ": " + p.note()));
-            }
-            int points = smp.replicates().stream().mapToInt(x -> x.points().size()).sum();
-            rows.row(smp.name(), smp.group(), smp.kind() + " (" + smp.kind().letter() + ")", smp.temperatureC(),
-                    smp.replicates().size(), points, smp.minFrequencyHz(), smp.maxFrequencyHz(),
-                    t == null ? null : t.mean(), t == null ? null : t.ci95Low(), t == null ? null : t.ci95High(),
-                    rr == null ? "" : rr.letters(), best == null ? "none converged" : best.fit().model(),
-                    best == null ? null : best.weight(), best == null ? null : best.fit().rmsLogResidual(),
-                    String.join(", ", alsoSupported(sf)), closest == null ? "" : closest.reference(),
-                    closest == null ? null : closest.result().distance(), String.join("; ", notes));
-        }
-        table(s, rows, 18);
-        tanDeltaScale(s, rows, 8);
-        widths(s, 28, 16, 12, 14, 11, 9, 13, 13, 14, 14, 14, 10, 22, 14, 14, 30, 24, 14, 60);
-    }
-
-    private static List<String> alsoSupported(Campaign.SampleFits sf) {
-        List<String> out = new ArrayList<>();
-        for (ModelSelection.Ranked rk : sf.fits()) {
-            if (!rk.best() && rk.deltaAicc() < 2) {
-                out.add(rk.fit().model());
-            }
-        }
-        return out;
-    }
-
-    private static void ranking(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Damping ranking");
-        Rows rows = new Rows(s, st.integer, null, null, st.integer, st.freq, st.dec4, st.dec4, st.dec4, st.dec4, st.sci, st.sci);
-        rows.styled(st.header, "rank", "sample", "group", "replicates", "frequency [Hz]", "tan δ mean [–]", "tan δ SD [–]",
-                "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]", "storage modulus mean [Pa]", "loss modulus mean [Pa]",
-                "value from", "letter group", "note");
-        freezeHeader(s);
-        for (Campaign.RankRow r : c.ranking()) {
-            ReplicateSummary t = r.tanDelta();
-            rows.row(r.rank() == 0 ? null : r.rank(), r.sample().name(), r.sample().group(),
-                    t == null ? r.sample().replicates().size() : t.n(), rankingFrequencyHz(c),
-                    t == null ? null : t.mean(), t == null ? null : t.sd(), t == null ? null : t.ci95Low(),
-                    t == null ? null : t.ci95High(), r.storage(), r.loss(), r.source().description(), r.letters(), r.note());
-        }
-        table(s, rows, 13);
-        tanDeltaScale(s, rows, 5);
-        widths(s, 7, 28, 16, 12, 14, 14, 12, 14, 14, 18, 18, 30, 60);
-    }
-
-    private static double rankingFrequencyHz(Content c) {
-        Campaign.Settings st = c.campaign().settings();
-        return st.hasBand() ? Math.sqrt(st.bandLowHz() * st.bandHighHz()) : st.atHz();
-    }
-
-    private static void groupComparison(Workbook wb, Styles st, Content c) {
+    private static void groupComparison(Workbook wb, Styles st, DampingComparison.Result cmp) {
         Sheet s = wb.createSheet("Group comparison");
         Rows rows = new Rows(s, null, null, st.dec4, st.dec4, st.dec4, st.dec4);
-        DampingComparison.Result cmp = c.comparison();
         rows.styled(st.title, "Which differences in damping are supported");
         for (String statement : cmp.statements()) {
             rows.paragraph(st.wrap, st.wrap, "", statement, 4, 150);
         }
         rows.blank();
         rows.styled(st.header, "sample", "other sample", "Welch t [–]", "degrees of freedom [–]", "p [–]", "Holm-adjusted p [–]",
-                "supported at α = " + Campaign.plain(cmp.alpha()));
+                "supported at α = " + Numbers.plain(cmp.alpha()));
         for (DampingComparison.Pair p : cmp.pairs()) {
             rows.row(p.first(), p.second(), p.welch().t(), p.welch().df(), p.welch().p(), p.pHolm(), p.significant() ? "yes" : "no");
         }
@@ -490,56 +411,12 @@ public final class WorkbookReport {
         widths(s, 28, 28, 14, 14, 14, 16, 14);
     }
 
-    private static void referenceMatches(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Reference matches");
-        Rows rows = new Rows(s, null, st.integer, null, null, st.dec4, st.dec4, st.freq, st.freq, null, st.freq, st.dec4);
-        rows.styled(st.header, "sample", "rank", "reference", "class", "distance [decades]", "distance standard error [decades]",
-                "band low [Hz]", "band high [Hz]", "comparable", "largest departure at [Hz]", "largest departure [decades]", "note");
-        freezeHeader(s);
-        if (c.library() == null) {
-            rows.row("(no reference library was given: pass --library DIR)");
-        }
-        for (int i = 0; i < c.fits().size(); i++) {
-            int shown = 0;
-            for (Matcher.Match m : c.matchesOf(i)) {
-                if (shown++ >= MATCHES_SHOWN) {
-                    break;
-                }
-                matchRow(rows, m);
-            }
-        }
-        table(s, rows, 11);
-        widths(s, 28, 6, 24, 12, 12, 14, 12, 12, 11, 14, 14, 50);
-    }
-
-    private static void matchRow(Rows rows, Matcher.Match m) {
-        ReferenceDistance.Result r = m.result();
-        rows.row(m.sample(), m.rank() == 0 ? null : m.rank(), m.reference(), m.clazz(), r.distance(), r.uncertainty(), r.bandLowHz(),
-                r.bandHighHz(), r.comparable() ? "yes" : "no", r.departureHz(), r.departure(), r.note());
-    }
-
-    private static void mimic(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Mimic ranking");
-        Rows rows = new Rows(s, null, st.integer, null, null, st.dec4, st.dec4, st.freq, st.freq, null, st.freq, st.dec4);
-        rows.styled(st.header, "target", "rank", "candidate", "group", "distance [decades]", "distance standard error [decades]",
-                "band low [Hz]", "band high [Hz]", "comparable", "largest departure at [Hz]", "largest departure [decades, target − candidate]",
-                "note");
-        freezeHeader(s);
-        for (Matcher.Match m : c.mimic()) {
-            matchRow(rows, m);
-        }
-        rows.blank();
-        rows.row("first and second distinguishable: " + Matcher.distinguishable(c.mimic()));
-        table(s, rows, 11);
-        widths(s, 24, 6, 24, 14, 12, 14, 12, 12, 11, 14, 16, 50);
-    }
-
-    private static void temperatureSeries(Workbook wb, Styles st, Content c) {
+    private static void temperatureSeries(Workbook wb, Styles st, AnalysisResult res) {
         Sheet s = wb.createSheet("Temperature series");
         Rows rows = new Rows(s, st.dec2, st.dec4, st.dec4, st.sci, st.dec4, null);
-        for (TemperatureSeries ts : c.series()) {
+        for (TemperatureSeries ts : res.series()) {
             ShiftAnalysis.Result r = ts.result();
-            rows.styled(st.title, ts.sample() + ": time–temperature superposition at " + Campaign.plain(r.referenceC()) + " °C");
+            rows.styled(st.title, ts.sample() + ": time–temperature superposition at " + Numbers.plain(r.referenceC()) + " °C");
             for (String n : r.notes()) {
                 rows.paragraph(st.wrap, st.wrap, "", n, 14, 110);
             }
@@ -562,110 +439,7 @@ public final class WorkbookReport {
         widths(s, 16, 14, 16, 14, 14, 14, 10, 12);
     }
 
-    private static void modelFits(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Model fits");
-        Rows rows = new Rows(s, null, null, null, null, st.sci, st.sci, st.sci, st.sci, st.sci, st.dec2, st.dec2, st.dec4);
-        rows.styled(st.header, "sample", "model", "parameter", "unit", "value", "standard error", "95 % CI low",
-                "95 % CI high", "RSS (log residuals) [–]", "AICc [–]", "ΔAICc [–]", "Akaike weight [–]", "best",
-                "converged", "note");
-        freezeHeader(s);
-        for (Campaign.SampleFits sf : c.fits()) {
-            for (ModelSelection.Ranked rk : sf.fits()) {
-                FitResult f = rk.fit();
-                for (ParameterEstimate p : f.parameters()) {
-                    String note = !f.converged() ? f.message()
-                            : f.variant().isEmpty() ? p.note() : p.note().isEmpty() ? f.variant() : f.variant() + "; " + p.note();
-                    rows.row(f.sample(), f.model(), p.name(), p.unit(), p.value(), p.stdError(), p.ci95Low(), p.ci95High(),
-                            f.rss(), f.aicc(), rk.deltaAicc(), rk.weight(), rk.best() ? "yes" : "no", f.converged() ? "yes" : "no",
-                            note);
-                }
-            }
-        }
-        table(s, rows, 14);
-        widths(s, 28, 16, 10, 10, 14, 14, 14, 14, 12, 12, 10, 12, 8, 11, 70);
-    }
-
-    private static void derived(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Derived quantities");
-        Rows rows = new Rows(s, null, null, null, null, st.sci, st.sci, null);
-        rows.styled(st.header, "sample", "model", "quantity", "unit", "value", "standard error", "best");
-        freezeHeader(s);
-        for (Campaign.SampleFits sf : c.fits()) {
-            for (ModelSelection.Ranked rk : sf.fits()) {
-                for (DerivedEstimate d : rk.fit().derived()) {
-                    rows.row(rk.fit().sample(), rk.fit().model(), d.name(), d.unit(), d.value(), d.stdError(), rk.best() ? "yes" : "no");
-                }
-            }
-        }
-        table(s, rows, 6);
-        widths(s, 28, 24, 26, 8, 14, 14, 8);
-    }
-
-    private static void correlations(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Correlations");
-        Rows rows = new Rows(s, null, null, null, null, st.dec4);
-        rows.styled(st.header, "sample", "model", "parameter", "with parameter", "correlation [–]");
-        freezeHeader(s);
-        for (Campaign.SampleFits sf : c.fits()) {
-            for (ModelSelection.Ranked rk : sf.fits()) {
-                double[][] corr = rk.fit().correlation();
-                if (corr == null || !rk.best()) {
-                    continue;
-                }
-                List<ParameterEstimate> ps = rk.fit().parameters();
-                for (int i = 0; i < ps.size(); i++) {
-                    for (int j = i + 1; j < ps.size(); j++) {
-                        rows.row(rk.fit().sample(), rk.fit().model(), ps.get(i).name(), ps.get(j).name(), corr[i][j]);
-                    }
-                }
-            }
-        }
-        table(s, rows, 4);
-        widths(s, 28, 24, 14, 16, 16);
-    }
-
-    private static void data(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Data");
-        Rows rows = new Rows(s, null, null, null, null, st.integer, st.freq, st.freq, st.sci, st.sci, st.dec4, st.sci, st.dec2, null, st.dec2);
-        rows.styled(st.header, "sample", "replicate", "group", "file", "line", "frequency [Hz]",
-                "angular frequency [rad/s]", "storage modulus [Pa]", "loss modulus [Pa]", "tan δ [–]", "|E*| or |G*| [Pa]",
-                "phase angle [°]", "basis", "temperature [°C]");
-        freezeHeader(s);
-        for (Campaign.Sample smp : c.campaign().samples()) {
-            for (Sweep sw : smp.replicates()) {
-                String file = sw.source().toString();
-                for (SweepPoint p : sw.points()) {
-                    rows.row(smp.name(), sw.replicate(), sw.group(), file, p.line(), p.frequencyHz(), p.omega(),
-                            p.storage(), p.loss(), p.lossTangent(), p.magnitude(), Math.toDegrees(p.phaseAngle()),
-                            sw.kind().letter(), sw.temperatureC());
-                }
-            }
-        }
-        table(s, rows, 13);
-        widths(s, 28, 10, 16, 34, 7, 14, 16, 16, 16, 12, 16, 12, 10, 14);
-    }
-
-    private static void library(Workbook wb, Styles st, Content c) {
-        Sheet s = wb.createSheet("Reference library");
-        Rows rows = new Rows(s, null, null, st.dec2, null, st.freq, st.freq, st.integer);
-        rows.styled(st.header, "name", "class", "temperature [°C]", "method", "lowest frequency [Hz]",
-                "highest frequency [Hz]", "points", "file", "SHA-256");
-        freezeHeader(s);
-        if (c.library() == null) {
-            rows.row("(no reference library was given: pass --library DIR)");
-            widths(s, 30, 14, 16, 16, 14, 14, 8, 40, 66);
-            return;
-        }
-        for (ReferenceLibrary.Entry e : c.library().entries()) {
-            Sweep sw = e.sweep();
-            rows.row(e.name(), e.clazz(), sw.temperatureC(), sw.meta("method").orElse(""), sw.minFrequencyHz(),
-                    sw.maxFrequencyHz(), sw.points().size(), e.file().toString(), e.sha256());
-        }
-        table(s, rows, 8);
-        widths(s, 30, 14, 16, 16, 14, 14, 8, 40, 66);
-    }
-
-    private static void provenance(Workbook wb, Styles st, Content c) {
+    private static void provenance(Workbook wb, Styles st, ReportContent c) {
         Sheet s = wb.createSheet("Provenance");
         Rows rows = new Rows(s, null, null, null, null, null, null, st.integer);
         Provenance p = c.provenance();
@@ -676,17 +450,17 @@ public final class WorkbookReport {
         rows.row("Java runtime", System.getProperty("java.version"));
         rows.blank();
         rows.styled(st.header, "setting", "value");
-        for (Map.Entry<String, String> e : p.settings().entrySet()) {
-            rows.row(e.getKey(), e.getValue());
+        for (Map.Entry<String, String> e : Statements.settings(c.result().request()).entrySet()) {
+            rows.paragraph(st.wrap, st.wrap, e.getKey(), e.getValue(), 30, 60);
         }
         rows.blank();
         rows.styled(st.header, "input file", "SHA-256", "layout", "separator", "decimal mark", "encoding", "sweeps");
-        for (SweepFile f : c.campaign().files()) {
+        for (SweepFile f : c.result().inputs().files()) {
             rows.row(f.path().toString(), f.sha256(), f.info().layout(), f.info().separatorName(),
                     String.valueOf(f.info().decimalMark()), f.info().encoding(), f.sweeps().size());
         }
         rows.blank();
-        List<String> warnings = warningTexts(c);
+        List<String> warnings = c.result().inputs().warningTexts();
         rows.styled(st.header, "warnings and conversions (" + warnings.size() + ")");
         for (String w : warnings) {
             rows.row(w);

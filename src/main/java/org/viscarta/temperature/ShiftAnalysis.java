@@ -1,5 +1,6 @@
 package org.viscarta.temperature;
 
+import org.viscarta.io.UsageException;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -52,7 +53,7 @@ public final class ShiftAnalysis {
                 case "none": return NONE;
                 case "entropic": return ENTROPIC;
                 case "fitted": return FITTED;
-                default: throw new IllegalArgumentException("--vertical takes none, entropic or fitted, not '" + s + "'");
+                default: throw new UsageException("--vertical takes none, entropic or fitted, not '" + s + "'");
             }
         }
     }
@@ -101,16 +102,16 @@ public final class ShiftAnalysis {
         Map<Double, List<Sweep>> byT = new TreeMap<>();
         for (Sweep s : sweeps) {
             if (!Double.isFinite(s.temperatureC())) {
-                throw new IllegalArgumentException("sample '" + s.sample() + "' has a sweep without a temperature; "
+                throw new UsageException("sample '" + s.sample() + "' has a sweep without a temperature; "
                         + "add '# temperature: 23 °C' or a temperature column");
             }
             byT.computeIfAbsent(s.temperatureC(), k -> new ArrayList<>()).add(s);
         }
         if (byT.size() < 2) {
-            throw new IllegalArgumentException("superposition needs sweeps at two or more temperatures; found " + byT.size());
+            throw new UsageException("superposition needs sweeps at two or more temperatures; found " + byT.size());
         }
         if (!byT.containsKey(referenceC)) {
-            throw new IllegalArgumentException(String.format(Locale.ROOT, "the reference temperature %s °C is not one of the measured "
+            throw new UsageException(String.format(Locale.ROOT, "the reference temperature %s °C is not one of the measured "
                     + "temperatures (%s); choose one of them (the WLF constants can then be referred to any temperature)",
                     Numbers.plain(referenceC), String.join(", ", byT.keySet().stream().map(Numbers::plain).toList())));
         }

@@ -14,11 +14,13 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.Analysis;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.report.ReportContent;
 import org.viscarta.fit.LeastSquaresEngine;
 import org.viscarta.fit.ModelFitter;
 import org.viscarta.io.SweepReader;
-import org.viscarta.library.ReferenceLibrary;
 import org.viscarta.model.Zener;
 import org.viscarta.report.Provenance;
 import org.viscarta.report.WorkbookReport;
@@ -311,23 +313,26 @@ public final class Benchmarks {
         for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
             pool.resetPeakUsage();
         }
+        java.util.Map<org.viscarta.analysis.Progress.Stage, Long> started = new java.util.concurrent.ConcurrentHashMap<>();
+        org.viscarta.analysis.Progress timing = new org.viscarta.analysis.Progress() {
+            @Override
+            public void stage(Stage stage, int items) {
+                started.put(stage, System.nanoTime());
+            }
+        };
         long t0 = System.nanoTime();
-        Campaign c = Campaign.read(List.of(file), Campaign.Settings.defaults());
-        long t1 = System.nanoTime();
-        List<Campaign.SampleFits> fits = c.fit();
-        long t2 = System.nanoTime();
-        List<Campaign.RankRow> ranking = c.rank(fits);
-        var comparison = c.compare(ranking);
-        long t2b = System.nanoTime();
-        ReferenceLibrary lib = ReferenceLibrary.open(library);
-        var matches = c.matchAll(fits, c.referenceCandidates(lib, null),
-                new org.viscarta.compare.ReferenceDistance(org.viscarta.compare.ReferenceDistance.Metric.MODULI, 1, 2));
+        AnalysisRequest request = AnalysisRequest.builder(List.of(file)).library(library)
+                .compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.RANKING, AnalysisRequest.Part.MATCHES).build();
+        AnalysisResult c = Analysis.run(request, timing);
         long t2c = System.nanoTime();
-        Provenance prov = new Provenance("bench", "benchmark", "-", java.util.Map.of());
+        Provenance prov = new Provenance("bench", "benchmark", "2026-01-01T00:00:00Z");
         try (OutputStream os = Files.newOutputStream(dir.resolve("report.xlsx"))) {
-            WorkbookReport.write(new WorkbookReport.Content(c, fits, ranking, comparison, lib, matches, null, List.of(), List.of(), prov), os);
+            WorkbookReport.write(new ReportContent(c, prov), List.of(), os);
         }
         long t3 = System.nanoTime();
+        long t1 = started.get(org.viscarta.analysis.Progress.Stage.FITTING);
+        long t2 = started.get(org.viscarta.analysis.Progress.Stage.RANKING);
+        long t2b = started.get(org.viscarta.analysis.Progress.Stage.MATCHING);
         long heap = 0;
         for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
             if (pool.getType() == MemoryType.HEAP) {
@@ -336,7 +341,7 @@ public final class Benchmarks {
         }
         System.out.printf(Locale.ROOT, "campaign: %d sweeps x %d models, matched against %d references: read %.2f s, fit %.2f s, "
                 + "rank and letters %.2f s, references fitted and matched %.2f s, workbook %.2f s, total %.2f s wall; "
-                + "peak heap (sum of pool peaks) %d MB%n", n, c.settings().modelIds().size(), lib.entries().size(),
+                + "peak heap (sum of pool peaks) %d MB%n", n, request.modelIds().size(), c.library().orElseThrow().entries().size(),
                 (t1 - t0) / 1e9, (t2 - t1) / 1e9, (t2b - t2) / 1e9, (t2c - t2b) / 1e9, (t3 - t2c) / 1e9, (t3 - t0) / 1e9, heap >> 20);
     }
 }

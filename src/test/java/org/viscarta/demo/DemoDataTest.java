@@ -9,10 +9,11 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
-import java.util.OptionalDouble;
 import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.Analysis;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.Inputs;
 import org.viscarta.fit.FitResult;
 import org.viscarta.fit.ModelFitter;
 import org.viscarta.fit.ParameterEstimate;
@@ -47,8 +48,8 @@ class DemoDataTest {
         // Each replicate sweep is fitted alone with the model it was made from; its true parameters
         // should fall inside the reported 95 % intervals in about 95 % of cases (binomial sd ≈ 1.8 %
         // over ~150 parameters; accept ≥ 88 %), and inside 99.99 % intervals (t-based width ×~2) always.
-        Campaign c = Campaign.read(List.of(Path.of("demo-data")), Campaign.Settings.defaults()
-                .withBasis(ModulusKind.TENSILE, OptionalDouble.empty()));
+        Inputs c = Inputs.read(List.of(Path.of("demo-data")),
+                AnalysisRequest.builder(List.of()).basis(ModulusKind.TENSILE).build().reading());
         Map<String, Sweep> sweeps = c.samples().stream().flatMap(s -> s.replicates().stream())
                 .collect(Collectors.toMap(s -> s.sample() + "/" + s.replicate() + "/" + s.temperatureC(), s -> s));
         ModelFitter fitter = new ModelFitter();
@@ -95,9 +96,10 @@ class DemoDataTest {
 
     @Test
     void lightAgeingLowersDampingInEveryPaintAsGenerated() {
-        Campaign c = Campaign.read(List.of(Path.of("demo-data", "paint-light-ageing.csv")), Campaign.Settings.defaults());
-        Map<String, Double> tan = c.rank(List.of()).stream()
-                .collect(Collectors.toMap(r -> r.sample().name(), r -> r.tanDelta().mean()));
+        AnalysisRequest request = AnalysisRequest.builder(List.of(Path.of("demo-data", "paint-light-ageing.csv")))
+                .compute(AnalysisRequest.Part.RANKING).build();
+        Map<String, Double> tan = Analysis.run(request).rankingRows().stream()
+                .collect(Collectors.toMap(r -> r.name(), r -> r.tanDelta().mean()));
         for (String paint : List.of("linseed", "alkyd", "acrylic")) {
             assertTrue(tan.get(paint + "-unaged") > tan.get(paint + "-500h"), paint);
             assertTrue(tan.get(paint + "-500h") > tan.get(paint + "-1500h"), paint);

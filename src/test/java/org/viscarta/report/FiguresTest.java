@@ -8,20 +8,22 @@ import java.util.List;
 import org.jfree.chart.plot.CombinedDomainXYPlot;
 import org.jfree.chart.plot.XYPlot;
 import org.junit.jupiter.api.Test;
-import org.viscarta.Campaign;
+import org.viscarta.analysis.Analysis;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.AnalysisResult;
 import org.viscarta.compare.FittedCurve;
 
 /** The figures carry the series they promise. */
 class FiguresTest {
 
-    private static final Campaign CAMPAIGN = Campaign.read(List.of(Path.of("demo-data", "paint-light-ageing.csv")),
-            Campaign.Settings.defaults().withModels(List.of("zener", "springpot")));
+    private static final AnalysisResult CAMPAIGN = Analysis.run(AnalysisRequest.builder(List.of(Path.of("demo-data",
+            "paint-light-ageing.csv"))).models(List.of("zener", "springpot"))
+            .compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.RANKING).build());
 
     @Test
     void fitFigureHasMeasuredModelAndResidualSeries() throws Exception {
-        List<Campaign.SampleFits> fits = CAMPAIGN.fit();
-        FittedCurve curve = CAMPAIGN.curves(fits).get(0);
-        Figure f = Figures.fit(fits.get(0).sample(), curve, "fit-test");
+        FittedCurve curve = CAMPAIGN.samples().get(0).curve().orElseThrow();
+        Figure f = Figures.fit(CAMPAIGN.samples().get(0).sample(), curve, "fit-test");
         CombinedDomainXYPlot plot = (CombinedDomainXYPlot) f.chart().getPlot();
         XYPlot top = plot.getSubplots().get(0);
         XYPlot residuals = plot.getSubplots().get(1);
@@ -35,9 +37,9 @@ class FiguresTest {
 
     @Test
     void overviewFiguresHaveASeriesPerSampleAndAPointPerRankedSample() {
-        Figure tan = Figures.tanDelta(CAMPAIGN.samples());
+        Figure tan = Figures.tanDelta(CAMPAIGN.inputs().samples());
         assertEquals(9, ((XYPlot) tan.chart().getPlot()).getDataset().getSeriesCount());
-        Figure ranking = Figures.ranking(CAMPAIGN.rank(List.of()), "1 Hz");
+        Figure ranking = Figures.ranking(CAMPAIGN.rankingRows(), "1 Hz");
         assertEquals(9, ((XYPlot) ranking.chart().getPlot()).getDataset().getItemCount(0));
     }
 }

@@ -1,0 +1,110 @@
+package org.viscarta.analysis;
+
+import java.util.IdentityHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.viscarta.compare.DampingComparison;
+import org.viscarta.compare.DampingRanking;
+import org.viscarta.compare.Matcher;
+import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.temperature.TemperatureSeries;
+
+/**
+ * What one {@link AnalysisRequest} produced, each part computed once: every surface (terminal,
+ * CSV, workbook, page, figures) renders from here and computes nothing of its own.
+ */
+public final class AnalysisResult {
+
+    /**
+     * The mimic ranking.
+     *
+     * @param target      the target's name
+     * @param matches     every candidate by increasing distance, then those not comparable
+     * @param targetInputs what was read for a target given as its own file (empty when it was one of the samples)
+     */
+    public record Mimic(String target, List<Matcher.Match> matches, Optional<Inputs> targetInputs) {
+        public Mimic {
+            matches = List.copyOf(matches);
+        }
+    }
+
+    private final AnalysisRequest request;
+    private final Inputs inputs;
+    private final List<TemperatureSeries> series;
+    private final List<SampleAnalysis> samples;
+    private final Optional<DampingRanking.Result<Sample>> ranking;
+    private final Optional<ReferenceLibrary> library;
+    private final List<Matcher.Candidate> references;
+    private final Optional<Mimic> mimic;
+    private final Map<Sample, DampingRanking.Row<Sample>> rankOf = new IdentityHashMap<>();
+
+    AnalysisResult(AnalysisRequest request, Inputs inputs, List<TemperatureSeries> series, List<SampleAnalysis> samples,
+                   Optional<DampingRanking.Result<Sample>> ranking, Optional<ReferenceLibrary> library,
+                   List<Matcher.Candidate> references, Optional<Mimic> mimic) {
+        this.request = request;
+        this.inputs = inputs;
+        this.series = List.copyOf(series);
+        this.samples = List.copyOf(samples);
+        this.ranking = ranking;
+        this.library = library;
+        this.references = List.copyOf(references);
+        this.mimic = mimic;
+        ranking.ifPresent(r -> r.rows().forEach(row -> rankOf.put(row.subject(), row)));
+    }
+
+    /** What was asked. */
+    public AnalysisRequest request() {
+        return request;
+    }
+
+    /** The files, samples (master curves included), warnings and conversions. */
+    public Inputs inputs() {
+        return inputs;
+    }
+
+    /** Samples measured at several temperatures, superposed (empty unless master curves were asked for). */
+    public List<TemperatureSeries> series() {
+        return series;
+    }
+
+    /** Each sample with its fits, curve and matches, in reading order (master curves last). */
+    public List<SampleAnalysis> samples() {
+        return samples;
+    }
+
+    /** The damping ranking, when it was asked for. */
+    public Optional<DampingRanking.Result<Sample>> ranking() {
+        return ranking;
+    }
+
+    /** The ranking's rows (empty when not asked for). */
+    public List<DampingRanking.Row<Sample>> rankingRows() {
+        return ranking.map(DampingRanking.Result::rows).orElse(List.of());
+    }
+
+    /** The pairwise and group tests behind the ranking's letters, when ranked. */
+    public Optional<DampingComparison.Result> comparison() {
+        return ranking.map(DampingRanking.Result::comparison);
+    }
+
+    /** The sample's row in the ranking, when ranked. */
+    public Optional<DampingRanking.Row<Sample>> rankOf(Sample s) {
+        return Optional.ofNullable(rankOf.get(s));
+    }
+
+    /** The reference library, when one was given. */
+    public Optional<ReferenceLibrary> library() {
+        return library;
+    }
+
+    /** The library's references with their fitted curves (empty without matching). */
+    public List<Matcher.Candidate> references() {
+        return references;
+    }
+
+    /** The mimic ranking, when a target was given. */
+    public Optional<Mimic> mimic() {
+        return mimic;
+    }
+}

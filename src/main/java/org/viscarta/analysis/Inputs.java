@@ -1,0 +1,177 @@
+package org.viscarta.analysis;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.stream.Collectors;
+import org.viscarta.io.InputCollector;
+import org.viscarta.io.InputException;
+import org.viscarta.io.ReadWarning;
+import org.viscarta.io.SweepFile;
+import org.viscarta.io.SweepReader;
+import org.viscarta.io.TableInfo;
+import org.viscarta.raw.RawConverter;
+import org.viscarta.raw.RawReader;
+import org.viscarta.raw.RawSweeps;
+import org.viscarta.sweep.BasisConversion;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.Numbers;
+
+/**
+ * Everything read from a set of inputs: the files, the sweeps grouped into samples (on one basis
+ * when asked), the warnings and the conversions applied.
+ *
+ * @param files    the files read (calibration tables and files left out are not among them)
+ * @param samples  the samples, in reading order
+ * @param warnings warnings from reading, including the files left out
+ * @param notes    conversions that were applied
+ */
+public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarning> warnings, List<String> notes) {
+
+    public Inputs {
+        files = List.copyOf(files);
+        samples = List.copyOf(samples);
+        warnings = List.copyOf(warnings);
+        notes = List.copyOf(notes);
+    }
+
+    /** The same inputs with more samples (master curves built from temperature series), analysed like the others. */
+    Inputs withSamples(List<Sample> extra) {
+        List<Sample> all = new ArrayList<>(samples);
+        all.addAll(extra);
+        return new Inputs(files, all, warnings, notes);
+    }
+
+    /**
+     * Reads every input (files, or folders read recursively) and groups the sweeps into samples.
+     * Raw oscillation signals are converted to moduli here, so "is this a raw file or a table" is
+     * decided in one place.
+     *
+     * @throws InputException for the first bad input (or any, with {@link ReadSettings.BadFiles#STOP})
+     */
+    public static Inputs read(List<Path> inputs, ReadSettings settings) {
+        SweepReader reader = new SweepReader(settings.declaredKind().orElse(null), settings.columns());
+        List<InputException> skipped = new ArrayList<>();
+        List<SweepFile> files = new ArrayList<>();
+        List<ReadWarning> warnings = new ArrayList<>();
+        List<String> notes = new ArrayList<>();
+        Map<String, List<Sweep>> bySample = new LinkedHashMap<>();
+        Map<String, Path> replicateSeen = new LinkedHashMap<>();
+        List<Path> all = InputCollector.collect(inputs);
+        for (Path file : all) {
+            SweepFile sf;
+            try {
+                sf = readOne(file, reader, notes);
+            } catch (InputException e) {
+                if (settings.badFiles() == ReadSettings.BadFiles.STOP || all.size() == 1) {
+                    throw e;
+                }
+                skipped.add(e);
+                warnings.add(new ReadWarning(file, e.line(), "left out: " + e.getMessage()));
+                continue;
+            }
+            if (sf == null) {
+                continue;
+            }
+            files.add(sf);
+            warnings.addAll(sf.warnings());
+            for (Sweep s : sf.sweeps()) {
+                Sweep sweep = s;
+                if (settings.basis().isPresent()) {
+                    try {
+                        BasisConversion.Converted c = BasisConversion.toBasis(s, settings.basis().get(), settings.poisson());
+                        sweep = c.sweep();
+                        if (!c.note().isEmpty()) {
+                            notes.add(file + ": sample '" + s.sample() + "': " + c.note());
+                        }
+                    } catch (IllegalArgumentException e) {
+                        throw new InputException(file, sf.info().headerLine(), 0, e.getMessage());
+                    }
+                }
+                String key = s.sample() + "\u0000" + s.temperatureC();
+                String repKey = key + "\u0000" + s.replicate();
+                Path prev = replicateSeen.put(repKey, file);
+                if (prev != null) {
+                    throw new InputException(file, sweep.points().get(0).line(), 0, "sample '" + s.sample()
+                            + "' replicate '" + s.replicate() + "' is also in " + prev
+                            + "; give each replicate its own label (a '# replicate:' line or a replicate column)");
+                }
+                bySample.computeIfAbsent(key, k -> new ArrayList<>()).add(sweep);
+            }
+        }
+        if (files.isEmpty() && !skipped.isEmpty()) {
+            throw skipped.get(0);
+        }
+        return assemble(settings, files, bySample, warnings, notes);
+    }
+
+    /** Reads one file: a raw-signal table (converted) or a sweep table; null for a calibration table. */
+    private static SweepFile readOne(Path file, SweepReader reader, List<String> notes) {
+        if (!RawReader.isRaw(file)) {
+            return reader.read(file);
+        }
+        RawReader.Measurement m = RawReader.read(file);
+        if (m.isCalibration()) {
+            notes.add(file + ": a calibration measurement, used by the raw files that name it, not analysed as a sample");
+            return null;
+        }
+        RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
+        notes.add(file + ": raw signals converted to moduli (" + rs.geometry().describe() + ", calibration: "
+                + rs.sweep().metadata().get("calibration_used") + ")");
+        return new SweepFile(file, m.sha256(), new TableInfo("raw oscillation signals", ',', '.', "UTF-8", 0, List.of(),
+                m.metadata()), List.of(rs.sweep()), rs.warnings());
+    }
+
+    private static Inputs assemble(ReadSettings settings, List<SweepFile> files, Map<String, List<Sweep>> bySample,
+                                   List<ReadWarning> warnings, List<String> notes) {
+        Map<String, Long> temperaturesPerName = bySample.values().stream()
+                .collect(Collectors.groupingBy(l -> l.get(0).sample(), Collectors.counting()));
+        List<Sample> samples = new ArrayList<>();
+        for (List<Sweep> reps : bySample.values()) {
+            Sweep first = reps.get(0);
+            String name = first.sample();
+            if (temperaturesPerName.get(name) > 1) {
+                name = String.format(Locale.ROOT, "%s @ %s °C", name, Numbers.plain(first.temperatureC()));
+            }
+            for (Sweep r : reps) {
+                if (!r.group().equals(first.group())) {
+                    throw new InputException(r.source(), r.points().get(0).line(), 0, "sample '" + first.sample()
+                            + "' is in group '" + first.group() + "' in " + first.source() + " but in group '"
+                            + r.group() + "' here; a sample belongs to one group");
+                }
+            }
+            samples.add(new Sample(name, first.group(), first.kind(), first.temperatureC(), reps));
+        }
+        long kinds = samples.stream().map(Sample::kind).distinct().count();
+        if (kinds > 1 && settings.basis().isEmpty()) {
+            warnings.add(new ReadWarning(Path.of("(inputs)"), 0, "the inputs mix tensile (E) and shear (G) moduli; "
+                    + "tan δ compares fine, but moduli do not: pass --basis tensile or --basis shear (with --poisson) to convert"));
+        }
+        return new Inputs(files, samples, warnings, notes);
+    }
+
+    /** True when an input says it is invented demo data. */
+    public boolean isDemo() {
+        for (SweepFile f : files) {
+            for (String v : f.info().metadata().values()) {
+                if (v.toLowerCase(Locale.ROOT).contains("demo data")) {
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
+    /** The warnings, then the conversions, as lines of text. */
+    public List<String> warningTexts() {
+        List<String> out = new ArrayList<>();
+        for (ReadWarning w : warnings) {
+            out.add(w.toString());
+        }
+        out.addAll(notes);
+        return out;
+    }
+}

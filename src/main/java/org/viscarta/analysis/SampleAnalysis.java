@@ -1,0 +1,56 @@
+package org.viscarta.analysis;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import org.viscarta.compare.FittedCurve;
+import org.viscarta.compare.Matcher;
+import org.viscarta.fit.FitResult;
+import org.viscarta.fit.ModelSelection;
+
+/**
+ * Everything computed for one sample.
+ *
+ * @param sample  the sample
+ * @param fits    every candidate model's fit with its AICc rank and Akaike weight (empty when fits were not asked for)
+ * @param curve   the best-supported fitted curve, when a model converged
+ * @param matches its closest references, closest first (empty without matching)
+ */
+public record SampleAnalysis(Sample sample, List<ModelSelection.Ranked> fits, Optional<FittedCurve> curve,
+                             List<Matcher.Match> matches) {
+
+    public SampleAnalysis {
+        fits = List.copyOf(fits);
+        matches = List.copyOf(matches);
+    }
+
+    /** The best-supported model's entry, when any converged. */
+    public Optional<ModelSelection.Ranked> bestRanked() {
+        return fits.stream().filter(ModelSelection.Ranked::best).findFirst();
+    }
+
+    /** The best-supported fit, when any converged. */
+    public Optional<FitResult> best() {
+        return bestRanked().map(ModelSelection.Ranked::fit);
+    }
+
+    /** Models other than the best within ΔAICc &lt; 2 of it. */
+    public List<String> alsoSupported() {
+        List<String> out = new ArrayList<>();
+        for (ModelSelection.Ranked rk : fits) {
+            if (!rk.best() && rk.deltaAicc() < 2) {
+                out.add(rk.fit().model());
+            }
+        }
+        return out;
+    }
+
+    /** The closest comparable reference, when there is one. */
+    public Optional<Matcher.Match> closest() {
+        return matches.stream().filter(m -> m.rank() == 1).findFirst();
+    }
+
+    SampleAnalysis withMatches(List<Matcher.Match> m) {
+        return new SampleAnalysis(sample, fits, curve, m);
+    }
+}

@@ -1,0 +1,103 @@
+package org.viscarta.analysis;
+
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.stream.Collectors;
+import org.viscarta.compare.DampingRanking;
+import org.viscarta.fit.ModelFitter;
+import org.viscarta.sweep.Numbers;
+import org.viscarta.temperature.TemperatureSeries;
+
+/**
+ * Every sentence the outputs state about how an analysis was done, generated from its request so
+ * that it cannot drift from what ran. Read me, Provenance, the page, figure captions and column
+ * headers take their wording from here.
+ */
+public final class Statements {
+
+    /** The confidence level of every interval the fits and the ranking report. */
+    public static final String CONFIDENCE = "95 % (Student t on n − p degrees of freedom for fits, on n − 1 for replicate means)";
+
+    private Statements() {
+    }
+
+    /** "tan δ at 1 Hz" or "tan δ at 0.5–5 Hz (geometric mean)". */
+    public static String rankedBy(AnalysisRequest r) {
+        return "tan δ at " + r.rankingPoint().describe();
+    }
+
+    /** The opening sentence of the Read me and the page. */
+    public static String whatThisIs(AnalysisResult result) {
+        AnalysisRequest r = result.request();
+        StringBuilder sb = new StringBuilder("Frequency sweeps of ").append(result.samples().size()).append(" sample(s) from ")
+                .append(result.inputs().files().size()).append(" file(s)");
+        if (r.needsFits()) {
+            sb.append(", each fitted with ").append(r.modelIds().size()).append(" candidate viscoelastic model(s) on ")
+                    .append(r.weighting().residualName());
+        }
+        if (r.parts().contains(AnalysisRequest.Part.RANKING)) {
+            sb.append(", and ranked by damping (").append(rankedBy(r)).append("), differences tested at α = ")
+                    .append(Numbers.plain(r.alpha()));
+        }
+        return sb.append('.').toString();
+    }
+
+    /** The residual sum of squares' column header: "RSS (log residuals)". */
+    public static String rssLabel(AnalysisRequest r) {
+        return "RSS (" + r.weighting().residualName() + ")";
+    }
+
+    /** The RMS misfit's column header: "RMS misfit of best (log residuals)". */
+    public static String rmsLabel(AnalysisRequest r) {
+        return "RMS misfit of best (" + r.weighting().residualName() + ")";
+    }
+
+    /** The definition of RSS and RMS misfit in the Read me, for the weighting that ran. */
+    public static String rssDefinition(AnalysisRequest r) {
+        return "Residual sum of squares of " + r.weighting().describe() + "; the RMS misfit is its root mean square"
+                + (r.weighting() == org.viscarta.fit.Weighting.REPLICATE_SD ? ", in units of the replicates' scatter."
+                        : ", roughly the typical relative misfit (0.05 ≈ 5 %).");
+    }
+
+    /** Every setting by name, in a stable order, as Provenance lists them. */
+    public static Map<String, String> settings(AnalysisRequest r) {
+        ReadSettings read = r.reading();
+        Map<String, String> m = new LinkedHashMap<>();
+        m.put("inputs", r.inputs().stream().map(Path::toString).collect(Collectors.joining(", ")));
+        m.put("models", String.join(", ", r.modelIds()));
+        m.put("damping ranked at", r.rankingPoint().describe());
+        m.put("significance level of pairwise and group tests", Numbers.plain(r.alpha()));
+        m.put("weighting", r.weighting().label());
+        m.put("residuals", r.weighting().describe());
+        m.put("optimiser", new ModelFitter(r.weighting()).describe());
+        m.put("confidence level", CONFIDENCE);
+        m.put("value outside the measured range", r.outsideRange() == DampingRanking.OutsideRange.BEST_MODEL
+                ? "from the best-supported model, marked as such" : "not reported");
+        m.put("basis", read.basis().map(Object::toString).orElse("as read"));
+        m.put("Poisson's ratio override", read.poisson().isPresent() ? Numbers.plain(read.poisson().getAsDouble()) : "none");
+        m.put("modulus kind when unstated", read.declaredKind().map(Object::toString).orElse("tensile (with a warning)"));
+        m.put("column map", read.columns().isEmpty() ? "none" : read.columns().entrySet().stream()
+                .map(e -> e.getKey() + " = " + e.getValue()).sorted().collect(Collectors.joining("; ")));
+        m.put("bad input files", read.badFiles() == ReadSettings.BadFiles.STOP ? "stop the run"
+                : "left out and reported (a single input stops the run)");
+        m.put("master curves", r.masterCurves().isPresent()
+                ? "samples measured at " + TemperatureSeries.MIN_TEMPERATURES + " or more temperatures, superposed (horizontal "
+                        + "shifts) at the measured temperature closest to " + Numbers.plain(r.masterCurves().getAsDouble()) + " °C"
+                : "not built");
+        m.put("reference library", r.library().map(Path::toString).orElse("none"));
+        m.put("reference distance", r.matching().describe());
+        m.put("target", target(r.target()));
+        return m;
+    }
+
+    private static String target(Target t) {
+        if (t instanceof Target.AmongInputs a) {
+            return "sample '" + a.sample() + "': every other sample ranked as a mimic";
+        }
+        if (t instanceof Target.FromFile f) {
+            return f.file() + ": every sample ranked as a mimic";
+        }
+        return "none";
+    }
+}

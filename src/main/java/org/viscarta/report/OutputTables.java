@@ -1,0 +1,302 @@
+package org.viscarta.report;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.Sample;
+import org.viscarta.analysis.SampleAnalysis;
+import org.viscarta.analysis.Statements;
+import org.viscarta.compare.DampingRanking;
+import org.viscarta.compare.Matcher;
+import org.viscarta.compare.ReplicateSummary;
+import org.viscarta.fit.DerivedEstimate;
+import org.viscarta.fit.FitResult;
+import org.viscarta.fit.ModelSelection;
+import org.viscarta.fit.ParameterEstimate;
+import org.viscarta.fit.TimeDomain;
+import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+import org.viscarta.table.Medium;
+import org.viscarta.table.Style;
+import org.viscarta.table.Table;
+
+/**
+ * Every output table, declared once: its columns with name, unit, number style, width, and how
+ * each value is taken from the result. The terminal and CSV of the verbs, the workbook sheets and
+ * the page all draw these; to add a column, add one line here.
+ */
+public final class OutputTables {
+
+    private OutputTables() {
+    }
+
+    /** One parameter of one model's fit to one sample. */
+    public record FitRow(ModelSelection.Ranked ranked, ParameterEstimate parameter) {
+        /** The fit's failure, or the family size chosen and the parameter's flag. */
+        public String note() {
+            FitResult f = ranked.fit();
+            if (!f.converged()) {
+                return f.message();
+            }
+            String a = f.variant();
+            String b = parameter.note();
+            return a.isEmpty() ? b : b.isEmpty() ? a : a + "; " + b;
+        }
+    }
+
+    /** One derived quantity of one model's fit. */
+    public record DerivedRow(ModelSelection.Ranked ranked, DerivedEstimate quantity) {
+    }
+
+    /** The correlation of two parameters of a best-supported fit. */
+    public record CorrelationRow(FitResult fit, String parameter, String other, double correlation) {
+    }
+
+    /** One measured point as read. */
+    public record DataRow(Sample sample, Sweep sweep, SweepPoint point) {
+    }
+
+    private static final java.util.Set<Medium> NOT_CSV = Medium.allBut(Medium.CSV);
+    private static final java.util.Set<Medium> SHEET = java.util.EnumSet.of(Medium.SHEET);
+    private static final java.util.Set<Medium> SHEET_CSV = java.util.EnumSet.of(Medium.SHEET, Medium.CSV);
+
+    /** The damping ranking ({@code rank}'s terminal and CSV, sheet Damping ranking, the page). */
+    public static Table<DampingRanking.Row<Sample>> ranking(AnalysisRequest request) {
+        double at = request.rankingPoint().representativeHz();
+        return Table.<DampingRanking.Row<Sample>>named("Damping ranking")
+                .column("rank", "rank", "", Style.INTEGER, 7, r -> r.rank() == 0 ? null : r.rank())
+                .column("sample", "sample", "", Style.TEXT, 28, DampingRanking.Row::name)
+                .column("group", "group", "", Style.TEXT, 16, DampingRanking.Row::group)
+                .column("n_replicates", "replicates", "", Style.INTEGER, 12, DampingRanking.Row::n)
+                .column("frequency_hz", "frequency", "Hz", Style.FREQUENCY, 14, r -> at, SHEET_CSV)
+                .column("tan_delta", "tan δ mean", "–", Style.DECIMAL4, 14, r -> mean(r.tanDelta())).colourScale()
+                .column("tan_delta_sd", "tan δ SD", "–", Style.DECIMAL4, 12, r -> r.tanDelta() == null ? null : r.tanDelta().sd(),
+                        SHEET)
+                .column("ci95_low", "tan δ 95 % CI low", "–", Style.DECIMAL4, 14, r -> ciLow(r.tanDelta()))
+                .column("ci95_high", "tan δ 95 % CI high", "–", Style.DECIMAL4, 14, r -> ciHigh(r.tanDelta()))
+                .column("storage_modulus_pa", "storage modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::storage)
+                .column("loss_modulus_pa", "loss modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::loss)
+                .column("value_from", "value from", "", Style.TEXT, 30, r -> r.source().description(), SHEET)
+                .column("letters", "letter group", "", Style.TEXT, 10, DampingRanking.Row::letters)
+                .column("note", "note", "", Style.TEXT, 60, DampingRanking.Row::note, NOT_CSV)
+                .build();
+    }
+
+    /** One row per sample (sheet Summary, the page). */
+    public static Table<SampleAnalysis> summary(AnalysisResult result) {
+        AnalysisRequest request = result.request();
+        return Table.<SampleAnalysis>named("Summary")
+                .column("sample", "sample", "", Style.TEXT, 28, sa -> sa.sample().name())
+                .column("group", "group", "", Style.TEXT, 16, sa -> sa.sample().group())
+                .column("basis", "modulus basis", "", Style.TEXT, 12, sa -> sa.sample().kind() + " (" + sa.sample().kind().letter() + ")")
+                .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, sa -> sa.sample().temperatureC())
+                .column("n_replicates", "replicates", "", Style.INTEGER, 11, sa -> sa.sample().replicates().size())
+                .column("points", "points", "", Style.INTEGER, 9, sa -> sa.sample().pointCount(), SHEET_CSV)
+                .column("frequency_low_hz", "lowest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().minFrequencyHz())
+                .column("frequency_high_hz", "highest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().maxFrequencyHz())
+                .column("tan_delta", Statements.rankedBy(request), "–", Style.DECIMAL4, 14,
+                        sa -> result.rankOf(sa.sample()).map(r -> mean(r.tanDelta())).orElse(null)).colourScale()
+                .column("ci95_low", "tan δ 95 % CI low", "–", Style.DECIMAL4, 14,
+                        sa -> result.rankOf(sa.sample()).map(r -> ciLow(r.tanDelta())).orElse(null), SHEET_CSV)
+                .column("ci95_high", "tan δ 95 % CI high", "–", Style.DECIMAL4, 14,
+                        sa -> result.rankOf(sa.sample()).map(r -> ciHigh(r.tanDelta())).orElse(null), SHEET_CSV)
+                .column("letters", "damping letter group", "", Style.TEXT, 14,
+                        sa -> result.rankOf(sa.sample()).map(DampingRanking.Row::letters).orElse(""))
+                .column("best_model", "best-supported model", "", Style.TEXT, 22,
+                        sa -> sa.best().map(FitResult::model).orElse("none converged"))
+                .column("akaike_weight", "Akaike weight of best", "–", Style.DECIMAL4, 14,
+                        sa -> sa.bestRanked().map(ModelSelection.Ranked::weight).orElse(null))
+                .column("rms_misfit", Statements.rmsLabel(request), "–", Style.DECIMAL4, 14,
+                        sa -> sa.best().map(FitResult::rmsLogResidual).orElse(null), SHEET_CSV)
+                .column("also_supported", "also supported (ΔAICc < 2)", "", Style.TEXT, 30,
+                        sa -> String.join(", ", sa.alsoSupported()), SHEET_CSV)
+                .column("closest_reference", "closest reference", "", Style.TEXT, 24,
+                        sa -> sa.closest().map(Matcher.Match::reference).orElse(""))
+                .column("distance", "distance to it", "decades", Style.DECIMAL4, 14,
+                        sa -> sa.closest().map(m -> m.result().distance()).orElse(null))
+                .column("notes", "notes", "", Style.TEXT, 60, sa -> summaryNotes(result, sa))
+                .build();
+    }
+
+    private static String summaryNotes(AnalysisResult result, SampleAnalysis sa) {
+        List<String> notes = new ArrayList<>();
+        result.rankOf(sa.sample()).filter(r -> !r.note().isEmpty()).ifPresent(r -> notes.add(r.note()));
+        if (result.request().needsFits()) {
+            sa.best().ifPresentOrElse(best -> best.parameters().stream().filter(ParameterEstimate::undetermined)
+                    .forEach(p -> notes.add(best.model() + " " + p.name() + ": " + p.note())), () -> notes.add("no model converged"));
+        }
+        return String.join("; ", notes);
+    }
+
+    /**
+     * Samples against references, or candidates against a target ({@code match}'s CSV, sheets
+     * Reference matches and Mimic ranking).
+     */
+    public static Table<Matcher.Match> matches(boolean mimic) {
+        return Table.<Matcher.Match>named(mimic ? "Mimic ranking" : "Reference matches")
+                .column("sample", mimic ? "target" : "sample", "", Style.TEXT, mimic ? 24 : 28, Matcher.Match::sample,
+                        Medium.allBut(Medium.TERMINAL))
+                .column("rank", "rank", "", Style.INTEGER, 6, m -> m.rank() == 0 ? null : m.rank())
+                .column("reference", mimic ? "candidate" : "reference", "", Style.TEXT, 24, Matcher.Match::reference)
+                .column("class", mimic ? "group" : "class", "", Style.TEXT, mimic ? 14 : 12, Matcher.Match::clazz, NOT_CSV)
+                .column("distance", "distance", "decades", Style.DECIMAL4, 12, m -> m.result().distance())
+                .column("distance_uncertainty", "distance standard error", "decades", Style.DECIMAL4, 14, m -> m.result().uncertainty())
+                .column("band_low_hz", "band low", "Hz", Style.FREQUENCY, 12, m -> m.result().bandLowHz())
+                .column("band_high_hz", "band high", "Hz", Style.FREQUENCY, 12, m -> m.result().bandHighHz())
+                .column("comparable", "comparable", "", Style.TEXT, 11, m -> m.result().comparable())
+                .column("departure_hz", "largest departure at", "Hz", Style.FREQUENCY, 14, m -> m.result().departureHz(), NOT_CSV)
+                .column("departure_decades", "largest departure", mimic ? "decades, target − candidate" : "decades", Style.DECIMAL4,
+                        mimic ? 16 : 14, m -> m.result().departure(), NOT_CSV)
+                .column("note", "note", "", Style.TEXT, 50, m -> m.result().note())
+                .csvOrder("sample", "reference", "rank", "distance", "distance_uncertainty", "band_low_hz", "band_high_hz",
+                        "comparable", "note")
+                .build();
+    }
+
+    /** Every parameter of every model fitted to every sample ({@code fit}'s CSV, sheet Model fits). */
+    public static Table<FitRow> modelFits(AnalysisRequest request) {
+        return Table.<FitRow>named("Model fits")
+                .column("sample", "sample", "", Style.TEXT, 28, r -> r.ranked().fit().sample())
+                .column("model", "model", "", Style.TEXT, 16, r -> r.ranked().fit().model())
+                .column("parameter", "parameter", "", Style.TEXT, 10, r -> r.parameter().name())
+                .column("unit", "unit", "", Style.TEXT, 10, r -> r.parameter().unit(), NOT_CSV)
+                .column("value", "value", "", Style.SCIENTIFIC, 14, r -> r.parameter().value())
+                .column("std_error", "standard error", "", Style.SCIENTIFIC, 14, r -> r.parameter().stdError())
+                .column("ci95_low", "95 % CI low", "", Style.SCIENTIFIC, 14, r -> r.parameter().ci95Low())
+                .column("ci95_high", "95 % CI high", "", Style.SCIENTIFIC, 14, r -> r.parameter().ci95High())
+                .column("rss", Statements.rssLabel(request), "–", Style.SCIENTIFIC, 12, r -> r.ranked().fit().rss())
+                .column("aicc", "AICc", "–", Style.DECIMAL2, 12, r -> r.ranked().fit().aicc())
+                .column("delta_aicc", "ΔAICc", "–", Style.DECIMAL2, 10, r -> r.ranked().deltaAicc(), NOT_CSV)
+                .column("akaike_weight", "Akaike weight", "–", Style.DECIMAL4, 12, r -> r.ranked().weight())
+                .column("best", "best", "", Style.TEXT, 8, r -> r.ranked().best())
+                .column("converged", "converged", "", Style.TEXT, 11, r -> r.ranked().fit().converged(), NOT_CSV)
+                .column("note", "note", "", Style.TEXT, 70, FitRow::note)
+                .build();
+    }
+
+    /** The rows of {@link #modelFits}: every parameter of every fit, sample by sample. */
+    public static List<FitRow> fitRows(List<SampleAnalysis> samples) {
+        List<FitRow> out = new ArrayList<>();
+        for (SampleAnalysis sa : samples) {
+            for (ModelSelection.Ranked rk : sa.fits()) {
+                for (ParameterEstimate p : rk.fit().parameters()) {
+                    out.add(new FitRow(rk, p));
+                }
+            }
+        }
+        return out;
+    }
+
+    /** Quantities derived from every fit (sheet Derived quantities). */
+    public static final Table<DerivedRow> DERIVED = Table.<DerivedRow>named("Derived quantities")
+            .column("sample", "sample", "", Style.TEXT, 28, r -> r.ranked().fit().sample())
+            .column("model", "model", "", Style.TEXT, 24, r -> r.ranked().fit().model())
+            .column("quantity", "quantity", "", Style.TEXT, 26, r -> r.quantity().name())
+            .column("unit", "unit", "", Style.TEXT, 8, r -> r.quantity().unit())
+            .column("value", "value", "", Style.SCIENTIFIC, 14, r -> r.quantity().value())
+            .column("std_error", "standard error", "", Style.SCIENTIFIC, 14, r -> r.quantity().stdError())
+            .column("best", "best", "", Style.TEXT, 8, r -> r.ranked().best())
+            .build();
+
+    /** The rows of {@link #DERIVED}. */
+    public static List<DerivedRow> derivedRows(List<SampleAnalysis> samples) {
+        List<DerivedRow> out = new ArrayList<>();
+        for (SampleAnalysis sa : samples) {
+            for (ModelSelection.Ranked rk : sa.fits()) {
+                for (DerivedEstimate d : rk.fit().derived()) {
+                    out.add(new DerivedRow(rk, d));
+                }
+            }
+        }
+        return out;
+    }
+
+    /** Parameter correlations of each sample's best-supported fit (sheet Correlations). */
+    public static final Table<CorrelationRow> CORRELATIONS = Table.<CorrelationRow>named("Correlations")
+            .column("sample", "sample", "", Style.TEXT, 28, r -> r.fit().sample())
+            .column("model", "model", "", Style.TEXT, 24, r -> r.fit().model())
+            .column("parameter", "parameter", "", Style.TEXT, 14, CorrelationRow::parameter)
+            .column("other_parameter", "with parameter", "", Style.TEXT, 16, CorrelationRow::other)
+            .column("correlation", "correlation", "–", Style.DECIMAL4, 16, CorrelationRow::correlation)
+            .build();
+
+    /** The rows of {@link #CORRELATIONS}. */
+    public static List<CorrelationRow> correlationRows(List<SampleAnalysis> samples) {
+        List<CorrelationRow> out = new ArrayList<>();
+        for (SampleAnalysis sa : samples) {
+            sa.best().ifPresent(f -> {
+                double[][] corr = f.correlation();
+                if (corr == null) {
+                    return;
+                }
+                List<ParameterEstimate> ps = f.parameters();
+                for (int i = 0; i < ps.size(); i++) {
+                    for (int j = i + 1; j < ps.size(); j++) {
+                        out.add(new CorrelationRow(f, ps.get(i).name(), ps.get(j).name(), corr[i][j]));
+                    }
+                }
+            });
+        }
+        return out;
+    }
+
+    /** Every measured point as read, with its file and line (sheet Data). */
+    public static final Table<DataRow> DATA = Table.<DataRow>named("Data")
+            .column("sample", "sample", "", Style.TEXT, 28, r -> r.sample().name())
+            .column("replicate", "replicate", "", Style.TEXT, 10, r -> r.sweep().replicate())
+            .column("group", "group", "", Style.TEXT, 16, r -> r.sweep().group())
+            .column("file", "file", "", Style.TEXT, 34, r -> r.sweep().source().toString())
+            .column("line", "line", "", Style.INTEGER, 7, r -> r.point().line())
+            .column("frequency_hz", "frequency", "Hz", Style.FREQUENCY, 14, r -> r.point().frequencyHz())
+            .column("angular_frequency_rad_s", "angular frequency", "rad/s", Style.FREQUENCY, 16, r -> r.point().omega())
+            .column("storage_modulus_pa", "storage modulus", "Pa", Style.SCIENTIFIC, 16, r -> r.point().storage())
+            .column("loss_modulus_pa", "loss modulus", "Pa", Style.SCIENTIFIC, 16, r -> r.point().loss())
+            .column("tan_delta", "tan δ", "–", Style.DECIMAL4, 12, r -> r.point().lossTangent())
+            .column("complex_modulus_pa", "|E*| or |G*|", "Pa", Style.SCIENTIFIC, 16, r -> r.point().magnitude())
+            .column("phase_angle_deg", "phase angle", "°", Style.DECIMAL2, 12, r -> Math.toDegrees(r.point().phaseAngle()))
+            .column("basis", "basis", "", Style.TEXT, 10, r -> r.sweep().kind().letter())
+            .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, r -> r.sweep().temperatureC())
+            .build();
+
+    /** The rows of {@link #DATA}: every point of every replicate of every sample. */
+    public static Iterable<DataRow> dataRows(List<SampleAnalysis> samples) {
+        return () -> samples.stream().flatMap(sa -> sa.sample().replicates().stream()
+                .flatMap(sw -> sw.points().stream().map(p -> new DataRow(sa.sample(), sw, p)))).iterator();
+    }
+
+    /** E(t) and J(t) of fitted models on a time grid ({@code fit --time-domain}: terminal and CSV). */
+    public static final Table<TimeDomain.Point> TIME_DOMAIN = Table.<TimeDomain.Point>named("Time domain")
+            .column("sample", "sample", "", Style.TEXT, 28, TimeDomain.Point::sample, SHEET_CSV)
+            .column("model", "model", "", Style.TEXT, 24, TimeDomain.Point::model, SHEET_CSV)
+            .column("time_s", "time", "s", Style.SCIENTIFIC, 14, TimeDomain.Point::timeS)
+            .column("relaxation_modulus_pa", "relaxation modulus E(t) or G(t)", "Pa", Style.SCIENTIFIC, 16, TimeDomain.Point::relaxation)
+            .column("creep_compliance_per_pa", "creep compliance J(t)", "1/Pa", Style.SCIENTIFIC, 16, TimeDomain.Point::creep)
+            .build();
+
+    /** The reference materials of the library (sheet Reference library). */
+    public static final Table<ReferenceLibrary.Entry> LIBRARY = Table.<ReferenceLibrary.Entry>named("Reference library")
+            .column("name", "name", "", Style.TEXT, 30, ReferenceLibrary.Entry::name)
+            .column("class", "class", "", Style.TEXT, 14, ReferenceLibrary.Entry::clazz)
+            .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 16, e -> e.sweep().temperatureC())
+            .column("method", "method", "", Style.TEXT, 16, e -> e.sweep().meta("method").orElse(""))
+            .column("frequency_low_hz", "lowest frequency", "Hz", Style.FREQUENCY, 14, e -> e.sweep().minFrequencyHz())
+            .column("frequency_high_hz", "highest frequency", "Hz", Style.FREQUENCY, 14, e -> e.sweep().maxFrequencyHz())
+            .column("points", "points", "", Style.INTEGER, 8, e -> e.sweep().points().size())
+            .column("file", "file", "", Style.TEXT, 40, e -> e.file().toString())
+            .column("sha256", "SHA-256", "", Style.TEXT, 66, ReferenceLibrary.Entry::sha256)
+            .build();
+
+    private static Double mean(ReplicateSummary t) {
+        return t == null ? null : t.mean();
+    }
+
+    private static Double ciLow(ReplicateSummary t) {
+        return t == null ? null : t.ci95Low();
+    }
+
+    private static Double ciHigh(ReplicateSummary t) {
+        return t == null ? null : t.ci95High();
+    }
+}

@@ -1,0 +1,44 @@
+package org.viscarta.table;
+
+import java.util.Locale;
+
+/** How a cell's value becomes text in each medium (Locale.ROOT everywhere). */
+public final class Cells {
+
+    private Cells() {
+    }
+
+    /** Full precision for machines; "" for NaN and null; true/false for booleans. */
+    public static String csv(Object v) {
+        if (v == null) {
+            return "";
+        }
+        if (v instanceof Double || v instanceof Float) {
+            double d = ((Number) v).doubleValue();
+            return Double.isFinite(d) ? Double.toString(d) : "";
+        }
+        return v.toString();
+    }
+
+    /** Four significant digits for reading; "–" for NaN and null; yes/no for booleans. */
+    public static String readable(Object v) {
+        if (v == null) {
+            return "";
+        }
+        if (v instanceof Boolean b) {
+            return b ? "yes" : "no";
+        }
+        if (v instanceof Double || v instanceof Float) {
+            return g4(((Number) v).doubleValue());
+        }
+        return v.toString();
+    }
+
+    /** Four significant digits; "–" for NaN, "inf" for infinity. */
+    public static String g4(double v) {
+        if (!Double.isFinite(v)) {
+            return Double.isNaN(v) ? "–" : (v > 0 ? "inf" : "-inf");
+        }
+        return String.format(Locale.ROOT, "%.4g", v);
+    }
+}
