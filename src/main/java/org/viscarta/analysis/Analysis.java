@@ -30,9 +30,6 @@ import org.viscarta.temperature.TemperatureSeries;
  */
 public final class Analysis {
 
-    /** Largest log10 shift between neighbouring temperatures that superposition may try (decades). */
-    private static final double MASTER_CURVE_MAX_STEP = 0.3;
-
     private Analysis() {
     }
 
@@ -54,8 +51,9 @@ public final class Analysis {
         List<TemperatureSeries> series = List.of();
         if (request.masterCurves().isPresent()) {
             progress.stage(Progress.Stage.MASTER_CURVES, 0);
+            MasterCurves mc = request.masterCurves().get();
             series = TemperatureSeries.find(inputs.samples().stream().flatMap(s -> s.replicates().stream()).toList(),
-                    request.masterCurves().getAsDouble(), new ShiftAnalysis(MASTER_CURVE_MAX_STEP, ShiftAnalysis.Vertical.NONE));
+                    mc.preferredReferenceC(), mc.analysis());
             List<Sample> masters = new ArrayList<>();
             for (TemperatureSeries ts : series) {
                 Sweep m = ShiftAnalysis.masterSweep(ts.result(), ts.sweeps().get(0), ts.masterName());

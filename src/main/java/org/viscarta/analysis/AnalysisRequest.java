@@ -30,13 +30,12 @@ import org.viscarta.sweep.ModulusKind;
  * @param library      the reference library's folder, when there is one
  * @param matching     how samples are compared with references and candidates
  * @param target       the material to mimic, when there is one
- * @param masterCurves samples measured at several temperatures get a master curve at this preferred
- *                     reference temperature [°C] (empty: none are built)
+ * @param masterCurves how samples measured at several temperatures are superposed (empty: no master curves)
  * @param parts        what to compute beyond reading
  */
 public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<String> modelIds, Weighting weighting,
                               RankingPoint rankingPoint, DampingRanking.OutsideRange outsideRange, double alpha,
-                              Optional<Path> library, MatchSettings matching, Target target, OptionalDouble masterCurves,
+                              Optional<Path> library, MatchSettings matching, Target target, Optional<MasterCurves> masterCurves,
                               Set<Part> parts) {
 
     /** What an analysis computes beyond reading. */
@@ -75,9 +74,6 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         if (parts.contains(Part.MATCHES) && library.isEmpty()) {
             throw new IllegalArgumentException("matching against references needs a reference library");
         }
-        if (masterCurves.isPresent() && !Double.isFinite(masterCurves.getAsDouble())) {
-            throw new IllegalArgumentException("the master-curve reference temperature must be finite, got " + masterCurves.getAsDouble());
-        }
     }
 
     /** A request for these inputs with every default: the whole catalogue, log residuals, 1 Hz, α = 0.05, reading only. */
@@ -107,7 +103,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         private Optional<Path> library = Optional.empty();
         private MatchSettings matching = MatchSettings.defaults();
         private Target target = Target.NONE;
-        private OptionalDouble masterCurves = OptionalDouble.empty();
+        private Optional<MasterCurves> masterCurves = Optional.empty();
         private final Set<Part> parts = EnumSet.noneOf(Part.class);
 
         private Builder(List<Path> inputs) {
@@ -183,9 +179,9 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
             return this;
         }
 
-        /** Build master curves of samples measured at several temperatures, preferring this reference [°C]. */
-        public Builder masterCurvesAt(double referenceC) {
-            this.masterCurves = OptionalDouble.of(referenceC);
+        /** Build master curves of samples measured at several temperatures. */
+        public Builder masterCurves(MasterCurves m) {
+            this.masterCurves = Optional.of(m);
             return this;
         }
 

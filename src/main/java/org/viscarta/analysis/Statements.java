@@ -5,9 +5,9 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.stream.Collectors;
 import org.viscarta.compare.DampingRanking;
+import org.viscarta.compare.RankingPoint;
 import org.viscarta.fit.ModelFitter;
 import org.viscarta.sweep.Numbers;
-import org.viscarta.temperature.TemperatureSeries;
 
 /**
  * Every sentence the outputs state about how an analysis was done, generated from its request so
@@ -72,8 +72,10 @@ public final class Statements {
         m.put("residuals", r.weighting().describe());
         m.put("optimiser", new ModelFitter(r.weighting()).describe());
         m.put("confidence level", CONFIDENCE);
-        m.put("value outside the measured range", r.outsideRange() == DampingRanking.OutsideRange.BEST_MODEL
-                ? "from the best-supported model, marked as such" : "not reported");
+        m.put("value outside the measured range", r.rankingPoint() instanceof RankingPoint.Band
+                ? "not reported (a band is averaged over measured points only)"
+                : r.outsideRange() == DampingRanking.OutsideRange.BEST_MODEL ? "from the best-supported model, marked as such"
+                : "not reported");
         m.put("basis", read.basis().map(Object::toString).orElse("as read"));
         m.put("Poisson's ratio override", read.poisson().isPresent() ? Numbers.plain(read.poisson().getAsDouble()) : "none");
         m.put("modulus kind when unstated", read.declaredKind().map(Object::toString).orElse("tensile (with a warning)"));
@@ -81,10 +83,7 @@ public final class Statements {
                 .map(e -> e.getKey() + " = " + e.getValue()).sorted().collect(Collectors.joining("; ")));
         m.put("bad input files", read.badFiles() == ReadSettings.BadFiles.STOP ? "stop the run"
                 : "left out and reported (a single input stops the run)");
-        m.put("master curves", r.masterCurves().isPresent()
-                ? "samples measured at " + TemperatureSeries.MIN_TEMPERATURES + " or more temperatures, superposed (horizontal "
-                        + "shifts) at the measured temperature closest to " + Numbers.plain(r.masterCurves().getAsDouble()) + " °C"
-                : "not built");
+        m.put("master curves", r.masterCurves().map(MasterCurves::describe).orElse("not built"));
         m.put("reference library", r.library().map(Path::toString).orElse("none"));
         m.put("reference distance", r.matching().describe());
         m.put("target", target(r.target()));

@@ -10,12 +10,14 @@ import java.util.concurrent.Callable;
 import org.viscarta.analysis.Analysis;
 import org.viscarta.analysis.AnalysisRequest;
 import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.MasterCurves;
 import org.viscarta.analysis.Target;
 import org.viscarta.report.Provenance;
 import org.viscarta.report.RenderedFigure;
 import org.viscarta.report.ReportContent;
 import org.viscarta.report.ReportFigures;
 import org.viscarta.report.ReportFiles;
+import org.viscarta.temperature.ShiftAnalysis;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -44,6 +46,10 @@ final class ReportCommand implements Callable<Integer> {
                     + "measured one closest to it (default: ${DEFAULT-VALUE}).")
     double referenceTemperature;
 
+    @Option(names = "--vertical", paramLabel = "none|entropic|fitted", defaultValue = "none",
+            description = "Vertical factors b_T of the master curves: none (default), entropic b_T = T/T0, or fitted.")
+    String vertical;
+
     @Option(names = "--timestamp", paramLabel = "TIME",
             description = "The run time to state in Provenance (ISO-8601 UTC, e.g. 2026-12-01T12:00:00Z); default: now. "
                     + "With the same inputs, settings and time, the outputs are byte for byte the same.")
@@ -58,7 +64,7 @@ final class ReportCommand implements Callable<Integer> {
         }
         AnalysisRequest request = Requests.build(spec, () -> {
             AnalysisRequest.Builder b = rankOptions.applyTo(models.applyTo(input.request()), spec.commandLine())
-                    .compute(AnalysisRequest.Part.FITS).masterCurvesAt(referenceTemperature);
+                    .compute(AnalysisRequest.Part.FITS).masterCurves(new MasterCurves(referenceTemperature, ShiftAnalysis.Vertical.parse(vertical)));
             library.folderIfNamed().ifPresent(dir -> b.library(dir).compute(AnalysisRequest.Part.MATCHES));
             return target == null ? b : b.target(new Target.AmongInputs(target));
         });

@@ -378,9 +378,11 @@ public final class Figures {
             data.addSeries(ss);
             data.addSeries(sl);
         }
+        boolean vertical = r.factors().stream().anyMatch(f -> f.placed() && f.bT() != 1.0);
         LogAxis x = frequencyAxis();
         x.setLabel("reduced frequency a_T f [Hz] at " + Numbers.plain(r.referenceC()) + " °C");
-        XYPlot plot = new XYPlot(data, x, logAxis("moduli " + m + "′ (filled), " + m + "″ [Pa]"), null);
+        XYPlot plot = new XYPlot(data, x, logAxis("moduli " + m + "′ (filled), " + m + "″" + (vertical ? " divided by b_T" : "")
+                + " [Pa]"), null);
         XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
         for (int i = 0; i < data.getSeriesCount(); i++) {
             rr.setSeriesPaint(i, Palette.colour(i / 2));
@@ -391,7 +393,8 @@ public final class Figures {
         rr.setUseFillPaint(false);
         plot.setRenderer(rr);
         return new Figure(stem, "Master curve of " + ts.sample() + " at " + Numbers.plain(r.referenceC()) + " °C: each temperature's "
-                + "storage (filled markers) and loss moduli (open markers) shifted along the frequency axis by its factor a_T.",
+                + "storage (filled markers) and loss moduli (open markers) shifted along the frequency axis by its factor a_T"
+                + (vertical ? " and divided by its vertical factor b_T." : " (no vertical shift)."),
                 chart(ts.sample() + ": master curve", plot, true));
     }
 

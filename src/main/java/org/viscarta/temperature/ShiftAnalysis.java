@@ -39,14 +39,25 @@ public final class ShiftAnalysis {
     /** How vertical factors b_T are set. */
     public enum Vertical {
         /** b_T = 1. */
-        NONE,
+        NONE("horizontal shifts only (b_T = 1)"),
         /** b_T = T/T0 in kelvin (ρ = ρ0), the entropic-elasticity factor (Ferry 1980). */
-        ENTROPIC,
+        ENTROPIC("horizontal shifts with entropic vertical factors b_T = T/T0 (kelvin)"),
         /**
          * b_T fitted: the horizontal shift from log tan δ alone, then the vertical offset of log |E*|
          * over the overlap at that shift.
          */
-        FITTED;
+        FITTED("horizontal shifts from tan δ, then vertical factors b_T fitted to log |E*|");
+
+        private final String description;
+
+        Vertical(String description) {
+            this.description = description;
+        }
+
+        /** The shifts in words, as Provenance states them. */
+        public String describe() {
+            return description;
+        }
 
         public static Vertical parse(String s) {
             switch (s.strip().toLowerCase(Locale.ROOT)) {
