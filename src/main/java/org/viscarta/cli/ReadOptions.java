@@ -45,7 +45,11 @@ final class ReadOptions {
 
     /** The reading settings alone, for verbs that read without analysing. */
     ReadSettings settings() {
-        return applyTo(AnalysisRequest.builder(java.util.List.of())).build().reading();
+        try {
+            return applyTo(AnalysisRequest.builder(java.util.List.of())).build().reading();
+        } catch (IllegalArgumentException e) {
+            throw new UsageException(e.getMessage());
+        }
     }
 
     private static ModulusKind kind(String text, String option) {

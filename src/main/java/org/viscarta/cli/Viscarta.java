@@ -57,29 +57,30 @@ public final class Viscarta implements Runnable {
             c.getErr().flush();
             return CommandLine.ExitCode.USAGE;
         });
-        cl.setExecutionExceptionHandler((ex, c, parseResult) -> {
-            PrintWriter e = c.getErr();
-            if (ex instanceof InputException ie) {
-                e.println(ie.getMessage());
-                e.flush();
-                return CommandLine.ExitCode.USAGE;
-            }
-            if (ex instanceof UsageException) {
-                e.println("viscarta: " + ex.getMessage());
-                e.flush();
-                return CommandLine.ExitCode.USAGE;
-            }
-            if (ex instanceof IOException || ex instanceof UncheckedIOException) {
-                e.println("viscarta: cannot write the output: " + ex.getMessage());
-            } else {
-                e.println("viscarta: internal error: " + ex + (debug ? "" : " (run again with --debug for the stack trace)"));
-            }
-            if (debug) {
-                ex.printStackTrace(e);
-            }
-            e.flush();
-            return CommandLine.ExitCode.SOFTWARE;
-        });
+        cl.setExecutionExceptionHandler((ex, c, parseResult) -> exitCodeOf(ex, c.getErr(), debug));
         return cl.execute(rest.toArray(new String[0]));
+    }
+
+    /**
+     * The exit code of an exception that escaped a verb, with its one line on stderr: input and
+     * usage errors are 2; anything else is an internal error, 1, with the stack trace only under
+     * {@code --debug}.
+     */
+    static int exitCodeOf(Exception ex, PrintWriter e, boolean debug) {
+        if (ex instanceof InputException || ex instanceof UsageException) {
+            e.println(ex instanceof InputException ? ex.getMessage() : "viscarta: " + ex.getMessage());
+            e.flush();
+            return CommandLine.ExitCode.USAGE;
+        }
+        if (ex instanceof IOException || ex instanceof UncheckedIOException) {
+            e.println("viscarta: cannot write the output: " + ex.getMessage());
+        } else {
+            e.println("viscarta: internal error: " + ex + (debug ? "" : " (run again with --debug for the stack trace)"));
+        }
+        if (debug) {
+            ex.printStackTrace(e);
+        }
+        e.flush();
+        return CommandLine.ExitCode.SOFTWARE;
     }
 }

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import org.apache.commons.math3.complex.Complex;
 import org.viscarta.io.InputException;
+import org.viscarta.io.UsageException;
 
 /**
  * Raw oscillation signals to complex moduli: per segment, demodulation of force and displacement
@@ -19,10 +20,10 @@ public final class RawConverter {
     public record Settings(int skipCycles, double distortionLimit) {
         public Settings {
             if (skipCycles < 0) {
-                throw new IllegalArgumentException("--skip-cycles must be >= 0");
+                throw new UsageException("--skip-cycles must be >= 0");
             }
             if (!(distortionLimit > 0)) {
-                throw new IllegalArgumentException("the distortion limit must be > 0");
+                throw new UsageException("the distortion limit must be > 0");
             }
         }
 
