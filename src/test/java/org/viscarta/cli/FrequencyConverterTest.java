@@ -3,12 +3,14 @@ package org.viscarta.cli;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.junit.jupiter.params.provider.ValueSource;
 import picocli.CommandLine;
 
 /** {@code --at}: a number with or without unit, into Hz (ω = 2πf, SI definition of the hertz). */
+@Tag("validation")
 class FrequencyConverterTest {
 
     @ParameterizedTest(name = "''{0}'' = {1} Hz")

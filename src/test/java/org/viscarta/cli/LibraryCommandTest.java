@@ -14,11 +14,13 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.viscarta.library.ReferenceLibrary;
 
 /** The library verbs on a copy of reference-materials/. */
+@Tag("regression")
 class LibraryCommandTest {
 
     @TempDir

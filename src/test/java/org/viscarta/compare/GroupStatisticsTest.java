@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.util.List;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -12,6 +13,7 @@ import org.junit.jupiter.api.Test;
  * shared/domain-checks.py; Holm's procedure against its definition on hand-checkable cases.
  * The table prints 6–7 significant digits: each value is held to half a unit in its last printed digit.
  */
+@Tag("validation")
 class GroupStatisticsTest {
 
     private static final double[] A = {10.2, 11.5, 9.8, 12.1, 10.9};

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.model.Springpot;
 import org.viscarta.sweep.SweepPoint;
@@ -14,6 +15,7 @@ import org.viscarta.sweep.SweepPoint;
  * log–log axes, so log–log interpolation between any two of its points must reproduce it exactly
  * (to rounding), and its tan δ must equal tan(απ/2).
  */
+@Tag("validation")
 class LossTangentAtTest {
 
     private static List<SweepPoint> springpotSweep(double c, double alpha, double... freqs) {

@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.fit.ModelFitter;
 import org.viscarta.model.ModelCatalogue;
@@ -17,6 +18,7 @@ import org.viscarta.sweep.ModulusKind;
 import org.viscarta.sweep.SweepPoint;
 
 /** Properties of the reference distance, and nearest references found for materials of known make. */
+@Tag("self-check")
 class ReferenceDistanceTest {
 
     private static final ReferenceDistance RD = new ReferenceDistance(ReferenceDistance.Metric.MODULI, 1, 2);

@@ -3,12 +3,14 @@ package org.viscarta.compare;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
  * Validation: replicate mean, SD and 95 % t-interval against SciPy 1.17.1
  * (src/test/resources/scipy/replicate_summary.py and its .out beside it), on data A of DOMAIN.md 10.8.
  */
+@Tag("validation")
 class ReplicateSummaryTest {
 
     private static final double SCIPY_TOLERANCE = 1e-12;

@@ -10,6 +10,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Collectors;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.analysis.Analysis;
 import org.viscarta.analysis.AnalysisRequest;
@@ -25,6 +26,7 @@ import org.viscarta.sweep.Sweep;
  * The committed demo data are exactly what the seeded generator makes, and fitting them gives back
  * the parameters they were made from, within the intervals the fits report.
  */
+@Tag("self-check")
 class DemoDataTest {
 
     @Test

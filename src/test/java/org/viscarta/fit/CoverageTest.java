@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
 import java.util.stream.Stream;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
@@ -20,6 +21,7 @@ import org.viscarta.sweep.SweepPoint;
  * parameter's reported 95 % interval must contain the truth in at least 90 % of the trials
  * (a coverage test, not a single draw; the binomial sd at 95 % and n = 200 is 1.5 %).
  */
+@Tag("self-check")
 class CoverageTest {
 
     private static final int TRIALS = 200;

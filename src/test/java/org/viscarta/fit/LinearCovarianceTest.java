@@ -2,12 +2,14 @@ package org.viscarta.fit;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
  * Validation: covariance scaling s²(JᵀJ)⁻¹ and the delta method on DOMAIN.md section 10.7's linear
  * example (x = 0…5, y = 0.1, 1.9, 4.2, 5.8, 8.1, 9.9), whose values are printed to 6 significant digits.
  */
+@Tag("validation")
 class LinearCovarianceTest {
 
     private static final double SIX_DIGITS = 1e-5;

@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.model.KelvinVoigt;
 import org.viscarta.model.Maxwell;
@@ -22,6 +23,7 @@ import org.viscarta.sweep.SweepPoint;
  * the reported intervals from noisy data, and the coverage of those intervals over many seeded
  * trials. The truth is known because the data are made here from the model.
  */
+@Tag("self-check")
 class ModelFitterTest {
 
     private static final ModelFitter FITTER = new ModelFitter();

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -12,6 +13,7 @@ import org.junit.jupiter.api.Test;
  * there with K = p + 1; Burnham &amp; Anderson 2002; Hurvich &amp; Tsai 1989; Schwarz 1978).
  * The table prints 6 decimals, so values are held to 5e-7 absolute.
  */
+@Tag("validation")
 class ModelSelectionTest {
 
     private static final double PRINTED_SIX_DECIMALS = 5e-7;

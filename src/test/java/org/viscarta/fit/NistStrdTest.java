@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
 import java.util.List;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -13,6 +14,7 @@ import org.junit.jupiter.api.Test;
  * (NIST/ITL Statistical Reference Datasets, public domain; files in src/test/resources/nist-strd-nls,
  * copied verbatim). Tolerances from DOMAIN.md "Tolerances we hold the engine to".
  */
+@Tag("validation")
 class NistStrdTest {
 
 

@@ -14,6 +14,7 @@ import java.util.Map;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.model.ModelCatalogue;
 import org.viscarta.model.ViscoelasticModel;
@@ -27,6 +28,7 @@ import org.viscarta.sweep.SweepPoint;
  * SciPy from the truth × 1.3; both must reach the same minimum. DOMAIN.md: 1e-4 relative on
  * parameters.
  */
+@Tag("validation")
 class ScipyCatalogueTest {
 
     private static final double SCIPY_TOLERANCE = 1e-4;

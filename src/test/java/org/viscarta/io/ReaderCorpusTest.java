@@ -19,6 +19,7 @@ import java.util.stream.Stream;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -30,6 +31,7 @@ import org.junit.jupiter.params.provider.MethodSource;
  * make_corpus.py): every file read as expected or refused with its one-line message; and a property
  * test: random and mutated files give a clean result or a clean input error, never another exception.
  */
+@Tag("regression")
 class ReaderCorpusTest {
 
     private static Path corpus() throws URISyntaxException {

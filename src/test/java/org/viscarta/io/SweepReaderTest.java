@@ -11,6 +11,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -20,6 +21,7 @@ import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
 
 /** Reading sweep tables: every supported layout, unit and dialect, and every kind of bad input. */
+@Tag("regression")
 class SweepReaderTest {
 
     @TempDir

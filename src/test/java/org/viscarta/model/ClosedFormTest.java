@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.math.BigDecimal;
 import org.apache.commons.math3.complex.Complex;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -15,6 +16,7 @@ import org.junit.jupiter.api.Test;
  * digits, so each value is held to half a unit in its last printed digit or 1e-9 relative,
  * whichever is larger. The complex-arithmetic cross-check is held to 1e-12 relative.
  */
+@Tag("validation")
 class ClosedFormTest {
 
     private static final double CLOSED_FORM_TOLERANCE = 1e-9;

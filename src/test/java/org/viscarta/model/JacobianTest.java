@@ -3,6 +3,7 @@ package org.viscarta.model;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.util.SplittableRandom;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -10,6 +11,7 @@ import org.junit.jupiter.api.Test;
  * random parameter values and frequencies (seeded). The step is h = 1e-5·|θ|; the truncation
  * error of a central difference is O(h²), so 1e-6 relative (of the largest partial) is a safe bound.
  */
+@Tag("self-check")
 class JacobianTest {
 
     private static final double FINITE_DIFFERENCE_TOLERANCE = 1e-6;

@@ -13,6 +13,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.SplittableRandom;
 import org.apache.commons.math3.complex.Complex;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.viscarta.io.InputException;
@@ -22,6 +23,7 @@ import org.viscarta.model.Zener;
  * Raw signals to moduli: the demodulation against DOMAIN.md 10.6, the geometries against 10.4, and
  * recovery of a known E*(ω) from synthetic signals through every geometry.
  */
+@Tag("validation")
 class RawSignalsTest {
 
     @TempDir

@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Collectors;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.analysis.Analysis;
 import org.viscarta.analysis.AnalysisRequest;
@@ -20,6 +21,7 @@ import org.viscarta.analysis.SampleAnalysis;
  * as its README asks; skipped where it is absent): Viscarta reads the exports with a column map and
  * gives answers that agree with what the sources say about the materials.
  */
+@Tag("validation")
 class RealDataTest {
 
     private static final Path CONDENSATES = Path.of("..", "shared", "real-data", "condensate-microrheology", "condensate_moduli_by_set.csv");

@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.jfree.chart.plot.CombinedDomainXYPlot;
 import org.jfree.chart.plot.XYPlot;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.analysis.Analysis;
 import org.viscarta.analysis.AnalysisRequest;
@@ -14,6 +15,7 @@ import org.viscarta.analysis.AnalysisResult;
 import org.viscarta.compare.FittedCurve;
 
 /** The figures carry the series they promise. */
+@Tag("regression")
 class FiguresTest {
 
     private static final AnalysisResult CAMPAIGN = Analysis.run(AnalysisRequest.builder(List.of(Path.of("demo-data",

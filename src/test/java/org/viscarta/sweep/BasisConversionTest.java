@@ -8,9 +8,11 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /** E* = 2(1 + ν)G* for isotropic materials with real ν (DOMAIN.md 4.3); ν = 1/2 gives E = 3G. */
+@Tag("validation")
 class BasisConversionTest {
 
     private static Sweep shear(Map<String, String> meta) {

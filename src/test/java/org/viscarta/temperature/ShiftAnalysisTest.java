@@ -10,6 +10,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
 import java.util.function.DoubleUnaryOperator;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.model.FractionalZener;
 import org.viscarta.sweep.ModulusKind;
@@ -20,6 +21,7 @@ import org.viscarta.sweep.SweepPoint;
  * Time–temperature superposition: the laws against DOMAIN.md 10.5 (derived there) and their closed
  * forms, and recovery of known shift factors from synthetic temperature series.
  */
+@Tag("validation")
 class ShiftAnalysisTest {
 
     /** A broad transition (fractional Zener, E_r = 1 MPa, E_1 = 100 MPa, τ = 0.1 s at the reference, α = 0.35). */
