@@ -26,7 +26,7 @@ public final class HtmlReport {
             + "padding:.2rem .45rem;text-align:left;vertical-align:top}th{background:#eee}td.n{text-align:right;"
             + "font-variant-numeric:tabular-nums}dt{font-weight:bold;margin-top:.5rem}.caution{border-left:4px solid #D55E00;"
             + "padding-left:.8rem}.demo{background:#fff3d6;padding:.5rem .8rem}figure{margin:1.5rem 0;page-break-inside:avoid}"
-            + "figure svg{width:100%;height:auto}figcaption{font-size:.9rem;color:#333}@media print{body{max-width:none}}";
+            + "figure svg{width:100%;height:auto}table.wide{display:block;overflow-x:auto}@media print{table.wide{display:table;font-size:.62rem}}figcaption{font-size:.9rem;color:#333}@media print{body{max-width:none}}";
 
     private HtmlReport() {
     }
@@ -80,7 +80,7 @@ public final class HtmlReport {
         if (!intro.isEmpty()) {
             h.append("<p>").append(esc(intro)).append("</p>\n");
         }
-        h.append("<table>\n<tr>");
+        h.append("<table class=\"wide\">\n<tr>");
         for (Column<R> col : cols) {
             h.append("<th>").append(esc(col.header())).append("</th>");
         }
@@ -89,7 +89,7 @@ public final class HtmlReport {
             h.append("<tr>");
             for (Column<R> col : cols) {
                 Object v = col.value().apply(item);
-                h.append(v instanceof Number ? "<td class=\"n\">" : "<td>").append(esc(Cells.readable(v))).append("</td>");
+                h.append(v instanceof Number ? "<td class=\"n\">" : "<td>").append(esc(Cells.readable(v, col.style()))).append("</td>");
             }
             h.append("</tr>\n");
         }

@@ -113,9 +113,9 @@ public final class OutputTables {
                 .column("also_supported", "also supported (ΔAICc < 2)", "", Style.TEXT, 30,
                         sa -> String.join(", ", sa.alsoSupported()), SHEET_CSV)
                 .column("closest_reference", "closest reference", "", Style.TEXT, 24,
-                        sa -> sa.closest().map(Matcher.Match::reference).orElse(""))
+                        sa -> sa.closest().map(Matcher.Match::reference).orElse(""), SHEET_CSV)
                 .column("distance", "distance to it", "decades", Style.DECIMAL4, 14,
-                        sa -> sa.closest().map(m -> m.result().distance()).orElse(null))
+                        sa -> sa.closest().map(m -> m.result().distance()).orElse(null), SHEET_CSV)
                 .column("notes", "notes", "", Style.TEXT, 60, sa -> summaryNotes(result, sa))
                 .build();
     }

@@ -45,6 +45,9 @@ public final class WorkbookReport {
     private static final int LABEL_WIDTH = 34;
     private static final int TEXT_WIDTH = 100;
 
+    /** Text columns at least this wide [characters] wrap, so that long notes stay within the printed page. */
+    private static final int WRAPPED_WIDTH = 30;
+
     /** Said in a table's sheet when no library was given. */
     private static final String NO_LIBRARY = "(no reference library was given: pass --library DIR)";
 
@@ -105,8 +108,9 @@ public final class WorkbookReport {
         CellStyle[] formats = new CellStyle[cols.size()];
         Object[] header = new Object[cols.size()];
         for (int i = 0; i < cols.size(); i++) {
-            formats[i] = st.byStyle.get(cols.get(i).style());
-            header[i] = cols.get(i).header();
+            Column<R> col = cols.get(i);
+            formats[i] = col.style() == Style.TEXT && col.width() >= WRAPPED_WIDTH ? st.wrapInTable : st.byStyle.get(col.style());
+            header[i] = col.header();
         }
         Rows rows = new Rows(s, formats);
         rows.styled(st.header, header);
@@ -163,6 +167,8 @@ public final class WorkbookReport {
         final CellStyle title;
         final CellStyle header;
         final CellStyle wrap;
+        /** Wrapped text in a table row, aligned with the row's numbers. */
+        final CellStyle wrapInTable;
         final CellStyle bold;
         /** Significant figures for moduli and parameters of any scale. */
         final CellStyle sci;
@@ -201,6 +207,8 @@ public final class WorkbookReport {
             bold.setFont(b);
             bold.setWrapText(true);
             bold.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
+            wrapInTable = wb.createCellStyle();
+            wrapInTable.setWrapText(true);
             wrap = wb.createCellStyle();
             wrap.setWrapText(true);
             wrap.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
@@ -248,6 +256,9 @@ public final class WorkbookReport {
                     cell.setCellValue(b ? "yes" : "no");
                 } else {
                     cell.setCellValue(v.toString());
+                    if (i < numberStyles.length && numberStyles[i] != null && !v.toString().isEmpty()) {
+                        cell.setCellStyle(numberStyles[i]);
+                    }
                 }
             }
             return r;

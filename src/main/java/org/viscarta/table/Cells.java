@@ -20,6 +20,28 @@ public final class Cells {
         return v.toString();
     }
 
+    /**
+     * A value for reading in a column of this style: whole numbers as such, fixed decimals for
+     * tan δ, weights and temperatures, frequencies without trailing zeros, four significant digits
+     * for moduli and parameters; "–" for NaN, "" for null, yes/no for booleans.
+     */
+    public static String readable(Object v, Style style) {
+        if (v instanceof Double || v instanceof Float) {
+            double d = ((Number) v).doubleValue();
+            if (!Double.isFinite(d)) {
+                return g4(d);
+            }
+            switch (style) {
+                case DECIMAL4: return String.format(Locale.ROOT, "%.4f", d);
+                case DECIMAL2: return String.format(Locale.ROOT, "%.2f", d);
+                case FREQUENCY: return org.viscarta.sweep.Numbers.plain(d);
+                case INTEGER: return String.format(Locale.ROOT, "%.0f", d);
+                default: return g4(d);
+            }
+        }
+        return readable(v);
+    }
+
     /** Four significant digits for reading; "–" for NaN and null; yes/no for booleans. */
     public static String readable(Object v) {
         if (v == null) {

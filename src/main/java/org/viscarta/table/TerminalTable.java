@@ -18,7 +18,7 @@ public final class TerminalTable {
         for (R row : rows) {
             String[] cells = new String[cols.size()];
             for (int i = 0; i < cells.length; i++) {
-                cells[i] = Cells.readable(cols.get(i).value().apply(row));
+                cells[i] = Cells.readable(cols.get(i).value().apply(row), cols.get(i).style());
             }
             lines.add(cells);
         }
