@@ -6,8 +6,6 @@ import java.util.Optional;
 import org.viscarta.fit.FitResult;
 import org.viscarta.fit.ModelFitter;
 import org.viscarta.fit.ModelSelection;
-import org.viscarta.fit.ParameterEstimate;
-import org.viscarta.model.ModelCatalogue;
 import org.viscarta.model.ViscoelasticModel;
 import org.viscarta.sweep.ModulusKind;
 import org.viscarta.sweep.SweepPoint;
@@ -48,23 +46,11 @@ public record FittedCurve(String name, ViscoelasticModel model, double[] params,
      * The curve of a fit result (its best-supported model), or empty when it did not converge.
      */
     public static Optional<FittedCurve> of(FitResult best, double lowHz, double highHz, double temperatureC, ModulusKind kind) {
-        if (!best.converged()) {
+        if (!best.converged() || best.fitted() == null) {
             return Optional.empty();
         }
-        double[] p = best.values();
-        ViscoelasticModel m = ModelCatalogue.concrete(best.model(), p.length).orElseThrow();
-        double[][] corr = best.correlation();
-        double[][] cov = null;
-        if (corr != null) {
-            List<ParameterEstimate> ps = best.parameters();
-            cov = new double[p.length][p.length];
-            for (int i = 0; i < p.length; i++) {
-                for (int j = 0; j < p.length; j++) {
-                    cov[i][j] = corr[i][j] * ps.get(i).stdError() * ps.get(j).stdError();
-                }
-            }
-        }
-        return Optional.of(new FittedCurve(best.sample(), m, p, cov, lowHz, highHz, temperatureC, kind));
+        return Optional.of(new FittedCurve(best.sample(), best.fitted(), best.values(), best.covariance(), lowHz, highHz,
+                temperatureC, kind));
     }
 
     /** Fits every candidate model to the points and returns the curve of the best-supported one. */

@@ -1,5 +1,6 @@
 package org.viscarta.compare;
 
+import org.viscarta.fit.DeltaMethod;
 import org.viscarta.io.UsageException;
 import java.util.Locale;
 import org.viscarta.sweep.Numbers;
@@ -52,6 +53,10 @@ public final class ReferenceDistance {
             throw new UsageException("metric '" + text + "' is not known; use moduli, tan-delta or all");
         }
     }
+
+    /** Relative step and smallest scale of the central differences behind the distance's standard error. */
+    static final double GRADIENT_STEP = 1e-6;
+    static final double GRADIENT_FLOOR = 1e-12;
 
     /** Grid points across the shared band. */
     public static final int GRID_POINTS = 25;
@@ -113,22 +118,10 @@ public final class ReferenceDistance {
                 known = false;
                 continue;
             }
-            double[] grad = new double[p.length];
-            for (int j = 0; j < p.length; j++) {
-                double h = 1e-6 * Math.max(Math.abs(p[j]), 1e-12);
-                double[] up = p.clone();
-                double[] dn = p.clone();
-                up[j] += h;
-                dn[j] -= h;
-                double dUp = side == 0 ? distance(a, up, b, pb, grid) : distance(a, pa, b, up, grid);
-                double dDn = side == 0 ? distance(a, dn, b, pb, grid) : distance(a, pa, b, dn, grid);
-                grad[j] = (dUp - dDn) / (2 * h);
-            }
-            for (int i = 0; i < p.length; i++) {
-                for (int j = 0; j < p.length; j++) {
-                    var += grad[i] * cov[i][j] * grad[j];
-                }
-            }
+            boolean first = side == 0;
+            double[] grad = DeltaMethod.gradient(x -> first ? distance(a, x, b, pb, grid) : distance(a, pa, b, x, grid), p,
+                    GRADIENT_STEP, GRADIENT_FLOOR);
+            var += DeltaMethod.variance(grad, cov);
         }
         double worstF = grid[0];
         double worst = 0;

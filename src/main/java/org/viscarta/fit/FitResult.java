@@ -2,6 +2,7 @@ package org.viscarta.fit;
 
 import java.util.List;
 import java.util.Optional;
+import org.viscarta.model.ViscoelasticModel;
 
 /**
  * The fit of one model to one sample.
@@ -19,20 +20,38 @@ import java.util.Optional;
  * @param message     "" or what went wrong
  * @param variant     "" or which member of a model family was chosen (e.g. "3 elements, chosen by AICc among 1–5")
  * @param derived     quantities derived from the parameters, with standard errors
+ * @param fitted      the model object fitted (for a family, the member chosen), so that curves and bands are
+ *                    evaluated from it and never looked up again by name; null only for a result made by hand
+ * @param covariance  the parameters' covariance in natural units (linearised through the transform), null
+ *                    when it is singular
  */
 public record FitResult(String sample, String model, List<ParameterEstimate> parameters, int n, double rss,
                         double aic, double aicc, double bic, double[][] correlation, boolean converged,
-                        String message, String variant, List<DerivedEstimate> derived) {
+                        String message, String variant, List<DerivedEstimate> derived, ViscoelasticModel fitted,
+                        double[][] covariance) {
 
     public FitResult {
         parameters = List.copyOf(parameters);
         derived = List.copyOf(derived);
         correlation = correlation == null ? null : deepCopy(correlation);
+        covariance = covariance == null ? null : deepCopy(covariance);
+    }
+
+    /** A result made by hand, without a model object or covariance (for model-selection checks). */
+    public FitResult(String sample, String model, List<ParameterEstimate> parameters, int n, double rss, double aic, double aicc,
+                     double bic, double[][] correlation, boolean converged, String message, String variant,
+                     List<DerivedEstimate> derived) {
+        this(sample, model, parameters, n, rss, aic, aicc, bic, correlation, converged, message, variant, derived, null, null);
     }
 
     @Override
     public double[][] correlation() {
         return correlation == null ? null : deepCopy(correlation);
+    }
+
+    @Override
+    public double[][] covariance() {
+        return covariance == null ? null : deepCopy(covariance);
     }
 
     /** A parameter by name. */

@@ -97,7 +97,7 @@ public final class ModelFitter {
         if (variants.size() > 1 && best.converged()) {
             String chosen = best.variant() + ", chosen by AICc among 1–" + GeneralizedMaxwell.MAX_ELEMENTS;
             best = new FitResult(best.sample(), best.model(), best.parameters(), best.n(), best.rss(), best.aic(),
-                    best.aicc(), best.bic(), best.correlation(), true, "", chosen, best.derived());
+                    best.aicc(), best.bic(), best.correlation(), true, "", chosen, best.derived(), best.fitted(), best.covariance());
         }
         return best;
     }
@@ -304,12 +304,22 @@ public final class ModelFitter {
             est.add(new ParameterEstimate(s.name(), s.unit(), theta[j], se, lo, hi,
                     flag(s, theta[j], se, cov == null, corr, j, specs, window)));
         }
+        double[][] natural = null;
+        if (cov != null) {
+            natural = new double[p][p];
+            for (int i = 0; i < p; i++) {
+                for (int j = 0; j < p; j++) {
+                    natural[i][j] = specs.get(i).transform().derivative(u[i]) * specs.get(j).transform().derivative(u[j]) * cov[i][j];
+                }
+            }
+        }
         List<DerivedEstimate> derived = new ArrayList<>();
         for (Derived d : model.derived()) {
             derived.add(new DerivedEstimate(d.name(), d.unit(), d.value().applyAsDouble(theta), deltaMethod(d, specs, u, cov)));
         }
         return new FitResult(sample, model.id(), est, n, rss, ModelSelection.aic(n, p, rss),
-                ModelSelection.aicc(n, p, rss), ModelSelection.bic(n, p, rss), corr, true, "", model.describeVariant(), derived);
+                ModelSelection.aicc(n, p, rss), ModelSelection.bic(n, p, rss), corr, true, "", model.describeVariant(), derived,
+                model, natural);
     }
 
     /** se(g) = sqrt(∇gᵀ Cov(u) ∇g), ∇g by central differences in the fitting parameters u. */
@@ -317,23 +327,7 @@ public final class ModelFitter {
         if (cov == null) {
             return Double.NaN;
         }
-        int p = u.length;
-        double[] grad = new double[p];
-        for (int j = 0; j < p; j++) {
-            double h = 1e-6 * Math.max(1.0, Math.abs(u[j]));
-            double[] up = u.clone();
-            double[] dn = u.clone();
-            up[j] += h;
-            dn[j] -= h;
-            grad[j] = (d.value().applyAsDouble(natural(specs, up)) - d.value().applyAsDouble(natural(specs, dn))) / (2 * h);
-        }
-        double var = 0;
-        for (int i = 0; i < p; i++) {
-            for (int j = 0; j < p; j++) {
-                var += grad[i] * cov[i][j] * grad[j];
-            }
-        }
-        return var >= 0 ? Math.sqrt(var) : Double.NaN;
+        return DeltaMethod.standardError(DeltaMethod.gradient(x -> d.value().applyAsDouble(natural(specs, x)), u, 1e-6, 1.0), cov);
     }
 
     private static double[] natural(List<ParameterSpec> specs, double[] u) {
@@ -378,6 +372,6 @@ public final class ModelFitter {
             est.add(new ParameterEstimate(s.name(), s.unit(), Double.NaN, Double.NaN, Double.NaN, Double.NaN, why));
         }
         return new FitResult(sample, model.id(), est, n, Double.NaN, Double.NaN, Double.NaN, Double.NaN, null, false, why,
-                model.describeVariant(), List.of());
+                model.describeVariant(), List.of(), model, null);
     }
 }

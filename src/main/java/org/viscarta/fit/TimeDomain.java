@@ -2,7 +2,6 @@ package org.viscarta.fit;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.viscarta.model.ModelCatalogue;
 import org.viscarta.model.ViscoelasticModel;
 
 /** The relaxation modulus M(t) and creep compliance J(t) of a fitted model on a time grid. */
@@ -27,11 +26,11 @@ public final class TimeDomain {
      * @return the points, or an empty list when the fit did not converge or the model has no time domain
      */
     public static List<Point> evaluate(FitResult fit, double[] times) {
-        if (!fit.converged()) {
+        if (!fit.converged() || fit.fitted() == null) {
             return List.of();
         }
         double[] p = fit.values();
-        ViscoelasticModel m = ModelCatalogue.concrete(fit.model(), p.length).orElseThrow();
+        ViscoelasticModel m = fit.fitted();
         if (!m.hasTimeDomain()) {
             return List.of();
         }

@@ -53,14 +53,6 @@ public final class ModelCatalogue {
         return Optional.ofNullable(MODELS.get(id));
     }
 
-    /**
-     * The concrete model behind a fit: the model with this identifier, or, for a family, the
-     * member with this many parameters (generalized-maxwell with N elements has 1 + 2N).
-     */
-    public static Optional<ViscoelasticModel> concrete(String id, int parameterCount) {
-        return byId(id).flatMap(m -> m.variants().stream().filter(v -> v.parameterCount() == parameterCount).findFirst());
-    }
-
     /** Identifiers of every implemented model. */
     public static List<String> ids() {
         return List.copyOf(MODELS.keySet());

@@ -29,6 +29,7 @@ import org.viscarta.analysis.Sample;
 import org.viscarta.compare.DampingRanking;
 import org.viscarta.sweep.Numbers;
 import org.viscarta.compare.FittedCurve;
+import org.viscarta.fit.DeltaMethod;
 import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReplicateSummary;
 import org.viscarta.sweep.Sweep;
@@ -216,32 +217,20 @@ public final class Figures {
         double[] base = new double[2];
         curve.model().modulus(w, p, base);
         double[][] cov = curve.covariance();
-        double vs = 0;
-        double vl = 0;
-        if (cov != null) {
-            double[] gs = new double[p.length];
-            double[] gl = new double[p.length];
-            double[] up = new double[2];
-            double[] dn = new double[2];
-            for (int j = 0; j < p.length; j++) {
-                double h = 1e-6 * Math.max(Math.abs(p[j]), 1e-12);
-                double[] pu = p.clone();
-                double[] pd = p.clone();
-                pu[j] += h;
-                pd[j] -= h;
-                curve.model().modulus(w, pu, up);
-                curve.model().modulus(w, pd, dn);
-                gs[j] = (Math.log(up[0]) - Math.log(dn[0])) / (2 * h);
-                gl[j] = (Math.log(up[1]) - Math.log(dn[1])) / (2 * h);
-            }
-            for (int i = 0; i < p.length; i++) {
-                for (int j = 0; j < p.length; j++) {
-                    vs += gs[i] * cov[i][j] * gs[j];
-                    vl += gl[i] * cov[i][j] * gl[j];
-                }
-            }
+        if (cov == null) {
+            return new double[] {base[0], 0, base[1], 0};
         }
-        return new double[] {base[0], Math.sqrt(Math.max(vs, 0)), base[1], Math.sqrt(Math.max(vl, 0))};
+        double[] m = new double[2];
+        double[] gs = DeltaMethod.gradient(x -> {
+            curve.model().modulus(w, x, m);
+            return Math.log(m[0]);
+        }, p, 1e-6, 1e-12);
+        double[] gl = DeltaMethod.gradient(x -> {
+            curve.model().modulus(w, x, m);
+            return Math.log(m[1]);
+        }, p, 1e-6, 1e-12);
+        return new double[] {base[0], Math.sqrt(Math.max(DeltaMethod.variance(gs, cov), 0)), base[1],
+            Math.sqrt(Math.max(DeltaMethod.variance(gl, cov), 0))};
     }
 
     /** tan δ against frequency, one series (replicate geometric mean) per sample. */
