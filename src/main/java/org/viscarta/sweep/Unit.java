@@ -79,6 +79,47 @@ public enum Unit {
         return Optional.empty();
     }
 
+    /**
+     * A value with its unit, such as {@code 0.5 Hz}, {@code 2kHz} or {@code 6.28 rad/sec}, in SI units of
+     * its dimension — the one parser behind column headers and option values. The unit must be of
+     * one of the given dimensions (an empty unit is the first dimension's SI unit).
+     *
+     * @return the SI value and the unit's dimension
+     * @throws IllegalArgumentException naming what is not understood and the units accepted
+     */
+    public static Valued parse(String text, Quantity.Dimension... dimensions) {
+        java.util.regex.Matcher m = VALUE_WITH_UNIT.matcher(text);
+        if (!m.matches()) {
+            throw new IllegalArgumentException("'" + text + "' is not a number with a unit");
+        }
+        double v = Double.parseDouble(m.group(1));
+        String unit = m.group(2) == null ? "" : m.group(2).strip();
+        if (unit.isEmpty()) {
+            return new Valued(v, dimensions[0]);
+        }
+        List<String> accepted = new ArrayList<>();
+        for (Quantity.Dimension d : dimensions) {
+            Optional<Unit> u = find(unit, d);
+            if (u.isPresent()) {
+                return new Valued(v * u.get().toSi(), d);
+            }
+            accepted.addAll(symbolsOf(d));
+        }
+        throw new IllegalArgumentException("unknown unit '" + unit + "' in '" + text + "'; use " + String.join(", ", accepted));
+    }
+
+    /**
+     * A value in SI units.
+     *
+     * @param si        the value in the SI unit of its dimension
+     * @param dimension its dimension
+     */
+    public record Valued(double si, Quantity.Dimension dimension) {
+    }
+
+    private static final java.util.regex.Pattern VALUE_WITH_UNIT =
+            java.util.regex.Pattern.compile("^\\s*([+-]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][+-]?\\d+)?)\\s*(\\S.*?)?\\s*$");
+
     /** The spellings accepted for a dimension, for error messages. */
     public static List<String> symbolsOf(Quantity.Dimension dimension) {
         List<String> out = new ArrayList<>();

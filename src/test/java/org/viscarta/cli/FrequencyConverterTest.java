@@ -20,6 +20,13 @@ class FrequencyConverterTest {
         assertEquals(hz, new FrequencyConverter().convert(text), 1e-12 * hz);
     }
 
+    /** Every spelling a column header accepts for a frequency is accepted here too (one unit parser). */
+    @ParameterizedTest(name = "''{0}'' = {1} Hz")
+    @CsvSource({"6.283185307179586 rad/sec,1", "6.283185307179586 rad s-1,1", "1 s-1,1", "0.001 KHZ,1"})
+    void acceptsTheSpellingsHeadersAccept(String text, double hz) {
+        assertEquals(hz, new FrequencyConverter().convert(text), 1e-12 * hz);
+    }
+
     @ParameterizedTest
     @ValueSource(strings = {"", "Hz", "0", "-1Hz", "1 furlong", "1,5", "NaN"})
     void rejectsWhatIsNotAPositiveFrequency(String text) {
