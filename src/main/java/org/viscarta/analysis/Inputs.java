@@ -108,12 +108,41 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         return assemble(settings, files, bySample, warnings, notes);
     }
 
+    /**
+     * The one place that decides whether a file is a raw-signal table or a sweep table, and reads
+     * it as one or the other.
+     */
+    private static <T> T either(Path file, java.util.function.Function<Path, T> table,
+                                java.util.function.Function<RawReader.Measurement, T> raw) {
+        return RawReader.isRaw(file) ? raw.apply(RawReader.read(file)) : table.apply(file);
+    }
+
+    /**
+     * What {@code inspect} shows of one file, read in one streaming pass for sweep tables (memory
+     * independent of the file's size), converted for raw signals.
+     */
+    public static SweepReader.Summary summarize(Path file, ReadSettings settings) {
+        SweepReader reader = new SweepReader(settings.declaredKind().orElse(null), settings.columns());
+        return either(file, reader::summarize, m -> {
+            if (m.isCalibration()) {
+                return new SweepReader.Summary(file, new TableInfo("raw oscillation signals: a calibration on a rigid reference",
+                        ',', '.', "UTF-8", 0, List.of(), m.metadata()), List.of(), List.of());
+            }
+            RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
+            Sweep s = rs.sweep();
+            return new SweepReader.Summary(file, new TableInfo("raw oscillation signals (" + rs.geometry().describe() + ")", ',',
+                    '.', "UTF-8", 0, List.of(), m.metadata()), List.of(new SweepReader.SweepSummary(s.sample(), s.replicate(),
+                    s.group(), s.kind(), s.temperatureC(), s.points().size(), s.minFrequencyHz(), s.maxFrequencyHz())),
+                    rs.warnings());
+        });
+    }
+
     /** Reads one file: a raw-signal table (converted) or a sweep table; null for a calibration table. */
     private static SweepFile readOne(Path file, SweepReader reader, List<String> notes) {
-        if (!RawReader.isRaw(file)) {
-            return reader.read(file);
-        }
-        RawReader.Measurement m = RawReader.read(file);
+        return either(file, reader::read, m -> raw(file, m, notes));
+    }
+
+    private static SweepFile raw(Path file, RawReader.Measurement m, List<String> notes) {
         if (m.isCalibration()) {
             notes.add(file + ": a calibration measurement, used by the raw files that name it, not analysed as a sample");
             return null;

@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.viscarta.analysis.Inputs;
 import org.viscarta.io.AtomicOutput;
 import org.viscarta.io.ColumnSpec;
 import org.viscarta.io.InputCollector;
@@ -14,13 +15,9 @@ import org.viscarta.io.InputException;
 import org.viscarta.io.ReadWarning;
 import org.viscarta.io.SweepReader;
 import org.viscarta.io.TableInfo;
-import org.viscarta.raw.RawConverter;
-import org.viscarta.raw.RawReader;
-import org.viscarta.raw.RawSweeps;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
-import picocli.CommandLine.Option;
 
 /** {@code viscarta inspect}: how each input file was understood, in one streaming pass per file. */
 @Command(name = "inspect", mixinStandardHelpOptions = true,
@@ -33,29 +30,23 @@ final class InspectCommand implements Callable<Integer> {
     @Mixin
     InputOptions input;
 
-    @Option(names = {"-o", "--out"}, paramLabel = "FILE.json", description = "Also write the same as JSON.")
-    Path out;
-
-    @Option(names = "--force", description = "Replace an existing output file.")
-    boolean force;
+    @Mixin
+    OutputOptions output;
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() throws IOException {
-        if (out != null) {
-            AtomicOutput.checkWritable(out, force);
-        }
+        output.check();
         ReadOptions r = input.read;
         org.viscarta.analysis.ReadSettings settings = r.settings();
-        SweepReader reader = new SweepReader(settings.declaredKind().orElse(null), settings.columns());
         List<Path> files = InputCollector.collect(input.inputs);
         List<SweepReader.Summary> summaries = new ArrayList<>();
         List<String> leftOut = new ArrayList<>();
         for (Path f : files) {
             try {
-                summaries.add(summarize(reader, f));
+                summaries.add(Inputs.summarize(f, settings));
             } catch (InputException e) {
                 if (r.strict || files.size() == 1) {
                     throw e;
@@ -99,26 +90,10 @@ final class InspectCommand implements Callable<Integer> {
         o.printf("%d file(s), %d sample(s), %d sweep(s), %d warning(s)%s%n", summaries.size(), samples, sweeps, warnings,
                 leftOut.isEmpty() ? "" : ", " + leftOut.size() + " file(s) left out");
         o.flush();
-        if (out != null) {
+        if (output.out != null) {
             String json = Json.inspect(summaries, leftOut);
-            AtomicOutput.write(out, force, w -> w.write(json.getBytes(StandardCharsets.UTF_8)));
+            AtomicOutput.write(output.out, output.force, w -> w.write(json.getBytes(StandardCharsets.UTF_8)));
         }
         return CommandLine.ExitCode.OK;
-    }
-
-    private static SweepReader.Summary summarize(SweepReader reader, Path f) {
-        if (!RawReader.isRaw(f)) {
-            return reader.summarize(f);
-        }
-        RawReader.Measurement m = RawReader.read(f);
-        if (m.isCalibration()) {
-            return new SweepReader.Summary(f, new TableInfo("raw oscillation signals: a calibration on a rigid reference", ',', '.',
-                    "UTF-8", 0, List.of(), m.metadata()), List.of(), List.of());
-        }
-        RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
-        var s = rs.sweep();
-        return new SweepReader.Summary(f, new TableInfo("raw oscillation signals (" + rs.geometry().describe() + ")", ',', '.',
-                "UTF-8", 0, List.of(), m.metadata()), List.of(new SweepReader.SweepSummary(s.sample(), s.replicate(), s.group(),
-                s.kind(), s.temperatureC(), s.points().size(), s.minFrequencyHz(), s.maxFrequencyHz())), rs.warnings());
     }
 }

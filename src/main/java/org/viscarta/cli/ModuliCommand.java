@@ -16,6 +16,7 @@ import org.viscarta.raw.RawReader;
 import org.viscarta.raw.RawSweeps;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
@@ -49,17 +50,19 @@ final class ModuliCommand implements Callable<Integer> {
                     + "contact geometry itself produces (default: ${DEFAULT-VALUE}; a lab convention, not a standard).")
     double distortionLimit;
 
-    @Option(names = "--out", paramLabel = "DIR", required = true, description = "Folder for the sweep tables (NAME-moduli.csv).")
-    Path outDir;
-
-    @Option(names = "--force", description = "Replace existing output files.")
-    boolean force;
+    @Mixin
+    OutputOptions output;
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() throws IOException {
+        if (output.out == null) {
+            throw new CommandLine.ParameterException(spec.commandLine(), "moduli needs --out DIR, the folder for the sweep tables");
+        }
+        Path outDir = output.out;
+        boolean force = output.force;
         RawConverter.Settings settings = new RawConverter.Settings(skipCycles, distortionLimit);
         RawConverter.CalibrationMode mode;
         switch (calibrationMode.strip().toLowerCase(java.util.Locale.ROOT)) {

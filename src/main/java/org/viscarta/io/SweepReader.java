@@ -165,114 +165,254 @@ public final class SweepReader {
         }
     }
 
+    /** Reads a sweep table held as text (a decoded file, or a workbook sheet) in full. */
     private SweepFile parse(Path path, String text, String encoding, String sha) {
-        String[] lines = text.split("\r?\n|\r", -1);
+        try {
+            return scan(path, new java.io.BufferedReader(new java.io.StringReader(text)), encoding, new SweepSink(path, sha));
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+
+    /**
+     * The one row pipeline of every sweep table, for both sinks: the preamble of '# key: value'
+     * lines, the header row, the separator and decimal mark (from the first
+     * {@value #SNIFFED_ROWS} rows), the wide layout (read whole), then every row validated once
+     * — field count, labels, numbers, one group per sample — and handed to the sink.
+     *
+     * @param encoding how the text was decoded ("UTF-8" gains "with byte-order mark" when one leads the text)
+     */
+    private <T, B extends Bucket> T scan(Path path, java.io.BufferedReader in, String encoding, Sink<T, B> sink) throws IOException {
         Map<String, String> metadata = new LinkedHashMap<>();
         Map<String, Integer> metadataLines = new LinkedHashMap<>();
         List<ReadWarning> warnings = new ArrayList<>();
-        int headerIdx = -1;
-        for (int i = 0; i < lines.length; i++) {
-            String l = lines[i].strip();
+        String line;
+        int n = 0;
+        String headerText = null;
+        boolean bom = false;
+        boolean any = false;
+        while ((line = in.readLine()) != null) {
+            n++;
+            if (n == 1 && line.startsWith("\uFEFF")) {
+                line = line.substring(1);
+                bom = true;
+            }
+            String l = line.strip();
             if (l.isEmpty()) {
                 continue;
             }
+            any = true;
             if (l.startsWith("#")) {
                 for (String key : parseMetadataLine(l.substring(1), metadata)) {
-                    metadataLines.put(key, i + 1);
+                    metadataLines.put(key, n);
                 }
                 continue;
             }
-            headerIdx = i;
+            headerText = line;
             break;
         }
-        if (headerIdx < 0) {
-            throw new InputException(path, lines.length, 0,
-                    "no header row found; after the '# key: value' lines, write a header such as 'frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]'");
+        if (!any) {
+            throw new InputException(path, 1, 0, "the file is empty; a sweep table needs a header row and data rows");
         }
-        char sep = detectSeparator(lines[headerIdx]);
-        CSVFormat format = CSVFormat.DEFAULT.builder().setDelimiter(sep)
-                .setIgnoreSurroundingSpaces(true).setTrim(true).get();
-        List<Row> records = new ArrayList<>();
-        for (int i = headerIdx; i < lines.length; i++) {
-            String l = lines[i];
-            if (l.isBlank() || l.stripLeading().startsWith("#")) {
-                continue;
+        if (headerText == null) {
+            throw new InputException(path, Math.max(1, n), 0, "no header row found; after the '# key: value' lines, write a "
+                    + "header such as 'frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]'");
+        }
+        String enc = bom && encoding.equals("UTF-8") ? "UTF-8 with byte-order mark" : encoding;
+        char sep = detectSeparator(headerText);
+        Row headerRow = row(path, headerText, n, sep);
+        List<Row> first = new ArrayList<>();
+        first.add(headerRow);
+        while (first.size() < SNIFFED_ROWS && (line = in.readLine()) != null) {
+            n++;
+            if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
+                first.add(row(path, line, n, sep));
             }
-            if (l.indexOf('"') < 0) {
-                records.add(new Row(i + 1, splitPlain(l, sep)));
-                continue;
-            }
-            try (CSVParser parser = CSVParser.parse(l, format)) {
-                List<CSVRecord> recs = parser.getRecords();
-                if (recs.size() != 1) {
-                    throw new InputException(path, i + 1, 0, "the line cannot be read as one table row; check its quotes");
+        }
+        if (wideLayout(path, first, metadata, metadataLines, enc, "", sep) != null) {
+            List<Row> all = new ArrayList<>(first);
+            while ((line = in.readLine()) != null) {
+                n++;
+                if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
+                    all.add(row(path, line, n, sep));
                 }
-                records.add(new Row(i + 1, recs.get(0).toList()));
-            } catch (IOException | UncheckedIOException e) {
-                throw new InputException(path, i + 1, 0, "the line cannot be read as a table row (" + e.getMessage()
-                        + "); check its quotes");
+            }
+            return sink.wide(wideLayout(path, all, metadata, metadataLines, enc, sink.sha(), sep));
+        }
+        Header hd = header(path, headerRow, metadata, metadataLines, warnings);
+        char dm = detectDecimalMark(sep, first);
+        RowParser<B> rp = new RowParser<>(path, hd, dm, metadata, metadataLines, sink, warnings);
+        for (int i = 1; i < first.size(); i++) {
+            rp.accept(first.get(i));
+        }
+        while ((line = in.readLine()) != null) {
+            n++;
+            if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
+                rp.accept(row(path, line, n, sep));
             }
         }
-        Row headerRecord = records.get(0);
-        int headerLine = headerRecord.line();
-        SweepFile wide = wideLayout(path, records, metadata, metadataLines, encoding, sha, sep);
-        if (wide != null) {
-            return wide;
+        if (rp.buckets.isEmpty()) {
+            throw new InputException(path, headerRow.line(), 0, "the header is not followed by any data rows");
         }
-        Header hd = header(path, headerRecord, metadata, metadataLines, warnings);
-        List<ColumnSpec> columns = hd.columns();
-        Map<Quantity, ColumnSpec> byQuantity = hd.byQuantity();
-        ModulusKind kind = hd.kind();
-        char decimalMark = detectDecimalMark(sep, records);
+        boolean tidy = hd.byQuantity().containsKey(Quantity.SAMPLE) || hd.byQuantity().containsKey(Quantity.REPLICATE);
+        TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, dm, enc, headerRow.line(),
+                hd.columns(), metadata);
+        return sink.table(hd, info, metadata, List.copyOf(rp.buckets.values()), warnings);
+    }
 
-        String defaultSample = metadata.getOrDefault("sample", stem(path));
-        String defaultReplicate = metadata.getOrDefault("replicate", "1");
-        String defaultGroup = metadata.getOrDefault("group", "");
-        double defaultTemperature = metadataTemperature(path, metadata, metadataLines.getOrDefault("temperature", 0));
+    /** Rows read before the decimal mark and the layout are decided. */
+    private static final int SNIFFED_ROWS = 1000;
 
-        Map<List<String>, SweepBuilder> builders = new LinkedHashMap<>();
-        for (int r = 1; r < records.size(); r++) {
-            Row rec = records.get(r);
-            int line = rec.line();
-            if (rec.size() == 1 && rec.get(0).isEmpty()) {
-                continue;
-            }
-            if (rec.size() != columns.size()) {
-                throw new InputException(path, line, Math.min(rec.size(), columns.size()) + 1,
-                        "row has " + rec.size() + " fields but the header has " + columns.size()
-                                + "; fill or remove the missing or extra cells");
-            }
-            String sample = label(rec, byQuantity.get(Quantity.SAMPLE), defaultSample, path, line);
-            String replicate = label(rec, byQuantity.get(Quantity.REPLICATE), defaultReplicate, path, line);
-            String group = label(rec, byQuantity.get(Quantity.GROUP), defaultGroup, path, line);
-            double temperature = byQuantity.containsKey(Quantity.TEMPERATURE)
-                    ? number(rec, byQuantity.get(Quantity.TEMPERATURE), decimalMark, path, line) : defaultTemperature;
-            SweepPoint point = point(rec, byQuantity, decimalMark, path, line);
-            List<String> key = List.of(sample, replicate, Double.toString(temperature));
-            SweepBuilder b = builders.computeIfAbsent(key, k -> new SweepBuilder(sample, replicate, group, temperature));
-            if (!b.group.equals(group)) {
-                throw new InputException(path, line, byQuantity.get(Quantity.GROUP).index() + 1, "sample '" + sample
-                        + "' is in group '" + b.group + "' on line " + b.firstLine + " but in group '" + group
-                        + "' here; a sample belongs to one group");
-            }
-            if (b.firstLine == 0) {
-                b.firstLine = line;
-            }
-            b.points.add(point);
+    /** The rows of one sweep (sample, replicate, temperature) as a sink keeps them. */
+    private abstract static class Bucket {
+        final String sample;
+        final String replicate;
+        final String group;
+        final double temperature;
+        final int firstLine;
+
+        Bucket(String sample, String replicate, String group, double temperature, int firstLine) {
+            this.sample = sample;
+            this.replicate = replicate;
+            this.group = group;
+            this.temperature = temperature;
+            this.firstLine = firstLine;
         }
-        if (builders.isEmpty()) {
-            throw new InputException(path, headerLine, 0, "the header is not followed by any data rows");
+
+        abstract void add(SweepPoint p, List<ReadWarning> warnings);
+    }
+
+    /** Where validated rows go: whole sweeps ({@link SweepSink}) or each sweep's extent ({@link ExtentSink}). */
+    private interface Sink<T, B extends Bucket> {
+        B bucket(String sample, String replicate, String group, double temperature, int line);
+
+        T table(Header hd, TableInfo info, Map<String, String> metadata, List<B> buckets, List<ReadWarning> warnings);
+
+        /** A wide table, read whole. */
+        T wide(SweepFile whole);
+
+        /** The file's checksum when the sink knows it ("" otherwise). */
+        String sha();
+    }
+
+    /** Every point of one sweep. */
+    private static final class Points extends Bucket {
+        final List<SweepPoint> points = new ArrayList<>();
+
+        Points(String sample, String replicate, String group, double temperature, int firstLine) {
+            super(sample, replicate, group, temperature, firstLine);
         }
-        List<Sweep> sweeps = new ArrayList<>();
-        for (SweepBuilder b : builders.values()) {
-            Sweep s = new Sweep(b.sample, b.replicate, b.group, kind, b.temperature, path, metadata, b.points);
-            checkPoints(path, s, warnings);
-            sweeps.add(s);
+
+        @Override
+        void add(SweepPoint p, List<ReadWarning> warnings) {
+            points.add(p);
         }
-        boolean tidy = byQuantity.containsKey(Quantity.SAMPLE) || byQuantity.containsKey(Quantity.REPLICATE);
-        TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, decimalMark,
-                encoding, headerLine, columns, metadata);
-        return new SweepFile(path, sha, info, sweeps, warnings);
+    }
+
+    /** Keeps every point: the sweeps of {@link #read}; sweep-level checks once each sweep is whole. */
+    private static final class SweepSink implements Sink<SweepFile, Points> {
+        private final Path path;
+        private final String sha;
+
+        SweepSink(Path path, String sha) {
+            this.path = path;
+            this.sha = sha;
+        }
+
+        @Override
+        public Points bucket(String sample, String replicate, String group, double temperature, int line) {
+            return new Points(sample, replicate, group, temperature, line);
+        }
+
+        @Override
+        public SweepFile table(Header hd, TableInfo info, Map<String, String> metadata, List<Points> buckets,
+                               List<ReadWarning> warnings) {
+            List<Sweep> sweeps = new ArrayList<>();
+            for (Points b : buckets) {
+                Sweep s = new Sweep(b.sample, b.replicate, b.group, hd.kind(), b.temperature, path, metadata, b.points);
+                checkPoints(path, s, warnings);
+                sweeps.add(s);
+            }
+            return new SweepFile(path, sha, info, sweeps, warnings);
+        }
+
+        @Override
+        public SweepFile wide(SweepFile whole) {
+            return whole;
+        }
+
+        @Override
+        public String sha() {
+            return sha;
+        }
+    }
+
+    /** Only the point count and frequency range of one sweep. */
+    private static final class Extent extends Bucket {
+        private final Path path;
+        long points;
+        double min = Double.POSITIVE_INFINITY;
+        double max = 0;
+        long warningsDropped;
+
+        Extent(Path path, String sample, String replicate, String group, double temperature, int firstLine) {
+            super(sample, replicate, group, temperature, firstLine);
+            this.path = path;
+        }
+
+        @Override
+        void add(SweepPoint p, List<ReadWarning> warnings) {
+            points++;
+            min = Math.min(min, p.frequencyHz());
+            max = Math.max(max, p.frequencyHz());
+            if (!(p.loss() > 0)) {
+                if (warnings.size() >= MAX_WARNINGS) {
+                    warningsDropped++;
+                    return;
+                }
+                warnings.add(new ReadWarning(path, p.line(), String.format(Locale.ROOT,
+                        "loss modulus %g Pa is not positive (sample '%s'); the point is kept in the data but left out of model fits",
+                        p.loss(), sample)));
+            }
+        }
+    }
+
+    /** Keeps each sweep's extent only, so that memory does not grow with the file: the summaries of {@link #summarize}. */
+    private static final class ExtentSink implements Sink<Summary, Extent> {
+        private final Path path;
+
+        ExtentSink(Path path) {
+            this.path = path;
+        }
+
+        @Override
+        public Extent bucket(String sample, String replicate, String group, double temperature, int line) {
+            return new Extent(path, sample, replicate, group, temperature, line);
+        }
+
+        @Override
+        public Summary table(Header hd, TableInfo info, Map<String, String> metadata, List<Extent> buckets,
+                             List<ReadWarning> warnings) {
+            long dropped = buckets.stream().mapToLong(e -> e.warningsDropped).sum();
+            if (dropped > 0) {
+                warnings.add(new ReadWarning(path, 0, dropped + " more warnings like the above"));
+            }
+            List<SweepSummary> out = new ArrayList<>();
+            for (Extent e : buckets) {
+                out.add(new SweepSummary(e.sample, e.replicate, e.group, hd.kind(), e.temperature, e.points, e.min, e.max));
+            }
+            return new Summary(path, info, out, warnings);
+        }
+
+        @Override
+        public Summary wide(SweepFile whole) {
+            return summaryOf(whole);
+        }
+
+        @Override
+        public String sha() {
+            return "";
+        }
     }
 
     /**
@@ -321,102 +461,12 @@ public final class SweepReader {
         return new Summary(f.path(), f.info(), out, f.warnings());
     }
 
-    private static final class Extent {
-        final String sample;
-        final String replicate;
-        final String group;
-        final double temperature;
-        long points;
-        double min = Double.POSITIVE_INFINITY;
-        double max = 0;
-
-        Extent(String sample, String replicate, String group, double temperature) {
-            this.sample = sample;
-            this.replicate = replicate;
-            this.group = group;
-            this.temperature = temperature;
-        }
-    }
-
     private Summary stream(Path path, Charset charset) throws CharacterCodingException {
         java.nio.charset.CharsetDecoder decoder = charset.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
                 .onUnmappableCharacter(CodingErrorAction.REPORT);
         try (java.io.BufferedReader in = new java.io.BufferedReader(
                 new java.io.InputStreamReader(Files.newInputStream(path), decoder), 1 << 16)) {
-            Map<String, String> metadata = new LinkedHashMap<>();
-            Map<String, Integer> metadataLines = new LinkedHashMap<>();
-            List<ReadWarning> warnings = new ArrayList<>();
-            String line;
-            int n = 0;
-            String headerText = null;
-            boolean bom = false;
-            while ((line = in.readLine()) != null) {
-                n++;
-                if (n == 1 && line.startsWith("\uFEFF")) {
-                    line = line.substring(1);
-                    bom = true;
-                }
-                String l = line.strip();
-                if (l.isEmpty()) {
-                    continue;
-                }
-                if (l.startsWith("#")) {
-                    for (String key : parseMetadataLine(l.substring(1), metadata)) {
-                        metadataLines.put(key, n);
-                    }
-                    continue;
-                }
-                headerText = line;
-                break;
-            }
-            if (headerText == null) {
-                throw new InputException(path, Math.max(1, n), 0, n == 0 ? "the file is empty; a sweep table needs a header row and data rows"
-                        : "no header row found; after the '# key: value' lines, write a header such as 'frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]'");
-            }
-            char sep = detectSeparator(headerText);
-            Row headerRow = row(path, headerText, n, sep);
-            // the first rows decide the decimal mark and show whether the table is wide; a wide table is read whole
-            List<Row> first = new ArrayList<>();
-            first.add(headerRow);
-            while (first.size() < 1000 && (line = in.readLine()) != null) {
-                n++;
-                if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
-                    first.add(row(path, line, n, sep));
-                }
-            }
-            String encoding = charset.equals(StandardCharsets.UTF_8) ? (bom ? "UTF-8 with byte-order mark" : "UTF-8") : "windows-1252";
-            if (wideLayout(path, first, metadata, metadataLines, encoding, "", sep) != null) {
-                return summaryOf(read(path));
-            }
-            Header hd = header(path, headerRow, metadata, metadataLines, warnings);
-            char dm = detectDecimalMark(sep, first);
-            RowParser rp = new RowParser(path, hd, dm, metadata, metadataLines);
-            Map<List<String>, Extent> extents = new LinkedHashMap<>();
-            long dropped = 0;
-            for (int i = 1; i < first.size(); i++) {
-                dropped += rp.accept(first.get(i), extents, warnings);
-            }
-            while ((line = in.readLine()) != null) {
-                n++;
-                if (line.isBlank() || line.stripLeading().startsWith("#")) {
-                    continue;
-                }
-                dropped += rp.accept(row(path, line, n, sep), extents, warnings);
-            }
-            if (extents.isEmpty()) {
-                throw new InputException(path, headerRow.line(), 0, "the header is not followed by any data rows");
-            }
-            if (dropped > 0) {
-                warnings.add(new ReadWarning(path, 0, dropped + " more warnings like the above"));
-            }
-            List<SweepSummary> out = new ArrayList<>();
-            for (Extent e : extents.values()) {
-                out.add(new SweepSummary(e.sample, e.replicate, e.group, hd.kind(), e.temperature, e.points, e.min, e.max));
-            }
-            boolean tidy = hd.byQuantity().containsKey(Quantity.SAMPLE) || hd.byQuantity().containsKey(Quantity.REPLICATE);
-            TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, dm, encoding,
-                    headerRow.line(), hd.columns(), metadata);
-            return new Summary(path, info, out, warnings);
+            return scan(path, in, charset.equals(StandardCharsets.UTF_8) ? "UTF-8" : "windows-1252", new ExtentSink(path));
         } catch (java.nio.charset.MalformedInputException | java.nio.charset.UnmappableCharacterException e) {
             throw e;
         } catch (IOException e) {
@@ -424,8 +474,8 @@ public final class SweepReader {
         }
     }
 
-    /** Validates rows one at a time, as {@link #parse} does, into sweep extents. */
-    private final class RowParser {
+    /** Validates rows one at a time — the one row check of every layout but the wide one — into the sink's buckets. */
+    private final class RowParser<B extends Bucket> {
         private final Path path;
         private final Header hd;
         private final char dm;
@@ -433,8 +483,12 @@ public final class SweepReader {
         private final String defaultReplicate;
         private final String defaultGroup;
         private final double defaultTemperature;
+        private final Sink<?, B> sink;
+        private final List<ReadWarning> warnings;
+        final Map<List<String>, B> buckets = new LinkedHashMap<>();
 
-        RowParser(Path path, Header hd, char dm, Map<String, String> metadata, Map<String, Integer> metadataLines) {
+        RowParser(Path path, Header hd, char dm, Map<String, String> metadata, Map<String, Integer> metadataLines, Sink<?, B> sink,
+                  List<ReadWarning> warnings) {
             this.path = path;
             this.hd = hd;
             this.dm = dm;
@@ -442,11 +496,15 @@ public final class SweepReader {
             this.defaultReplicate = metadata.getOrDefault("replicate", "1");
             this.defaultGroup = metadata.getOrDefault("group", "");
             this.defaultTemperature = metadataTemperature(path, metadata, metadataLines.getOrDefault("temperature", 0));
+            this.sink = sink;
+            this.warnings = warnings;
         }
 
-        /** @return 1 when a warning was counted but not kept */
-        int accept(Row rec, Map<List<String>, Extent> extents, List<ReadWarning> warnings) {
+        void accept(Row rec) {
             int line = rec.line();
+            if (rec.size() == 1 && rec.get(0).isEmpty()) {
+                return;
+            }
             if (rec.size() != hd.columns().size()) {
                 throw new InputException(path, line, Math.min(rec.size(), hd.columns().size()) + 1, "row has " + rec.size()
                         + " fields but the header has " + hd.columns().size() + "; fill or remove the missing or extra cells");
@@ -458,24 +516,14 @@ public final class SweepReader {
             double temperature = q.containsKey(Quantity.TEMPERATURE) ? number(rec, q.get(Quantity.TEMPERATURE), dm, path, line)
                     : defaultTemperature;
             SweepPoint p = point(rec, q, dm, path, line);
-            Extent e = extents.computeIfAbsent(List.of(sample, replicate, Double.toString(temperature)),
-                    k -> new Extent(sample, replicate, group, temperature));
-            if (!e.group.equals(group)) {
-                throw new InputException(path, line, q.get(Quantity.GROUP).index() + 1, "sample '" + sample + "' is in group '"
-                        + e.group + "' and in group '" + group + "'; a sample belongs to one group");
+            B b = buckets.computeIfAbsent(List.of(sample, replicate, Double.toString(temperature)),
+                    k -> sink.bucket(sample, replicate, group, temperature, line));
+            if (!b.group.equals(group)) {
+                throw new InputException(path, line, q.get(Quantity.GROUP).index() + 1, "sample '" + sample
+                        + "' is in group '" + b.group + "' on line " + b.firstLine + " but in group '" + group
+                        + "' here; a sample belongs to one group");
             }
-            e.points++;
-            e.min = Math.min(e.min, p.frequencyHz());
-            e.max = Math.max(e.max, p.frequencyHz());
-            if (!(p.loss() > 0)) {
-                if (warnings.size() >= MAX_WARNINGS) {
-                    return 1;
-                }
-                warnings.add(new ReadWarning(path, line, String.format(Locale.ROOT,
-                        "loss modulus %g Pa is not positive (sample '%s'); the point is kept in the data but left out of model fits",
-                        p.loss(), sample)));
-            }
-            return 0;
+            b.add(p, warnings);
         }
     }
 
@@ -632,22 +680,6 @@ public final class SweepReader {
 
         String get(int i) {
             return cells.get(i);
-        }
-    }
-
-    private static final class SweepBuilder {
-        final String sample;
-        final String replicate;
-        final String group;
-        final double temperature;
-        final List<SweepPoint> points = new ArrayList<>();
-        int firstLine;
-
-        SweepBuilder(String sample, String replicate, String group, double temperature) {
-            this.sample = sample;
-            this.replicate = replicate;
-            this.group = group;
-            this.temperature = temperature;
         }
     }
 
