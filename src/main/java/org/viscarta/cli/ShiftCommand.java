@@ -11,8 +11,8 @@ import org.viscarta.analysis.Inputs;
 import org.viscarta.analysis.Sample;
 import org.viscarta.sweep.Numbers;
 import org.viscarta.io.AtomicOutput;
+import org.viscarta.io.SweepTableWriter;
 import org.viscarta.sweep.Sweep;
-import org.viscarta.sweep.SweepPoint;
 import org.viscarta.temperature.ShiftAnalysis;
 import org.viscarta.temperature.ShiftFits;
 import org.viscarta.temperature.ShiftLaws;
@@ -130,17 +130,14 @@ final class ShiftCommand implements Callable<Integer> {
                     List.of("model", "parameter", "value", "std_error", "ci95_low", "ci95_high", "unit"), fitRows);
             Sweep template = sweeps.get(0);
             String unitLetter = template.kind().letter();
-            StringBuilder master = new StringBuilder();
-            master.append("# sample: ").append(template.sample()).append(" master curve\n");
-            master.append("# temperature: ").append(Numbers.plain(reference)).append(" °C\n");
-            master.append("# modulus: ").append(template.kind()).append('\n');
-            master.append("# note: time–temperature superposition by Viscarta shift; frequencies are reduced frequencies a_T f\n");
-            master.append("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
-            for (SweepPoint p : r.master()) {
-                master.append(p.frequencyHz()).append(',').append(p.storage()).append(',').append(p.loss()).append('\n');
-            }
+            java.util.Map<String, String> meta = new java.util.LinkedHashMap<>();
+            meta.put("sample", template.sample() + " master curve");
+            meta.put("temperature", Numbers.plain(reference) + " °C");
+            meta.put("modulus", template.kind().toString());
+            meta.put("note", "time–temperature superposition by Viscarta shift; frequencies are reduced frequencies a_T f");
+            String master = SweepTableWriter.write(meta, r.master());
             AtomicOutput.write(outDir.resolve("master-curve.csv"), force,
-                    o -> o.write(master.toString().getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+                    o -> o.write(master.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
             out.println("wrote shift-factors.csv, shift-fits.csv and master-curve.csv (" + unitLetter + " moduli) in " + outDir);
         }
         return CommandLine.ExitCode.OK;

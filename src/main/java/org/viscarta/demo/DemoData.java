@@ -10,8 +10,10 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.SplittableRandom;
+import org.viscarta.io.SweepTableWriter;
 import org.viscarta.model.ModelCatalogue;
 import org.viscarta.model.ViscoelasticModel;
+import org.viscarta.sweep.Unit;
 
 /**
  * The seeded generator of Viscarta's invented demo data (PRODUCT.md "Demo scenario"). Every sweep
@@ -273,48 +275,45 @@ public final class DemoData {
 
     private static void references(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {
         record Ref(String name, String clazz, String composition, String condition, String method, Spec spec, double lo,
-                   double hi, String unit, double unitFactor) {
+                   double hi, Unit unit) {
         }
         List<Ref> refs = List.of(
                 new Ref("agarose-1.5pct", "gel", "agarose 1.5 % w/v in water", "24 h after casting", "dynamic indentation",
-                        new Spec("agarose-1.5pct", "", "kelvin-voigt", new double[] {50e3, 220}), 0.1, 10, "kPa", 1e3),
+                        new Spec("agarose-1.5pct", "", "kelvin-voigt", new double[] {50e3, 220}), 0.1, 10, Unit.KPA),
                 new Ref("gelatin-8pct", "gel", "gelatin 8 % w/v", "cured 12 h at 4 °C", "dynamic indentation",
-                        new Spec("gelatin-8pct", "", "zener", new double[] {8e3, 2.5e3, 0.06}), 0.1, 10, "kPa", 1e3),
+                        new Spec("gelatin-8pct", "", "zener", new double[] {8e3, 2.5e3, 0.06}), 0.1, 10, Unit.KPA),
                 new Ref("polyacrylamide-10pct", "gel", "acrylamide 10 %, bis 0.1 %", "swollen in buffer", "dynamic indentation",
-                        new Spec("polyacrylamide-10pct", "", "springpot", new double[] {14e3, 0.05}), 0.1, 10, "kPa", 1e3),
+                        new Spec("polyacrylamide-10pct", "", "springpot", new double[] {14e3, 0.05}), 0.1, 10, Unit.KPA),
                 new Ref("soft-tissue-phantom", "tissue", "silicone-based soft-tissue phantom", "as cast", "dynamic indentation",
-                        new Spec("soft-tissue-phantom", "", "springpot", new double[] {7.5e3, 0.12}), 0.1, 10, "kPa", 1e3),
+                        new Spec("soft-tissue-phantom", "", "springpot", new double[] {7.5e3, 0.12}), 0.1, 10, Unit.KPA),
                 new Ref("linseed-film-fresh", "paint film", "cold-pressed linseed oil with lead white", "cured 6 months, unaged",
                         "dynamic indentation", new Spec("linseed-film-fresh", "", "zener", new double[] {28e6, 62e6, 0.15}),
-                        0.1, 20, "MPa", 1e6),
+                        0.1, 20, Unit.MPA),
                 new Ref("linseed-film-aged", "paint film", "cold-pressed linseed oil with lead white", "2000 h light ageing",
                         "dynamic indentation", new Spec("linseed-film-aged", "", "zener", new double[] {110e6, 35e6, 0.5}),
-                        0.1, 20, "MPa", 1e6),
+                        0.1, 20, Unit.MPA),
                 new Ref("alkyd-film-fresh", "paint film", "alkyd medium with titanium white", "cured 3 months, unaged",
                         "dynamic indentation", new Spec("alkyd-film-fresh", "", "springpot", new double[] {115e6, 0.14}),
-                        0.1, 20, "MPa", 1e6),
+                        0.1, 20, Unit.MPA),
                 new Ref("dammar-varnish", "varnish", "dammar resin in turpentine", "cured 3 months", "dynamic indentation",
-                        new Spec("dammar-varnish", "", "springpot", new double[] {600e6, 0.06}), 0.1, 20, "MPa", 1e6),
+                        new Spec("dammar-varnish", "", "springpot", new double[] {600e6, 0.06}), 0.1, 20, Unit.MPA),
                 new Ref("pva-adhesive", "adhesive", "polyvinyl acetate emulsion adhesive", "dried 4 weeks", "DMA, tension",
-                        new Spec("pva-adhesive", "", "springpot", new double[] {20e6, 0.35}), 0.1, 20, "MPa", 1e6));
+                        new Spec("pva-adhesive", "", "springpot", new double[] {20e6, 0.35}), 0.1, 20, Unit.MPA));
         for (Ref ref : refs) {
             double[] p = replicateParams(rng, ref.spec());
             truths.add(truth(ref.spec(), "1", p));
-            StringBuilder sb = new StringBuilder();
-            sb.append("# name: ").append(ref.name()).append('\n');
-            sb.append("# class: ").append(ref.clazz()).append('\n');
-            sb.append("# temperature: 23 °C\n");
-            sb.append("# method: ").append(ref.method()).append('\n');
-            sb.append("# modulus: tensile\n");
-            sb.append("# composition: ").append(ref.composition()).append('\n');
-            sb.append("# condition: ").append(ref.condition()).append('\n');
-            sb.append("# notes: ").append(DEMO_NOTE).append('\n');
-            sb.append("frequency [Hz],storage_modulus [").append(ref.unit()).append("],loss_modulus [").append(ref.unit()).append("]\n");
-            for (double[] pt : points(rng, ref.spec().model(), p, frequencies(ref.lo(), ref.hi(), 12))) {
-                sb.append(num(pt[0])).append(',').append(num(pt[1] / ref.unitFactor())).append(',')
-                        .append(num(pt[2] / ref.unitFactor())).append('\n');
-            }
-            files.add(new DemoFile("reference-materials", ref.name() + ".csv", sb.toString()));
+            Map<String, String> meta = new LinkedHashMap<>();
+            meta.put("name", ref.name());
+            meta.put("class", ref.clazz());
+            meta.put("temperature", "23 °C");
+            meta.put("method", ref.method());
+            meta.put("modulus", "tensile");
+            meta.put("composition", ref.composition());
+            meta.put("condition", ref.condition());
+            meta.put("notes", DEMO_NOTE);
+            String table = SweepTableWriter.write(meta, points(rng, ref.spec().model(), p, frequencies(ref.lo(), ref.hi(), 12)),
+                    pt -> pt[0], pt -> pt[1], pt -> pt[2], List.of(), ref.unit(), DemoData::num);
+            files.add(new DemoFile("reference-materials", ref.name() + ".csv", table));
         }
     }
 

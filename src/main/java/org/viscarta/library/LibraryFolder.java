@@ -2,8 +2,6 @@ package org.viscarta.library;
 
 import org.viscarta.io.UsageException;
 import java.io.IOException;
-import java.io.OutputStreamWriter;
-import java.io.Writer;
 import java.nio.channels.FileChannel;
 import java.nio.channels.FileLock;
 import java.nio.charset.StandardCharsets;
@@ -20,10 +18,10 @@ import java.util.concurrent.locks.ReentrantLock;
 import org.viscarta.io.AtomicOutput;
 import org.viscarta.io.InputCollector;
 import org.viscarta.io.InputException;
+import org.viscarta.io.SweepTableWriter;
 import org.viscarta.io.SweepFile;
 import org.viscarta.io.SweepReader;
 import org.viscarta.sweep.Sweep;
-import org.viscarta.sweep.SweepPoint;
 
 /**
  * Changes to the reference-library folder: add (validated, written in the canonical form
@@ -112,17 +110,8 @@ public final class LibraryFolder {
             if (existing == null && Files.exists(target)) {
                 throw new InputException(target, 0, 0, "the file name is taken by another reference; choose another --name");
             }
-            AtomicOutput.write(target, true, out -> {
-                Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
-                for (Map.Entry<String, String> e : meta.entrySet()) {
-                    w.write("# " + e.getKey() + ": " + e.getValue().replace('\n', ' ') + "\n");
-                }
-                w.write("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
-                for (SweepPoint p : sw.points()) {
-                    w.write(p.frequencyHz() + "," + p.storage() + "," + p.loss() + "\n");
-                }
-                w.flush();
-            });
+            String table = SweepTableWriter.write(meta, sw.points());
+            AtomicOutput.write(target, true, out -> out.write(table.getBytes(StandardCharsets.UTF_8)));
         } catch (IOException | RuntimeException e) {
             throw e;
         } catch (Exception e) {

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.viscarta.io.InputException;
+import org.viscarta.io.SweepTableWriter;
 import org.viscarta.io.ReadWarning;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
@@ -68,33 +69,39 @@ public record RawSweeps(RawReader.Measurement measurement, Geometry geometry, Li
 
     /** The sweep table {@code moduli} writes: the standard columns and quality columns. */
     public String table() {
-        StringBuilder sb = new StringBuilder();
-        sb.append("# sample: ").append(sweep.sample()).append('\n');
-        sb.append("# replicate: ").append(sweep.replicate()).append('\n');
+        Map<String, String> meta = new LinkedHashMap<>();
+        meta.put("sample", sweep.sample());
+        meta.put("replicate", sweep.replicate());
         if (!sweep.group().isEmpty()) {
-            sb.append("# group: ").append(sweep.group()).append('\n');
+            meta.put("group", sweep.group());
         }
-        sb.append("# modulus: ").append(sweep.kind()).append('\n');
+        meta.put("modulus", sweep.kind().toString());
         if (Double.isFinite(sweep.temperatureC())) {
-            sb.append("# temperature: ").append(sweep.metadata().get("temperature")).append('\n');
+            meta.put("temperature", sweep.metadata().get("temperature"));
         }
-        sb.append("# method: oscillation signals demodulated by Viscarta\n");
-        sb.append("# geometry_used: ").append(geometry.describe()).append('\n');
-        sb.append("# calibration_used: ").append(sweep.metadata().get("calibration_used")).append('\n');
-        sb.append("# source_file: ").append(measurement.file().getFileName()).append('\n');
-        sb.append("# source_sha256: ").append(measurement.sha256()).append('\n');
+        meta.put("method", "oscillation signals demodulated by Viscarta");
+        meta.put("geometry_used", geometry.describe());
+        meta.put("calibration_used", sweep.metadata().get("calibration_used"));
+        meta.put("source_file", measurement.file().getFileName().toString());
+        meta.put("source_sha256", measurement.sha256());
         for (String key : List.of("note", "notes")) {
             if (sweep.metadata().containsKey(key)) {
-                sb.append("# ").append(key).append(": ").append(sweep.metadata().get(key)).append('\n');
+                meta.put(key, sweep.metadata().get(key));
             }
         }
-        sb.append("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],quality_storage_std_error [Pa],quality_loss_std_error [Pa],"
-                + "quality_force_distortion,quality_displacement_distortion,quality_contact_second_harmonic,quality_cycles,quality_linear\n");
-        for (RawConverter.Point p : points) {
-            sb.append(String.format(Locale.ROOT, "%s,%s,%s,%.4g,%.4g,%.4g,%.4g,%.4g,%d,%s%n", p.frequencyHz(), p.storage(), p.loss(),
-                    p.storageStdError(), p.lossStdError(), p.forceDistortion(), p.displacementDistortion(), p.contactHarmonic(),
-                    p.cycles(), p.linear() ? "yes" : "no"));
-        }
-        return sb.toString();
+        return SweepTableWriter.write(meta, points, RawConverter.Point::frequencyHz, RawConverter.Point::storage,
+                RawConverter.Point::loss, List.of(
+                        quality("quality_storage_std_error [Pa]", RawConverter.Point::storageStdError),
+                        quality("quality_loss_std_error [Pa]", RawConverter.Point::lossStdError),
+                        quality("quality_force_distortion", RawConverter.Point::forceDistortion),
+                        quality("quality_displacement_distortion", RawConverter.Point::displacementDistortion),
+                        quality("quality_contact_second_harmonic", RawConverter.Point::contactHarmonic),
+                        new SweepTableWriter.Extra<>("quality_cycles", p -> Integer.toString(p.cycles())),
+                        new SweepTableWriter.Extra<>("quality_linear", p -> p.linear() ? "yes" : "no")));
+    }
+
+    private static SweepTableWriter.Extra<RawConverter.Point> quality(String header,
+                                                                     java.util.function.ToDoubleFunction<RawConverter.Point> v) {
+        return new SweepTableWriter.Extra<>(header, p -> String.format(Locale.ROOT, "%.4g", v.applyAsDouble(p)));
     }
 }
