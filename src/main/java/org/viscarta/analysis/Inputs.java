@@ -9,6 +9,7 @@ import java.util.Map;
 import java.util.stream.Collectors;
 import org.viscarta.io.InputCollector;
 import org.viscarta.io.InputException;
+import org.viscarta.io.Layout;
 import org.viscarta.io.ReadWarning;
 import org.viscarta.io.SweepFile;
 import org.viscarta.io.SweepReader;
@@ -125,12 +126,12 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         SweepReader reader = new SweepReader(settings.declaredKind().orElse(null), settings.columns());
         return either(file, reader::summarize, m -> {
             if (m.isCalibration()) {
-                return new SweepReader.Summary(file, new TableInfo("raw oscillation signals: a calibration on a rigid reference",
+                return new SweepReader.Summary(file, new TableInfo(new Layout.RawSignals(": a calibration on a rigid reference"),
                         ',', '.', "UTF-8", 0, List.of(), m.metadata()), List.of(), List.of());
             }
             RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
             Sweep s = rs.sweep();
-            return new SweepReader.Summary(file, new TableInfo("raw oscillation signals (" + rs.geometry().describe() + ")", ',',
+            return new SweepReader.Summary(file, new TableInfo(new Layout.RawSignals(" (" + rs.geometry().describe() + ")"), ',',
                     '.', "UTF-8", 0, List.of(), m.metadata()), List.of(new SweepReader.SweepSummary(s.sample(), s.replicate(),
                     s.group(), s.kind(), s.temperatureC(), s.points().size(), s.minFrequencyHz(), s.maxFrequencyHz())),
                     rs.warnings());
@@ -150,7 +151,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
         notes.add(file + ": raw signals converted to moduli (" + rs.geometry().describe() + ", calibration: "
                 + rs.sweep().metadata().get("calibration_used") + ")");
-        return new SweepFile(file, m.sha256(), new TableInfo("raw oscillation signals", ',', '.', "UTF-8", 0, List.of(),
+        return new SweepFile(file, m.sha256(), new TableInfo(new Layout.RawSignals(""), ',', '.', "UTF-8", 0, List.of(),
                 m.metadata()), List.of(rs.sweep()), rs.warnings());
     }
 

@@ -138,7 +138,7 @@ public final class SweepReader {
         if (first == null) {
             throw new InputException(path, 1, 0, "the workbook has no sheet with data");
         }
-        TableInfo info = new TableInfo("workbook, " + sheets + " sheet(s): " + first.layout(), '\t', '.', "XLSX/XLS",
+        TableInfo info = new TableInfo(new Layout.WorkbookSheets(sheets, first.kind()), '\t', '.', "XLSX/XLS",
                 first.headerLine(), first.columns(), first.metadata());
         return new SweepFile(path, sha256(bytes), info, sweeps, warnings);
     }
@@ -255,7 +255,7 @@ public final class SweepReader {
             throw new InputException(path, headerRow.line(), 0, "the header is not followed by any data rows");
         }
         boolean tidy = hd.byQuantity().containsKey(Quantity.SAMPLE) || hd.byQuantity().containsKey(Quantity.REPLICATE);
-        TableInfo info = new TableInfo(tidy ? "tidy multi-sample table" : "one sample per file", sep, dm, enc, headerRow.line(),
+        TableInfo info = new TableInfo(tidy ? new Layout.Tidy() : new Layout.OneSample(), sep, dm, enc, headerRow.line(),
                 hd.columns(), metadata);
         return sink.table(hd, info, metadata, List.copyOf(rp.buckets.values()), warnings);
     }
@@ -667,7 +667,7 @@ public final class SweepReader {
             checkPoints(path, sw, warnings);
             sweeps.add(sw);
         }
-        TableInfo info = new TableInfo("wide table (a storage and a loss column per sample)", sep, dm, encoding, header.line(), columns,
+        TableInfo info = new TableInfo(new Layout.Wide(), sep, dm, encoding, header.line(), columns,
                 metadata);
         return new SweepFile(path, sha, info, sweeps, warnings);
     }

@@ -6,7 +6,7 @@ import java.util.Map;
 /**
  * How a sweep table file was understood, for {@code inspect} and the report's provenance.
  *
- * @param layout      "one sample per file" or "tidy multi-sample table"
+ * @param kind        the layout
  * @param separator   the field separator found in the header line
  * @param decimalMark '.' or ','
  * @param encoding    UTF-8 or windows-1252
@@ -14,12 +14,17 @@ import java.util.Map;
  * @param columns     every column and what it holds
  * @param metadata    the {@code # key: value} lines, keys in lower case
  */
-public record TableInfo(String layout, char separator, char decimalMark, String encoding, int headerLine,
+public record TableInfo(Layout kind, char separator, char decimalMark, String encoding, int headerLine,
                         List<ColumnSpec> columns, Map<String, String> metadata) {
 
     public TableInfo {
         columns = List.copyOf(columns);
         metadata = Map.copyOf(metadata);
+    }
+
+    /** The layout in words: "one sample per file", "tidy multi-sample table", ... */
+    public String layout() {
+        return kind.describe();
     }
 
     /** The separator named in words. */
