@@ -13,6 +13,7 @@ import org.viscarta.compare.ReferenceDistance;
 import org.viscarta.fit.FitResult;
 import org.viscarta.fit.ModelFitter;
 import org.viscarta.fit.ModelSelection;
+import org.viscarta.fit.TimeDomain;
 import org.viscarta.io.InputException;
 import org.viscarta.io.UsageException;
 import org.viscarta.library.ReferenceLibrary;
@@ -92,20 +93,21 @@ public final class Analysis {
     /** Every candidate model fitted to every sample (replicates pooled), samples in parallel; empty fits when not needed. */
     private static List<SampleAnalysis> fitAll(List<Sample> samples, AnalysisRequest request, Progress progress) {
         if (!request.needsFits()) {
-            return samples.stream().map(s -> new SampleAnalysis(s, List.of(), Optional.empty(), List.of())).toList();
+            return samples.stream().map(s -> new SampleAnalysis(s, List.of(), Optional.empty(), List.of(), List.of())).toList();
         }
         progress.stage(Progress.Stage.FITTING, samples.size());
         ModelFitter fitter = new ModelFitter(request.weighting());
         List<ViscoelasticModel> models = models(request);
+        double[] times = request.timeGrid().stream().mapToDouble(Double::doubleValue).toArray();
         return samples.parallelStream().map(s -> {
-            SampleAnalysis sa = fitted(s, models, fitter);
+            SampleAnalysis sa = fitted(s, models, fitter, times);
             progress.step();
             return sa;
         }).toList();
     }
 
     /** Every model fitted to the sample's pooled replicates, ranked by AICc, and the curve of the best-supported one. */
-    private static SampleAnalysis fitted(Sample s, List<ViscoelasticModel> models, ModelFitter fitter) {
+    private static SampleAnalysis fitted(Sample s, List<ViscoelasticModel> models, ModelFitter fitter, double[] times) {
         List<SweepPoint> points = s.pooledFittablePoints();
         List<FitResult> fits = new ArrayList<>();
         for (ViscoelasticModel m : models) {
@@ -114,7 +116,13 @@ public final class Analysis {
         List<ModelSelection.Ranked> ranked = ModelSelection.rank(fits);
         Optional<FittedCurve> curve = ranked.stream().filter(ModelSelection.Ranked::best).findFirst()
                 .flatMap(b -> FittedCurve.of(b.fit(), s.minFrequencyHz(), s.maxFrequencyHz(), s.temperatureC(), s.kind()));
-        return new SampleAnalysis(s, ranked, curve, List.of());
+        List<TimeDomain.Point> timeDomain = new ArrayList<>();
+        if (times.length > 0) {
+            for (ModelSelection.Ranked rk : ranked) {
+                timeDomain.addAll(TimeDomain.evaluate(rk.fit(), times));
+            }
+        }
+        return new SampleAnalysis(s, ranked, curve, List.of(), timeDomain);
     }
 
     private static List<ViscoelasticModel> models(AnalysisRequest request) {
@@ -173,7 +181,7 @@ public final class Analysis {
             if (read.samples().size() != 1) {
                 throw new UsageException(fromFile.file() + " holds " + read.samples().size() + " samples; the target must be one");
             }
-            SampleAnalysis t = fitted(read.samples().get(0), models(request), new ModelFitter(request.weighting()));
+            SampleAnalysis t = fitted(read.samples().get(0), models(request), new ModelFitter(request.weighting()), new double[0]);
             String name = t.sample().name();
             return Optional.of(new AnalysisResult.Mimic(name, Matcher.rank(name, t.curve().orElse(null),
                     candidates(samples, name), distance), Optional.of(read)));

@@ -31,12 +31,13 @@ import org.viscarta.sweep.ModulusKind;
  * @param matching     how samples are compared with references and candidates
  * @param target       the material to mimic, when there is one
  * @param masterCurves how samples measured at several temperatures are superposed (empty: no master curves)
+ * @param timeGrid     times [s] at which every fitted model's E(t) and J(t) are evaluated (empty: none)
  * @param parts        what to compute beyond reading
  */
 public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<String> modelIds, Weighting weighting,
                               RankingPoint rankingPoint, DampingRanking.OutsideRange outsideRange, double alpha,
                               Optional<Path> library, MatchSettings matching, Target target, Optional<MasterCurves> masterCurves,
-                              Set<Part> parts) {
+                              List<Double> timeGrid, Set<Part> parts) {
 
     /** What an analysis computes beyond reading. */
     public enum Part {
@@ -51,6 +52,12 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
     public AnalysisRequest {
         inputs = List.copyOf(inputs);
         modelIds = List.copyOf(modelIds);
+        timeGrid = List.copyOf(timeGrid);
+        for (double t : timeGrid) {
+            if (!(t > 0) || Double.isInfinite(t)) {
+                throw new IllegalArgumentException("times of the time domain must be finite and > 0 s, got " + t);
+            }
+        }
         parts = Set.copyOf(parts);
         Objects.requireNonNull(reading, "reading");
         Objects.requireNonNull(weighting, "weighting");
@@ -104,6 +111,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         private MatchSettings matching = MatchSettings.defaults();
         private Target target = Target.NONE;
         private Optional<MasterCurves> masterCurves = Optional.empty();
+        private List<Double> timeGrid = List.of();
         private final Set<Part> parts = EnumSet.noneOf(Part.class);
 
         private Builder(List<Path> inputs) {
@@ -185,6 +193,12 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
             return this;
         }
 
+        /** Evaluate every fitted model's E(t) and J(t) at these times [s]. */
+        public Builder timeGrid(double[] seconds) {
+            this.timeGrid = java.util.Arrays.stream(seconds).boxed().toList();
+            return this;
+        }
+
         /** Compute these parts (reading alone is always done). */
         public Builder compute(Part... p) {
             parts.addAll(List.of(p));
@@ -193,7 +207,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
 
         public AnalysisRequest build() {
             return new AnalysisRequest(inputs, new ReadSettings(declaredKind, basis, poisson, columns, badFiles), modelIds, weighting,
-                    rankingPoint, outsideRange, alpha, library, matching, target, masterCurves, parts);
+                    rankingPoint, outsideRange, alpha, library, matching, target, masterCurves, timeGrid, parts);
         }
     }
 }

@@ -7,6 +7,7 @@ import org.viscarta.compare.FittedCurve;
 import org.viscarta.compare.Matcher;
 import org.viscarta.fit.FitResult;
 import org.viscarta.fit.ModelSelection;
+import org.viscarta.fit.TimeDomain;
 
 /**
  * Everything computed for one sample.
@@ -15,13 +16,20 @@ import org.viscarta.fit.ModelSelection;
  * @param fits    every candidate model's fit with its AICc rank and Akaike weight (empty when fits were not asked for)
  * @param curve   the best-supported fitted curve, when a model converged
  * @param matches its closest references, closest first (empty without matching)
+ * @param timeDomain every fitted model's E(t) and J(t) on the request's time grid (empty without one)
  */
 public record SampleAnalysis(Sample sample, List<ModelSelection.Ranked> fits, Optional<FittedCurve> curve,
-                             List<Matcher.Match> matches) {
+                             List<Matcher.Match> matches, List<TimeDomain.Point> timeDomain) {
 
     public SampleAnalysis {
         fits = List.copyOf(fits);
         matches = List.copyOf(matches);
+        timeDomain = List.copyOf(timeDomain);
+    }
+
+    /** The time-domain points of the best-supported model (empty when it has none). */
+    public List<TimeDomain.Point> bestTimeDomain() {
+        return best().map(b -> timeDomain.stream().filter(p -> p.model().equals(b.model())).toList()).orElse(List.of());
     }
 
     /** The best-supported model's entry, when any converged. */
@@ -51,6 +59,6 @@ public record SampleAnalysis(Sample sample, List<ModelSelection.Ranked> fits, Op
     }
 
     SampleAnalysis withMatches(List<Matcher.Match> m) {
-        return new SampleAnalysis(sample, fits, curve, m);
+        return new SampleAnalysis(sample, fits, curve, m, timeDomain);
     }
 }

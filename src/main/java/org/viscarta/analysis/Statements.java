@@ -87,6 +87,9 @@ public final class Statements {
         m.put("reference library", r.library().map(Path::toString).orElse("none"));
         m.put("reference distance", r.matching().describe());
         m.put("target", target(r.target()));
+        m.put("time domain", r.timeGrid().isEmpty() ? "not evaluated"
+                : "E(t) and J(t) of every fitted model at " + r.timeGrid().size() + " times from "
+                        + Numbers.plain(r.timeGrid().get(0)) + " to " + Numbers.plain(r.timeGrid().get(r.timeGrid().size() - 1)) + " s");
         return m;
     }
 

@@ -56,7 +56,10 @@ final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        AnalysisRequest request = Requests.build(spec, () -> models.applyTo(input.request()).compute(AnalysisRequest.Part.FITS));
+        AnalysisRequest request = Requests.build(spec, () -> {
+            AnalysisRequest.Builder b = models.applyTo(input.request()).compute(AnalysisRequest.Part.FITS);
+            return timeGrid == null ? b : b.timeGrid(timeGrid.seconds());
+        });
         if (timeOut != null && timeGrid == null) {
             throw new CommandLine.ParameterException(spec.commandLine(), "--time-domain-out needs --time-domain GRID");
         }
@@ -71,7 +74,8 @@ final class FitCommand implements Callable<Integer> {
         for (SampleAnalysis sa : result.samples()) {
             printSample(out, sa);
             if (timeGrid != null) {
-                printTimeDomain(out, sa, timeRows);
+                printTimeDomain(out, sa);
+                timeRows.addAll(sa.timeDomain());
             }
             out.println();
         }
@@ -121,12 +125,9 @@ final class FitCommand implements Callable<Integer> {
         }
     }
 
-    private void printTimeDomain(PrintWriter out, SampleAnalysis sa, List<TimeDomain.Point> timeRows) {
-        for (ModelSelection.Ranked rk : sa.fits()) {
-            timeRows.addAll(TimeDomain.evaluate(rk.fit(), timeGrid.seconds()));
-        }
+    private static void printTimeDomain(PrintWriter out, SampleAnalysis sa) {
         sa.best().ifPresent(b -> {
-            List<TimeDomain.Point> pts = TimeDomain.evaluate(b, timeGrid.seconds());
+            List<TimeDomain.Point> pts = sa.bestTimeDomain();
             if (pts.isEmpty()) {
                 out.println("  time domain: " + b.model() + " has none (descriptive model)");
                 return;
