@@ -189,6 +189,13 @@ public final class Figures {
             res.addSeries(rs);
             res.addSeries(rl);
             residuals.setDataset(res);
+            // symmetric about zero with room for the markers of the largest residuals, and ticks at ± half of it
+            double largest = Math.max(Math.max(Math.abs(rs.getMinY()), Math.abs(rs.getMaxY())),
+                    Math.max(Math.abs(rl.getMinY()), Math.abs(rl.getMaxY())));
+            if (largest > 0 && Double.isFinite(largest)) {
+                ry.setRange(-1.3 * largest, 1.3 * largest);
+                ry.setTickUnit(new NumberTickUnit(niceStep(largest / 2)));
+            }
             XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
             for (int i = 0; i < 2; i++) {
                 rr.setSeriesPaint(i, Palette.colour(i));
@@ -209,6 +216,13 @@ public final class Figures {
         return new Figure(stem, "Storage and loss moduli of " + s.name() + " against frequency (replicate mean ± SD), the "
                 + (curve == null ? "no model converged" : "best-supported model " + curve.model().id() + " with its 95 % band")
                 + ", and the residuals of the fit on a log scale.", c);
+    }
+
+    /** The 1, 2 or 5 times a power of ten nearest above {@code x}, a readable tick step. */
+    static double niceStep(double x) {
+        double p = Math.pow(10, Math.floor(Math.log10(x)));
+        double m = x / p;
+        return (m <= 1 ? 1 : m <= 2 ? 2 : m <= 5 ? 5 : 10) * p;
     }
 
     /** ln M′ and its SE, ln M″ and its SE, from the curve's covariance (delta method); SE 0 when unknown. */

@@ -38,6 +38,23 @@ class FiguresTest {
     }
 
     @Test
+    void theResidualPanelShowsEveryResidualWithRoomForItsMarker() {
+        FittedCurve curve = CAMPAIGN.samples().get(0).curve().orElseThrow();
+        Figure f = Figures.fit(CAMPAIGN.samples().get(0).sample(), curve, "fit-test");
+        XYPlot residuals = ((CombinedDomainXYPlot) f.chart().getPlot()).getSubplots().get(1);
+        double largest = 0;
+        for (int series = 0; series < 2; series++) {
+            for (int i = 0; i < residuals.getDataset().getItemCount(series); i++) {
+                largest = Math.max(largest, Math.abs(residuals.getDataset().getYValue(series, i)));
+            }
+        }
+        org.jfree.data.Range range = residuals.getRangeAxis().getRange();
+        assertTrue(range.getUpperBound() >= 1.2 * largest && range.getLowerBound() <= -1.2 * largest, range + " vs " + largest);
+        assertEquals(0.05, Figures.niceStep(0.031), 1e-15);
+        assertEquals(0.2, Figures.niceStep(0.15), 1e-15);
+    }
+
+    @Test
     void overviewFiguresHaveASeriesPerSampleAndAPointPerRankedSample() {
         Figure tan = Figures.tanDelta(CAMPAIGN.inputs().samples());
         assertEquals(9, ((XYPlot) tan.chart().getPlot()).getDataset().getSeriesCount());
