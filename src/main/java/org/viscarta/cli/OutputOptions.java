@@ -9,6 +9,7 @@ import java.util.List;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 import org.viscarta.io.AtomicOutput;
+import org.viscarta.table.Cells;
 import picocli.CommandLine.Option;
 
 /** {@code -o/--out}, {@code --force} and {@code --quiet}, shared by every verb that writes. */
@@ -38,7 +39,7 @@ final class OutputOptions {
             CSVPrinter p = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setRecordSeparator("\n").get());
             p.printRecord(header);
             for (List<String> r : rows) {
-                p.printRecord(r);
+                p.printRecord(r.stream().map(Cells::inert).toList());
             }
             p.flush();
         });

@@ -77,6 +77,9 @@ public final class ModelFitter {
      * @param data   points with positive moduli (use {@code Sweep.fittablePoints()}); replicates may be pooled
      */
     public FitResult fit(String sample, ViscoelasticModel model, List<SweepPoint> data) {
+        if (data.isEmpty()) {
+            return notFitted(sample, model, 0, "no point has positive storage and loss moduli, so there is nothing to fit");
+        }
         List<ViscoelasticModel> variants = model.variants();
         FitResult best = null;
         for (ViscoelasticModel v : variants) {

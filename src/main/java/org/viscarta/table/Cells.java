@@ -8,7 +8,10 @@ public final class Cells {
     private Cells() {
     }
 
-    /** Full precision for machines; "" for NaN and null; true/false for booleans. */
+    /**
+     * Full precision for machines; "" for NaN and null; true/false for booleans; text made inert
+     * for spreadsheets ({@link #inert}).
+     */
     public static String csv(Object v) {
         if (v == null) {
             return "";
@@ -17,8 +20,23 @@ public final class Cells {
             double d = ((Number) v).doubleValue();
             return Double.isFinite(d) ? Double.toString(d) : "";
         }
-        return v.toString();
+        return v instanceof Number || v instanceof Boolean ? v.toString() : inert(v.toString());
     }
+
+    /**
+     * A text cell a spreadsheet will not evaluate: one that begins with =, +, -, @, a tab or a
+     * carriage return is prefixed with an apostrophe (the usual defence against formula injection,
+     * OWASP "CSV Injection"); a plain number such as -2.5 or 1e-3 stays as it is.
+     */
+    public static String inert(String text) {
+        if (text.isEmpty() || "=+-@\t\r".indexOf(text.charAt(0)) < 0 || PLAIN_NUMBER.matcher(text).matches()) {
+            return text;
+        }
+        return "'" + text;
+    }
+
+    private static final java.util.regex.Pattern PLAIN_NUMBER =
+            java.util.regex.Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?|[+-]?Infinity|NaN");
 
     /**
      * A value for reading in a column of this style: whole numbers as such, fixed decimals for

@@ -1,0 +1,53 @@
+package org.viscarta.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Tag;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.viscarta.table.Cells;
+
+/** Regression: inputs that once crashed a verb or leaked into a spreadsheet as formulas. */
+@Tag("regression")
+class HardeningTest {
+
+    @TempDir
+    Path dir;
+
+    @Test
+    void aSampleWithoutPositiveLossIsReportedNotACrash() throws IOException {
+        Path f = dir.resolve("elastic.csv");
+        Files.writeString(f, "# sample: ideal-spring\nfrequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n0.1,1000,0\n1,1000,0\n10,1000,-1\n");
+        CliRun r = CliRun.of("fit", f.toString(), "-o", dir.resolve("fits.csv").toString());
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("nothing to fit"), r.out());
+        assertTrue(r.out().contains("no model converged"), r.out());
+    }
+
+    @Test
+    void csvCellsThatASpreadsheetWouldEvaluateAreMadeInert() throws IOException {
+        // OWASP "CSV Injection": cells beginning with = + - @ tab or CR are prefixed with an apostrophe
+        for (String payload : List.of("=HYPERLINK(\"http://x\",\"click\")", "@SUM(1)", "+cmd|' /C calc'!A0", "-2+3", "\tx", "\rx")) {
+            assertEquals("'" + payload, Cells.inert(payload), payload);
+        }
+        for (String number : List.of("-2.5", "+1e-3", "-0", "12", "-Infinity")) {
+            assertEquals(number, Cells.inert(number), "numbers stay numbers: " + number);
+        }
+        Path f = dir.resolve("evil.csv");
+        Files.writeString(f, "sample,replicate,frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n"
+                + "\"=HYPERLINK(\"\"http://x\"\",\"\"click\"\")\",1,1,1000,100\n\"=HYPERLINK(\"\"http://x\"\",\"\"click\"\")\",2,1,1000,110\n"
+                + "-2+3,1,1,1000,200\n-2+3,2,1,1000,190\n");
+        Path out = dir.resolve("rank.csv");
+        CliRun r = CliRun.of("rank", f.toString(), "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        String csv = Files.readString(out);
+        assertTrue(csv.contains("'-2+3"), csv);
+        assertTrue(csv.contains("\"'=HYPERLINK("), csv);
+        assertTrue(!csv.contains(",=HYPERLINK") && !csv.contains(",-2+3"), csv);
+    }
+}
