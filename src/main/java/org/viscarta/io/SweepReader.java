@@ -973,6 +973,11 @@ public final class SweepReader {
         return '.';
     }
 
+    /** Text as every sweep table is decoded: UTF-8 (with or without byte-order mark), else windows-1252. */
+    public static String decodeText(byte[] bytes) {
+        return decode(bytes, new String[1]);
+    }
+
     private static String decode(byte[] bytes, String[] encodingUsed) {
         int offset = bytes.length >= 3 && (bytes[0] & 0xFF) == 0xEF && (bytes[1] & 0xFF) == 0xBB
                 && (bytes[2] & 0xFF) == 0xBF ? 3 : 0;

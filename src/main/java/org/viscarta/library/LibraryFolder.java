@@ -67,6 +67,13 @@ public final class LibraryFolder {
         if (a.clazz() == null || a.clazz().isBlank()) {
             throw new UsageException("a reference needs a class (gel, tissue, paint film, ...): pass --class");
         }
+        checkValue("--name", a.name());
+        checkValue("--class", a.clazz());
+        checkValue("--composition", a.composition());
+        checkValue("--condition", a.condition());
+        checkValue("--notes", a.notes());
+        checkValue("--temperature", a.temperature());
+        checkValue("--method", a.method());
         SweepFile sf = new SweepReader(null).read(source);
         if (sf.sweeps().size() != 1) {
             throw new InputException(source, sf.info().headerLine(), 0, "a reference is one sweep; this file holds "
@@ -97,25 +104,79 @@ public final class LibraryFolder {
         }
         meta.put("source_file", source.getFileName().toString());
         meta.put("source_sha256", sf.sha256());
-        Path target = folder.resolve(slug(a.name()) + ".csv");
+        String table = SweepTableWriter.write(meta, sw.points());
+        readsBack(table, meta, sw.points().size());
         try (AutoCloseable lock = lock()) {
             Path existing = findByName(a.name().strip());
             if (existing != null && !replace) {
                 throw new InputException(existing, 0, 0, "a reference named '" + a.name().strip()
                         + "' is already in the library; pass --replace to replace it");
             }
-            if (existing != null && !existing.equals(target)) {
-                keepRemoved(existing);
+            if (existing == null) {
+                Path target = freeFile(slug(a.name()));
+                AtomicOutput.write(target, false, out -> out.write(table.getBytes(StandardCharsets.UTF_8)));
+                return target;
             }
-            if (existing == null && Files.exists(target)) {
-                throw new InputException(target, 0, 0, "the file name is taken by another reference; choose another --name");
+            // the entry keeps its own file: write the new version over it, then keep the old one in .removed/;
+            // if the old one cannot be kept, put it back
+            byte[] old = Files.readAllBytes(existing);
+            AtomicOutput.write(existing, true, out -> out.write(table.getBytes(StandardCharsets.UTF_8)));
+            try {
+                Path kept = removedFile(existing.getFileName().toString());
+                Files.write(kept, old, StandardOpenOption.CREATE_NEW);
+            } catch (IOException | RuntimeException e) {
+                AtomicOutput.write(existing, true, out -> out.write(old));
+                throw new IOException("the old version of '" + a.name().strip() + "' cannot be kept in " + folder.resolve(REMOVED)
+                        + " (" + e.getMessage() + "); the library is unchanged", e);
             }
-            String table = SweepTableWriter.write(meta, sw.points());
-            AtomicOutput.write(target, true, out -> out.write(table.getBytes(StandardCharsets.UTF_8)));
+            return existing;
         } catch (IOException | RuntimeException e) {
             throw e;
         } catch (Exception e) {
             throw new IOException(e);
+        }
+    }
+
+    /**
+     * Refuses a metadata value that would end its line early or start another key: a line break,
+     * another control character, or ';' (which separates '# key: value' pairs on one line).
+     */
+    private static void checkValue(String option, String value) {
+        if (value == null) {
+            return;
+        }
+        for (int i = 0; i < value.length(); i++) {
+            char c = value.charAt(i);
+            if (c == ';' || Character.isISOControl(c)) {
+                throw new UsageException(option + " must not contain " + (c == ';' ? "';'" : "a line break or control character")
+                        + " (it would end the value in the library file): '" + value.replaceAll("\\p{Cntrl}", "?") + "'");
+            }
+        }
+    }
+
+    /** The entry as written must read back as one sweep with the same metadata, or nothing is written. */
+    private static void readsBack(String table, Map<String, String> meta, int points) throws IOException {
+        Path tmp = Files.createTempFile("viscarta-library-entry", ".csv");
+        try {
+            Files.writeString(tmp, table);
+            SweepFile back = new SweepReader(null).read(tmp);
+            boolean same = back.sweeps().size() == 1 && back.sweeps().get(0).points().size() == points;
+            for (Map.Entry<String, String> e : meta.entrySet()) {
+                same &= e.getValue().strip().equals(back.info().metadata().get(e.getKey()));
+            }
+            if (!same) {
+                throw new UsageException("the new entry would not read back as written; check its metadata for ';' and line breaks");
+            }
+        } finally {
+            Files.deleteIfExists(tmp);
+        }
+    }
+
+    /** A file for a new entry: {@code slug.csv}, or {@code slug-2.csv} ... when that is taken. */
+    private Path freeFile(String slug) {
+        Path target = folder.resolve(slug + ".csv");
+        for (int k = 2; Files.exists(target); k++) {
+            target = folder.resolve(slug + "-" + k + ".csv");
         }
         return target;
     }
@@ -185,7 +246,7 @@ public final class LibraryFolder {
         }
         try (var s = Files.list(folder)) {
             for (Path f : s.filter(Files::isRegularFile).filter(InputCollector::looksLikeSweepTable).sorted().toList()) {
-                for (String line : Files.readAllLines(f, StandardCharsets.UTF_8)) {
+                for (String line : SweepReader.decodeText(Files.readAllBytes(f)).split("\\R")) {
                     String l = line.strip();
                     if (!l.startsWith("#")) {
                         break;
@@ -203,14 +264,18 @@ public final class LibraryFolder {
     }
 
     private Path keepRemoved(Path file) throws IOException {
+        return Files.move(file, removedFile(file.getFileName().toString()));
+    }
+
+    /** A name in {@code .removed/} not yet taken, for a file called {@code base}. */
+    private Path removedFile(String base) throws IOException {
         Path dir = folder.resolve(REMOVED);
         Files.createDirectories(dir);
-        String base = file.getFileName().toString();
         Path target = dir.resolve(base);
         for (int k = 2; Files.exists(target); k++) {
             target = dir.resolve(base.replaceFirst("(\\.[^.]*)?$", "." + k + "$1"));
         }
-        return Files.move(file, target);
+        return target;
     }
 
     private AutoCloseable lock() throws IOException {
@@ -246,9 +311,12 @@ public final class LibraryFolder {
         }
     }
 
-    /** A file name from a reference name: letters, digits, dot, dash and underscore; others become '-'. */
+    /**
+     * A file name from a reference name: letters, digits, dot, dash and underscore; others become
+     * '-'; never starting with a dot, so that every entry is a visible file.
+     */
     static String slug(String name) {
-        String s = name.strip().toLowerCase(Locale.ROOT).replaceAll("[^a-z0-9._-]+", "-").replaceAll("^-+|-+$", "");
+        String s = name.strip().toLowerCase(Locale.ROOT).replaceAll("[^a-z0-9._-]+", "-").replaceAll("^[.-]+|-+$", "");
         return s.isEmpty() ? "reference" : s;
     }
 }
