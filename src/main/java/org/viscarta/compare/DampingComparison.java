@@ -90,7 +90,8 @@ public final class DampingComparison {
             significant[j][i] = sig;
             pairs.add(new Pair(names.get(i), names.get(j), tests.get(k), adjusted[k], sig));
         }
-        List<String> letters = List.of(LetterDisplay.letters(n, significant));
+        LetterDisplay.Display display = LetterDisplay.display(n, significant);
+        List<String> letters = display.readable() ? display.letters() : java.util.Collections.nCopies(n, "");
         List<String> statements = new ArrayList<>();
         long untestable = values.stream().filter(v -> v.length < 2).count();
         long supported = pairs.stream().filter(Pair::significant).count();
@@ -99,6 +100,14 @@ public final class DampingComparison {
                 Numbers.plain(alpha), pairs.size(), supported, pairs.size()));
         if (untestable > 0) {
             statements.add(untestable + " sample(s) with a single replicate cannot be tested and share letters with all others.");
+        }
+        if (!display.readable()) {
+            statements.add("Letters are not shown: the overlapping differences would need more than "
+                    + LetterDisplay.MAX_LETTERS_PER_ITEM + " letters for a sample or more than " + LetterDisplay.MAX_COLUMNS
+                    + " in all; every pairwise comparison is listed with its Holm-adjusted p-value instead.");
+        } else if (!display.exact()) {
+            statements.add("The letters follow the ranking order: samples sharing a letter are not distinguishable, but some "
+                    + "pairs without a common letter are not distinguishable either; the pairwise comparisons say which.");
         }
         if (supported > 0 && supported <= pairs.size() - supported) {
             for (Pair p : pairs) {
