@@ -154,7 +154,7 @@ public final class Figures {
         ry.setTickLabelFont(Palette.TICK);
         residuals.setRangeAxis(ry);
         residuals.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(0.8f)));
-        String title = s.name();
+        String title = shortName(s.name());
         if (curve != null) {
             double[] p = curve.params();
             YIntervalSeriesCollection model = new YIntervalSeriesCollection();
@@ -203,7 +203,7 @@ public final class Figures {
                 rr.setSeriesVisibleInLegend(i, false);
             }
             residuals.setRenderer(rr);
-            title = s.name() + ": " + curve.model().id() + " (best supported)";
+            title = shortName(s.name()) + ": " + curve.model().id() + " (best supported)";
         }
         CombinedDomainXYPlot plot = new CombinedDomainXYPlot(frequencyAxis());
         plot.setGap(6);
@@ -213,9 +213,17 @@ public final class Figures {
         finish(c, top);
         finish(c, residuals);
         c.setBackgroundPaint(Color.WHITE);
-        return new Figure(stem, "Storage and loss moduli of " + s.name() + " against frequency (replicate mean ± SD), the "
+        return new Figure(stem, "Storage and loss moduli of " + shortName(s.name()) + " against frequency (replicate mean ± SD), the "
                 + (curve == null ? "no model converged" : "best-supported model " + curve.model().id() + " with its 95 % band")
                 + ", and the residuals of the fit on a log scale.", c);
+    }
+
+    /** Names longer than this are shortened in titles, legends, axis labels and captions (tables keep them whole). */
+    static final int NAME_IN_FIGURE = 60;
+
+    /** A name as a figure shows it: whole up to {@value #NAME_IN_FIGURE} characters, else its start and "…". */
+    static String shortName(String name) {
+        return name.length() <= NAME_IN_FIGURE ? name : name.substring(0, NAME_IN_FIGURE - 1) + "…";
     }
 
     /** The 1, 2 or 5 times a power of ten nearest above {@code x}, a readable tick step. */
@@ -250,8 +258,13 @@ public final class Figures {
     /** tan δ against frequency, one series (replicate geometric mean) per sample. */
     public static Figure tanDelta(List<Sample> samples) {
         XYSeriesCollection data = new XYSeriesCollection();
+        java.util.Set<String> keys = new java.util.HashSet<>();
         for (Sample s : samples) {
-            XYSeries series = new XYSeries(s.name());
+            String key = shortName(s.name());
+            for (int k = 2; !keys.add(key); k++) {
+                key = shortName(s.name()) + " (" + k + ")";
+            }
+            XYSeries series = new XYSeries(key);
             for (Aggregate a : aggregate(s)) {
                 series.add(a.f(), a.tanDelta());
             }
@@ -282,7 +295,7 @@ public final class Figures {
             double lo = Double.isNaN(t.ci95Low()) ? t.mean() : t.ci95Low();
             double hi = Double.isNaN(t.ci95High()) ? t.mean() : t.ci95High();
             series.add(t.mean(), lo, hi, y, y, y);
-            labels[ranked.size() - 1 - i] = r.name() + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
+            labels[ranked.size() - 1 - i] = shortName(r.name()) + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
         }
         data.addSeries(series);
         NumberAxis x = new NumberAxis("loss tangent tan δ at " + at + " [–]");
@@ -309,8 +322,8 @@ public final class Figures {
                                     int shown, String stem) {
         XYSeriesCollection data = new XYSeriesCollection();
         String m = s.kind().letter();
-        XYSeries ms = new XYSeries(s.name() + " " + m + "′");
-        XYSeries ml = new XYSeries(s.name() + " " + m + "″");
+        XYSeries ms = new XYSeries(shortName(s.name()) + " " + m + "′");
+        XYSeries ml = new XYSeries(shortName(s.name()) + " " + m + "″");
         for (Aggregate a : aggregate(s)) {
             ms.add(a.f(), a.storage());
             ml.add(a.f(), a.loss());
@@ -323,9 +336,9 @@ public final class Figures {
             if (match.rank() == 0 || c == null || k >= shown) {
                 continue;
             }
-            XYSeries rs = new XYSeries(String.format(Locale.ROOT, "%d. %s %s′ (d = %.3f)", match.rank(), match.reference(), m,
+            XYSeries rs = new XYSeries(String.format(Locale.ROOT, "%d. %s %s′ (d = %.3f)", match.rank(), shortName(match.reference()), m,
                     match.result().distance()));
-            XYSeries rl = new XYSeries(String.format(Locale.ROOT, "%d. %s %s″", match.rank(), match.reference(), m));
+            XYSeries rl = new XYSeries(String.format(Locale.ROOT, "%d. %s %s″", match.rank(), shortName(match.reference()), m));
             double[] out = new double[2];
             double[] p = c.params();
             for (int i = 0; i < CURVE_POINTS; i++) {
@@ -353,9 +366,9 @@ public final class Figures {
             r.setSeriesStroke(i, Palette.line((i - 2) % 2 == 0 ? 0 : 1));
         }
         plot.setRenderer(r);
-        return new Figure(stem, "Measured moduli of " + s.name() + " (markers) against the fitted curves of its " + k
+        return new Figure(stem, "Measured moduli of " + shortName(s.name()) + " (markers) against the fitted curves of its " + k
                 + " closest references (solid: storage, dashed: loss), each within its measured range.",
-                chart(s.name() + " and its closest references", plot, true));
+                chart(shortName(s.name()) + " and its closest references", plot, true));
     }
 
     /** The master curve: every temperature's E′ and E″ against reduced frequency a_T f, one colour and marker per temperature. */
@@ -395,10 +408,10 @@ public final class Figures {
         }
         rr.setUseFillPaint(false);
         plot.setRenderer(rr);
-        return new Figure(stem, "Master curve of " + ts.sample() + " at " + Numbers.plain(r.referenceC()) + " °C: each temperature's "
+        return new Figure(stem, "Master curve of " + shortName(ts.sample()) + " at " + Numbers.plain(r.referenceC()) + " °C: each temperature's "
                 + "storage (filled markers) and loss moduli (open markers) shifted along the frequency axis by its factor a_T"
                 + (vertical ? " and divided by its vertical factor b_T." : " (no vertical shift)."),
-                chart(ts.sample() + ": master curve", plot, true));
+                chart(shortName(ts.sample()) + ": master curve", plot, true));
     }
 
     /** log10 a_T against temperature with its standard errors and the WLF and Arrhenius fits. */
@@ -455,8 +468,8 @@ public final class Figures {
             lr.setSeriesStroke(i, Palette.line(i));
         }
         plot.setRenderer(1, lr);
-        return new Figure(stem, "Shift factors of " + ts.sample() + " against temperature (reference " + Numbers.plain(t0)
-                + " °C) with the WLF and Arrhenius fits.", chart(ts.sample() + ": shift factors", plot, true));
+        return new Figure(stem, "Shift factors of " + shortName(ts.sample()) + " against temperature (reference " + Numbers.plain(t0)
+                + " °C) with the WLF and Arrhenius fits.", chart(shortName(ts.sample()) + ": shift factors", plot, true));
     }
 
     /**
@@ -484,8 +497,8 @@ public final class Figures {
             r.setSeriesShape(i, Palette.shape(i));
         }
         plot.setRenderer(r);
-        return new Figure(stem, "van Gurp–Palmen plot of " + ts.sample() + ": phase angle against |" + m + "*| at every temperature; "
-                + "if the curves fall on one line, time–temperature superposition holds.", chart(ts.sample() + ": van Gurp–Palmen check",
+        return new Figure(stem, "van Gurp–Palmen plot of " + shortName(ts.sample()) + ": phase angle against |" + m + "*| at every temperature; "
+                + "if the curves fall on one line, time–temperature superposition holds.", chart(shortName(ts.sample()) + ": van Gurp–Palmen check",
                 plot, true));
     }
 }

@@ -162,6 +162,21 @@ public final class WorkbookReport {
         widths(s, 12, 12, 12, 12, 12, 12, 12, 12, 12);
     }
 
+    /** The tallest row a spreadsheet allows [points]. */
+    private static final float MAX_ROW_POINTS = 409f;
+
+    /** The most characters a spreadsheet cell holds (Excel's limit; LibreOffice's is larger). */
+    private static final int CELL_LIMIT = 32_767;
+
+    /** Text as a cell can hold it: whole, or cut with a note saying so. */
+    static String fitCell(String text) {
+        if (text.length() <= CELL_LIMIT) {
+            return text;
+        }
+        String note = " … (cut: " + text.length() + " characters, more than a cell holds)";
+        return text.substring(0, CELL_LIMIT - note.length()) + note;
+    }
+
     /** Cell styles, created once per workbook. */
     private static final class Styles {
         final CellStyle title;
@@ -255,7 +270,7 @@ public final class WorkbookReport {
                 } else if (v instanceof Boolean b) {
                     cell.setCellValue(b ? "yes" : "no");
                 } else {
-                    cell.setCellValue(v.toString());
+                    cell.setCellValue(fitCell(v.toString()));
                     if (i < numberStyles.length && numberStyles[i] != null && !v.toString().isEmpty()) {
                         cell.setCellStyle(numberStyles[i]);
                     }
@@ -290,7 +305,7 @@ public final class WorkbookReport {
             r.getCell(0).setCellStyle(labelStyle);
             r.getCell(1).setCellStyle(textStyle);
             int lines = Math.max(linesOf(label, labelWidth), linesOf(text, textWidth));
-            r.setHeightInPoints(Math.max(1, lines) * 15f);
+            r.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, lines) * 15f));
             return r;
         }
 

@@ -7,6 +7,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.stream.Stream;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -49,5 +50,33 @@ class HardeningTest {
         assertTrue(csv.contains("'-2+3"), csv);
         assertTrue(csv.contains("\"'=HYPERLINK("), csv);
         assertTrue(!csv.contains(",=HYPERLINK") && !csv.contains(",-2+3"), csv);
+    }
+
+    /** A 40,000-character sample name once hung the report in the wrapping of a chart title (the timeout guards against a hang). */
+    @Test
+    void aVeryLongSampleNameIsShortenedInFiguresAndKeptInTables() throws IOException {
+        String name = "x".repeat(40_000);
+        Path f = dir.resolve("long.csv");
+        Files.writeString(f, "# sample: " + name + "\n# modulus: tensile\nfrequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n"
+                + "0.1,1000,100\n1,1200,150\n10,1500,300\n");
+        Path out = dir.resolve("report");
+        CliRun r = org.junit.jupiter.api.Assertions.assertTimeoutPreemptively(java.time.Duration.ofSeconds(120),
+                () -> CliRun.of("report", f.toString(), "--models", "zener", "--out", out.toString(), "--quiet"));
+        assertEquals(0, r.exitCode(), r.err());
+        try (Stream<Path> s = Files.list(out.resolve("figures"))) {
+            assertTrue(s.allMatch(p -> p.getFileName().toString().length() < 120), "short figure file names");
+        }
+        String page = Files.readString(out.resolve("report.html"));
+        assertTrue(page.contains(name), "the page's tables keep the whole name");
+        // 40,000 equal letters compress far beyond POI's guard against zip bombs when read back
+        double guard = org.apache.poi.openxml4j.util.ZipSecureFile.getMinInflateRatio();
+        org.apache.poi.openxml4j.util.ZipSecureFile.setMinInflateRatio(0.0005);
+        try (java.io.InputStream in = Files.newInputStream(out.resolve("report.xlsx"));
+             org.apache.poi.ss.usermodel.Workbook wb = org.apache.poi.ss.usermodel.WorkbookFactory.create(in)) {
+            String cell = wb.getSheet("Summary").getRow(1).getCell(0).getStringCellValue();
+            assertTrue(cell.length() <= 32_767 && cell.startsWith("xxxx") && cell.endsWith("more than a cell holds)"), cell.length() + "");
+        } finally {
+            org.apache.poi.openxml4j.util.ZipSecureFile.setMinInflateRatio(guard);
+        }
     }
 }
