@@ -29,6 +29,11 @@ public record RawSweeps(RawReader.Measurement measurement, Geometry geometry, Li
         RawConverter.Calibration cal = calibration;
         String named = m.metadata().get("calibration");
         if (cal == null && named != null) {
+            if (named.isBlank() || named.contains("/") || named.contains("\\") || named.equals(".") || named.equals("..")
+                    || Path.of(named).isAbsolute() || named.contains(":")) {
+                throw new InputException(m.file(), 1, 0, "'# calibration:' names a file beside this one, by its name alone "
+                        + "(no folders): write e.g. '# calibration: calibration-sapphire.csv', or pass --calibration FILE");
+            }
             Path p = m.file().toAbsolutePath().getParent().resolve(named);
             if (!java.nio.file.Files.isRegularFile(p)) {
                 throw new InputException(m.file(), 1, 0, "the calibration file '" + named + "' is missing; it is looked for beside this file");

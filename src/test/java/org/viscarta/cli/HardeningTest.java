@@ -79,4 +79,20 @@ class HardeningTest {
             org.apache.poi.openxml4j.util.ZipSecureFile.setMinInflateRatio(guard);
         }
     }
+
+    /** A raw file's '# calibration:' line once reached any file on the machine and echoed its first line. */
+    @Test
+    void aRawFilesCalibrationIsLookedForOnlyBesideIt() throws IOException {
+        Path inside = Files.createDirectories(dir.resolve("raw"));
+        Files.writeString(dir.resolve("secret.csv"), "TOP SECRET first line\n");
+        String raw = Files.readString(Path.of("demo-data", "raw-signals", "alkyd-unaged-raw.csv"));
+        for (String where : List.of("../secret.csv", dir.resolve("secret.csv").toAbsolutePath().toString(), "..")) {
+            Path f = inside.resolve("alkyd.csv");
+            Files.writeString(f, raw.replace("# calibration: calibration-sapphire.csv", "# calibration: " + where));
+            CliRun r = CliRun.of("fit", f.toString(), "--models", "springpot");
+            assertEquals(2, r.exitCode(), where + ": " + r.err());
+            assertTrue(r.err().contains("by its name alone"), r.err());
+            assertTrue(!r.err().contains("TOP SECRET"), r.err());
+        }
+    }
 }
