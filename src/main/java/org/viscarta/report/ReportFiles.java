@@ -1,44 +1,72 @@
 package org.viscarta.report;
 
 import java.io.IOException;
+import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.FileTime;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.List;
-import org.viscarta.io.AtomicOutput;
+import java.util.stream.Stream;
 import org.viscarta.io.InputException;
 
 /**
- * The report as files in one folder: report.xlsx, report.html and figures/ (PNG and SVG), each
- * written through a temporary file and a rename.
+ * The report as files in one folder: report.xlsx, report.html and figures/ (PNG and SVG). The set
+ * is written into a staging folder beside the output folder and moved into place only when whole,
+ * so that a run stopped at any moment leaves either the old set or the new one, never a mix; the
+ * old set is kept aside until the new one is in place, and put back if the move fails.
  *
  * @param folder the output folder (created when needed)
  */
 public record ReportFiles(Path folder) {
 
+    /** Staging and set-aside folders older than this are left over from a run that was stopped; they are removed. */
+    private static final Duration STALE = Duration.ofHours(1);
+
+    private static final String WORKBOOK = "report.xlsx";
+    private static final String PAGE = "report.html";
+    private static final String FIGURES = "figures";
+
     public Path workbook() {
-        return folder.resolve("report.xlsx");
+        return folder.resolve(WORKBOOK);
     }
 
     public Path page() {
-        return folder.resolve("report.html");
+        return folder.resolve(PAGE);
     }
 
     public Path figures() {
-        return folder.resolve("figures");
+        return folder.resolve(FIGURES);
     }
 
     /**
-     * Fails before any work when an output exists and replacing was not asked for.
+     * Fails before any work when the output cannot be written: an existing report without
+     * replacing asked for, an output that is a file rather than a folder, or a folder that cannot
+     * be written.
      *
-     * @throws InputException naming the output that exists
+     * @throws InputException naming the real path and the reason
      */
     public void checkWritable(boolean force) {
-        AtomicOutput.checkWritable(workbook(), force);
-        AtomicOutput.checkWritable(page(), force);
-        if (Files.isDirectory(figures()) && !force) {
-            throw new InputException(figures(), 0, 0,
-                    "the figures folder already exists; choose another --out or pass --force to replace its figures");
+        Path abs = folder.toAbsolutePath().normalize();
+        if (Files.exists(abs) && !Files.isDirectory(abs)) {
+            throw new InputException(abs, 0, 0, "--out names a file, not a folder; give a folder for the report");
+        }
+        Path existing = abs;
+        while (existing != null && !Files.exists(existing)) {
+            existing = existing.getParent();
+        }
+        if (existing == null || !Files.isDirectory(existing) || !Files.isWritable(existing)) {
+            throw new InputException(existing == null ? abs : existing, 0, 0, "the report cannot be written here (no write "
+                    + "permission); choose another --out");
+        }
+        if (!force && (Files.exists(workbook()) || Files.exists(page()) || Files.isDirectory(figures()))) {
+            throw new InputException(Files.exists(workbook()) ? workbook() : Files.exists(page()) ? page() : figures(), 0, 0,
+                    "the output already exists; choose another --out or pass --force to replace the report");
         }
     }
 
@@ -48,15 +76,91 @@ public record ReportFiles(Path folder) {
      * @return the figures written
      */
     public List<RenderedFigure> write(ReportContent content, boolean force) throws IOException {
+        Path target = folder.toAbsolutePath().normalize();
+        Path parent = target.getParent();
+        Files.createDirectories(parent);
+        String prefix = "." + target.getFileName() + ".";
+        removeStale(parent, prefix);
         List<RenderedFigure> figures = ReportFigures.render(ReportFigures.build(content.result()));
-        Files.createDirectories(figures());
-        for (RenderedFigure f : figures) {
-            AtomicOutput.write(figures().resolve(f.stem() + ".png"), true, o -> o.write(f.png()));
-            AtomicOutput.write(figures().resolve(f.stem() + ".svg"), true, o -> o.write(f.svg().getBytes(StandardCharsets.UTF_8)));
+        Path stage = Files.createTempDirectory(parent, prefix + "staging-");
+        try {
+            Path stagedFigures = Files.createDirectory(stage.resolve(FIGURES));
+            for (RenderedFigure f : figures) {
+                Files.write(stagedFigures.resolve(f.stem() + ".png"), f.png());
+                Files.writeString(stagedFigures.resolve(f.stem() + ".svg"), f.svg(), StandardCharsets.UTF_8);
+            }
+            try (OutputStream o = Files.newOutputStream(stage.resolve(WORKBOOK))) {
+                WorkbookReport.write(content, figures, o);
+            }
+            Files.writeString(stage.resolve(PAGE), HtmlReport.write(content, figures), StandardCharsets.UTF_8);
+            checkWritable(force);
+            moveIntoPlace(stage, target, parent, prefix);
+        } finally {
+            delete(stage);
         }
-        AtomicOutput.write(workbook(), force, o -> WorkbookReport.write(content, figures, o));
-        String html = HtmlReport.write(content, figures);
-        AtomicOutput.write(page(), force, o -> o.write(html.getBytes(StandardCharsets.UTF_8)));
         return figures;
+    }
+
+    /** Sets the old set aside, moves the new one in, then drops the old; on failure puts the old one back. */
+    private static void moveIntoPlace(Path stage, Path target, Path parent, String prefix) throws IOException {
+        Files.createDirectories(target);
+        Path aside = Files.createTempDirectory(parent, prefix + "replaced-");
+        List<String> setAside = new ArrayList<>();
+        List<String> movedIn = new ArrayList<>();
+        try {
+            for (String name : List.of(FIGURES, WORKBOOK, PAGE)) {
+                if (Files.exists(target.resolve(name))) {
+                    move(target.resolve(name), aside.resolve(name));
+                    setAside.add(name);
+                }
+            }
+            for (String name : List.of(FIGURES, WORKBOOK, PAGE)) {
+                move(stage.resolve(name), target.resolve(name));
+                movedIn.add(name);
+            }
+        } catch (IOException | RuntimeException e) {
+            for (String name : movedIn) {
+                delete(target.resolve(name));
+            }
+            for (String name : setAside) {
+                move(aside.resolve(name), target.resolve(name));
+            }
+            throw e;
+        } finally {
+            delete(aside);
+        }
+    }
+
+    private static void move(Path from, Path to) throws IOException {
+        try {
+            Files.move(from, to, StandardCopyOption.ATOMIC_MOVE);
+        } catch (java.nio.file.AtomicMoveNotSupportedException e) {
+            Files.move(from, to);
+        }
+    }
+
+    /** Removes staging and set-aside folders of this output that an earlier, stopped run left behind. */
+    private static void removeStale(Path parent, String prefix) throws IOException {
+        FileTime before = FileTime.from(Instant.now().minus(STALE));
+        try (Stream<Path> s = Files.list(parent)) {
+            for (Path p : s.filter(p -> p.getFileName().toString().startsWith(prefix)).filter(Files::isDirectory).toList()) {
+                String rest = p.getFileName().toString().substring(prefix.length());
+                if ((rest.startsWith("staging-") || rest.startsWith("replaced-"))
+                        && Files.getLastModifiedTime(p).compareTo(before) < 0) {
+                    delete(p);
+                }
+            }
+        }
+    }
+
+    private static void delete(Path tree) throws IOException {
+        if (!Files.exists(tree)) {
+            return;
+        }
+        try (Stream<Path> s = Files.walk(tree)) {
+            for (Path p : s.sorted(Comparator.reverseOrder()).toList()) {
+                Files.deleteIfExists(p);
+            }
+        }
     }
 }

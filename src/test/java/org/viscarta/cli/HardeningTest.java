@@ -95,4 +95,32 @@ class HardeningTest {
             assertTrue(!r.err().contains("TOP SECRET"), r.err());
         }
     }
+
+    /** A report set is staged beside its folder and moved in whole; what a stopped run left behind is cleaned. */
+    @Test
+    void aReportIsMovedInWholeAndLeavesNothingBehind() throws IOException {
+        Path in = Path.of("demo-data", "paint-light-ageing.csv");
+        Path file = dir.resolve("not-a-folder");
+        Files.writeString(file, "mine");
+        CliRun onFile = CliRun.of("report", in.toString(), "--models", "springpot", "--out", file.toString(), "--force", "--quiet");
+        assertEquals(2, onFile.exitCode(), onFile.err());
+        assertTrue(onFile.err().contains(file.toAbsolutePath().toString()) && onFile.err().contains("not a folder"), onFile.err());
+        assertEquals("mine", Files.readString(file), "the user's file is untouched");
+
+        Path out = dir.resolve("set");
+        Path stale = Files.createDirectory(dir.resolve(".set.staging-123"));
+        Files.writeString(stale.resolve("report.xlsx"), "half");
+        Files.setLastModifiedTime(stale, java.nio.file.attribute.FileTime.from(java.time.Instant.now().minusSeconds(7200)));
+        for (int run = 0; run < 2; run++) {
+            CliRun r = CliRun.of("report", in.toString(), "--models", "springpot", "--out", out.toString(), "--force", "--quiet");
+            assertEquals(0, r.exitCode(), r.err());
+        }
+        try (Stream<Path> s = Files.list(dir)) {
+            assertEquals(List.of("not-a-folder", "set"), s.map(p -> p.getFileName().toString()).sorted().toList(),
+                    "no staging, set-aside or temporary files beside the report");
+        }
+        try (Stream<Path> s = Files.list(out)) {
+            assertEquals(List.of("figures", "report.html", "report.xlsx"), s.map(p -> p.getFileName().toString()).sorted().toList());
+        }
+    }
 }
