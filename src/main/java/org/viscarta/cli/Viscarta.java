@@ -58,7 +58,19 @@ public final class Viscarta implements Runnable {
             return CommandLine.ExitCode.USAGE;
         });
         cl.setExecutionExceptionHandler((ex, c, parseResult) -> exitCodeOf(ex, c.getErr(), debug));
-        return cl.execute(rest.toArray(new String[0]));
+        return guardMemory(() -> cl.execute(rest.toArray(new String[0])), err);
+    }
+
+    /** Runs a command; running out of memory ends it with one line that says what to do, exit 1. */
+    static int guardMemory(java.util.function.IntSupplier command, PrintWriter err) {
+        try {
+            return command.getAsInt();
+        } catch (OutOfMemoryError e) {
+            err.println("viscarta: out of memory (Java heap of " + (Runtime.getRuntime().maxMemory() >> 20) + " MB): give Java more "
+                    + "with -Xmx, e.g. 'java -Xmx8g -jar viscarta.jar ...', or analyse the inputs in smaller parts");
+            err.flush();
+            return CommandLine.ExitCode.SOFTWARE;
+        }
     }
 
     /**

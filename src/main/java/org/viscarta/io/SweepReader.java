@@ -62,6 +62,16 @@ public final class SweepReader {
 
     /** Reads one file. */
     public SweepFile read(Path path) {
+        SweepFile f = readWhole(path);
+        if (f.warnings().size() <= MAX_WARNINGS) {
+            return f;
+        }
+        List<ReadWarning> kept = new ArrayList<>(f.warnings().subList(0, MAX_WARNINGS));
+        kept.add(new ReadWarning(path, 0, (f.warnings().size() - MAX_WARNINGS) + " more warnings like the above"));
+        return new SweepFile(f.path(), f.sha256(), f.info(), f.sweeps(), kept);
+    }
+
+    private SweepFile readWhole(Path path) {
         byte[] bytes;
         try {
             bytes = Files.readAllBytes(path);
@@ -428,7 +438,7 @@ public final class SweepReader {
     public record Summary(Path path, TableInfo info, List<SweepSummary> sweeps, List<ReadWarning> warnings) {
     }
 
-    /** Warnings kept per summarised file; the rest are counted. */
+    /** Warnings kept per file; the rest are counted. */
     private static final int MAX_WARNINGS = 50;
 
     /**

@@ -123,4 +123,31 @@ class HardeningTest {
             assertEquals(List.of("figures", "report.html", "report.xlsx"), s.map(p -> p.getFileName().toString()).sorted().toList());
         }
     }
+
+    /** Warnings are capped per file with a count of the rest (a bad workbook once printed 599,004 lines). */
+    @Test
+    void warningsOfOneFileAreCappedWithACountOfTheRest() throws IOException {
+        StringBuilder sb = new StringBuilder("# modulus: tensile\nfrequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n");
+        for (int i = 1; i <= 200; i++) {
+            sb.append(i * 0.01).append(",1000,-1\n");
+        }
+        Path f = dir.resolve("no-loss.csv");
+        Files.writeString(f, sb.toString());
+        CliRun r = CliRun.of("rank", f.toString());
+        long lines = r.err().lines().filter(l -> l.startsWith("warning:")).count();
+        assertTrue(lines <= 51, lines + " warning lines");
+        assertTrue(r.err().contains("150 more warnings like the above"), r.err());
+    }
+
+    /** Running out of memory ends with one line that says what to do, exit 1. */
+    @Test
+    void outOfMemorySaysWhatToDo() {
+        java.io.StringWriter err = new java.io.StringWriter();
+        int code = Viscarta.guardMemory(() -> {
+            throw new OutOfMemoryError("Java heap space");
+        }, new java.io.PrintWriter(err, true));
+        assertEquals(1, code);
+        assertEquals(1, err.toString().strip().lines().count(), err.toString());
+        assertTrue(err.toString().contains("-Xmx") && err.toString().contains("smaller parts"), err.toString());
+    }
 }
