@@ -80,7 +80,7 @@ public final class Viscarta implements Runnable {
      */
     static int exitCodeOf(Exception ex, PrintWriter e, boolean debug) {
         if (ex instanceof InputException || ex instanceof UsageException) {
-            e.println(ex instanceof InputException ? ex.getMessage() : "viscarta: " + ex.getMessage());
+            e.println(ex instanceof InputException ? ex.getMessage() : "viscarta: " + InputException.oneLine(ex.getMessage()));
             e.flush();
             return CommandLine.ExitCode.USAGE;
         }

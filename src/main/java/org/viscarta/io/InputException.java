@@ -48,6 +48,25 @@ public final class InputException extends RuntimeException {
         return problem;
     }
 
+    /** The text with line breaks and other control characters shown as escapes, so that the message stays one line. */
+    public static String oneLine(String text) {
+        StringBuilder sb = new StringBuilder(text.length());
+        for (char c : text.toCharArray()) {
+            if (c == '\n') {
+                sb.append(' ');
+            } else if (c == '\r') {
+                sb.append("\\r");
+            } else if (c == '\t') {
+                sb.append("\\t");
+            } else if (Character.isISOControl(c)) {
+                sb.append(String.format(Locale.ROOT, "\\u%04x", (int) c));
+            } else {
+                sb.append(c);
+            }
+        }
+        return sb.toString();
+    }
+
     static String format(Path file, int line, int column, String problem) {
         StringBuilder sb = new StringBuilder(String.valueOf(file));
         if (line > 0) {
@@ -56,7 +75,7 @@ public final class InputException extends RuntimeException {
                 sb.append(':').append(column);
             }
         }
-        return sb.append(": ").append(problem.replace('\n', ' ')).toString();
+        return sb.append(": ").append(oneLine(problem)).toString();
     }
 
     @Override

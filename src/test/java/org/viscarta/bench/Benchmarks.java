@@ -56,6 +56,15 @@ public final class Benchmarks {
             raw(out);
             return;
         }
+        if (args.length >= 2 && args[1].equals("fuzz-only")) {
+            Path work = Files.createTempDirectory("viscarta-fuzz");
+            long t0 = System.nanoTime();
+            var o = org.viscarta.cli.Fuzz.run(20261203L, Integer.parseInt(args[0]), java.time.Duration.ofHours(2), work);
+            System.out.printf(Locale.ROOT, "fuzz: %d inputs in %.0f s: %d read, %d refused cleanly with file:line, %d other outcomes%s%n",
+                    o.trials(), (System.nanoTime() - t0) / 1e9, o.read(), o.refused(), o.failures().size(),
+                    o.failures().isEmpty() ? "" : ": " + o.failures());
+            return;
+        }
         if (args.length >= 2 && args[1].equals("letters-only")) {
             letters(Integer.parseInt(args[0]));
             return;
