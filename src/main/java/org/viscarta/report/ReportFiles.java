@@ -2,13 +2,13 @@ package org.viscarta.report;
 
 import java.io.IOException;
 import java.io.OutputStream;
+import java.nio.channels.FileChannel;
+import java.nio.channels.FileLock;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
-import java.nio.file.attribute.FileTime;
-import java.time.Duration;
-import java.time.Instant;
+import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -25,8 +25,8 @@ import org.viscarta.io.InputException;
  */
 public record ReportFiles(Path folder) {
 
-    /** Staging and set-aside folders older than this are left over from a run that was stopped; they are removed. */
-    private static final Duration STALE = Duration.ofHours(1);
+    /** Held by a running report in its staging and set-aside folders; a folder whose lock can be taken was left by a stopped run. */
+    private static final String LOCK = ".lock";
 
     private static final String WORKBOOK = "report.xlsx";
     private static final String PAGE = "report.html";
@@ -80,10 +80,11 @@ public record ReportFiles(Path folder) {
         Path parent = target.getParent();
         Files.createDirectories(parent);
         String prefix = "." + target.getFileName() + ".";
-        removeStale(parent, prefix);
+        recoverStopped(parent, prefix, target);
         List<RenderedFigure> figures = ReportFigures.render(ReportFigures.build(content.result()));
         Path stage = Files.createTempDirectory(parent, prefix + "staging-");
-        try {
+        try (FileChannel ch = FileChannel.open(stage.resolve(LOCK), StandardOpenOption.CREATE, StandardOpenOption.WRITE);
+             FileLock held = ch.lock()) {
             Path stagedFigures = Files.createDirectory(stage.resolve(FIGURES));
             for (RenderedFigure f : figures) {
                 Files.write(stagedFigures.resolve(f.stem() + ".png"), f.png());
@@ -107,7 +108,8 @@ public record ReportFiles(Path folder) {
         Path aside = Files.createTempDirectory(parent, prefix + "replaced-");
         List<String> setAside = new ArrayList<>();
         List<String> movedIn = new ArrayList<>();
-        try {
+        try (FileChannel ch = FileChannel.open(aside.resolve(LOCK), StandardOpenOption.CREATE, StandardOpenOption.WRITE);
+             FileLock held = ch.lock()) {
             for (String name : List.of(FIGURES, WORKBOOK, PAGE)) {
                 if (Files.exists(target.resolve(name))) {
                     move(target.resolve(name), aside.resolve(name));
@@ -139,17 +141,50 @@ public record ReportFiles(Path folder) {
         }
     }
 
-    /** Removes staging and set-aside folders of this output that an earlier, stopped run left behind. */
-    private static void removeStale(Path parent, String prefix) throws IOException {
-        FileTime before = FileTime.from(Instant.now().minus(STALE));
+    /**
+     * Clears what an earlier run that was stopped left behind: its staging folder is removed; if it
+     * was stopped while moving the new set in, the old set it had put aside is restored whole (the
+     * new pieces already moved in are removed), so the folder never holds a mix of two runs.
+     * A folder whose lock is still held belongs to a run in progress and is left alone.
+     */
+    private static void recoverStopped(Path parent, String prefix, Path target) throws IOException {
+        List<Path> stopped = new ArrayList<>();
         try (Stream<Path> s = Files.list(parent)) {
             for (Path p : s.filter(p -> p.getFileName().toString().startsWith(prefix)).filter(Files::isDirectory).toList()) {
                 String rest = p.getFileName().toString().substring(prefix.length());
-                if ((rest.startsWith("staging-") || rest.startsWith("replaced-"))
-                        && Files.getLastModifiedTime(p).compareTo(before) < 0) {
-                    delete(p);
+                if ((rest.startsWith("staging-") || rest.startsWith("replaced-")) && abandoned(p)) {
+                    stopped.add(p);
                 }
             }
+        }
+        for (Path p : stopped) {
+            if (p.getFileName().toString().substring(prefix.length()).startsWith("replaced-")) {
+                boolean whole = Stream.of(FIGURES, WORKBOOK, PAGE).allMatch(n -> Files.exists(target.resolve(n)));
+                if (!whole) {
+                    for (String name : List.of(FIGURES, WORKBOOK, PAGE)) {
+                        if (Files.exists(p.resolve(name))) {
+                            delete(target.resolve(name));
+                            move(p.resolve(name), target.resolve(name));
+                        } else {
+                            delete(target.resolve(name));
+                        }
+                    }
+                }
+            }
+            delete(p);
+        }
+    }
+
+    /** True when nobody holds the folder's lock (its run was stopped), or it has none. */
+    private static boolean abandoned(Path folder) throws IOException {
+        Path lock = folder.resolve(LOCK);
+        if (!Files.exists(lock)) {
+            return true;
+        }
+        try (FileChannel ch = FileChannel.open(lock, StandardOpenOption.WRITE); FileLock l = ch.tryLock()) {
+            return l != null;
+        } catch (java.nio.channels.OverlappingFileLockException e) {
+            return false;
         }
     }
 
