@@ -90,8 +90,13 @@ public record ReportFiles(Path folder) {
                 Files.write(stagedFigures.resolve(f.stem() + ".png"), f.png());
                 Files.writeString(stagedFigures.resolve(f.stem() + ".svg"), f.svg(), StandardCharsets.UTF_8);
             }
+            // POI's own temporary files (streamed sheets) go into the staging folder too, so that a stopped run's are cleared with it
+            org.apache.poi.util.TempFile.setTempFileCreationStrategy(
+                    new org.apache.poi.util.DefaultTempFileCreationStrategy(Files.createDirectory(stage.resolve("poi")).toFile()));
             try (OutputStream o = Files.newOutputStream(stage.resolve(WORKBOOK))) {
                 WorkbookReport.write(content, figures, o);
+            } finally {
+                org.apache.poi.util.TempFile.setTempFileCreationStrategy(new org.apache.poi.util.DefaultTempFileCreationStrategy());
             }
             Files.writeString(stage.resolve(PAGE), HtmlReport.write(content, figures), StandardCharsets.UTF_8);
             checkWritable(force);
