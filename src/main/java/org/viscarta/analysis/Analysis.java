@@ -63,13 +63,14 @@ public final class Analysis {
             inputs = inputs.withSamples(masters);
         }
         List<SampleAnalysis> samples = fitAll(inputs.samples(), request, progress);
-        Optional<DampingRanking.Result<Sample>> ranking = Optional.empty();
+        Optional<Ranking> ranking = Optional.empty();
         if (request.parts().contains(AnalysisRequest.Part.RANKING)) {
             progress.stage(Progress.Stage.RANKING, 0);
             Map<Sample, Optional<FittedCurve>> curveOf = new IdentityHashMap<>();
             samples.forEach(sa -> curveOf.put(sa.sample(), sa.curve()));
-            ranking = Optional.of(DampingRanking.rank(inputs.samples(), s -> s.rankingSubject(curveOf.get(s)),
-                    request.rankingPoint(), request.outsideRange(), request.alpha()));
+            ranking = Optional.of(Ranking.of(inputs.samples(), seriesMembers(inputs.samples()),
+                    s -> s.rankingSubject(curveOf.get(s)), request.rankingPoint(), request.outsideRange(), request.alpha(),
+                    request.sets().temperatureToleranceC(), request.sets().withinGroups()));
         }
         ReferenceDistance distance = request.matching().distance();
         List<Matcher.Candidate> references = List.of();
@@ -88,6 +89,27 @@ public final class Analysis {
         Optional<AnalysisResult.Mimic> mimic = mimic(request, samples, distance);
         progress.stage(Progress.Stage.DONE, 0);
         return new AnalysisResult(request, inputs, series, samples, ranking, library, references, mimic);
+    }
+
+    /**
+     * The samples that are one temperature of a temperature series: a sample name measured at
+     * {@link TemperatureSeries#MIN_TEMPERATURES} or more temperatures.
+     */
+    private static java.util.Set<Sample> seriesMembers(List<Sample> samples) {
+        Map<String, java.util.Set<Double>> temperatures = new java.util.HashMap<>();
+        for (Sample s : samples) {
+            for (Sweep sw : s.replicates()) {
+                temperatures.computeIfAbsent(sw.sample(), k -> new java.util.HashSet<>()).add(sw.temperatureC());
+            }
+        }
+        java.util.Set<Sample> out = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
+        for (Sample s : samples) {
+            String base = s.replicates().get(0).sample();
+            if (temperatures.get(base).stream().filter(Double::isFinite).count() >= TemperatureSeries.MIN_TEMPERATURES) {
+                out.add(s);
+            }
+        }
+        return out;
     }
 
     /** Every candidate model fitted to every sample (replicates pooled), samples in parallel; empty fits when not needed. */

@@ -27,6 +27,7 @@ import org.viscarta.sweep.ModulusKind;
  * @param rankingPoint where samples are ranked by damping
  * @param outsideRange what the ranking does outside a sample's measured range
  * @param alpha        significance level of the pairwise and group tests, in (0, 1)
+ * @param sets         how samples are put into comparable sets for the ranking
  * @param library      the reference library's folder, when there is one
  * @param matching     how samples are compared with references and candidates
  * @param target       the material to mimic, when there is one
@@ -35,7 +36,7 @@ import org.viscarta.sweep.ModulusKind;
  * @param parts        what to compute beyond reading
  */
 public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<String> modelIds, Weighting weighting,
-                              RankingPoint rankingPoint, DampingRanking.OutsideRange outsideRange, double alpha,
+                              RankingPoint rankingPoint, DampingRanking.OutsideRange outsideRange, double alpha, ComparableSets sets,
                               Optional<Path> library, MatchSettings matching, Target target, Optional<MasterCurves> masterCurves,
                               List<Double> timeGrid, Set<Part> parts) {
 
@@ -60,6 +61,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         }
         parts = Set.copyOf(parts);
         Objects.requireNonNull(reading, "reading");
+        Objects.requireNonNull(sets, "sets");
         Objects.requireNonNull(weighting, "weighting");
         Objects.requireNonNull(rankingPoint, "rankingPoint");
         Objects.requireNonNull(outsideRange, "outsideRange");
@@ -107,6 +109,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         private RankingPoint rankingPoint = RankingPoint.DEFAULT;
         private DampingRanking.OutsideRange outsideRange = DampingRanking.OutsideRange.NOT_REPORTED;
         private double alpha = 0.05;
+        private ComparableSets sets = ComparableSets.defaults();
         private Optional<Path> library = Optional.empty();
         private MatchSettings matching = MatchSettings.defaults();
         private Target target = Target.NONE;
@@ -172,6 +175,11 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
             return this;
         }
 
+        public Builder sets(ComparableSets s) {
+            this.sets = s;
+            return this;
+        }
+
         public Builder library(Path folder) {
             this.library = Optional.of(folder);
             return this;
@@ -207,7 +215,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
 
         public AnalysisRequest build() {
             return new AnalysisRequest(inputs, new ReadSettings(declaredKind, basis, poisson, columns, badFiles), modelIds, weighting,
-                    rankingPoint, outsideRange, alpha, library, matching, target, masterCurves, timeGrid, parts);
+                    rankingPoint, outsideRange, alpha, sets, library, matching, target, masterCurves, timeGrid, parts);
         }
     }
 }

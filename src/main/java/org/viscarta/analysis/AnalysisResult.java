@@ -4,7 +4,6 @@ import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import org.viscarta.compare.DampingComparison;
 import org.viscarta.compare.DampingRanking;
 import org.viscarta.compare.Matcher;
 import org.viscarta.library.ReferenceLibrary;
@@ -33,14 +32,15 @@ public final class AnalysisResult {
     private final Inputs inputs;
     private final List<TemperatureSeries> series;
     private final List<SampleAnalysis> samples;
-    private final Optional<DampingRanking.Result<Sample>> ranking;
+    private final Optional<Ranking> ranking;
     private final Optional<ReferenceLibrary> library;
     private final List<Matcher.Candidate> references;
     private final Optional<Mimic> mimic;
     private final Map<Sample, DampingRanking.Row<Sample>> rankOf = new IdentityHashMap<>();
+    private final Map<Sample, String> setOf;
 
     AnalysisResult(AnalysisRequest request, Inputs inputs, List<TemperatureSeries> series, List<SampleAnalysis> samples,
-                   Optional<DampingRanking.Result<Sample>> ranking, Optional<ReferenceLibrary> library,
+                   Optional<Ranking> ranking, Optional<ReferenceLibrary> library,
                    List<Matcher.Candidate> references, Optional<Mimic> mimic) {
         this.request = request;
         this.inputs = inputs;
@@ -51,6 +51,7 @@ public final class AnalysisResult {
         this.references = List.copyOf(references);
         this.mimic = mimic;
         ranking.ifPresent(r -> r.rows().forEach(row -> rankOf.put(row.subject(), row)));
+        this.setOf = ranking.map(Ranking::setLabels).orElse(Map.of());
     }
 
     /** What was asked. */
@@ -73,19 +74,19 @@ public final class AnalysisResult {
         return samples;
     }
 
-    /** The damping ranking, when it was asked for. */
-    public Optional<DampingRanking.Result<Sample>> ranking() {
+    /** The damping ranking within comparable sets, when it was asked for. */
+    public Optional<Ranking> ranking() {
         return ranking;
     }
 
-    /** The ranking's rows (empty when not asked for). */
+    /** The ranking's rows, set after set, then those not ranked (empty when not asked for). */
     public List<DampingRanking.Row<Sample>> rankingRows() {
-        return ranking.map(DampingRanking.Result::rows).orElse(List.of());
+        return ranking.map(Ranking::rows).orElse(List.of());
     }
 
-    /** The pairwise and group tests behind the ranking's letters, when ranked. */
-    public Optional<DampingComparison.Result> comparison() {
-        return ranking.map(DampingRanking.Result::comparison);
+    /** The comparable set a sample was ranked in ("" when it was not ranked). */
+    public String setOf(Sample s) {
+        return setOf.getOrDefault(s, "");
     }
 
     /** The sample's row in the ranking, when ranked. */

@@ -68,6 +68,7 @@ public final class Statements {
         m.put("models", String.join(", ", r.modelIds()));
         m.put("damping ranked at", r.rankingPoint().describe());
         m.put("significance level of pairwise and group tests", Numbers.plain(r.alpha()));
+        m.put("comparable sets", r.sets().describe());
         m.put("weighting", r.weighting().label());
         m.put("residuals", r.weighting().describe());
         m.put("optimiser", new ModelFitter(r.weighting()).describe());

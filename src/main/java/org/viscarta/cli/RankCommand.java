@@ -7,6 +7,7 @@ import java.util.concurrent.Callable;
 import org.viscarta.analysis.Analysis;
 import org.viscarta.analysis.AnalysisRequest;
 import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.Ranking;
 import org.viscarta.analysis.Sample;
 import org.viscarta.compare.DampingComparison;
 import org.viscarta.compare.DampingRanking;
@@ -31,7 +32,7 @@ final class RankCommand implements Callable<Integer> {
 
     /** The published columns of {@code rank -o} (README); the tests hold the declared table to them. */
     static final List<String> CSV_HEADER = List.of("rank", "sample", "group", "n_replicates", "frequency_hz", "tan_delta",
-            "ci95_low", "ci95_high", "storage_modulus_pa", "loss_modulus_pa", "letters");
+            "ci95_low", "ci95_high", "storage_modulus_pa", "loss_modulus_pa", "letters", "set", "temperature_c");
 
     @Mixin InputOptions input;
     @Mixin ModelOptions models;
@@ -46,16 +47,22 @@ final class RankCommand implements Callable<Integer> {
         output.check();
         AnalysisResult result = Analysis.run(request, new Progress(spec.commandLine().getErr(), output.quiet));
         Warnings.print(spec, result.inputs());
-        Table<DampingRanking.Row<Sample>> table = OutputTables.ranking(request);
+        Table<DampingRanking.Row<Sample>> table = OutputTables.ranking(result);
         List<DampingRanking.Row<Sample>> rows = result.rankingRows();
         PrintWriter out = spec.commandLine().getOut();
-        out.printf("Damping ranking at %s (highest tan δ first)%n", request.rankingPoint().describe());
+        Ranking ranking = result.ranking().orElseThrow();
+        out.printf("Damping ranking at %s (highest tan δ first), within %d comparable set(s)%n", request.rankingPoint().describe(),
+                ranking.sets().size());
         TerminalTable.print(table, rows, out);
-        DampingComparison.Result cmp = result.comparison().orElseThrow();
-        cmp.statements().forEach(out::println);
-        for (DampingComparison.GroupSummary g : cmp.groups()) {
-            out.printf("  group %s: %d sample(s), %d values, mean tan δ %s [%s, %s]%n", g.group(), g.samples(), g.values().n(),
-                    Format.g4(g.values().mean()), Format.g4(g.values().ci95Low()), Format.g4(g.values().ci95High()));
+        for (Ranking.RankedSet set : ranking.sets()) {
+            out.println();
+            out.println(set.label() + ":");
+            DampingComparison.Result cmp = set.result().comparison();
+            cmp.statements().forEach(out::println);
+            for (DampingComparison.GroupSummary g : cmp.groups()) {
+                out.printf("  group %s: %d sample(s), %d values, mean tan δ %s [%s, %s]%n", g.group(), g.samples(), g.values().n(),
+                        Format.g4(g.values().mean()), Format.g4(g.values().ci95Low()), Format.g4(g.values().ci95High()));
+            }
         }
         out.flush();
         if (output.out != null) {

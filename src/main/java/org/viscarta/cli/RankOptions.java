@@ -1,6 +1,7 @@
 package org.viscarta.cli;
 
 import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.ComparableSets;
 import org.viscarta.compare.DampingRanking;
 import org.viscarta.compare.RankingPoint;
 import picocli.CommandLine;
@@ -27,8 +28,16 @@ final class RankOptions {
                     + "not with --band).")
     boolean modelOutsideRange;
 
+    @Option(names = "--temperature-tolerance", paramLabel = "°C", defaultValue = "2",
+            description = "Samples are ranked only against samples measured within this many degrees of them, on the same "
+                    + "basis (default: ${DEFAULT-VALUE}).")
+    double temperatureTolerance;
+
+    @Option(names = "--within-groups", description = "Rank only within each group (the group column or '# group:' line).")
+    boolean withinGroups;
+
     AnalysisRequest.Builder applyTo(AnalysisRequest.Builder b, CommandLine cl) {
-        b.alpha(alpha).outsideRange(modelOutsideRange ? DampingRanking.OutsideRange.BEST_MODEL : DampingRanking.OutsideRange.NOT_REPORTED)
+        b.sets(new ComparableSets(temperatureTolerance, withinGroups)).alpha(alpha).outsideRange(modelOutsideRange ? DampingRanking.OutsideRange.BEST_MODEL : DampingRanking.OutsideRange.NOT_REPORTED)
                 .compute(AnalysisRequest.Part.RANKING);
         if (band == null) {
             return b.rankingPoint(new RankingPoint.At(atHz));

@@ -54,6 +54,9 @@ public final class DampingComparison {
     private DampingComparison() {
     }
 
+    /** The letter of a sample that cannot be tested (a single replicate). */
+    public static final String NOT_TESTED = "–";
+
     /**
      * @param names  samples in display order (highest mean tan δ first)
      * @param groups each sample's group label ("" when none)
@@ -90,8 +93,19 @@ public final class DampingComparison {
             significant[j][i] = sig;
             pairs.add(new Pair(names.get(i), names.get(j), tests.get(k), adjusted[k], sig));
         }
-        LetterDisplay.Display display = LetterDisplay.display(n, significant);
-        List<String> letters = display.readable() ? display.letters() : java.util.Collections.nCopies(n, "");
+        // letters among the samples that can be tested (two or more replicates); the others show "–"
+        int[] tested = java.util.stream.IntStream.range(0, n).filter(i -> values.get(i).length >= 2).toArray();
+        boolean[][] sub = new boolean[tested.length][tested.length];
+        for (int a = 0; a < tested.length; a++) {
+            for (int b = 0; b < tested.length; b++) {
+                sub[a][b] = significant[tested[a]][tested[b]];
+            }
+        }
+        LetterDisplay.Display display = LetterDisplay.display(tested.length, sub);
+        List<String> letters = new ArrayList<>(java.util.Collections.nCopies(n, NOT_TESTED));
+        for (int a = 0; a < tested.length; a++) {
+            letters.set(tested[a], display.readable() ? display.letters().get(a) : "");
+        }
         List<String> statements = new ArrayList<>();
         long untestable = values.stream().filter(v -> v.length < 2).count();
         long supported = pairs.stream().filter(Pair::significant).count();
@@ -99,7 +113,8 @@ public final class DampingComparison {
                 + "(Welch t-tests between replicates, Holm-adjusted over %d pairs); %d of the %d differences are supported.",
                 Numbers.plain(alpha), pairs.size(), supported, pairs.size()));
         if (untestable > 0) {
-            statements.add(untestable + " sample(s) with a single replicate cannot be tested and share letters with all others.");
+            statements.add(untestable + " sample(s) with a single replicate cannot be tested (a difference needs the scatter "
+                    + "of replicates): their letter shows '" + NOT_TESTED + "'.");
         }
         if (!display.readable()) {
             statements.add("Letters are not shown: the overlapping differences would need more than "

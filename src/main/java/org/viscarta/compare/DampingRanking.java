@@ -92,6 +92,12 @@ public final class DampingRanking {
             return tanDelta == null ? replicateCount : tanDelta.n();
         }
 
+        /** The same row listed but not ranked, with a note saying why. */
+        public Row<S> unranked(String why) {
+            return new Row<>(0, subject, name, group, replicateCount, tanDelta, storage, loss, source,
+                    note.isEmpty() ? why : why + "; " + note, values, "");
+        }
+
         Row<S> withRankAndLetters(int newRank, String newLetters) {
             return new Row<>(newRank, subject, name, group, replicateCount, tanDelta, storage, loss, source, note, values, newLetters);
         }

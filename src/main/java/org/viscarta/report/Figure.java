@@ -16,24 +16,30 @@ import org.jfree.svg.SVGGraphics2D;
  * @param stem    file name without extension, e.g. {@code tan-delta}
  * @param caption what the figure shows, in a sentence
  * @param chart   the chart
+ * @param heightPt its height on the page [points]; the width is always {@value #WIDTH_PT}
  */
-public record Figure(String stem, String caption, JFreeChart chart) {
+public record Figure(String stem, String caption, JFreeChart chart, int heightPt) {
 
-    /** Size on the page: 6.5 × 4.2 inches. */
+    /** Size on the page: 6.5 × 4.2 inches, unless a figure needs to be taller. */
     static final int WIDTH_PT = 468;
     static final int HEIGHT_PT = 302;
+
+    /** A figure of the usual size. */
+    public Figure(String stem, String caption, JFreeChart chart) {
+        this(stem, caption, chart, HEIGHT_PT);
+    }
     private static final double DPI = 300;
 
     /** PNG at 300 dots per inch. */
     public byte[] png() throws IOException {
         double scale = DPI / 72.0;
         int w = (int) Math.round(WIDTH_PT * scale);
-        int h = (int) Math.round(HEIGHT_PT * scale);
+        int h = (int) Math.round(heightPt * scale);
         BufferedImage img = new BufferedImage(w, h, BufferedImage.TYPE_INT_RGB);
         Graphics2D g = img.createGraphics();
         try {
             g.scale(scale, scale);
-            chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, HEIGHT_PT));
+            chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
         } finally {
             g.dispose();
         }
@@ -44,9 +50,9 @@ public record Figure(String stem, String caption, JFreeChart chart) {
 
     /** SVG, with definition keys fixed so that two runs write the same text. */
     public String svg() {
-        SVGGraphics2D g = new SVGGraphics2D(WIDTH_PT, HEIGHT_PT);
+        SVGGraphics2D g = new SVGGraphics2D(WIDTH_PT, heightPt);
         g.setDefsKeyPrefix(stem.replaceAll("[^A-Za-z0-9]", "_") + "_");
-        chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, HEIGHT_PT));
+        chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
         return g.getSVGElement();
     }
 }

@@ -282,22 +282,33 @@ public final class Figures {
                 + "replicates); higher means more damping.", chart("Loss tangent of every sample", plot, samples.size() <= 24));
     }
 
-    /** The damping ranking: mean tan δ with its 95 % interval per sample, labelled with the letter group. */
-    public static Figure ranking(List<DampingRanking.Row<Sample>> rows, String at) {
-        List<DampingRanking.Row<Sample>> ranked = rows.stream().filter(r -> r.tanDelta() != null).toList();
+    /**
+     * The damping ranking: mean tan δ with its 95 % interval per ranked sample, labelled with the
+     * letter group, one colour and marker per comparable set (letters count within a set only).
+     * The figure grows with the number of samples so that every one is named.
+     */
+    public static Figure ranking(org.viscarta.analysis.Ranking ranking, String at) {
+        List<DampingRanking.Row<Sample>> ranked = new ArrayList<>();
+        ranking.sets().forEach(set -> set.result().rows().stream().filter(r -> r.rank() > 0).forEach(ranked::add));
         XYIntervalSeriesCollection data = new XYIntervalSeriesCollection();
-        XYIntervalSeries series = new XYIntervalSeries("mean tan δ with 95 % interval");
         String[] labels = new String[ranked.size()];
-        for (int i = 0; i < ranked.size(); i++) {
-            DampingRanking.Row<Sample> r = ranked.get(i);
-            ReplicateSummary t = r.tanDelta();
-            double y = ranked.size() - 1 - i;
-            double lo = Double.isNaN(t.ci95Low()) ? t.mean() : t.ci95Low();
-            double hi = Double.isNaN(t.ci95High()) ? t.mean() : t.ci95High();
-            series.add(t.mean(), lo, hi, y, y, y);
-            labels[ranked.size() - 1 - i] = shortName(r.name()) + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
+        int i = 0;
+        for (org.viscarta.analysis.Ranking.RankedSet set : ranking.sets()) {
+            XYIntervalSeries series = new XYIntervalSeries(set.label());
+            for (DampingRanking.Row<Sample> r : set.result().rows()) {
+                if (r.rank() == 0) {
+                    continue;
+                }
+                ReplicateSummary t = r.tanDelta();
+                double y = ranked.size() - 1 - i;
+                double lo = Double.isNaN(t.ci95Low()) ? t.mean() : t.ci95Low();
+                double hi = Double.isNaN(t.ci95High()) ? t.mean() : t.ci95High();
+                series.add(t.mean(), lo, hi, y, y, y);
+                labels[ranked.size() - 1 - i] = shortName(r.name()) + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
+                i++;
+            }
+            data.addSeries(series);
         }
-        data.addSeries(series);
         NumberAxis x = new NumberAxis("loss tangent tan δ at " + at + " [–]");
         x.setLabelFont(Palette.LABEL);
         x.setTickLabelFont(Palette.TICK);
@@ -308,14 +319,21 @@ public final class Figures {
         XYErrorRenderer r = new XYErrorRenderer();
         r.setDrawYError(false);
         r.setDefaultLinesVisible(false);
-        r.setSeriesPaint(0, Palette.colour(0));
-        r.setSeriesShape(0, Palette.shape(0));
-        r.setErrorPaint(Palette.colour(0));
+        for (int k = 0; k < data.getSeriesCount(); k++) {
+            r.setSeriesPaint(k, Palette.colour(k));
+            r.setSeriesShape(k, Palette.shape(k));
+        }
         XYPlot plot = new XYPlot(data, x, y, r);
-        JFreeChart c = chart("Damping ranking (samples sharing a letter are not distinguishable)", plot, false);
-        return new Figure("damping-ranking", "Mean tan δ at " + at + " of each sample with its 95 % interval over replicates, "
-                + "highest damping at the top; the letters in brackets are the letter groups.", c);
+        JFreeChart c = chart("Damping ranking (within a set, samples sharing a letter are not distinguishable)", plot,
+                data.getSeriesCount() > 1);
+        int height = Math.max(Figure.HEIGHT_PT, 90 + ROW_PT * ranked.size());
+        return new Figure("damping-ranking", "Mean tan δ at " + at + " of each ranked sample with its 95 % interval over "
+                + "replicates, highest damping at the top of each comparable set; the letters in brackets are the letter "
+                + "groups, comparable within a set only.", c, height);
     }
+
+    /** Height given to each sample's row in the ranking figure [points]: room for its label. */
+    private static final int ROW_PT = 13;
 
     /** A sample's measured E′ and E″ against the fitted curves of its closest references. */
     public static Figure references(Sample s, List<Matcher.Match> matches, Map<String, FittedCurve> references,

@@ -53,10 +53,14 @@ public final class HtmlReport {
         h.append("</div>\n");
         table(h, OutputTables.summary(r), r.samples(), "");
         r.ranking().ifPresent(rk -> {
-            table(h, OutputTables.ranking(r.request()), rk.rows(), Statements.rankedBy(r.request())
-                    + ", highest damping first; mean over replicates with its 95 % interval.");
-            for (String statement : rk.comparison().statements()) {
-                h.append("<p>").append(esc(statement)).append("</p>\n");
+            table(h, OutputTables.ranking(r), rk.rows(), Statements.rankedBy(r.request())
+                    + ", highest damping first, within comparable sets (" + r.request().sets().describe()
+                    + "); mean over replicates with its 95 % interval.");
+            for (org.viscarta.analysis.Ranking.RankedSet set : rk.sets()) {
+                h.append("<h3>").append(esc(set.label())).append("</h3>\n");
+                for (String statement : set.result().comparison().statements()) {
+                    h.append("<p>").append(esc(statement)).append("</p>\n");
+                }
             }
         });
         matches(h, r);

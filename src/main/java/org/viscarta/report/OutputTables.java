@@ -63,8 +63,8 @@ public final class OutputTables {
     private static final java.util.Set<Medium> SHEET_CSV = java.util.EnumSet.of(Medium.SHEET, Medium.CSV);
 
     /** The damping ranking ({@code rank}'s terminal and CSV, sheet Damping ranking, the page). */
-    public static Table<DampingRanking.Row<Sample>> ranking(AnalysisRequest request) {
-        double at = request.rankingPoint().representativeHz();
+    public static Table<DampingRanking.Row<Sample>> ranking(AnalysisResult result) {
+        double at = result.request().rankingPoint().representativeHz();
         return Table.<DampingRanking.Row<Sample>>named("Damping ranking")
                 .column("rank", "rank", "", Style.INTEGER, 7, r -> r.rank() == 0 ? null : r.rank())
                 .column("sample", "sample", "", Style.TEXT, 28, DampingRanking.Row::name)
@@ -80,6 +80,8 @@ public final class OutputTables {
                 .column("loss_modulus_pa", "loss modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::loss)
                 .column("value_from", "value from", "", Style.TEXT, 30, r -> r.source().description(), SHEET)
                 .column("letters", "letter group", "", Style.TEXT, 10, DampingRanking.Row::letters)
+                .column("set", "comparable set", "", Style.TEXT, 22, r -> result.setOf(r.subject()))
+                .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 12, r -> r.subject().temperatureC(), SHEET_CSV)
                 .column("note", "note", "", Style.TEXT, 60, DampingRanking.Row::note, NOT_CSV)
                 .build();
     }
@@ -104,6 +106,7 @@ public final class OutputTables {
                         sa -> result.rankOf(sa.sample()).map(r -> ciHigh(r.tanDelta())).orElse(null), SHEET_CSV)
                 .column("letters", "damping letter group", "", Style.TEXT, 14,
                         sa -> result.rankOf(sa.sample()).map(DampingRanking.Row::letters).orElse(""))
+                .column("set", "comparable set", "", Style.TEXT, 22, sa -> result.setOf(sa.sample()), SHEET_CSV)
                 .column("best_model", "best-supported model", "", Style.TEXT, 22,
                         sa -> sa.best().map(FitResult::model).orElse("none converged"))
                 .column("akaike_weight", "Akaike weight of best", "–", Style.DECIMAL4, 14,

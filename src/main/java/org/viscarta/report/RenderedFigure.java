@@ -7,6 +7,7 @@ package org.viscarta.report;
  * @param caption what it shows
  * @param png     PNG bytes at 300 dpi
  * @param svg     SVG text
+ * @param aspect  height over width, so that the figure keeps its shape where it is placed
  */
-public record RenderedFigure(String stem, String caption, byte[] png, String svg) {
+public record RenderedFigure(String stem, String caption, byte[] png, String svg, double aspect) {
 }

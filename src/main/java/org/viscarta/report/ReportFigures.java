@@ -28,7 +28,7 @@ public final class ReportFigures {
     public static List<RenderedFigure> render(List<Figure> figures) throws java.io.IOException {
         List<RenderedFigure> out = new ArrayList<>();
         for (Figure f : figures) {
-            out.add(new RenderedFigure(f.stem(), f.caption(), f.png(), f.svg()));
+            out.add(new RenderedFigure(f.stem(), f.caption(), f.png(), f.svg(), f.heightPt() / (double) Figure.WIDTH_PT));
         }
         return out;
     }
@@ -36,9 +36,8 @@ public final class ReportFigures {
     /** The figures of a result: the ranking, tan δ of all samples, each temperature series, each sample's fit and references. */
     public static List<Figure> build(AnalysisResult r) {
         List<Figure> out = new ArrayList<>();
-        if (r.ranking().isPresent()) {
-            out.add(Figures.ranking(r.rankingRows(), r.request().rankingPoint().describe()));
-        }
+        r.ranking().filter(rk -> !rk.sets().isEmpty())
+                .ifPresent(rk -> out.add(Figures.ranking(rk, r.request().rankingPoint().describe())));
         out.add(Figures.tanDelta(r.samples().stream().map(SampleAnalysis::sample).toList()));
         for (TemperatureSeries ts : r.series()) {
             String slug = slug(ts.sample());

@@ -70,8 +70,8 @@ public final class WorkbookReport {
             Styles st = new Styles(wb);
             readMe(wb, st, r);
             table(wb, st, OutputTables.summary(r), r.samples(), "", List.of());
-            table(wb, st, OutputTables.ranking(r.request()), r.rankingRows(), "", List.of());
-            r.comparison().ifPresent(cmp -> groupComparison(wb, st, cmp));
+            table(wb, st, OutputTables.ranking(r), r.rankingRows(), "", List.of());
+            r.ranking().ifPresent(rk -> groupComparison(wb, st, rk));
             List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(MATCHES_SHOWN)).toList();
             table(wb, st, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());
             r.mimic().ifPresent(m -> table(wb, st, OutputTables.matches(true), m.matches(), "",
@@ -155,9 +155,10 @@ public final class WorkbookReport {
             a.setCol1(0);
             a.setRow1(row + 1);
             a.setCol2(FIGURE_COLUMNS);
-            a.setRow2(row + 1 + FIGURE_ROWS);
+            int rowsSpanned = (int) Math.round(FIGURE_ROWS * f.aspect() / (Figure.HEIGHT_PT / (double) Figure.WIDTH_PT));
+            a.setRow2(row + 1 + rowsSpanned);
             drawing.createPicture(a, picture);
-            row += FIGURE_ROWS + 3;
+            row += rowsSpanned + 3;
         }
         widths(s, 12, 12, 12, 12, 12, 12, 12, 12, 12);
     }
@@ -406,10 +407,22 @@ public final class WorkbookReport {
         widths(s, LABEL_WIDTH, TEXT_WIDTH);
     }
 
-    private static void groupComparison(Workbook wb, Styles st, DampingComparison.Result cmp) {
+    private static void groupComparison(Workbook wb, Styles st, org.viscarta.analysis.Ranking ranking) {
         Sheet s = wb.createSheet("Group comparison");
         Rows rows = new Rows(s, null, null, st.dec4, st.dec4, st.dec4, st.dec4);
-        rows.styled(st.title, "Which differences in damping are supported");
+        rows.styled(st.title, "Which differences in damping are supported, within each comparable set");
+        if (ranking.sets().isEmpty()) {
+            rows.row("No comparable set holds two or more samples, so nothing was compared.");
+        }
+        for (org.viscarta.analysis.Ranking.RankedSet set : ranking.sets()) {
+            rows.blank();
+            rows.styled(st.title, set.label());
+            comparison(rows, st, set.result().comparison());
+        }
+        widths(s, 28, 28, 14, 14, 14, 16, 14);
+    }
+
+    private static void comparison(Rows rows, Styles st, DampingComparison.Result cmp) {
         for (String statement : cmp.statements()) {
             rows.paragraph(st.wrap, st.wrap, "", statement, 4, 150);
         }
@@ -430,11 +443,10 @@ public final class WorkbookReport {
             if (cmp.anova() != null) {
                 rows.blank();
                 rows.styled(st.header, "test across groups", "statistic", "df1 [–]", "df2 [–]", "p [–]");
-                rows.row("one-way ANOVA (F)", "", cmp.anova().statistic(), cmp.anova().df1(), cmp.anova().df2(), cmp.anova().p());
-                rows.row("Kruskal–Wallis (H)", "", cmp.kruskal().statistic(), cmp.kruskal().df1(), null, cmp.kruskal().p());
+                rows.row("one-way ANOVA (F)", cmp.anova().statistic(), cmp.anova().df1(), cmp.anova().df2(), cmp.anova().p());
+                rows.row("Kruskal–Wallis (H)", cmp.kruskal().statistic(), cmp.kruskal().df1(), null, cmp.kruskal().p());
             }
         }
-        widths(s, 28, 28, 14, 14, 14, 16, 14);
     }
 
     private static void temperatureSeries(Workbook wb, Styles st, AnalysisResult res) {

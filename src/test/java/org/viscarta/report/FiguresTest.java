@@ -58,7 +58,7 @@ class FiguresTest {
     void overviewFiguresHaveASeriesPerSampleAndAPointPerRankedSample() {
         Figure tan = Figures.tanDelta(CAMPAIGN.inputs().samples());
         assertEquals(9, ((XYPlot) tan.chart().getPlot()).getDataset().getSeriesCount());
-        Figure ranking = Figures.ranking(CAMPAIGN.rankingRows(), "1 Hz");
+        Figure ranking = Figures.ranking(CAMPAIGN.ranking().orElseThrow(), "1 Hz");
         assertEquals(9, ((XYPlot) ranking.chart().getPlot()).getDataset().getItemCount(0));
     }
 }

@@ -1,0 +1,95 @@
+package org.viscarta.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.Reader;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVRecord;
+import org.apache.poi.ss.usermodel.CellType;
+import org.apache.poi.ss.usermodel.Row;
+import org.apache.poi.ss.usermodel.Sheet;
+import org.apache.poi.ss.usermodel.Workbook;
+import org.apache.poi.ss.usermodel.WorkbookFactory;
+import org.junit.jupiter.api.Tag;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** Regression: the damping ranking compares like with like only, and its tables read right. */
+@Tag("regression")
+class ComparableSetsTest {
+
+    @TempDir
+    Path dir;
+
+    @Test
+    void theDemoRankingNeverMixesTemperaturesOrBasesWithinASet() throws IOException {
+        Path out = dir.resolve("rank.csv");
+        CliRun r = CliRun.of("rank", "demo-data", "--basis", "tensile", "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        List<CSVRecord> rows;
+        try (Reader in = Files.newBufferedReader(out)) {
+            rows = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).get().parse(in).getRecords();
+        }
+        Map<String, double[]> range = new HashMap<>();
+        for (CSVRecord row : rows) {
+            String set = row.get("set");
+            if (row.get("sample").startsWith("acrylic-film-ts @")) {
+                assertEquals("", row.get("rank"), "one temperature of a series is not ranked: " + row);
+                continue;
+            }
+            if (set.isEmpty()) {
+                continue;
+            }
+            double t = Double.parseDouble(row.get("temperature_c"));
+            range.merge(set, new double[] {t, t}, (a, b) -> new double[] {Math.min(a[0], b[0]), Math.max(a[1], b[1])});
+            assertTrue(set.contains("tensile"), set);
+        }
+        assertTrue(!range.isEmpty());
+        range.forEach((set, tt) -> assertTrue(tt[1] - tt[0] <= 2, set + " spans " + tt[0] + "–" + tt[1] + " °C"));
+        // the raw-signal films have one replicate each: they cannot be tested and say so
+        CSVRecord raw = rows.stream().filter(x -> x.get("sample").equals("alkyd-unaged-raw")).findFirst().orElseThrow();
+        assertEquals("–", raw.get("letters"));
+        assertTrue(r.out().contains("cannot be tested"), r.out());
+    }
+
+    @Test
+    void groupTestsSitUnderTheirOwnHeadersAndPerSet() throws IOException {
+        try (InputStream in = Files.newInputStream(DemoReport.folder().resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            Sheet s = wb.getSheet("Group comparison");
+            boolean found = false;
+            for (Row row : s) {
+                if (row.getCell(0) != null && row.getCell(0).getCellType() == CellType.STRING
+                        && row.getCell(0).getStringCellValue().equals("test across groups")) {
+                    assertEquals("statistic", row.getCell(1).getStringCellValue());
+                    assertEquals("p [–]", row.getCell(4).getStringCellValue());
+                    Row anova = s.getRow(row.getRowNum() + 1);
+                    assertEquals("one-way ANOVA (F)", anova.getCell(0).getStringCellValue());
+                    assertEquals(CellType.NUMERIC, anova.getCell(1).getCellType(), "F under 'statistic'");
+                    double p = anova.getCell(4).getNumericCellValue();
+                    assertTrue(p >= 0 && p <= 1, "a p-value under 'p': " + p);
+                    found = true;
+                }
+            }
+            assertTrue(found, "the demo's groups are tested");
+            String all = cells(s);
+            assertTrue(all.contains("23 °C, tensile"), "the comparable set is named");
+        }
+    }
+
+    private static String cells(Sheet s) {
+        StringBuilder sb = new StringBuilder();
+        for (Row r : s) {
+            r.forEach(c -> sb.append(c.getCellType() == CellType.STRING ? c.getStringCellValue() : "").append('\t'));
+            sb.append('\n');
+        }
+        return sb.toString();
+    }
+}
