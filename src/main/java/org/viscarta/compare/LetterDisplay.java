@@ -62,7 +62,7 @@ public final class LetterDisplay {
                 exact = true;
             }
         }
-        columns.sort((a, b) -> Integer.compare(a.nextSetBit(0), b.nextSetBit(0)));
+        columns.sort(LetterDisplay::byFirstMembers);
         String[] out = new String[n];
         int widest = 0;
         for (int i = 0; i < n; i++) {
@@ -78,6 +78,18 @@ public final class LetterDisplay {
             out[i] = sb.toString();
         }
         return new Display(List.of(out), exact, widest <= MAX_LETTERS_PER_ITEM && columns.size() <= MAX_COLUMNS);
+    }
+
+    /**
+     * Letter columns in the order of their members: the one holding the earliest item first, ties
+     * broken by the next item where they differ — so 'a' marks the highest-damping group and the
+     * letters follow the ranking.
+     */
+    private static int byFirstMembers(BitSet a, BitSet b) {
+        BitSet diff = (BitSet) a.clone();
+        diff.xor(b);
+        int first = diff.nextSetBit(0);
+        return first < 0 ? 0 : a.get(first) ? -1 : 1;
     }
 
     /** The maximal runs of consecutive items that are mutually not different; each start extends as far as it can. */

@@ -54,6 +54,19 @@ class ComparableSetsTest {
         }
         assertTrue(!range.isEmpty());
         range.forEach((set, tt) -> assertTrue(tt[1] - tt[0] <= 2, set + " spans " + tt[0] + "–" + tt[1] + " °C"));
+        // letters read the conventional way: 'a' marks the highest-damping group, and each new letter appears in order down the ranking
+        String seen = "";
+        for (CSVRecord row : rows) {
+            if (row.get("rank").isEmpty() || row.get("letters").equals("–")) {
+                continue;
+            }
+            for (char c : row.get("letters").toCharArray()) {
+                if (seen.indexOf(c) < 0) {
+                    assertEquals((char) ('a' + seen.length()), c, "letters in ranking order, at " + row.get("sample"));
+                    seen += c;
+                }
+            }
+        }
         // the raw-signal films have one replicate each: they cannot be tested and say so
         CSVRecord raw = rows.stream().filter(x -> x.get("sample").equals("alkyd-unaged-raw")).findFirst().orElseThrow();
         assertEquals("–", raw.get("letters"));
