@@ -20,6 +20,8 @@ public final class AtomicOutput {
         void writeTo(OutputStream out) throws IOException;
     }
 
+    private static final java.security.SecureRandom RANDOM = new java.security.SecureRandom();
+
     private AtomicOutput() {
     }
 
@@ -47,9 +49,11 @@ public final class AtomicOutput {
         Path abs = target.toAbsolutePath();
         Path dir = abs.getParent();
         Files.createDirectories(dir);
-        Path tmp = Files.createTempFile(dir, "." + abs.getFileName().toString() + ".", ".part");
+        // created as any new file is, so that it gets the user's usual permissions (umask), not a temporary file's 0600
+        Path tmp = dir.resolve("." + abs.getFileName() + "." + Long.toUnsignedString(RANDOM.nextLong(), 36) + ".part");
         try {
-            try (OutputStream out = Files.newOutputStream(tmp)) {
+            try (OutputStream out = Files.newOutputStream(tmp, java.nio.file.StandardOpenOption.CREATE_NEW,
+                    java.nio.file.StandardOpenOption.WRITE)) {
                 content.writeTo(out);
             }
             try {

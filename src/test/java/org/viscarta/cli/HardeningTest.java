@@ -150,4 +150,19 @@ class HardeningTest {
         assertEquals(1, err.toString().strip().lines().count(), err.toString());
         assertTrue(err.toString().contains("-Xmx") && err.toString().contains("smaller parts"), err.toString());
     }
+
+    /** Outputs get the permissions any new file of the user gets (their umask), not a temporary file's owner-only ones. */
+    @Test
+    void outputsAreCreatedWithTheUsersUsualPermissions() throws IOException {
+        org.junit.jupiter.api.Assumptions.assumeTrue(java.nio.file.FileSystems.getDefault().supportedFileAttributeViews().contains("posix"));
+        Path reference = Files.createFile(dir.resolve("plain-new-file"));
+        Path out = dir.resolve("rank.csv");
+        CliRun r = CliRun.of("rank", "demo-data/paint-light-ageing.csv", "-o", out.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        assertEquals(Files.getPosixFilePermissions(reference), Files.getPosixFilePermissions(out));
+        Path report = dir.resolve("report");
+        CliRun rep = CliRun.of("report", "demo-data/paint-light-ageing.csv", "--models", "springpot", "--out", report.toString(), "--quiet");
+        assertEquals(0, rep.exitCode(), rep.err());
+        assertEquals(Files.getPosixFilePermissions(reference), Files.getPosixFilePermissions(report.resolve("report.xlsx")));
+    }
 }
