@@ -27,10 +27,10 @@ import picocli.CommandLine.Option;
 /** {@code viscarta fit}: every candidate model fitted to every sample. */
 @Command(name = "fit", mixinStandardHelpOptions = true,
         header = "Fit viscoelastic models to each sample, with intervals and Akaike weights.",
-        description = {"Fit viscoelastic models jointly to storage and loss moduli (log residuals by default, Levenberg–Marquardt",
-            "from several data-derived starts), with standard errors, 95 % intervals, AICc and Akaike weights; the lowest",
-            "AICc is best supported. Replicates of a sample are fitted together. Parameters the data do not determine",
-            "are flagged with the reason."})
+        description = "Fit viscoelastic models jointly to storage and loss moduli (log residuals by default, "
+            + "Levenberg–Marquardt from several data-derived starts), with standard errors, 95 %% intervals, "
+            + "AICc and Akaike weights; the lowest AICc is best supported. Replicates of a sample are fitted "
+            + "together. Parameters the data do not determine are flagged with the reason.")
 final class FitCommand implements Callable<Integer> {
 
     /** The published columns of {@code fit -o} (README); the tests hold the declared table to them. */
@@ -48,7 +48,7 @@ final class FitCommand implements Callable<Integer> {
                     + "time grid in seconds: FROM:TO:COUNT (log-spaced) or a list, e.g. 0.01:100:25.")
     TimeGridConverter.Grid timeGrid;
 
-    @Option(names = "--time-domain-out", paramLabel = "FILE.csv",
+    @Option(names = "--time-domain-out", paramLabel = "CSV_FILE",
             description = "Write the --time-domain values as CSV (sample, model, time_s, relaxation_modulus_pa, creep_compliance_per_pa).")
     Path timeOut;
 

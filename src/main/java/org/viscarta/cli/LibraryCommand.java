@@ -19,9 +19,10 @@ import picocli.CommandLine.Parameters;
 /** {@code viscarta library}: the folder of reference materials the lab keeps. */
 @Command(name = "library", mixinStandardHelpOptions = true,
         header = "Keep the folder of reference materials: add, list, show, remove, check.",
-        description = {"The reference library is a folder of sweep tables, one reference material per file, whose metadata name",
-            "at least name, class, temperature and method. It comes from --library DIR, else the environment variable",
-            "VISCARTA_LIBRARY. A lab may also copy files in by hand; 'library check' validates them."},
+        description = "The reference library is a folder of sweep tables, one reference material per file, whose "
+            + "metadata name at least name, class, temperature and method. It comes from --library DIR, else "
+            + "the environment variable VISCARTA_LIBRARY. A lab may also copy files in by hand; 'library "
+            + "check' validates them.",
         subcommands = {LibraryCommand.Add.class, LibraryCommand.ListRefs.class, LibraryCommand.Show.class,
             LibraryCommand.Remove.class, LibraryCommand.Check.class})
 final class LibraryCommand implements Runnable {

@@ -28,10 +28,11 @@ import picocli.CommandLine.Parameters;
 /** {@code viscarta match}: the closest reference materials, or the best mimic of a target. */
 @Command(name = "match", mixinStandardHelpOptions = true,
         header = "Find the closest reference materials, or the candidate that best mimics a target.",
-        description = {"match SAMPLE... ranks the references of the library by their distance to each sample; match --target",
-            "FILE --candidates DIR|FILE... ranks candidate materials by their distance to a target. The distance is the",
-            "root-mean-square difference, in decades, of log10 E′ and log10 E″ over the frequency band both were measured",
-            "in (never extrapolated), each side from its best-supported fitted model, with a standard error from the fits."})
+        description = "match SAMPLE... ranks the references of the library by their distance to each sample; match "
+            + "--target FILE --candidates DIR|FILE... ranks candidate materials by their distance to a target. "
+            + "The distance is the root-mean-square difference, in decades, of log10 E′ and log10 E″ over the "
+            + "frequency band both were measured in (never extrapolated), each side from its best-supported "
+            + "fitted model, with a standard error from the fits.")
 final class MatchCommand implements Callable<Integer> {
 
     /** The published columns of {@code match -o} (README); the tests hold the declared table to them. */

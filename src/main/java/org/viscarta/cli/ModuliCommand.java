@@ -23,10 +23,11 @@ import picocli.CommandLine.Parameters;
 /** {@code viscarta moduli}: raw oscillation signals to sweep tables. */
 @Command(name = "moduli", mixinStandardHelpOptions = true,
         header = "Turn raw oscillation signals (force and displacement against time) into sweep tables.",
-        description = {"For each drive frequency, fits offset, drift and sine/cosine terms at the drive frequency and its 2nd and",
-            "3rd harmonics to force and displacement over an integer number of cycles after the settling ones, forms the",
-            "complex stiffness F̂/ĥ, removes the instrument's phase (--calibration, a measurement on a rigid reference) and",
-            "any hydrodynamic drag ('# drag:'), and converts it with the geometry of the file's '# geometry:' line."})
+        description = "For each drive frequency, fits offset, drift and sine/cosine terms at the drive frequency and "
+            + "its 2nd and 3rd harmonics to force and displacement over an integer number of cycles after the "
+            + "settling ones, forms the complex stiffness F̂/ĥ, removes the instrument's phase (--calibration, "
+            + "a measurement on a rigid reference) and any hydrodynamic drag ('# drag:'), and converts it with "
+            + "the geometry of the file's '# geometry:' line.")
 final class ModuliCommand implements Callable<Integer> {
 
     @Parameters(paramLabel = "RAW", arity = "1..*", description = "Raw-signal tables or folders of them.")

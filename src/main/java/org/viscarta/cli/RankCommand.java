@@ -22,12 +22,13 @@ import picocli.CommandLine.Mixin;
 /** {@code viscarta rank}: samples ordered by tan δ at a reference frequency. */
 @Command(name = "rank", mixinStandardHelpOptions = true,
         header = "Rank samples by loss tangent tan δ at a reference frequency.",
-        description = {"Rank samples by loss tangent tan δ = E″/E′ at a reference frequency (or its geometric mean over a band),",
-            "highest damping first, with the mean, standard deviation and 95 % t-interval over replicates, and letter",
-            "groups from pairwise Welch t-tests with Holm's adjustment: samples sharing a letter are not distinguishable.",
-            "With group labels, groups are compared by one-way ANOVA and Kruskal–Wallis. Values are interpolated in",
-            "log–log between the two neighbouring measured points; outside the measured range none is reported unless",
-            "--model-outside-range lets the best-supported model give one."})
+        description = "Rank samples by loss tangent tan δ = E″/E′ at a reference frequency (or its geometric mean over "
+            + "a band), highest damping first, with the mean, standard deviation and 95 %% t-interval over "
+            + "replicates, and letter groups from pairwise Welch t-tests with Holm's adjustment: samples "
+            + "sharing a letter are not distinguishable. With group labels, groups are compared by one-way "
+            + "ANOVA and Kruskal–Wallis. Values are interpolated in log–log between the two neighbouring "
+            + "measured points; outside the measured range none is reported unless --model-outside-range lets "
+            + "the best-supported model give one.")
 final class RankCommand implements Callable<Integer> {
 
     /** The published columns of {@code rank -o} (README); the tests hold the declared table to them. */

@@ -24,9 +24,10 @@ import picocli.CommandLine.Option;
 /** {@code viscarta shift}: a master curve from one sample's sweeps at several temperatures. */
 @Command(name = "shift", mixinStandardHelpOptions = true,
         header = "Build a master curve from sweeps at several temperatures (time–temperature superposition).",
-        description = {"Shifts each sweep of one sample along the frequency axis onto its warmer neighbour (matching log tan δ,",
-            "which no vertical factor changes, and log |E*|), chains the shifts to the reference temperature, fits WLF and",
-            "Arrhenius laws to the shift factors, and builds the master curve at the reference temperature."})
+        description = "Shifts each sweep of one sample along the frequency axis onto its warmer neighbour (matching "
+            + "log tan δ, which no vertical factor changes, and log |E*|), chains the shifts to the reference "
+            + "temperature, fits WLF and Arrhenius laws to the shift factors, and builds the master curve at "
+            + "the reference temperature.")
 final class ShiftCommand implements Callable<Integer> {
 
     @Mixin
@@ -39,7 +40,7 @@ final class ShiftCommand implements Callable<Integer> {
     @Option(names = "--sample", paramLabel = "NAME", description = "The sample to shift, when the inputs hold several.")
     String sample;
 
-    @Option(names = "--vertical", paramLabel = "none|entropic", defaultValue = "none",
+    @Option(names = "--vertical", paramLabel = "none|entropic|fitted", defaultValue = "none",
             description = "Vertical factors b_T: none (default), entropic b_T = T/T0 (kelvin; density taken as constant), or "
                     + "fitted (horizontal shifts from tan δ alone, then the offset of log |E*|).")
     String vertical;

@@ -53,6 +53,7 @@ public final class Viscarta implements Runnable {
         cl.setParameterExceptionHandler((ex, a) -> {
             CommandLine c = ex.getCommandLine();
             c.getErr().println("viscarta: " + ex.getMessage());
+            CommandLine.UnmatchedArgumentException.printSuggestions(ex, c.getErr());
             c.getErr().println("Try '" + c.getCommandSpec().qualifiedName() + " --help' for usage.");
             c.getErr().flush();
             return CommandLine.ExitCode.USAGE;
