@@ -17,4 +17,22 @@ final class Format {
     static String csv(double v) {
         return Cells.csv(v);
     }
+
+    /** Prose for the terminal, wrapped at {@code width} columns; continuation lines indented by {@code indent}. */
+    static String wrap(String text, int width, String indent) {
+        StringBuilder out = new StringBuilder();
+        int col = 0;
+        for (String word : text.split(" ")) {
+            if (col > 0 && col + 1 + word.length() > width) {
+                out.append('\n').append(indent);
+                col = indent.length();
+            } else if (col > 0) {
+                out.append(' ');
+                col++;
+            }
+            out.append(word);
+            col += word.length();
+        }
+        return out.toString();
+    }
 }

@@ -35,6 +35,9 @@ final class RankCommand implements Callable<Integer> {
     static final List<String> CSV_HEADER = List.of("rank", "sample", "group", "n_replicates", "frequency_hz", "tan_delta",
             "ci95_low", "ci95_high", "storage_modulus_pa", "loss_modulus_pa", "letters", "set", "temperature_c");
 
+    /** Terminal output fits in this many columns (wide details are in the CSV). */
+    private static final int TERMINAL_WIDTH = 100;
+
     @Mixin InputOptions input;
     @Mixin ModelOptions models;
     @Mixin RankOptions rankOptions;
@@ -52,17 +55,28 @@ final class RankCommand implements Callable<Integer> {
         List<DampingRanking.Row<Sample>> rows = result.rankingRows();
         PrintWriter out = spec.commandLine().getOut();
         Ranking ranking = result.ranking().orElseThrow();
-        out.printf("Damping ranking at %s (highest tan δ first), within %d comparable set(s)%n", request.rankingPoint().describe(),
-                ranking.sets().size());
-        TerminalTable.print(table, rows, out);
+        out.println(Format.wrap(String.format(java.util.Locale.ROOT, "Damping ranking at %s (highest tan δ first) within %d "
+                + "comparable set(s): %s", request.rankingPoint().describe(), ranking.sets().size(), request.sets().describe()),
+                TERMINAL_WIDTH, ""));
         for (Ranking.RankedSet set : ranking.sets()) {
             out.println();
             out.println(set.label() + ":");
+            TerminalTable.print(table, set.result().rows(), out);
             DampingComparison.Result cmp = set.result().comparison();
-            cmp.statements().forEach(out::println);
+            cmp.statements().forEach(t -> out.println(Format.wrap(t, TERMINAL_WIDTH, "")));
             for (DampingComparison.GroupSummary g : cmp.groups()) {
                 out.printf("  group %s: %d sample(s), %d values, mean tan δ %s [%s, %s]%n", g.group(), g.samples(), g.values().n(),
                         Format.g4(g.values().mean()), Format.g4(g.values().ci95Low()), Format.g4(g.values().ci95High()));
+            }
+            set.result().rows().stream().filter(r -> !r.note().isEmpty())
+                    .forEach(r -> out.println(Format.wrap("  note on " + r.name() + ": " + r.note(), TERMINAL_WIDTH, "    ")));
+        }
+        if (!ranking.unranked().isEmpty()) {
+            out.println();
+            out.println("Not ranked:");
+            for (DampingRanking.Row<Sample> r : ranking.unranked()) {
+                out.println(Format.wrap("  " + r.name() + (r.tanDelta() == null ? "" : " (tan δ " + Format.g4(r.tanDelta().mean())
+                        + ")") + ": " + r.note(), TERMINAL_WIDTH, "    "));
             }
         }
         out.flush();

@@ -54,6 +54,14 @@ public final class DampingComparison {
     private DampingComparison() {
     }
 
+    /** Below this, a p-value is written "< 0.0001" (its digits say nothing a reader can use). */
+    private static final double SMALLEST_P_SHOWN = 1e-4;
+
+    /** "= 0.0713" or "< 0.0001", for sentences. */
+    public static String pText(double p) {
+        return p < SMALLEST_P_SHOWN ? "< 0.0001" : String.format(Locale.ROOT, "= %.3g", p);
+    }
+
     /** The letter of a sample that cannot be tested (a single replicate). */
     public static final String NOT_TESTED = "–";
 
@@ -127,15 +135,15 @@ public final class DampingComparison {
         if (supported > 0 && supported <= pairs.size() - supported) {
             for (Pair p : pairs) {
                 if (p.significant()) {
-                    statements.add(String.format(Locale.ROOT, "%s damps more than %s (Holm-adjusted p = %.3g).",
-                            p.first(), p.second(), p.pHolm()));
+                    statements.add(String.format(Locale.ROOT, "%s damps more than %s (Holm-adjusted p %s).",
+                            p.first(), p.second(), pText(p.pHolm())));
                 }
             }
         } else if (supported > 0) {
             List<String> alike = new ArrayList<>();
             for (Pair p : pairs) {
                 if (!p.significant()) {
-                    alike.add(String.format(Locale.ROOT, "%s and %s (p = %.3g)", p.first(), p.second(), p.pHolm()));
+                    alike.add(String.format(Locale.ROOT, "%s and %s (p %s)", p.first(), p.second(), pText(p.pHolm())));
                 }
             }
             statements.add(alike.isEmpty() ? "Every sample damps differently from every other; the ranking order is supported throughout."
@@ -163,10 +171,10 @@ public final class DampingComparison {
                 kruskal = GroupStatistics.kruskalWallis(pooled);
                 boolean differ = anova.p() < alpha && kruskal.p() < alpha;
                 boolean disagree = (anova.p() < alpha) != (kruskal.p() < alpha);
-                statements.add(String.format(Locale.ROOT, "Across the %d groups, tan δ %s (one-way ANOVA F = %.3g, p = %.3g; "
-                        + "Kruskal–Wallis H = %.3g, p = %.3g)%s", byGroup.size(),
+                statements.add(String.format(Locale.ROOT, "Across the %d groups, tan δ %s (one-way ANOVA F = %.3g, p %s; "
+                        + "Kruskal–Wallis H = %.3g, p %s)%s", byGroup.size(),
                         differ ? "differs" : disagree ? "may differ" : "does not differ detectably",
-                        anova.statistic(), anova.p(), kruskal.statistic(), kruskal.p(),
+                        anova.statistic(), pText(anova.p()), kruskal.statistic(), pText(kruskal.p()),
                         disagree ? "; the two tests disagree, so treat the difference with caution." : "."));
             } else {
                 statements.add("Groups with a single value cannot be compared across groups.");

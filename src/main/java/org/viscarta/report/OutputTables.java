@@ -60,6 +60,8 @@ public final class OutputTables {
 
     private static final java.util.Set<Medium> NOT_CSV = Medium.allBut(Medium.CSV);
     private static final java.util.Set<Medium> SHEET = java.util.EnumSet.of(Medium.SHEET);
+    private static final java.util.Set<Medium> TERMINAL = java.util.EnumSet.of(Medium.TERMINAL);
+    private static final java.util.Set<Medium> NOT_TERMINAL = Medium.allBut(Medium.TERMINAL);
     private static final java.util.Set<Medium> SHEET_CSV = java.util.EnumSet.of(Medium.SHEET, Medium.CSV);
 
     /** The damping ranking ({@code rank}'s terminal and CSV, sheet Damping ranking, the page). */
@@ -74,16 +76,26 @@ public final class OutputTables {
                 .column("tan_delta", "tan δ mean", "–", Style.DECIMAL4, 14, r -> mean(r.tanDelta())).colourScale()
                 .column("tan_delta_sd", "tan δ SD", "–", Style.DECIMAL4, 12, r -> r.tanDelta() == null ? null : r.tanDelta().sd(),
                         SHEET)
-                .column("ci95_low", "tan δ 95 % CI low", "–", Style.DECIMAL4, 14, r -> ciLow(r.tanDelta()))
-                .column("ci95_high", "tan δ 95 % CI high", "–", Style.DECIMAL4, 14, r -> ciHigh(r.tanDelta()))
-                .column("storage_modulus_pa", "storage modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::storage)
-                .column("loss_modulus_pa", "loss modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::loss)
+                .column("ci95_low", "tan δ 95 % CI low", "–", Style.DECIMAL4, 14, r -> ciLow(r.tanDelta()), NOT_TERMINAL)
+                .column("ci95_high", "tan δ 95 % CI high", "–", Style.DECIMAL4, 14, r -> ciHigh(r.tanDelta()), NOT_TERMINAL)
+                .column("ci95", "95 % CI", "", Style.TEXT, 18, r -> interval(r.tanDelta()), TERMINAL)
+                .column("storage_modulus_pa", "storage modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::storage,
+                        NOT_TERMINAL)
+                .column("loss_modulus_pa", "loss modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::loss, NOT_TERMINAL)
                 .column("value_from", "value from", "", Style.TEXT, 30, r -> r.source().description(), SHEET)
-                .column("letters", "letter group", "", Style.TEXT, 10, DampingRanking.Row::letters)
-                .column("set", "comparable set", "", Style.TEXT, 22, r -> result.setOf(r.subject()))
+                .column("letters", "letters", "", Style.TEXT, 10, DampingRanking.Row::letters)
+                .column("set", "comparable set", "", Style.TEXT, 22, r -> result.setOf(r.subject()), NOT_TERMINAL)
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 12, r -> r.subject().temperatureC(), SHEET_CSV)
-                .column("note", "note", "", Style.TEXT, 60, DampingRanking.Row::note, NOT_CSV)
+                .column("note", "note", "", Style.TEXT, 60, DampingRanking.Row::note, java.util.EnumSet.of(Medium.SHEET, Medium.HTML))
                 .build();
+    }
+
+    /** "[0.46, 0.57]", or "–" without an interval. */
+    private static String interval(ReplicateSummary t) {
+        if (t == null || !Double.isFinite(t.ci95Low())) {
+            return "–";
+        }
+        return String.format(java.util.Locale.ROOT, "[%.4f, %.4f]", t.ci95Low(), t.ci95High());
     }
 
     /** One row per sample (sheet Summary, the page). */

@@ -4,8 +4,15 @@ import java.io.PrintWriter;
 import java.util.ArrayList;
 import java.util.List;
 
-/** Draws a declared table as left-aligned text for the terminal, headed by labels with units. */
+/**
+ * Draws a declared table as left-aligned text for the terminal, headed by labels with units. Text
+ * cells longer than {@value #LONGEST_CELL} characters are cut with "…" (the CSV and the workbook
+ * hold them whole), so that tables stay readable in a terminal.
+ */
 public final class TerminalTable {
+
+    /** The longest text cell shown whole in the terminal. */
+    static final int LONGEST_CELL = 40;
 
     private TerminalTable() {
     }
@@ -18,7 +25,8 @@ public final class TerminalTable {
         for (R row : rows) {
             String[] cells = new String[cols.size()];
             for (int i = 0; i < cells.length; i++) {
-                cells[i] = Cells.readable(cols.get(i).value().apply(row), cols.get(i).style());
+                String cell = Cells.readable(cols.get(i).value().apply(row), cols.get(i).style());
+                cells[i] = cell.length() > LONGEST_CELL ? cell.substring(0, LONGEST_CELL - 1) + "…" : cell;
             }
             lines.add(cells);
         }

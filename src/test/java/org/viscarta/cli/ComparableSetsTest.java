@@ -71,6 +71,9 @@ class ComparableSetsTest {
         CSVRecord raw = rows.stream().filter(x -> x.get("sample").equals("alkyd-unaged-raw")).findFirst().orElseThrow();
         assertEquals("–", raw.get("letters"));
         assertTrue(r.out().contains("cannot be tested"), r.out());
+        // the terminal fits in 100 columns; p-values too small to matter read "< 0.0001"
+        r.out().lines().forEach(l -> assertTrue(l.codePointCount(0, l.length()) <= 100, "wider than 100 columns: " + l));
+        assertTrue(r.out().contains("p < 0.0001") && !r.out().contains("e-1"), r.out());
     }
 
     @Test
