@@ -47,7 +47,7 @@ public final class HtmlReport {
             h.append("<dt>").append(esc(d[0])).append("</dt><dd>").append(esc(d[1])).append("</dd>\n");
         }
         h.append("</dl>\n<h3>Cautions</h3>\n<div class=\"caution\">\n");
-        for (String caution : Texts.CAUTIONS) {
+        for (String caution : Texts.cautions(r)) {
             h.append("<p>").append(esc(caution)).append("</p>\n");
         }
         h.append("</div>\n");
@@ -74,7 +74,33 @@ public final class HtmlReport {
         }
         provenance(h, c);
         h.append("</body>\n</html>\n");
-        return h.toString();
+        return withContents(h.toString());
+    }
+
+    private static final java.util.regex.Pattern SECTION = java.util.regex.Pattern.compile("<h2>(.*?)</h2>");
+
+    /** The page with an anchor on every section heading and a table of contents before the first. */
+    private static String withContents(String page) {
+        java.util.regex.Matcher m = SECTION.matcher(page);
+        StringBuilder body = new StringBuilder(page.length() + 2048);
+        StringBuilder nav = new StringBuilder("<nav>\n<p><strong>Contents</strong></p>\n<ol>\n");
+        int k = 0;
+        int firstAt = -1;
+        while (m.find()) {
+            k++;
+            if (firstAt < 0) {
+                firstAt = m.start();
+            }
+            nav.append("<li><a href=\"#section-").append(k).append("\">").append(m.group(1)).append("</a></li>\n");
+            m.appendReplacement(body, java.util.regex.Matcher.quoteReplacement("<h2 id=\"section-" + k + "\">" + m.group(1) + "</h2>"));
+        }
+        m.appendTail(body);
+        if (firstAt < 0) {
+            return page;
+        }
+        nav.append("</ol>\n</nav>\n");
+        int insertAt = body.indexOf("<h2 id=\"section-1\">");
+        return body.insert(insertAt, nav).toString();
     }
 
     /** Draws a declared table: a heading, an optional sentence, a header row with units, numbers right-aligned. */

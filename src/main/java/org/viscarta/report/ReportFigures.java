@@ -33,8 +33,28 @@ public final class ReportFigures {
         return out;
     }
 
-    /** The figures of a result: the ranking, tan δ of all samples, each temperature series, each sample's fit and references. */
+    /** Said in small print on every figure made from inputs that call themselves demo data. */
+    static final String DEMO_MARK = "Invented demo data, not measurements of real materials";
+
+    /**
+     * The figures of a result: the ranking, tan δ of all samples, each temperature series, each
+     * sample's fit and references. Figures of demo data say so, so that they travel alone into slides.
+     */
     public static List<Figure> build(AnalysisResult r) {
+        List<Figure> out = figures(r);
+        if (r.inputs().isDemo()) {
+            for (Figure f : out) {
+                org.jfree.chart.title.TextTitle mark = new org.jfree.chart.title.TextTitle(DEMO_MARK, Palette.TICK);
+                mark.setPosition(org.jfree.chart.ui.RectangleEdge.BOTTOM);
+                mark.setHorizontalAlignment(org.jfree.chart.ui.HorizontalAlignment.RIGHT);
+                mark.setPaint(java.awt.Color.GRAY);
+                f.chart().addSubtitle(mark);
+            }
+        }
+        return out;
+    }
+
+    private static List<Figure> figures(AnalysisResult r) {
         List<Figure> out = new ArrayList<>();
         r.ranking().filter(rk -> !rk.sets().isEmpty())
                 .ifPresent(rk -> out.add(Figures.ranking(rk, r.request().rankingPoint().describe())));

@@ -48,6 +48,27 @@ public final class Texts {
             "Hydrogels and soft tissues (kPa) lie below the modulus range of ASTM D4065 (0.5 MPa to 100 GPa); "
                     + "say so when citing that standard.");
 
+    /** Said when a shear–tensile conversion was made. */
+    static final String ISOTROPY = "Converting shear to tensile moduli (or back) with E = 2(1 + ν)G assumes an isotropic "
+            + "material with a real, frequency-independent Poisson's ratio; layered films and fibrous tissues may not be.";
+
+    /** Said whenever models were fitted. */
+    static final String FIT_INTERVALS = "Fit intervals treat the points of all replicates of a sample as independent "
+            + "measurements: they describe how well the model is pinned down by the pooled points, not the spread between "
+            + "replicates (the damping ranking's intervals do that).";
+
+    /** The cautions of this report: the usual ones, and those that its conversions and fits call for. */
+    public static List<String> cautions(org.viscarta.analysis.AnalysisResult r) {
+        List<String> out = new ArrayList<>(CAUTIONS);
+        if (r.inputs().notes().stream().anyMatch(n -> n.contains("E = 2(1 + ν)G"))) {
+            out.add(ISOTROPY);
+        }
+        if (r.request().needsFits()) {
+            out.add(FIT_INTERVALS);
+        }
+        return out;
+    }
+
     /** Definitions in words a non-specialist follows; each entry is a term and its explanation. */
     private static final List<String[]> DEFINITIONS = List.of(
             new String[] {"Storage modulus E′ (or G′ in shear) [Pa]",

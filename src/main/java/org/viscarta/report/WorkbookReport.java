@@ -393,7 +393,7 @@ public final class WorkbookReport {
         }
         rows.blank();
         rows.styled(st.header, "Cautions");
-        for (String caution : Texts.CAUTIONS) {
+        for (String caution : Texts.cautions(r)) {
             rows.paragraph(st.wrap, st.wrap, "", caution, LABEL_WIDTH, TEXT_WIDTH);
         }
         List<String> warnings = r.inputs().warningTexts();

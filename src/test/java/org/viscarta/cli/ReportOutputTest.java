@@ -124,4 +124,21 @@ class ReportOutputTest {
             assertArrayEquals(firstBytes.get(p), secondBytes.get(p), p.toString());
         }
     }
+
+    /** The page opens with a table of contents, states every caution the analysis calls for, and every figure says it shows demo data. */
+    @Test
+    void thePageHasContentsTheCautionsItNeedsAndDemoMarkedFigures() throws IOException {
+        Document doc = Jsoup.parse(first.resolve("report.html").toFile(), "UTF-8");
+        List<String> contents = doc.select("nav li a").eachText();
+        assertEquals(doc.select("h2").eachText(), contents, "a link to every section");
+        for (Element a : doc.select("nav li a")) {
+            assertEquals(1, doc.select(a.attr("href")).size(), "the link " + a.attr("href") + " has its section");
+        }
+        String cautions = doc.select("div.caution").text();
+        assertTrue(cautions.contains("isotropic"), "the demo converts shear to tensile: the isotropy caution is stated");
+        assertTrue(cautions.contains("Fit intervals treat the points of all replicates"), cautions);
+        for (Element f : doc.select("figure svg")) {
+            assertTrue(f.text().contains("Invented demo data"), "every figure of demo data says so");
+        }
+    }
 }
