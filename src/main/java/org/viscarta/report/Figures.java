@@ -316,6 +316,9 @@ public final class Figures {
         SymbolAxis y = new SymbolAxis(null, labels);
         y.setTickLabelFont(Palette.TICK);
         y.setGridBandsVisible(false);
+        // every sample named: one tick per row, the figure tall enough for the labels not to overlap
+        y.setAutoTickUnitSelection(false);
+        y.setTickUnit(new NumberTickUnit(1));
         XYErrorRenderer r = new XYErrorRenderer();
         r.setDrawYError(false);
         r.setDefaultLinesVisible(false);
@@ -333,7 +336,7 @@ public final class Figures {
     }
 
     /** Height given to each sample's row in the ranking figure [points]: room for its label. */
-    private static final int ROW_PT = 13;
+    static final int ROW_PT = 18;
 
     /** A sample's measured E′ and E″ against the fitted curves of its closest references. */
     public static Figure references(Sample s, List<Matcher.Match> matches, Map<String, FittedCurve> references,

@@ -59,6 +59,10 @@ class FiguresTest {
         Figure tan = Figures.tanDelta(CAMPAIGN.inputs().samples());
         assertEquals(9, ((XYPlot) tan.chart().getPlot()).getDataset().getSeriesCount());
         Figure ranking = Figures.ranking(CAMPAIGN.ranking().orElseThrow(), "1 Hz");
+        org.jfree.chart.axis.SymbolAxis names = (org.jfree.chart.axis.SymbolAxis) ((XYPlot) ranking.chart().getPlot()).getRangeAxis();
+        assertEquals(9, names.getSymbols().length, "every ranked sample named");
+        assertEquals(1.0, names.getTickUnit().getSize(), "a tick, so a label, for every sample");
+        assertTrue(ranking.heightPt() >= 9 * Figures.ROW_PT, "the figure grows with the samples");
         assertEquals(9, ((XYPlot) ranking.chart().getPlot()).getDataset().getItemCount(0));
     }
 }
