@@ -120,9 +120,12 @@ public final class Texts {
     /** What each sheet holds. */
     private static final List<String[]> SHEETS = List.of(
             new String[] {"Summary", "One row per sample: what was measured, tan δ at the reference frequency, the best-supported model."},
-            new String[] {"Damping ranking", "Samples ordered by tan δ at the reference frequency, highest damping first, with 95 % intervals over replicates."},
-            new String[] {"Group comparison", "Which differences in damping the replicates support: pairwise Welch t-tests with "
-                    + "Holm's adjustment, and, for labelled groups, one-way ANOVA and Kruskal–Wallis tests."},
+            new String[] {"Damping ranking", "Samples ordered by tan δ at the reference frequency within each comparable set "
+                    + "(same basis, similar temperature), highest damping first, with 95 % intervals over replicates; samples "
+                    + "not ranked say why."},
+            new String[] {"Group comparison", "Which differences in damping the replicates support, within each comparable set "
+                    + "(same basis, similar temperature): pairwise Welch t-tests with Holm's adjustment, and, for labelled groups, "
+                    + "one-way ANOVA and Kruskal–Wallis tests."},
             new String[] {"Reference matches", "For each sample, the closest reference materials of the library, with the "
                     + "distance, its uncertainty, the band compared and where the curves differ most."},
             new String[] {"Mimic ranking", "With a target sample: every other sample ranked by how closely it mimics the target."},

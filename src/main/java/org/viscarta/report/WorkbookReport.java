@@ -195,6 +195,8 @@ public final class WorkbookReport {
         /** Frequencies: up to four decimals. */
         final CellStyle freq;
         final CellStyle integer;
+        /** p-values: four decimals, and "< 0.0001" below that (the full value stays in the cell). */
+        final CellStyle pValue;
         /** The number format of each declared column style. */
         final java.util.Map<Style, CellStyle> byStyle = new java.util.EnumMap<>(Style.class);
 
@@ -204,6 +206,7 @@ public final class WorkbookReport {
             dec2 = numberStyle(wb, "0.00");
             freq = numberStyle(wb, "0.0###");
             integer = numberStyle(wb, "0");
+            pValue = numberStyle(wb, "[<0.0001]\"< 0.0001\";0.0000");
             byStyle.put(Style.SCIENTIFIC, sci);
             byStyle.put(Style.DECIMAL4, dec4);
             byStyle.put(Style.DECIMAL2, dec2);
@@ -240,7 +243,7 @@ public final class WorkbookReport {
     /** Appends rows to a sheet; numbers go in as numeric cells, NaN as an empty cell. */
     private static final class Rows {
         private final Sheet sheet;
-        private final CellStyle[] numberStyles;
+        private CellStyle[] numberStyles;
         private int next;
 
         /**
@@ -250,6 +253,11 @@ public final class WorkbookReport {
         Rows(Sheet sheet, CellStyle... numberStyles) {
             this.sheet = sheet;
             this.numberStyles = numberStyles;
+        }
+
+        /** The number formats of the columns from here on (a sheet with several blocks changes them per block). */
+        void use(CellStyle... styles) {
+            this.numberStyles = styles;
         }
 
         Row row(Object... values) {
@@ -307,6 +315,18 @@ public final class WorkbookReport {
             r.getCell(1).setCellStyle(textStyle);
             int lines = Math.max(linesOf(label, labelWidth), linesOf(text, textWidth));
             r.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, lines) * 15f));
+            return r;
+        }
+
+        /**
+         * A sentence across the columns 0 … lastColumn (merged, wrapped), with a row height that fits
+         * it; {@code width} is the merged columns' width in characters.
+         */
+        Row sentence(CellStyle style, String text, int lastColumn, int width) {
+            Row r = row(text);
+            r.getCell(0).setCellStyle(style);
+            sheet.addMergedRegion(new org.apache.poi.ss.util.CellRangeAddress(r.getRowNum(), r.getRowNum(), 0, lastColumn));
+            r.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, linesOf(text, width)) * 15f));
             return r;
         }
 
@@ -409,7 +429,7 @@ public final class WorkbookReport {
 
     private static void groupComparison(Workbook wb, Styles st, org.viscarta.analysis.Ranking ranking) {
         Sheet s = wb.createSheet("Group comparison");
-        Rows rows = new Rows(s, null, null, st.dec4, st.dec4, st.dec4, st.dec4);
+        Rows rows = new Rows(s);
         rows.styled(st.title, "Which differences in damping are supported, within each comparable set");
         if (ranking.sets().isEmpty()) {
             rows.row("No comparable set holds two or more samples, so nothing was compared.");
@@ -422,11 +442,16 @@ public final class WorkbookReport {
         widths(s, 28, 28, 14, 14, 14, 16, 14);
     }
 
+    /** Widths of the Group comparison and Temperature series sheets' columns, summed [characters]. */
+    private static final int GROUP_COMPARISON_WIDTH = 28 + 28 + 14 + 14 + 14 + 16 + 14;
+    private static final int TEMPERATURE_SERIES_WIDTH = 16 + 14 + 16 + 14 + 14 + 14 + 10 + 12;
+
     private static void comparison(Rows rows, Styles st, DampingComparison.Result cmp) {
         for (String statement : cmp.statements()) {
-            rows.paragraph(st.wrap, st.wrap, "", statement, 4, 150);
+            rows.sentence(st.wrap, statement, 6, GROUP_COMPARISON_WIDTH);
         }
         rows.blank();
+        rows.use(null, null, st.dec2, st.dec2, st.pValue, st.pValue);
         rows.styled(st.header, "sample", "other sample", "Welch t [–]", "degrees of freedom [–]", "p [–]", "Holm-adjusted p [–]",
                 "supported at α = " + Numbers.plain(cmp.alpha()));
         for (DampingComparison.Pair p : cmp.pairs()) {
@@ -434,6 +459,7 @@ public final class WorkbookReport {
         }
         if (!cmp.groups().isEmpty()) {
             rows.blank();
+            rows.use(null, st.integer, st.dec4, st.dec4, st.dec4, st.dec4, st.integer);
             rows.styled(st.header, "group", "samples", "tan δ mean [–]", "tan δ SD [–]", "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]",
                     "values");
             for (DampingComparison.GroupSummary g : cmp.groups()) {
@@ -442,6 +468,7 @@ public final class WorkbookReport {
             }
             if (cmp.anova() != null) {
                 rows.blank();
+                rows.use(null, st.dec2, st.integer, st.integer, st.pValue);
                 rows.styled(st.header, "test across groups", "statistic", "df1 [–]", "df2 [–]", "p [–]");
                 rows.row("one-way ANOVA (F)", cmp.anova().statistic(), cmp.anova().df1(), cmp.anova().df2(), cmp.anova().p());
                 rows.row("Kruskal–Wallis (H)", cmp.kruskal().statistic(), cmp.kruskal().df1(), null, cmp.kruskal().p());
@@ -456,7 +483,7 @@ public final class WorkbookReport {
             ShiftAnalysis.Result r = ts.result();
             rows.styled(st.title, ts.sample() + ": time–temperature superposition at " + Numbers.plain(r.referenceC()) + " °C");
             for (String n : r.notes()) {
-                rows.paragraph(st.wrap, st.wrap, "", n, 14, 110);
+                rows.sentence(st.wrap, n, 7, TEMPERATURE_SERIES_WIDTH);
             }
             rows.row("The master curve is analysed as the sample '" + ts.masterName() + "' in the other sheets.");
             rows.styled(st.header, "temperature [°C]", "log10 a_T [–]", "log10 a_T standard error [–]", "a_T [–]", "b_T [–]", "placed");

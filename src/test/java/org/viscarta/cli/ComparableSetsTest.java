@@ -95,6 +95,19 @@ class ComparableSetsTest {
                 }
             }
             assertTrue(found, "the demo's groups are tested");
+            // sentences span the sheet's width, wrapped, so that they are not cut off; p-values read "< 0.0001" when tiny
+            Row statement = s.getRow(2);
+            assertTrue(statement.getCell(0).getStringCellValue().startsWith("Samples that share a letter"), "a sentence");
+            assertTrue(statement.getCell(0).getCellStyle().getWrapText(), "wrapped");
+            assertTrue(s.getMergedRegions().stream().anyMatch(m -> m.getFirstRow() == 2 && m.getFirstColumn() == 0
+                    && m.getLastColumn() >= 6), "merged across the table's width");
+            boolean pFormat = false;
+            for (Row row : s) {
+                if (row.getCell(4) != null && row.getCell(4).getCellType() == CellType.NUMERIC) {
+                    pFormat |= row.getCell(4).getCellStyle().getDataFormatString().contains("< 0.0001");
+                }
+            }
+            assertTrue(pFormat, "p-values have a display format that says '< 0.0001' below it");
             String all = cells(s);
             assertTrue(all.contains("23 °C, tensile"), "the comparable set is named");
         }
