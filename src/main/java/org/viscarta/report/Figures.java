@@ -97,7 +97,7 @@ public final class Figures {
         LogAxis y = new LogAxis(label);
         y.setTickUnit(new NumberTickUnit(1.0));
         y.setMinorTickMarksVisible(true);
-        y.setNumberFormatOverride(new DecimalFormat("0.####E0"));
+        y.setNumberFormatOverride(new DecimalFormat("0.#####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
         y.setLabelFont(Palette.LABEL);
         y.setTickLabelFont(Palette.TICK);
         return y;
@@ -137,7 +137,9 @@ public final class Figures {
         measured.addSeries(ms);
         measured.addSeries(ml);
         XYPlot top = new XYPlot();
-        top.setRangeAxis(logAxis("moduli " + m + "′, " + m + "″ [Pa]"));
+        LogAxis moduli = logAxis("moduli");
+        inModulusUnit(moduli, "moduli " + m + "′, " + m + "″", largest(measured, true));
+        top.setRangeAxis(moduli);
         top.setDataset(0, measured);
         XYErrorRenderer points = new XYErrorRenderer();
         points.setDrawXError(false);
@@ -216,6 +218,63 @@ public final class Figures {
         return new Figure(stem, "Storage and loss moduli of " + shortName(s.name()) + " against frequency (replicate mean ± SD), the "
                 + (curve == null ? "no model converged" : "best-supported model " + curve.model().id() + " with its 95 % band")
                 + ", and the residuals of the fit on a log scale.", c);
+    }
+
+    /**
+     * Puts a moduli axis in the unit that suits its data — Pa, kPa, MPa or GPa, from the largest value
+     * shown — with tick labels in plain numbers of that unit (1, 10, 100 rather than 1E3).
+     *
+     * @param label the quantity, e.g. "moduli E′, E″"; the unit is added in brackets
+     */
+    static void inModulusUnit(LogAxis axis, String label, double largestPa) {
+        String[] units = {"Pa", "kPa", "MPa", "GPa"};
+        int k = 0;
+        while (k < units.length - 1 && largestPa >= Math.pow(1000, k + 1)) {
+            k++;
+        }
+        double factor = Math.pow(1000, k);
+        axis.setLabel(label + " [" + units[k] + "]");
+        axis.setNumberFormatOverride(new Scaled(factor));
+    }
+
+    /** The largest finite value of a dataset's y (or x) values. */
+    static double largest(org.jfree.data.xy.XYDataset d, boolean y) {
+        double max = 0;
+        for (int sr = 0; sr < d.getSeriesCount(); sr++) {
+            for (int i = 0; i < d.getItemCount(sr); i++) {
+                double v = y ? d.getYValue(sr, i) : d.getXValue(sr, i);
+                if (Double.isFinite(v)) {
+                    max = Math.max(max, v);
+                }
+            }
+        }
+        return max;
+    }
+
+    /** Tick labels of values divided by a unit factor, in plain notation. */
+    static final class Scaled extends java.text.NumberFormat {
+        private static final long serialVersionUID = 1L;
+        private final double factor;
+        private final DecimalFormat plain = new DecimalFormat("0.####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT));
+
+        Scaled(double factor) {
+            this.factor = factor;
+        }
+
+        @Override
+        public StringBuffer format(double number, StringBuffer to, java.text.FieldPosition pos) {
+            return plain.format(number / factor, to, pos);
+        }
+
+        @Override
+        public StringBuffer format(long number, StringBuffer to, java.text.FieldPosition pos) {
+            return plain.format(number / factor, to, pos);
+        }
+
+        @Override
+        public Number parse(String source, java.text.ParsePosition pos) {
+            return null;
+        }
     }
 
     /** Names longer than this are shortened in titles, legends, axis labels and captions (tables keep them whole). */
@@ -372,7 +431,9 @@ public final class Figures {
             data.addSeries(rl);
             k++;
         }
-        XYPlot plot = new XYPlot(data, frequencyAxis(), logAxis("moduli " + m + "′, " + m + "″ [Pa]"), null);
+        LogAxis moduli = logAxis("moduli");
+        inModulusUnit(moduli, "moduli " + m + "′, " + m + "″", largest(data, true));
+        XYPlot plot = new XYPlot(data, frequencyAxis(), moduli, null);
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
         r.setSeriesLinesVisible(0, false);
         r.setSeriesLinesVisible(1, false);
@@ -417,9 +478,10 @@ public final class Figures {
         }
         boolean vertical = r.factors().stream().anyMatch(f -> f.placed() && f.bT() != 1.0);
         LogAxis x = frequencyAxis();
-        x.setLabel("reduced frequency a_T f [Hz] at " + Numbers.plain(r.referenceC()) + " °C");
-        XYPlot plot = new XYPlot(data, x, logAxis("moduli " + m + "′ (filled), " + m + "″" + (vertical ? " divided by b_T" : "")
-                + " [Pa]"), null);
+        x.setLabel("reduced frequency a_T·f [Hz] at " + Numbers.plain(r.referenceC()) + " °C");
+        LogAxis moduli = logAxis("moduli");
+        inModulusUnit(moduli, "moduli " + m + "′ (filled), " + m + "″" + (vertical ? " divided by b_T" : ""), largest(data, true));
+        XYPlot plot = new XYPlot(data, x, moduli, null);
         XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
         for (int i = 0; i < data.getSeriesCount(); i++) {
             rr.setSeriesPaint(i, Palette.colour(i / 2));
@@ -511,7 +573,9 @@ public final class Figures {
         y.setLabelFont(Palette.LABEL);
         y.setAutoRangeIncludesZero(false);
         String m = ts.sweeps().get(0).kind().letter();
-        XYPlot plot = new XYPlot(data, logAxis("|" + m + "*| [Pa]"), y, null);
+        LogAxis magnitude = logAxis("|" + m + "*|");
+        inModulusUnit(magnitude, "|" + m + "*|", largest(data, false));
+        XYPlot plot = new XYPlot(data, magnitude, y, null);
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
         for (int i = 0; i < data.getSeriesCount(); i++) {
             r.setSeriesPaint(i, Palette.colour(i));

@@ -33,6 +33,11 @@ class FiguresTest {
         assertEquals(12, top.getDataset(0).getItemCount(0), "12 frequencies, replicates averaged");
         assertEquals(2, top.getDataset(1).getSeriesCount(), "E′ and E″ of the model");
         assertEquals(2, residuals.getDataset().getSeriesCount());
+        // moduli of paint films (tens of MPa) read in MPa with plain tick labels, not "1E7"
+        org.jfree.chart.axis.LogAxis moduli = (org.jfree.chart.axis.LogAxis) top.getRangeAxis();
+        assertTrue(moduli.getLabel().endsWith("[MPa]"), moduli.getLabel());
+        assertEquals("10", moduli.getNumberFormatOverride().format(1e7));
+        assertEquals("0.5", moduli.getNumberFormatOverride().format(5e5));
         assertTrue(f.png().length > 10_000);
         assertTrue(f.svg().startsWith("<svg"));
     }
