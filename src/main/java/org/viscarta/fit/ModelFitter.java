@@ -171,7 +171,8 @@ public final class ModelFitter {
         }
         Solution sol = engine.solveMultiStart(n, f, starts);
         if (!sol.converged() || !(sol.rss() >= 0) || !Double.isFinite(sol.rss())) {
-            return notFitted(sample, model, n, sol.message().isEmpty() ? "the fit did not converge" : sol.message());
+            return notFitted(sample, model, n, "could not be fitted: no stable best fit was reached from these data ("
+                    + (sol.message().isEmpty() ? "the fit did not converge" : sol.message()) + ")");
         }
         return describe(sample, model, sol, n, omegaRange(omega));
     }
@@ -345,24 +346,26 @@ public final class ModelFitter {
                                List<ParameterSpec> specs, double[] window) {
         List<String> why = new ArrayList<>();
         if (singular) {
-            why.add("the covariance matrix is singular");
+            why.add("these data cannot tell it apart from the other parameters (singular covariance matrix)");
         } else if (!Double.isFinite(se)) {
-            why.add("its standard error cannot be computed");
+            why.add("its uncertainty cannot be computed");
         } else if (!(se / Math.abs(theta) <= MAX_RELATIVE_SE)) {
-            why.add(String.format(Locale.ROOT, "relative standard error %.0f %% exceeds 100 %%", 100 * se / Math.abs(theta)));
+            why.add(String.format(Locale.ROOT, "its uncertainty (±%.0f %%) is larger than the value itself", 100 * se / Math.abs(theta)));
         }
         if (s.isTime()) {
             double tauLow = 1.0 / window[1];
             double tauHigh = 1.0 / window[0];
             if (theta < tauLow / 10 || theta > tauHigh * 10) {
                 why.add(String.format(Locale.ROOT,
-                        "the time lies more than a decade outside the measured window (1/ω from %.3g s to %.3g s)", tauLow, tauHigh));
+                        "the time lies more than ten times outside the times these frequencies can show (1/ω from %.3g s "
+                                + "to %.3g s)", tauLow, tauHigh));
             }
         }
         if (corr != null) {
             for (int k = 0; k < corr.length; k++) {
                 if (k != j && Math.abs(corr[j][k]) > MAX_CORRELATION) {
-                    why.add(String.format(Locale.ROOT, "correlation %.3f with %s", corr[j][k], specs.get(k).name()));
+                    why.add(String.format(Locale.ROOT, "it moves together with %s (correlation %.3f), so the data cannot "
+                            + "separate the two", specs.get(k).name(), corr[j][k]));
                 }
             }
         }
