@@ -49,8 +49,8 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
 
         @Override
         public String describe() {
-            return String.format(Locale.ROOT, "sphere indentation, R = %.4g m, h0 = %.4g m, ν = %.3g (linearised Hertz)", radius,
-                    staticDepth, poisson);
+            return String.format(Locale.ROOT, "sphere indentation, R = %s, h0 = %s, ν = %.3g (linearised Hertz)", length(radius),
+                    length(staticDepth), poisson);
         }
     }
 
@@ -70,7 +70,7 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
 
         @Override
         public String describe() {
-            return String.format(Locale.ROOT, "flat punch, a = %.4g m, ν = %.3g (Sneddon)", radius, poisson);
+            return String.format(Locale.ROOT, "flat punch, a = %s, ν = %.3g (Sneddon)", length(radius), poisson);
         }
     }
 
@@ -93,8 +93,8 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
 
         @Override
         public String describe() {
-            return String.format(Locale.ROOT, "cone, half-angle %.4g°, h_c = %.4g m, ν = %.3g, β = %.3g (Oliver–Pharr)",
-                    Math.toDegrees(halfAngleRad), contactDepth, poisson, beta);
+            return String.format(Locale.ROOT, "cone, half-angle %.4g°, h_c = %s, ν = %.3g, β = %.3g (Oliver–Pharr)",
+                    Math.toDegrees(halfAngleRad), length(contactDepth), poisson, beta);
         }
     }
 
@@ -112,7 +112,7 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
 
         @Override
         public String describe() {
-            return String.format(Locale.ROOT, "tension/compression, L = %.4g m, A = %.4g m²", length, area);
+            return String.format(Locale.ROOT, "tension/compression, L = %s, A = %.4g m²", Geometry.length(length), area);
         }
     }
 
@@ -130,7 +130,7 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
 
         @Override
         public String describe() {
-            return String.format(Locale.ROOT, "parallel-plate shear, h = %.4g m, A = %.4g m²", gap, area);
+            return String.format(Locale.ROOT, "parallel-plate shear, h = %s, A = %.4g m²", length(gap), area);
         }
     }
 
@@ -140,6 +140,21 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
      *
      * @throws IllegalArgumentException naming what is missing
      */
+    /** A length in the unit people know it by: nm, µm, mm or m, four significant digits. */
+    static String length(double metres) {
+        double a = Math.abs(metres);
+        if (a > 0 && a < 1e-6) {
+            return String.format(Locale.ROOT, "%.4g nm", metres * 1e9);
+        }
+        if (a < 1e-3) {
+            return String.format(Locale.ROOT, "%.4g µm", metres * 1e6);
+        }
+        if (a < 1) {
+            return String.format(Locale.ROOT, "%.4g mm", metres * 1e3);
+        }
+        return String.format(Locale.ROOT, "%.4g m", metres);
+    }
+
     static Geometry from(Map<String, String> meta) {
         String g = meta.get("geometry");
         if (g == null) {

@@ -61,6 +61,7 @@ public final class OutputTables {
     private static final java.util.Set<Medium> NOT_CSV = Medium.allBut(Medium.CSV);
     private static final java.util.Set<Medium> SHEET = java.util.EnumSet.of(Medium.SHEET);
     private static final java.util.Set<Medium> TERMINAL = java.util.EnumSet.of(Medium.TERMINAL);
+    private static final java.util.Set<Medium> NOT_HTML = Medium.allBut(Medium.HTML);
     private static final java.util.Set<Medium> NOT_TERMINAL = Medium.allBut(Medium.TERMINAL);
     private static final java.util.Set<Medium> SHEET_CSV = java.util.EnumSet.of(Medium.SHEET, Medium.CSV);
 
@@ -108,8 +109,13 @@ public final class OutputTables {
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, sa -> sa.sample().temperatureC())
                 .column("n_replicates", "replicates", "", Style.INTEGER, 11, sa -> sa.sample().replicates().size())
                 .column("points", "points", "", Style.INTEGER, 9, sa -> sa.sample().pointCount(), SHEET_CSV)
-                .column("frequency_low_hz", "lowest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().minFrequencyHz())
-                .column("frequency_high_hz", "highest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().maxFrequencyHz())
+                .column("frequency_low_hz", "lowest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().minFrequencyHz(),
+                        NOT_HTML)
+                .column("frequency_high_hz", "highest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().maxFrequencyHz(),
+                        NOT_HTML)
+                .column("frequency_range", "frequency range", "Hz", Style.TEXT, 16, sa -> org.viscarta.sweep.Numbers.plain(
+                        sa.sample().minFrequencyHz()) + "–" + org.viscarta.sweep.Numbers.plain(sa.sample().maxFrequencyHz()),
+                        java.util.EnumSet.of(Medium.HTML))
                 .column("tan_delta", Statements.rankedBy(request), "–", Style.DECIMAL4, 14,
                         sa -> result.rankOf(sa.sample()).map(r -> mean(r.tanDelta())).orElse(null)).colourScale()
                 .column("ci95_low", "tan δ 95 % CI low", "–", Style.DECIMAL4, 14,
