@@ -172,6 +172,7 @@ public final class Figures {
             model.addSeries(cl);
             top.setDataset(1, model);
             DeviationRenderer lines = new DeviationRenderer(true, false);
+            lines.setDrawSeriesLineAsPath(true);
             for (int i = 0; i < 2; i++) {
                 lines.setSeriesPaint(i, Palette.colour(i));
                 lines.setSeriesFillPaint(i, Palette.band(i));
@@ -331,6 +332,7 @@ public final class Figures {
         }
         XYPlot plot = new XYPlot(data, frequencyAxis(), logAxis("loss tangent tan δ [–]"), null);
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
+        r.setDrawSeriesLineAsPath(true);
         for (int i = 0; i < samples.size(); i++) {
             r.setSeriesPaint(i, Palette.colour(i));
             r.setSeriesShape(i, Palette.shape(i));
@@ -435,6 +437,8 @@ public final class Figures {
         inModulusUnit(moduli, "moduli " + m + "′, " + m + "″", largest(data, true));
         XYPlot plot = new XYPlot(data, frequencyAxis(), moduli, null);
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
+        // one path per curve, so that the dashes of loss curves run on over densely sampled points
+        r.setDrawSeriesLineAsPath(true);
         r.setSeriesLinesVisible(0, false);
         r.setSeriesLinesVisible(1, false);
         r.setSeriesPaint(0, Color.BLACK);
@@ -546,6 +550,7 @@ public final class Figures {
         }
         plot.setDataset(1, laws);
         XYLineAndShapeRenderer lr = new XYLineAndShapeRenderer(true, false);
+        lr.setDrawSeriesLineAsPath(true);
         for (int i = 0; i < 2; i++) {
             lr.setSeriesPaint(i, Palette.colour(i));
             lr.setSeriesStroke(i, Palette.line(i));
@@ -577,6 +582,7 @@ public final class Figures {
         inModulusUnit(magnitude, "|" + m + "*|", largest(data, false));
         XYPlot plot = new XYPlot(data, magnitude, y, null);
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
+        r.setDrawSeriesLineAsPath(true);
         for (int i = 0; i < data.getSeriesCount(); i++) {
             r.setSeriesPaint(i, Palette.colour(i));
             r.setSeriesShape(i, Palette.shape(i));
