@@ -148,6 +148,9 @@ public final class WorkbookReport {
         org.apache.poi.ss.usermodel.CreationHelper helper = wb.getCreationHelper();
         int row = 2;
         for (RenderedFigure f : figures) {
+            if (row > 2) {
+                s.setRowBreak(row - 1);
+            }
             Row caption = s.createRow(row);
             caption.createCell(0).setCellValue(f.stem() + ": " + f.caption());
             int picture = wb.addPicture(f.png(), Workbook.PICTURE_TYPE_PNG);
@@ -340,7 +343,7 @@ public final class WorkbookReport {
      * definitions present, POI looks up a default style for every new cell, which is slow.
      */
     private static void widths(Sheet s, int... widths) {
-        printSetup(s);
+        printSetup(s, java.util.Arrays.stream(widths).sum());
         for (int i = 0; i < widths.length; i++) {
             s.setColumnWidth(i, widths[i] * 256);
         }
@@ -384,10 +387,17 @@ public final class WorkbookReport {
     }
 
     /** Landscape, one page wide, so that a printed or PDF sheet keeps its columns together. */
-    private static void printSetup(Sheet s) {
+    /** Characters of column width a landscape page holds while the print stays legible (about 70 % scale). */
+    private static final int PAGE_CHARACTERS = 190;
+
+    /**
+     * Landscape; as many pages wide as the columns need to stay legible (one page for most sheets,
+     * two or more for the widest), as many pages down as the rows need.
+     */
+    private static void printSetup(Sheet s, int totalWidth) {
         s.setFitToPage(true);
         s.getPrintSetup().setLandscape(true);
-        s.getPrintSetup().setFitWidth((short) 1);
+        s.getPrintSetup().setFitWidth((short) Math.max(1, (totalWidth + PAGE_CHARACTERS - 1) / PAGE_CHARACTERS));
         s.getPrintSetup().setFitHeight((short) 0);
     }
 
