@@ -82,19 +82,10 @@ public final class Benchmarks {
      * a gentle gradient of tan δ, the case that once made the letter display run for minutes.
      */
     static void letters(int n) {
-        java.util.Random rng = new java.util.Random(3);
-        List<String> names = new java.util.ArrayList<>();
-        List<String> groups = new java.util.ArrayList<>();
-        List<double[]> values = new java.util.ArrayList<>();
-        for (int i = 0; i < n; i++) {
-            names.add("s" + i);
-            groups.add("");
-            double mean = 0.5 - 0.3 * i / n;
-            values.add(new double[] {mean + 0.01 * rng.nextGaussian(), mean + 0.01 * rng.nextGaussian(), mean + 0.01 * rng.nextGaussian()});
-        }
+        var samples = org.viscarta.compare.GradientSamples.of(n, 0.3 / n);
         for (int round = 0; round < 3; round++) {
             long t0 = System.nanoTime();
-            var r = org.viscarta.compare.DampingComparison.compare(names, groups, values, 0.05);
+            var r = samples.compare();
             long t1 = System.nanoTime();
             System.out.printf(Locale.ROOT, "letters: %d samples x 3 replicates on a gradient: %.2f s (%d pairs; letters %s)%n", n,
                     (t1 - t0) / 1e9, r.pairs().size(), r.letters().get(0).isEmpty() ? "replaced by the pairwise table" : "shown");

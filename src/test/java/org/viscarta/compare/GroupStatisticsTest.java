@@ -114,18 +114,8 @@ class GroupStatisticsTest {
     @Test
     void aGentleGradientOfManySamplesEndsWithReadableLettersOrThePairwiseTable() {
         org.junit.jupiter.api.Assertions.assertTimeoutPreemptively(java.time.Duration.ofSeconds(60), () -> {
-            java.util.Random rng = new java.util.Random(3);
             int n = 120;
-            List<String> names = new java.util.ArrayList<>();
-            List<String> groups = new java.util.ArrayList<>();
-            List<double[]> values = new java.util.ArrayList<>();
-            for (int i = 0; i < n; i++) {
-                names.add("s" + i);
-                groups.add("");
-                double mean = 0.5 - 0.002 * i;
-                values.add(new double[] {mean + 0.01 * rng.nextGaussian(), mean + 0.01 * rng.nextGaussian(), mean + 0.01 * rng.nextGaussian()});
-            }
-            DampingComparison.Result r = DampingComparison.compare(names, groups, values, 0.05);
+            DampingComparison.Result r = GradientSamples.of(n, 0.002).compare();
             assertEquals(n, r.letters().size());
             int widest = r.letters().stream().mapToInt(String::length).max().orElse(0);
             boolean shown = r.letters().stream().anyMatch(l -> !l.isEmpty());
