@@ -13,8 +13,9 @@ import picocli.CommandLine.Option;
 /** What {@code report} adds: the target to mimic, how master curves are built, and the run time it states. */
 final class ReportOptions {
 
-    @Option(names = "--target", paramLabel = "SAMPLE",
-            description = "Name of a sample to mimic: every other sample is ranked by its distance to it (sheet Mimic ranking).")
+    @Option(names = "--target", paramLabel = "SAMPLE|FILE",
+            description = "The material to mimic — a sample's name, or a file holding it, as in 'match --target': every "
+                    + "(other) sample is ranked by its distance to it (sheet Mimic ranking).")
     String target;
 
     @Option(names = "--reference-temperature", paramLabel = "°C", defaultValue = "23",
@@ -46,6 +47,10 @@ final class ReportOptions {
 
     AnalysisRequest.Builder applyTo(AnalysisRequest.Builder b) {
         b.masterCurves(new MasterCurves(referenceTemperature, ShiftAnalysis.Vertical.parse(vertical)));
-        return target == null ? b : b.target(new Target.AmongInputs(target));
+        if (target == null) {
+            return b;
+        }
+        java.nio.file.Path file = java.nio.file.Path.of(target);
+        return b.target(java.nio.file.Files.isRegularFile(file) ? new Target.FromFile(file) : new Target.AmongInputs(target));
     }
 }

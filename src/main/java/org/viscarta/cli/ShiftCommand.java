@@ -45,7 +45,7 @@ final class ShiftCommand implements Callable<Integer> {
                     + "fitted (horizontal shifts from tan δ alone, then the offset of log |E*|).")
     String vertical;
 
-    @Option(names = "--min-overlap", paramLabel = "DECADES", defaultValue = "0.3",
+    @Option(names = "--min-superposition-overlap", paramLabel = "DECADES", defaultValue = "0.3",
             description = "Shortest overlap of neighbouring curves that may be superposed (default: ${DEFAULT-VALUE}).")
     double minOverlap;
 

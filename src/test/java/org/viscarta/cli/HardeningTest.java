@@ -165,4 +165,15 @@ class HardeningTest {
         assertEquals(0, rep.exitCode(), rep.err());
         assertEquals(Files.getPosixFilePermissions(reference), Files.getPosixFilePermissions(report.resolve("report.xlsx")));
     }
+
+    /** {@code --target} means the same in report as in match: a sample's name, or a file that holds the target. */
+    @Test
+    void reportTakesATargetFileAsMatchDoes() throws IOException {
+        Path out = dir.resolve("mimic");
+        CliRun r = CliRun.of("report", "demo-data/hydrogel-screen/gelatin-5pct-r1.csv", "demo-data/hydrogel-screen/agarose-1.0pct-r1.csv",
+                "--target", "demo-data/hydrogel-screen/target-soft-tissue-r1.csv", "--models", "springpot,zener", "--out", out.toString(),
+                "--quiet");
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(Files.readString(out.resolve("report.html")).contains("Best mimic of target-soft-tissue"));
+    }
 }
