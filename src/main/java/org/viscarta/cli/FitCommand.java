@@ -89,40 +89,53 @@ final class FitCommand implements Callable<Integer> {
         return CommandLine.ExitCode.OK;
     }
 
+    /** Terminal output fits in this many columns; every parameter of every model is in {@code -o FILE.csv}. */
+    private static final int TERMINAL_WIDTH = 100;
+
     private static void printSample(PrintWriter out, SampleAnalysis sa) {
         out.printf("%s (%d replicate(s), %s moduli)%n", sa.sample().name(), sa.sample().replicates().size(), sa.sample().kind());
-        TextTable t = new TextTable("model", "AICc", "ΔAICc", "weight", "best", "parameters (value ± standard error) [95 % CI]");
+        TextTable t = new TextTable("model", "AICc", "ΔAICc", "Akaike weight", "best");
         for (ModelSelection.Ranked rk : sa.fits()) {
             FitResult f = rk.fit();
-            List<String> ps = new ArrayList<>();
-            for (ParameterEstimate p : f.parameters()) {
-                ps.add(p.name() + " = " + Format.g4(p.value()) + " ± " + Format.g4(p.stdError())
-                        + (p.unit().equals("-") ? "" : " " + p.unit())
-                        + " [" + Format.g4(p.ci95Low()) + ", " + Format.g4(p.ci95High()) + "]" + (p.undetermined() ? " (!)" : ""));
-            }
-            t.add(f.variant().isEmpty() ? f.model() : f.model() + " (" + f.variant() + ")",
-                    f.converged() ? Format.g4(f.aicc()) : "not converged", Format.g4(rk.deltaAicc()), Format.g4(rk.weight()),
-                    rk.best() ? "yes" : "", f.converged() ? String.join("; ", ps) : f.message());
+            t.add(f.model(), f.converged() ? Format.g4(f.aicc()) : "not fitted", f.converged() ? String.format(java.util.Locale.ROOT, "%.2f", rk.deltaAicc()) : "",
+                    f.converged() ? weight(rk.weight()) : "", rk.best() ? "yes" : "");
         }
         t.print(out);
         List<String> close = sa.alsoSupported();
         sa.best().ifPresentOrElse(b -> {
-            out.println("  best supported: " + b.model() + (close.isEmpty() ? "" : "; within ΔAICc < 2: " + String.join(", ", close)));
+            out.println("  best supported: " + b.model() + (b.variant().isEmpty() ? "" : " (" + b.variant() + ")")
+                    + (close.isEmpty() ? "" : "; within ΔAICc < 2: " + String.join(", ", close)));
+            TextTable p = new TextTable("  parameter", "value", "± standard error", "unit", "95 % CI", "");
+            for (ParameterEstimate e : b.parameters()) {
+                p.add("  " + e.name(), Format.g4(e.value()), Format.g4(e.stdError()), e.unit().equals("-") ? "" : e.unit(),
+                        "[" + Format.g4(e.ci95Low()) + ", " + Format.g4(e.ci95High()) + "]", e.undetermined() ? "(!)" : "");
+            }
+            p.print(out);
             List<String> ds = new ArrayList<>();
             for (DerivedEstimate d : b.derived()) {
                 ds.add(d.name() + " = " + Format.g4(d.value()) + " ± " + Format.g4(d.stdError()) + (d.unit().equals("-") ? "" : " " + d.unit()));
             }
             if (!ds.isEmpty()) {
-                out.println("  derived (" + b.model() + "): " + String.join("; ", ds));
+                out.println(Format.wrap("  derived (" + b.model() + "): " + String.join("; ", ds), TERMINAL_WIDTH, "    "));
             }
         }, () -> out.println("  no model converged"));
         for (ModelSelection.Ranked rk : sa.fits()) {
-            for (ParameterEstimate p : rk.fit().parameters()) {
-                if (rk.fit().converged() && p.undetermined()) {
-                    out.println("  (!) " + rk.fit().model() + " " + p.name() + ": " + p.note());
+            FitResult f = rk.fit();
+            if (!f.converged()) {
+                out.println(Format.wrap("  " + f.model() + ": " + f.message(), TERMINAL_WIDTH, "    "));
+                continue;
+            }
+            for (ParameterEstimate p : f.parameters()) {
+                if (p.undetermined()) {
+                    out.println(Format.wrap("  (!) " + f.model() + " " + p.name() + ": " + p.note(), TERMINAL_WIDTH, "    "));
                 }
             }
         }
+    }
+
+    /** An Akaike weight as people read it: four decimals, "< 0.0001" below. */
+    private static String weight(double w) {
+        return w < 1e-4 ? "< 0.0001" : String.format(java.util.Locale.ROOT, "%.4f", w);
     }
 
     private static void printTimeDomain(PrintWriter out, SampleAnalysis sa) {
