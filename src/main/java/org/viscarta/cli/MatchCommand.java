@@ -15,6 +15,7 @@ import org.viscarta.analysis.SampleAnalysis;
 import org.viscarta.analysis.Target;
 import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReferenceDistance;
+import org.viscarta.sweep.Numbers;
 import org.viscarta.report.OutputTables;
 import org.viscarta.table.CsvTable;
 import org.viscarta.table.Table;
@@ -123,8 +124,20 @@ final class MatchCommand implements Callable<Integer> {
     }
 
     private static void print(PrintWriter out, Table<Matcher.Match> table, List<Matcher.Match> ranked, int top) {
-        TerminalTable.print(table, ranked.stream().limit(top).toList(), out);
-        out.println("  first and second distinguishable: " + Matcher.distinguishable(ranked));
+        List<Matcher.Match> shown = ranked.stream().limit(top).toList();
+        TerminalTable.print(table, shown, out);
+        for (Matcher.Match m : shown) {
+            ReferenceDistance.Result r = m.result();
+            String where = r.comparable() ? String.format(java.util.Locale.ROOT, "compared over %s–%s Hz, departs most at %s Hz "
+                    + "(%+.3f decades)", Numbers.plain(r.bandLowHz()), Numbers.plain(r.bandHighHz()), Numbers.plain(r.departureHz()),
+                    r.departure())
+                    : "";
+            String text = String.join("; ", java.util.stream.Stream.of(where, r.note()).filter(x -> !x.isEmpty()).toList());
+            if (!text.isEmpty()) {
+                out.println(Format.wrap("  " + m.reference() + ": " + text, 100, "    "));
+            }
+        }
+        out.println(Format.wrap("  first and second distinguishable: " + Matcher.distinguishable(ranked), 100, "    "));
         out.println();
     }
 }

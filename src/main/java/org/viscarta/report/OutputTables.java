@@ -157,20 +157,20 @@ public final class OutputTables {
      */
     public static Table<Matcher.Match> matches(boolean mimic) {
         return Table.<Matcher.Match>named(mimic ? "Mimic ranking" : "Reference matches")
-                .column("sample", mimic ? "target" : "sample", "", Style.TEXT, mimic ? 24 : 28, Matcher.Match::sample,
-                        Medium.allBut(Medium.TERMINAL))
+                .column("sample", mimic ? "target" : "sample", "", Style.TEXT, mimic ? 24 : 28, Matcher.Match::sample, NOT_TERMINAL)
                 .column("rank", "rank", "", Style.INTEGER, 6, m -> m.rank() == 0 ? null : m.rank())
                 .column("reference", mimic ? "candidate" : "reference", "", Style.TEXT, 24, Matcher.Match::reference)
                 .column("class", mimic ? "group" : "class", "", Style.TEXT, mimic ? 14 : 12, Matcher.Match::clazz, NOT_CSV)
                 .column("distance", "distance", "decades", Style.DECIMAL4, 12, m -> m.result().distance())
                 .column("distance_uncertainty", "distance standard error", "decades", Style.DECIMAL4, 14, m -> m.result().uncertainty())
-                .column("band_low_hz", "band low", "Hz", Style.FREQUENCY, 12, m -> m.result().bandLowHz())
-                .column("band_high_hz", "band high", "Hz", Style.FREQUENCY, 12, m -> m.result().bandHighHz())
-                .column("comparable", "comparable", "", Style.TEXT, 11, m -> m.result().comparable())
-                .column("departure_hz", "largest departure at", "Hz", Style.FREQUENCY, 14, m -> m.result().departureHz(), NOT_CSV)
+                .column("band_low_hz", "band low", "Hz", Style.FREQUENCY, 12, m -> m.result().bandLowHz(), NOT_TERMINAL)
+                .column("band_high_hz", "band high", "Hz", Style.FREQUENCY, 12, m -> m.result().bandHighHz(), NOT_TERMINAL)
+                .column("comparable", "comparable", "", Style.TEXT, 11, m -> m.result().comparable(), NOT_TERMINAL)
+                .column("departure_hz", "largest departure at", "Hz", Style.FREQUENCY, 14, m -> m.result().departureHz(),
+                        java.util.EnumSet.of(Medium.SHEET, Medium.HTML))
                 .column("departure_decades", "largest departure", mimic ? "decades, target − candidate" : "decades", Style.DECIMAL4,
-                        mimic ? 16 : 14, m -> m.result().departure(), NOT_CSV)
-                .column("note", "note", "", Style.TEXT, 50, m -> m.result().note())
+                        mimic ? 16 : 14, m -> m.result().departure(), java.util.EnumSet.of(Medium.SHEET, Medium.HTML))
+                .column("note", "note", "", Style.TEXT, 50, m -> m.result().note(), NOT_TERMINAL)
                 .csvOrder("sample", "reference", "rank", "distance", "distance_uncertainty", "band_low_hz", "band_high_hz",
                         "comparable", "note")
                 .build();
