@@ -84,7 +84,7 @@ public final class Figures {
     }
 
     private static LogAxis frequencyAxis() {
-        LogAxis x = new LogAxis("frequency [Hz]");
+        LogAxis x = new ReadableLogAxis("frequency [Hz]");
         x.setTickUnit(new NumberTickUnit(1.0));
         x.setMinorTickMarksVisible(true);
         x.setNumberFormatOverride(new DecimalFormat("0.####"));
@@ -94,7 +94,7 @@ public final class Figures {
     }
 
     private static LogAxis logAxis(String label) {
-        LogAxis y = new LogAxis(label);
+        LogAxis y = new ReadableLogAxis(label);
         y.setTickUnit(new NumberTickUnit(1.0));
         y.setMinorTickMarksVisible(true);
         y.setNumberFormatOverride(new DecimalFormat("0.#####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
@@ -250,6 +250,75 @@ public final class Figures {
             }
         }
         return max;
+    }
+
+    /**
+     * A logarithmic axis whose ticks a reader can use whatever the span: every decade when the data
+     * span more than 2.5 decades (with unlabelled minor ticks between), 1-2-5 in each decade down
+     * to one decade, and 1, 1.5, 2, 3, 4, 5, 7 below that — never a lone tick. Labels come from the
+     * axis's number format (plain numbers, in the unit the axis states).
+     */
+    static final class ReadableLogAxis extends LogAxis {
+        private static final long serialVersionUID = 1L;
+
+        ReadableLogAxis(String label) {
+            super(label);
+        }
+
+        @Override
+        protected java.util.List refreshTicksHorizontal(java.awt.Graphics2D g2, java.awt.geom.Rectangle2D dataArea,
+                                                        org.jfree.chart.ui.RectangleEdge edge) {
+            org.jfree.chart.ui.TextAnchor anchor = edge == org.jfree.chart.ui.RectangleEdge.TOP
+                    ? org.jfree.chart.ui.TextAnchor.BOTTOM_CENTER : org.jfree.chart.ui.TextAnchor.TOP_CENTER;
+            return ticks(anchor);
+        }
+
+        @Override
+        protected java.util.List refreshTicksVertical(java.awt.Graphics2D g2, java.awt.geom.Rectangle2D dataArea,
+                                                      org.jfree.chart.ui.RectangleEdge edge) {
+            org.jfree.chart.ui.TextAnchor anchor = edge == org.jfree.chart.ui.RectangleEdge.RIGHT
+                    ? org.jfree.chart.ui.TextAnchor.CENTER_LEFT : org.jfree.chart.ui.TextAnchor.CENTER_RIGHT;
+            return ticks(anchor);
+        }
+
+        /** The ticks for the current range. */
+        java.util.List<org.jfree.chart.axis.ValueTick> ticks(org.jfree.chart.ui.TextAnchor anchor) {
+            double lo = getRange().getLowerBound();
+            double hi = getRange().getUpperBound();
+            java.util.List<org.jfree.chart.axis.ValueTick> out = new ArrayList<>();
+            if (!(lo > 0) || !(hi > lo) || Double.isInfinite(hi)) {
+                return out;
+            }
+            double span = Math.log10(hi / lo);
+            double[] labelled = span > 2.5 ? new double[] {1} : span >= 1 ? new double[] {1, 2, 5} : new double[] {1, 1.5, 2, 3, 4, 5, 7};
+            java.text.NumberFormat fmt = getNumberFormatOverride() != null ? getNumberFormatOverride()
+                    : new DecimalFormat("0.#####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT));
+            for (int k = (int) Math.floor(Math.log10(lo)) - 1; k <= (int) Math.ceil(Math.log10(hi)); k++) {
+                double decade = Math.pow(10, k);
+                for (int m = 1; m <= 9; m++) {
+                    double v = m * decade;
+                    if (v < lo * (1 - 1e-9) || v > hi * (1 + 1e-9)) {
+                        continue;
+                    }
+                    final int mult = m;
+                    boolean label = java.util.Arrays.stream(labelled).anyMatch(x -> x == mult);
+                    if (label) {
+                        out.add(new org.jfree.chart.axis.NumberTick(org.jfree.chart.axis.TickType.MAJOR, v, fmt.format(v), anchor,
+                                anchor, 0.0));
+                    } else if (span > 2.5) {
+                        out.add(new org.jfree.chart.axis.NumberTick(org.jfree.chart.axis.TickType.MINOR, v, "", anchor, anchor, 0.0));
+                    }
+                }
+                if (labelled.length == 7) {
+                    double v = 1.5 * decade;
+                    if (v >= lo && v <= hi) {
+                        out.add(new org.jfree.chart.axis.NumberTick(org.jfree.chart.axis.TickType.MAJOR, v, fmt.format(v), anchor,
+                                anchor, 0.0));
+                    }
+                }
+            }
+            return out;
+        }
     }
 
     /** Tick labels of values divided by a unit factor, in plain notation. */

@@ -70,4 +70,22 @@ class FiguresTest {
         assertTrue(ranking.heightPt() >= 9 * Figures.ROW_PT, "the figure grows with the samples");
         assertEquals(9, ((XYPlot) ranking.chart().getPlot()).getDataset().getItemCount(0));
     }
+
+    /** Log axes never show a lone tick: 1-2-5 in each decade over short spans, finer below a decade, decades over long ones. */
+    @Test
+    void logAxesTickAtOneTwoFiveAndNeverAlone() {
+        Figures.ReadableLogAxis axis = new Figures.ReadableLogAxis("frequency [Hz]");
+        axis.setRange(0.1, 10);
+        assertEquals(List.of("0.1", "0.2", "0.5", "1", "2", "5", "10"), labels(axis));
+        axis.setRange(3, 5.5);
+        assertEquals(List.of("3", "4", "5"), labels(axis));
+        axis.setRange(1e-3, 1e3);
+        assertEquals(List.of("0.001", "0.01", "0.1", "1", "10", "100", "1000"), labels(axis));
+    }
+
+    private static List<String> labels(Figures.ReadableLogAxis axis) {
+        return axis.ticks(org.jfree.chart.ui.TextAnchor.TOP_CENTER).stream()
+                .map(t -> ((org.jfree.chart.axis.NumberTick) t)).filter(t -> t.getTickType() == org.jfree.chart.axis.TickType.MAJOR)
+                .map(org.jfree.chart.axis.NumberTick::getText).toList();
+    }
 }
