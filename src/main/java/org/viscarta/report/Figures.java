@@ -317,6 +317,14 @@ public final class Figures {
                     }
                 }
             }
+            if (out.stream().filter(t -> t.getTickType() == org.jfree.chart.axis.TickType.MAJOR).count() < 2) {
+                // a span too short for round numbers: the ends and the middle, to two significant figures more than they differ
+                out.clear();
+                for (double v : new double[] {lo * Math.pow(hi / lo, 0.1), Math.sqrt(lo * hi), hi * Math.pow(lo / hi, 0.1)}) {
+                    out.add(new org.jfree.chart.axis.NumberTick(org.jfree.chart.axis.TickType.MAJOR, v,
+                            String.format(Locale.ROOT, "%.3g", v), anchor, anchor, 0.0));
+                }
+            }
             return out;
         }
     }
@@ -384,8 +392,44 @@ public final class Figures {
             Math.sqrt(Math.max(DeltaMethod.variance(gl, cov), 0))};
     }
 
-    /** tan δ against frequency, one series (replicate geometric mean) per sample. */
+    /**
+     * tan δ against frequency, one series (replicate geometric mean) per sample; when there are more
+     * samples than colours and they carry groups, one panel per group, so that no colour repeats
+     * within a panel.
+     */
     public static Figure tanDelta(List<Sample> samples) {
+        Map<String, List<Sample>> byGroup = new java.util.LinkedHashMap<>();
+        for (Sample s : samples) {
+            byGroup.computeIfAbsent(s.group().isEmpty() ? "no group" : s.group(), g -> new ArrayList<>()).add(s);
+        }
+        String caption = "Loss tangent tan δ = E″/E′ against frequency for every sample (geometric mean of replicates); higher "
+                + "means more damping.";
+        if (samples.size() <= Palette.colours() || byGroup.size() < 2) {
+            XYPlot plot = tanDeltaPlot(samples, logAxis("loss tangent tan δ [–]"));
+            return new Figure("tan-delta", caption, chart("Loss tangent of every sample", plot, samples.size() <= 24));
+        }
+        CombinedDomainXYPlot combined = new CombinedDomainXYPlot(frequencyAxis());
+        combined.setGap(8);
+        for (Map.Entry<String, List<Sample>> e : byGroup.entrySet()) {
+            XYPlot panel = tanDeltaPlot(e.getValue(), logAxis(shortName(e.getKey()) + ": tan δ [–]"));
+            org.jfree.chart.title.LegendTitle legend = new org.jfree.chart.title.LegendTitle(panel,
+                    new org.jfree.chart.block.ColumnArrangement(), new org.jfree.chart.block.ColumnArrangement());
+            legend.setItemFont(Palette.TICK);
+            legend.setBackgroundPaint(new Color(255, 255, 255, 150));
+            panel.addAnnotation(new org.jfree.chart.annotations.XYTitleAnnotation(0.995, 0.98, legend,
+                    org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT));
+            combined.add(panel, 1);
+        }
+        JFreeChart c = new JFreeChart("Loss tangent of every sample, by group", Palette.TITLE, combined, false);
+        for (Object p : combined.getSubplots()) {
+            finish(c, (XYPlot) p);
+        }
+        c.setBackgroundPaint(Color.WHITE);
+        int height = Math.max(Figure.HEIGHT_PT, 80 + 150 * byGroup.size());
+        return new Figure("tan-delta", caption + " One panel per group.", c, height);
+    }
+
+    private static XYPlot tanDeltaPlot(List<Sample> samples, LogAxis y) {
         XYSeriesCollection data = new XYSeriesCollection();
         java.util.Set<String> keys = new java.util.HashSet<>();
         for (Sample s : samples) {
@@ -399,17 +443,16 @@ public final class Figures {
             }
             data.addSeries(series);
         }
-        XYPlot plot = new XYPlot(data, frequencyAxis(), logAxis("loss tangent tan δ [–]"), null);
+        XYPlot plot = new XYPlot(data, frequencyAxis(), y, null);
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, true);
         r.setDrawSeriesLineAsPath(true);
         for (int i = 0; i < samples.size(); i++) {
             r.setSeriesPaint(i, Palette.colour(i));
             r.setSeriesShape(i, Palette.shape(i));
-            r.setSeriesStroke(i, Palette.line(i / 7));
+            r.setSeriesStroke(i, Palette.line(i / Palette.colours()));
         }
         plot.setRenderer(r);
-        return new Figure("tan-delta", "Loss tangent tan δ = E″/E′ against frequency for every sample (geometric mean of "
-                + "replicates); higher means more damping.", chart("Loss tangent of every sample", plot, samples.size() <= 24));
+        return plot;
     }
 
     /**

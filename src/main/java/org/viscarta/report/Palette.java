@@ -26,6 +26,11 @@ final class Palette {
     private Palette() {
     }
 
+    /** How many series one plot can tell apart by colour alone. */
+    static int colours() {
+        return COLOURS.length;
+    }
+
     static Color colour(int i) {
         return COLOURS[Math.floorMod(i, COLOURS.length)];
     }

@@ -61,8 +61,13 @@ class FiguresTest {
 
     @Test
     void overviewFiguresHaveASeriesPerSampleAndAPointPerRankedSample() {
+        // nine films in three groups, more than the palette's colours: one panel per group, a series per sample
         Figure tan = Figures.tanDelta(CAMPAIGN.inputs().samples());
-        assertEquals(9, ((XYPlot) tan.chart().getPlot()).getDataset().getSeriesCount());
+        List<XYPlot> panels = ((CombinedDomainXYPlot) tan.chart().getPlot()).getSubplots();
+        assertEquals(3, panels.size());
+        assertEquals(9, panels.stream().mapToInt(p -> p.getDataset().getSeriesCount()).sum());
+        Figure few = Figures.tanDelta(CAMPAIGN.inputs().samples().subList(0, 3));
+        assertEquals(3, ((XYPlot) few.chart().getPlot()).getDataset().getSeriesCount(), "few samples: one plot");
         Figure ranking = Figures.ranking(CAMPAIGN.ranking().orElseThrow(), "1 Hz");
         org.jfree.chart.axis.SymbolAxis names = (org.jfree.chart.axis.SymbolAxis) ((XYPlot) ranking.chart().getPlot()).getRangeAxis();
         assertEquals(9, names.getSymbols().length, "every ranked sample named");
@@ -81,6 +86,8 @@ class FiguresTest {
         assertEquals(List.of("3", "4", "5"), labels(axis));
         axis.setRange(1e-3, 1e3);
         assertEquals(List.of("0.001", "0.01", "0.1", "1", "10", "100", "1000"), labels(axis));
+        axis.setRange(0.0566, 0.0592);
+        assertEquals(3, labels(axis).size(), "a span too short for round numbers still gets labelled ticks: " + labels(axis));
     }
 
     private static List<String> labels(Figures.ReadableLogAxis axis) {
