@@ -37,6 +37,8 @@ public final class WorkbookReport {
     /** Columns (12 characters wide) and rows a figure spans in the Figures sheet: about 6.5 × 4.2 inches. */
     private static final int FIGURE_COLUMNS = 9;
     private static final int FIGURE_ROWS = 21;
+    /** The most rows a figure may span and still print on one landscape page. */
+    private static final int FIGURE_ROWS_PER_PAGE = 34;
 
     /** References listed per sample in Reference matches. */
     private static final int MATCHES_SHOWN = 5;
@@ -157,8 +159,14 @@ public final class WorkbookReport {
             org.apache.poi.ss.usermodel.ClientAnchor a = helper.createClientAnchor();
             a.setCol1(0);
             a.setRow1(row + 1);
-            a.setCol2(FIGURE_COLUMNS);
             int rowsSpanned = (int) Math.round(FIGURE_ROWS * f.aspect() / (Figure.HEIGHT_PT / (double) Figure.WIDTH_PT));
+            int columns = FIGURE_COLUMNS;
+            if (rowsSpanned > FIGURE_ROWS_PER_PAGE) {
+                // a tall figure is made narrower, keeping its shape, so that it stays on one page
+                columns = Math.max(2, (int) Math.round(FIGURE_COLUMNS * FIGURE_ROWS_PER_PAGE / (double) rowsSpanned));
+                rowsSpanned = FIGURE_ROWS_PER_PAGE;
+            }
+            a.setCol2(columns);
             a.setRow2(row + 1 + rowsSpanned);
             drawing.createPicture(a, picture);
             row += rowsSpanned + 3;
