@@ -504,10 +504,12 @@ public final class WorkbookReport {
                 rows.sentence(st.wrap, n, 7, TEMPERATURE_SERIES_WIDTH);
             }
             rows.row("The master curve is analysed as the sample '" + ts.masterName() + "' in the other sheets.");
+            rows.use(st.dec2, st.dec4, st.dec4, st.sci, st.dec4, null);
             rows.styled(st.header, "temperature [°C]", "log10 a_T [–]", "log10 a_T standard error [–]", "a_T [–]", "b_T [–]", "placed");
             for (ShiftAnalysis.Factor f : r.factors()) {
                 rows.row(f.temperatureC(), f.log10aT(), f.log10aTStdError(), f.placed() ? f.aT() : null, f.bT(), f.placed() ? "yes" : "no");
             }
+            rows.use(null, null, st.sci, st.sci, st.sci, st.sci, null, st.dec2);
             rows.styled(st.header, "law", "parameter", "value", "standard error", "95 % CI low", "95 % CI high", "unit", "AICc [–]");
             for (ShiftFits.Fit fit : java.util.Arrays.asList(r.wlf(), r.arrhenius())) {
                 if (fit == null) {

@@ -141,4 +141,23 @@ class ReportOutputTest {
             assertTrue(f.text().contains("Invented demo data"), "every figure of demo data says so");
         }
     }
+
+    /** Every number a person reads in the workbook has a display format (the full value stays in the cell). */
+    @Test
+    void everyNumberInTheWorkbookHasADisplayFormat() throws IOException {
+        try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            List<String> general = new java.util.ArrayList<>();
+            for (org.apache.poi.ss.usermodel.Sheet sheet : wb) {
+                for (org.apache.poi.ss.usermodel.Row row : sheet) {
+                    for (org.apache.poi.ss.usermodel.Cell cell : row) {
+                        if (cell.getCellType() == org.apache.poi.ss.usermodel.CellType.NUMERIC
+                                && cell.getCellStyle().getDataFormatString().equals("General")) {
+                            general.add(sheet.getSheetName() + "!" + cell.getAddress() + " = " + cell.getNumericCellValue());
+                        }
+                    }
+                }
+            }
+            assertEquals(List.of(), general.stream().limit(20).toList(), general.size() + " numbers without a display format");
+        }
+    }
 }
