@@ -6,7 +6,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.stream.IntStream;
-import org.viscarta.compare.DampingRanking;
 import org.viscarta.compare.FittedCurve;
 import org.viscarta.compare.Matcher;
 import org.viscarta.compare.ReferenceDistance;
@@ -96,16 +95,10 @@ public final class Analysis {
      * {@link TemperatureSeries#MIN_TEMPERATURES} or more temperatures.
      */
     private static java.util.Set<Sample> seriesMembers(List<Sample> samples) {
-        Map<String, java.util.Set<Double>> temperatures = new java.util.HashMap<>();
-        for (Sample s : samples) {
-            for (Sweep sw : s.replicates()) {
-                temperatures.computeIfAbsent(sw.sample(), k -> new java.util.HashSet<>()).add(sw.temperatureC());
-            }
-        }
+        java.util.Set<String> series = TemperatureSeries.names(samples.stream().flatMap(s -> s.replicates().stream()).toList());
         java.util.Set<Sample> out = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
         for (Sample s : samples) {
-            String base = s.replicates().get(0).sample();
-            if (temperatures.get(base).stream().filter(Double::isFinite).count() >= TemperatureSeries.MIN_TEMPERATURES) {
+            if (series.contains(s.replicates().get(0).sample())) {
                 out.add(s);
             }
         }

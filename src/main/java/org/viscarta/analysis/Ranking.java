@@ -6,7 +6,6 @@ import java.util.IdentityHashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.Optional;
 import java.util.function.Function;
 import org.viscarta.compare.DampingRanking;
 import org.viscarta.compare.RankingPoint;
@@ -137,10 +136,5 @@ public record Ranking(List<RankedSet> sets, List<DampingRanking.Row<Sample>> unr
                 : lo == hi ? Numbers.plain(lo) + " °C" : Numbers.plain(lo) + "–" + Numbers.plain(hi) + " °C";
         String group = byGroup && !set.get(0).group().isEmpty() ? ", group " + set.get(0).group() : "";
         return t + ", " + set.get(0).kind() + group;
-    }
-
-    /** The set a sample was ranked in, when it was. */
-    public Optional<RankedSet> setOf(Sample s) {
-        return sets.stream().filter(set -> set.result().rows().stream().anyMatch(r -> r.subject() == s)).findFirst();
     }
 }

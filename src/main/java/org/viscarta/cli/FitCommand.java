@@ -19,6 +19,7 @@ import org.viscarta.io.AtomicOutput;
 import org.viscarta.report.OutputTables;
 import org.viscarta.table.CsvTable;
 import org.viscarta.table.TerminalTable;
+import org.viscarta.table.Cells;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -97,7 +98,7 @@ final class FitCommand implements Callable<Integer> {
         TextTable t = new TextTable("model", "AICc", "ΔAICc", "Akaike weight", "best");
         for (ModelSelection.Ranked rk : sa.fits()) {
             FitResult f = rk.fit();
-            t.add(f.model(), f.converged() ? Format.g4(f.aicc()) : "not fitted", f.converged() ? String.format(java.util.Locale.ROOT, "%.2f", rk.deltaAicc()) : "",
+            t.add(f.model(), f.converged() ? Cells.g4(f.aicc()) : "not fitted", f.converged() ? String.format(java.util.Locale.ROOT, "%.2f", rk.deltaAicc()) : "",
                     f.converged() ? weight(rk.weight()) : "", rk.best() ? "yes" : "");
         }
         t.print(out);
@@ -107,13 +108,13 @@ final class FitCommand implements Callable<Integer> {
                     + (close.isEmpty() ? "" : "; within ΔAICc < 2: " + String.join(", ", close)));
             TextTable p = new TextTable("  parameter", "value", "± standard error", "unit", "95 % CI", "");
             for (ParameterEstimate e : b.parameters()) {
-                p.add("  " + e.name(), Format.g4(e.value()), Format.g4(e.stdError()), e.unit().equals("-") ? "" : e.unit(),
-                        "[" + Format.g4(e.ci95Low()) + ", " + Format.g4(e.ci95High()) + "]", e.undetermined() ? "(!)" : "");
+                p.add("  " + e.name(), Cells.g4(e.value()), Cells.g4(e.stdError()), e.unit().equals("-") ? "" : e.unit(),
+                        "[" + Cells.g4(e.ci95Low()) + ", " + Cells.g4(e.ci95High()) + "]", e.undetermined() ? "(!)" : "");
             }
             p.print(out);
             List<String> ds = new ArrayList<>();
             for (DerivedEstimate d : b.derived()) {
-                ds.add(d.name() + " = " + Format.g4(d.value()) + " ± " + Format.g4(d.stdError()) + (d.unit().equals("-") ? "" : " " + d.unit()));
+                ds.add(d.name() + " = " + Cells.g4(d.value()) + " ± " + Cells.g4(d.stdError()) + (d.unit().equals("-") ? "" : " " + d.unit()));
             }
             if (!ds.isEmpty()) {
                 out.println(Format.wrap("  derived (" + b.model() + "): " + String.join("; ", ds), TERMINAL_WIDTH, "    "));

@@ -15,6 +15,7 @@ import org.viscarta.io.InputException;
 import org.viscarta.io.ReadWarning;
 import org.viscarta.io.SweepReader;
 import org.viscarta.io.TableInfo;
+import org.viscarta.table.Cells;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -75,7 +76,7 @@ final class InspectCommand implements Callable<Integer> {
             TextTable t = new TextTable("sample", "replicate", "group", "basis", "points", "frequency [Hz]", "temperature [°C]");
             for (SweepReader.SweepSummary w : s.sweeps()) {
                 t.add(w.sample(), w.replicate(), w.group(), w.kind().toString(), Long.toString(w.points()),
-                        Format.g4(w.minFrequencyHz()) + "–" + Format.g4(w.maxFrequencyHz()), Format.g4(w.temperatureC()));
+                        Cells.g4(w.minFrequencyHz()) + "–" + Cells.g4(w.maxFrequencyHz()), Cells.g4(w.temperatureC()));
             }
             t.print(o);
             for (ReadWarning w : s.warnings()) {

@@ -10,6 +10,7 @@ import org.viscarta.library.LibraryFolder;
 import org.viscarta.library.ReferenceLibrary;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
+import org.viscarta.table.Cells;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -96,7 +97,7 @@ final class LibraryCommand implements Runnable {
                 }
                 Sweep s = e.sweep();
                 t.add(e.name(), e.clazz(), s.meta("temperature").orElse(""), s.meta("method").orElse(""),
-                        Format.g4(s.minFrequencyHz()) + "–" + Format.g4(s.maxFrequencyHz()), Integer.toString(s.points().size()));
+                        Cells.g4(s.minFrequencyHz()) + "–" + Cells.g4(s.maxFrequencyHz()), Integer.toString(s.points().size()));
                 n++;
             }
             PrintWriter out = spec.commandLine().getOut();
@@ -130,7 +131,7 @@ final class LibraryCommand implements Runnable {
                     .forEach(m -> out.println("  " + m.getKey() + ": " + m.getValue()));
             TextTable t = new TextTable("frequency [Hz]", "storage modulus [Pa]", "loss modulus [Pa]", "tan δ");
             for (SweepPoint p : e.sweep().points()) {
-                t.add(Format.g4(p.frequencyHz()), Format.g4(p.storage()), Format.g4(p.loss()), Format.g4(p.lossTangent()));
+                t.add(Cells.g4(p.frequencyHz()), Cells.g4(p.storage()), Cells.g4(p.loss()), Cells.g4(p.lossTangent()));
             }
             t.print(out);
             return CommandLine.ExitCode.OK;

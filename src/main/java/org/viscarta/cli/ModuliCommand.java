@@ -14,6 +14,7 @@ import org.viscarta.io.ReadWarning;
 import org.viscarta.raw.RawConverter;
 import org.viscarta.raw.RawReader;
 import org.viscarta.raw.RawSweeps;
+import org.viscarta.table.Cells;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -96,8 +97,8 @@ final class ModuliCommand implements Callable<Integer> {
             TextTable t = new TextTable("frequency [Hz]", r.sweep().kind().letter() + "′ [Pa]", r.sweep().kind().letter() + "″ [Pa]",
                     "tan δ", "force THD", "contact 2nd harmonic", "linear");
             for (RawConverter.Point p : r.points()) {
-                t.add(Format.g4(p.frequencyHz()), Format.g4(p.storage()), Format.g4(p.loss()), Format.g4(p.loss() / p.storage()),
-                        Format.g4(p.forceDistortion()), Format.g4(p.contactHarmonic()), p.linear() ? "yes" : "no");
+                t.add(Cells.g4(p.frequencyHz()), Cells.g4(p.storage()), Cells.g4(p.loss()), Cells.g4(p.loss() / p.storage()),
+                        Cells.g4(p.forceDistortion()), Cells.g4(p.contactHarmonic()), p.linear() ? "yes" : "no");
             }
             t.print(out);
             for (ReadWarning w : r.warnings()) {

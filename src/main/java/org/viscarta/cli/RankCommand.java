@@ -15,6 +15,7 @@ import org.viscarta.report.OutputTables;
 import org.viscarta.table.CsvTable;
 import org.viscarta.table.Table;
 import org.viscarta.table.TerminalTable;
+import org.viscarta.table.Cells;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -66,7 +67,7 @@ final class RankCommand implements Callable<Integer> {
             cmp.statements().forEach(t -> out.println(Format.wrap(t, TERMINAL_WIDTH, "")));
             for (DampingComparison.GroupSummary g : cmp.groups()) {
                 out.printf("  group %s: %d sample(s), %d values, mean tan δ %s [%s, %s]%n", g.group(), g.samples(), g.values().n(),
-                        Format.g4(g.values().mean()), Format.g4(g.values().ci95Low()), Format.g4(g.values().ci95High()));
+                        Cells.g4(g.values().mean()), Cells.g4(g.values().ci95Low()), Cells.g4(g.values().ci95High()));
             }
             set.result().rows().stream().filter(r -> !r.note().isEmpty())
                     .forEach(r -> out.println(Format.wrap("  note on " + r.name() + ": " + r.note(), TERMINAL_WIDTH, "    ")));
@@ -75,7 +76,7 @@ final class RankCommand implements Callable<Integer> {
             out.println();
             out.println("Not ranked:");
             for (DampingRanking.Row<Sample> r : ranking.unranked()) {
-                out.println(Format.wrap("  " + r.name() + (r.tanDelta() == null ? "" : " (tan δ " + Format.g4(r.tanDelta().mean())
+                out.println(Format.wrap("  " + r.name() + (r.tanDelta() == null ? "" : " (tan δ " + Cells.g4(r.tanDelta().mean())
                         + ")") + ": " + r.note(), TERMINAL_WIDTH, "    "));
             }
         }

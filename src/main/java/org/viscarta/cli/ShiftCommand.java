@@ -16,6 +16,7 @@ import org.viscarta.sweep.Sweep;
 import org.viscarta.temperature.ShiftAnalysis;
 import org.viscarta.temperature.ShiftFits;
 import org.viscarta.temperature.ShiftLaws;
+import org.viscarta.table.Cells;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -92,10 +93,10 @@ final class ShiftCommand implements Callable<Integer> {
         TextTable t = new TextTable("temperature [°C]", "log10 a_T", "± SE", "a_T", "b_T", "placed");
         List<List<String>> factorRows = new ArrayList<>();
         for (ShiftAnalysis.Factor f : r.factors()) {
-            t.add(Numbers.plain(f.temperatureC()), Format.g4(f.log10aT()), Format.g4(f.log10aTStdError()), Format.g4(f.aT()),
-                    Format.g4(f.bT()), f.placed() ? "yes" : "no");
-            factorRows.add(List.of(Format.csv(f.temperatureC()), Format.csv(f.placed() ? f.aT() : Double.NaN), Format.csv(f.log10aT()),
-                    Format.csv(f.log10aTStdError()), Format.csv(f.bT())));
+            t.add(Numbers.plain(f.temperatureC()), Cells.g4(f.log10aT()), Cells.g4(f.log10aTStdError()), Cells.g4(f.aT()),
+                    Cells.g4(f.bT()), f.placed() ? "yes" : "no");
+            factorRows.add(List.of(Cells.csv(f.temperatureC()), Cells.csv(f.placed() ? f.aT() : Double.NaN), Cells.csv(f.log10aT()),
+                    Cells.csv(f.log10aTStdError()), Cells.csv(f.bT())));
         }
         t.print(out);
         List<List<String>> fitRows = new ArrayList<>();
@@ -105,24 +106,24 @@ final class ShiftCommand implements Callable<Integer> {
             }
             StringBuilder sb = new StringBuilder("  " + fit.law() + ":");
             for (ShiftFits.Parameter p : fit.parameters()) {
-                sb.append(String.format(java.util.Locale.ROOT, " %s = %s ± %s %s [%s, %s];", p.name(), Format.g4(p.value()),
-                        Format.g4(p.stdError()), p.unit().equals("-") ? "" : p.unit(), Format.g4(p.ci95Low()), Format.g4(p.ci95High())));
-                fitRows.add(List.of(fit.law(), p.name(), Format.csv(p.value()), Format.csv(p.stdError()), Format.csv(p.ci95Low()),
-                        Format.csv(p.ci95High()), p.unit()));
+                sb.append(String.format(java.util.Locale.ROOT, " %s = %s ± %s %s [%s, %s];", p.name(), Cells.g4(p.value()),
+                        Cells.g4(p.stdError()), p.unit().equals("-") ? "" : p.unit(), Cells.g4(p.ci95Low()), Cells.g4(p.ci95High())));
+                fitRows.add(List.of(fit.law(), p.name(), Cells.csv(p.value()), Cells.csv(p.stdError()), Cells.csv(p.ci95Low()),
+                        Cells.csv(p.ci95High()), p.unit()));
             }
-            out.println(sb.append(" AICc ").append(Format.g4(fit.aicc())));
+            out.println(sb.append(" AICc ").append(Cells.g4(fit.aicc())));
         }
         if (wlfAt != null && r.wlf() != null) {
             double[] c2 = ShiftLaws.rereference(r.wlf().parameter("C1").value(), r.wlf().parameter("C2").value(), wlfAt - reference);
-            out.printf("  WLF at %s °C: C1 = %s, C2 = %s K%n", Numbers.plain(wlfAt), Format.g4(c2[0]), Format.g4(c2[1]));
-            fitRows.add(List.of("WLF at " + Numbers.plain(wlfAt) + " °C", "C1", Format.csv(c2[0]), "", "", "", "-"));
-            fitRows.add(List.of("WLF at " + Numbers.plain(wlfAt) + " °C", "C2", Format.csv(c2[1]), "", "", "", "K"));
+            out.printf("  WLF at %s °C: C1 = %s, C2 = %s K%n", Numbers.plain(wlfAt), Cells.g4(c2[0]), Cells.g4(c2[1]));
+            fitRows.add(List.of("WLF at " + Numbers.plain(wlfAt) + " °C", "C1", Cells.csv(c2[0]), "", "", "", "-"));
+            fitRows.add(List.of("WLF at " + Numbers.plain(wlfAt) + " °C", "C2", Cells.csv(c2[1]), "", "", "", "K"));
         }
         for (String n : r.notes()) {
             out.println(n);
         }
-        out.printf("master curve: %d points, %s–%s Hz at %s °C%n", r.master().size(), Format.g4(r.master().get(0).frequencyHz()),
-                Format.g4(r.master().get(r.master().size() - 1).frequencyHz()), Numbers.plain(reference));
+        out.printf("master curve: %d points, %s–%s Hz at %s °C%n", r.master().size(), Cells.g4(r.master().get(0).frequencyHz()),
+                Cells.g4(r.master().get(r.master().size() - 1).frequencyHz()), Numbers.plain(reference));
         out.flush();
         if (outDir != null) {
             OutputOptions.writeCsv(outDir.resolve("shift-factors.csv"), force,

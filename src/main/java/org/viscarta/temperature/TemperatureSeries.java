@@ -21,6 +21,25 @@ public record TemperatureSeries(String sample, List<Sweep> sweeps, ShiftAnalysis
         sweeps = List.copyOf(sweeps);
     }
 
+    /** The names of the samples measured at {@link #MIN_TEMPERATURES} or more temperatures: the temperature series. */
+    public static java.util.Set<String> names(List<Sweep> all) {
+        java.util.Set<String> out = new java.util.LinkedHashSet<>();
+        byName(all).forEach((name, sweeps) -> {
+            if (sweeps.stream().map(Sweep::temperatureC).filter(Double::isFinite).distinct().count() >= MIN_TEMPERATURES) {
+                out.add(name);
+            }
+        });
+        return out;
+    }
+
+    private static Map<String, List<Sweep>> byName(List<Sweep> all) {
+        Map<String, List<Sweep>> byName = new LinkedHashMap<>();
+        for (Sweep s : all) {
+            byName.computeIfAbsent(s.sample(), k -> new ArrayList<>()).add(s);
+        }
+        return byName;
+    }
+
     /** Temperatures at which a sample must have been measured to be superposed in a report. */
     public static final int MIN_TEMPERATURES = 3;
 
@@ -30,16 +49,14 @@ public record TemperatureSeries(String sample, List<Sweep> sweeps, ShiftAnalysis
      * closest to it.
      */
     public static List<TemperatureSeries> find(List<Sweep> all, double preferredReferenceC, ShiftAnalysis analysis) {
-        Map<String, List<Sweep>> byName = new LinkedHashMap<>();
-        for (Sweep s : all) {
-            byName.computeIfAbsent(s.sample(), k -> new ArrayList<>()).add(s);
-        }
+        Map<String, List<Sweep>> byName = byName(all);
+        java.util.Set<String> series = names(all);
         List<TemperatureSeries> out = new ArrayList<>();
         for (Map.Entry<String, List<Sweep>> e : byName.entrySet()) {
-            List<Double> temps = e.getValue().stream().map(Sweep::temperatureC).filter(Double::isFinite).distinct().sorted().toList();
-            if (temps.size() < MIN_TEMPERATURES) {
+            if (!series.contains(e.getKey())) {
                 continue;
             }
+            List<Double> temps = e.getValue().stream().map(Sweep::temperatureC).filter(Double::isFinite).distinct().sorted().toList();
             double ref = temps.stream().min((a, b) -> Double.compare(Math.abs(a - preferredReferenceC), Math.abs(b - preferredReferenceC)))
                     .orElseThrow();
             ShiftAnalysis.Result r = analysis.analyse(e.getValue(), ref);
