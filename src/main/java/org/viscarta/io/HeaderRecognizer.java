@@ -26,6 +26,25 @@ final class HeaderRecognizer {
             Map.entry("omega", named(Quantity.ANGULAR_FREQUENCY, null)),
             Map.entry("ω", named(Quantity.ANGULAR_FREQUENCY, null)),
             Map.entry("storage_modulus", named(Quantity.STORAGE_MODULUS, null)),
+            Map.entry("shear_storage_modulus", named(Quantity.STORAGE_MODULUS, ModulusKind.SHEAR)),
+            Map.entry("tensile_storage_modulus", named(Quantity.STORAGE_MODULUS, ModulusKind.TENSILE)),
+            Map.entry("storage_modulus_g'", named(Quantity.STORAGE_MODULUS, ModulusKind.SHEAR)),
+            Map.entry("storage_modulus_e'", named(Quantity.STORAGE_MODULUS, ModulusKind.TENSILE)),
+            Map.entry("shear_loss_modulus", named(Quantity.LOSS_MODULUS, ModulusKind.SHEAR)),
+            Map.entry("tensile_loss_modulus", named(Quantity.LOSS_MODULUS, ModulusKind.TENSILE)),
+            Map.entry("loss_modulus_g''", named(Quantity.LOSS_MODULUS, ModulusKind.SHEAR)),
+            Map.entry("loss_modulus_e''", named(Quantity.LOSS_MODULUS, ModulusKind.TENSILE)),
+            Map.entry("complex_modulus", named(Quantity.COMPLEX_MODULUS_MAGNITUDE, null)),
+            Map.entry("e*", named(Quantity.COMPLEX_MODULUS_MAGNITUDE, ModulusKind.TENSILE)),
+            Map.entry("g*", named(Quantity.COMPLEX_MODULUS_MAGNITUDE, ModulusKind.SHEAR)),
+            Map.entry("complex_shear_modulus", named(Quantity.COMPLEX_MODULUS_MAGNITUDE, ModulusKind.SHEAR)),
+            Map.entry("phase", named(Quantity.PHASE_ANGLE, null)),
+            Map.entry("phase_angle_δ", named(Quantity.PHASE_ANGLE, null)),
+            Map.entry("sample_name", named(Quantity.SAMPLE, null)),
+            Map.entry("specimen", named(Quantity.SAMPLE, null)),
+            Map.entry("sample_id", named(Quantity.SAMPLE, null)),
+            Map.entry("repeat", named(Quantity.REPLICATE, null)),
+            Map.entry("sample_temperature", named(Quantity.TEMPERATURE, null)),
             Map.entry("e'", named(Quantity.STORAGE_MODULUS, ModulusKind.TENSILE)),
             Map.entry("e′", named(Quantity.STORAGE_MODULUS, ModulusKind.TENSILE)),
             Map.entry("e_prime", named(Quantity.STORAGE_MODULUS, ModulusKind.TENSILE)),
@@ -42,6 +61,13 @@ final class HeaderRecognizer {
             Map.entry("loss_tangent", named(Quantity.LOSS_TANGENT, null)),
             Map.entry("tan_δ", named(Quantity.LOSS_TANGENT, null)),
             Map.entry("tan_delta", named(Quantity.LOSS_TANGENT, null)),
+            Map.entry("tan(delta)", named(Quantity.LOSS_TANGENT, null)),
+            Map.entry("tan(δ)", named(Quantity.LOSS_TANGENT, null)),
+            Map.entry("tan_(delta)", named(Quantity.LOSS_TANGENT, null)),
+            Map.entry("tan_(δ)", named(Quantity.LOSS_TANGENT, null)),
+            Map.entry("tan_d", named(Quantity.LOSS_TANGENT, null)),
+            Map.entry("tand", named(Quantity.LOSS_TANGENT, null)),
+            Map.entry("tan_δ_(1)", named(Quantity.LOSS_TANGENT, null)),
             Map.entry("tanδ", named(Quantity.LOSS_TANGENT, null)),
             Map.entry("loss_factor", named(Quantity.LOSS_TANGENT, null)),
             Map.entry("complex_modulus_magnitude", named(Quantity.COMPLEX_MODULUS_MAGNITUDE, null)),
@@ -87,8 +113,53 @@ final class HeaderRecognizer {
     private HeaderRecognizer() {
     }
 
-    /** The outcome: a column, or the reason it could not be understood. */
-    record Result(ColumnSpec column, String problem) {
+    /**
+     * The outcome: a column, or the reason it could not be understood.
+     *
+     * @param nameKnown whether the name was recognised (then a problem concerns its unit)
+     */
+    record Result(ColumnSpec column, String problem, boolean nameKnown) {
+        Result(ColumnSpec column, String problem) {
+            this(column, problem, true);
+        }
+    }
+
+    /**
+     * Names of columns lab exports carry that the analysis does not need (common practice of
+     * instrument exports: point numbers, drive and load signals, times): a header whose name is one
+     * of these, or begins with one and an underscore, is read past.
+     */
+    private static final java.util.Set<String> UNNEEDED = java.util.Set.of("point", "pt", "no", "nr", "number", "index", "#",
+            "n", "strain", "shear_strain", "stress", "shear_stress", "torque", "normal_force", "normal_stress", "force", "axial_force",
+            "gap", "time", "step", "step_time", "interval", "displacement", "amplitude", "deflection", "status", "shear_rate",
+            "raw_phase", "cycle", "oscillation_strain", "osc._strain", "osc_strain", "deformation", "velocity", "speed",
+            "static_force", "dynamic_force", "strain_amplitude", "stress_amplitude", "motor", "date", "clock");
+
+    /** True when a header names a column lab exports carry but the analysis does not need. */
+    static boolean unneeded(String rawHeader) {
+        String k = key(nameOf(rawHeader));
+        if (UNNEEDED.contains(k)) {
+            return true;
+        }
+        for (String u : UNNEEDED) {
+            if (k.startsWith(u + "_") && u.length() > 2) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private static String nameOf(String rawHeader) {
+        Matcher m = NAME_AND_UNIT.matcher(rawHeader.strip());
+        return m.matches() ? m.group(1) : rawHeader.strip();
+    }
+
+    private static String key(String name) {
+        String k = name.strip().toLowerCase(Locale.ROOT).replace('’', '\'').replaceAll("[\\s-]+", "_");
+        while (k.endsWith(".") || k.endsWith(":")) {
+            k = k.substring(0, k.length() - 1);
+        }
+        return k;
     }
 
     static Result recognize(int index, String rawHeader) {
@@ -100,15 +171,31 @@ final class HeaderRecognizer {
             name = m.group(1);
             unitText = m.group(2).strip();
         }
-        String key = name.strip().toLowerCase(Locale.ROOT).replace('’', '\'').replaceAll("[\\s-]+", "_");
+        String key = key(name);
         if (key.startsWith("quality_") || key.equals("ignore")) {
             return new Result(new ColumnSpec(index, header, Quantity.QUALITY, null, null), null);
         }
         Named n = NAMES.get(key);
+        if (n == null && unitText == null) {
+            // "frequency_Hz", "storage_modulus_kPa": the unit written after the name
+            int cut = Math.max(header.lastIndexOf('_'), header.lastIndexOf(' '));
+            if (cut > 0 && NAMES.containsKey(key(header.substring(0, cut)))
+                    && Unit.anyDimension(header.substring(cut + 1)).isPresent()) {
+                name = header.substring(0, cut);
+                unitText = header.substring(cut + 1);
+                key = key(name);
+                n = NAMES.get(key);
+            }
+        }
+        if (n == null && unitText != null && NAMES.containsKey(key(header))) {
+            key = key(header); // "Tan(delta)": the parentheses are part of the name
+            n = NAMES.get(key);
+            unitText = null;
+        }
         if (n == null) {
-            return new Result(null, "unknown column header '" + header + "'; name it like 'frequency [Hz]', "
+            return new Result(null, "unknown column header " + InputException.quote(header) + "; name it like 'frequency [Hz]', "
                     + "'storage_modulus [Pa]', 'loss_modulus [Pa]', 'loss_tangent', 'complex_modulus_magnitude [Pa]', "
-                    + "'phase_angle [deg]', 'temperature [°C]', 'sample', 'replicate' or 'group'");
+                    + "'phase_angle [deg]', 'temperature [°C]', 'sample', 'replicate' or 'group'", false);
         }
         Quantity q = n.quantity();
         if (q.isLabel()) {
@@ -121,7 +208,7 @@ final class HeaderRecognizer {
             } else if (q == Quantity.ANGULAR_FREQUENCY && !key.equals("angular_frequency")) {
                 unit = Optional.of(Unit.RAD_PER_S);
             } else {
-                return new Result(null, "column header '" + header + "' gives no unit; write it with a unit in "
+                return new Result(null, "column header " + InputException.quote(header) + " gives no unit; write it with a unit in "
                         + "square brackets, e.g. '" + q.canonical() + " [" + Unit.symbolsOf(q.dimension()).get(0) + "]'");
             }
         } else {
@@ -134,7 +221,7 @@ final class HeaderRecognizer {
             }
         }
         if (unit.isEmpty()) {
-            return new Result(null, "unknown unit '" + unitText + "' in column header '" + header + "'; use one of "
+            return new Result(null, "unknown unit " + InputException.quote(unitText) + " in column header " + InputException.quote(header) + "; use one of "
                     + String.join(", ", Unit.symbolsOf(q.dimension())));
         }
         return new Result(new ColumnSpec(index, header, q, unit.get(), n.kind()), null);

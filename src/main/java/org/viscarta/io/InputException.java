@@ -48,6 +48,12 @@ public final class InputException extends RuntimeException {
         return problem;
     }
 
+    /** Text from an input file as a message quotes it: in single quotes, at most 80 characters (then "…"). */
+    public static String quote(String text) {
+        String t = text.length() > 80 ? text.substring(0, 80) + "…" : text;
+        return "'" + t + "'";
+    }
+
     /** The text with line breaks and other control characters shown as escapes, so that the message stays one line. */
     public static String oneLine(String text) {
         StringBuilder sb = new StringBuilder(text.length());

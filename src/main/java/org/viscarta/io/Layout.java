@@ -3,7 +3,8 @@ package org.viscarta.io;
 import java.util.Objects;
 
 /** How an input file lays out its sweeps: the family every reader decides among, in one place each. */
-public sealed interface Layout permits Layout.OneSample, Layout.Tidy, Layout.Wide, Layout.WorkbookSheets, Layout.RawSignals {
+public sealed interface Layout permits Layout.OneSample, Layout.Tidy, Layout.Wide, Layout.WorkbookSheets, Layout.RawSignals,
+        Layout.Blocks {
 
     /** The layout in words, as {@code inspect} and Provenance state it. */
     String describe();
@@ -62,6 +63,23 @@ public sealed interface Layout permits Layout.OneSample, Layout.Tidy, Layout.Wid
         @Override
         public String describe() {
             return detail.isEmpty() ? "raw oscillation signals" : "raw oscillation signals" + detail;
+        }
+    }
+
+    /**
+     * Several tables one after another in one file or sheet, each with its own preamble or sample line.
+     *
+     * @param tables how many
+     * @param first  the layout of the first of them
+     */
+    record Blocks(int tables, Layout first) implements Layout {
+        public Blocks {
+            Objects.requireNonNull(first, "first");
+        }
+
+        @Override
+        public String describe() {
+            return tables + " tables one after another: " + first.describe();
         }
     }
 }

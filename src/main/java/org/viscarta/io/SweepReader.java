@@ -18,6 +18,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
@@ -163,6 +164,9 @@ public final class SweepReader {
         }
         switch (type) {
             case NUMERIC:
+                if (org.apache.poi.ss.usermodel.DateUtil.isCellDateFormatted(cell)) {
+                    return "a date cell (" + fmt.formatCellValue(cell).strip() + ")";
+                }
                 return Double.toString(cell.getNumericCellValue());
             case STRING:
                 return cell.getStringCellValue().strip();
@@ -185,118 +189,538 @@ public final class SweepReader {
     }
 
     /**
-     * The one row pipeline of every sweep table, for both sinks: the preamble of '# key: value'
-     * lines, the header row, the separator and decimal mark (from the first
-     * {@value #SNIFFED_ROWS} rows), the wide layout (read whole), then every row validated once
-     * — field count, labels, numbers, one group per sample — and handed to the sink.
+     * The one row pipeline of every sweep table, for both sinks. A table starts at the first row
+     * that looks like a header (text cells only) followed, after an optional units row, by data
+     * rows; the lines before it are a preamble ('# key: value' lines, and unmarked 'key: value',
+     * 'key&lt;separator&gt;value' lines) read into the metadata. The separator comes from the header
+     * line, the decimal mark from the first {@value #SNIFFED_ROWS} rows; a wide layout is read
+     * whole. Every data row is validated once — field count, labels, numbers, one group per sample —
+     * and handed to the sink. A footer (a lone line of text), a 'key: value' line or a new header
+     * row ends a block; the next block may bring its own preamble and header, or continue under the
+     * previous header, and its sweeps are sweeps of their own.
      *
      * @param encoding how the text was decoded ("UTF-8" gains "with byte-order mark" when one leads the text)
      */
     private <T, B extends Bucket> T scan(Path path, java.io.BufferedReader in, String encoding, Sink<T, B> sink) throws IOException {
-        Map<String, String> metadata = new LinkedHashMap<>();
-        Map<String, Integer> metadataLines = new LinkedHashMap<>();
+        Lines src = new Lines(in);
+        Preamble pre = new Preamble(path);
         List<ReadWarning> warnings = new ArrayList<>();
-        String line;
-        int n = 0;
-        String headerText = null;
-        boolean bom = false;
-        boolean any = false;
-        while ((line = in.readLine()) != null) {
-            n++;
-            if (n == 1 && line.startsWith("\uFEFF")) {
-                line = line.substring(1);
-                bom = true;
-            }
-            String l = line.strip();
-            if (l.isEmpty()) {
-                continue;
-            }
-            any = true;
-            if (l.startsWith("#")) {
-                for (String key : parseMetadataLine(l.substring(1), metadata)) {
-                    metadataLines.put(key, n);
+        Start start = findStart(path, src, pre, 0, false);
+        Line headerLine;
+        Line unitsLine = null;
+        if (start == null || start.header() == null) {
+            if (pre.seen.isEmpty()) {
+                if (!pre.any) {
+                    throw new InputException(path, 1, 0, "the file is empty; a sweep table needs a header row and data rows");
                 }
-                continue;
+                throw new InputException(path, Math.max(1, src.count()), 0, "no header row found; after the '# key: value' lines, "
+                        + "write a header such as 'frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]'");
             }
-            headerText = line;
-            break;
+            // no row looks like a header followed by numbers: the first line that is not a comment is the header
+            headerLine = pre.seen.get(0);
+            src.pushBack(pre.seen.subList(1, pre.seen.size()));
+            pre.reset();
+        } else {
+            headerLine = start.header();
+            unitsLine = start.units();
         }
-        if (!any) {
-            throw new InputException(path, 1, 0, "the file is empty; a sweep table needs a header row and data rows");
-        }
-        if (headerText == null) {
-            throw new InputException(path, Math.max(1, n), 0, "no header row found; after the '# key: value' lines, write a "
-                    + "header such as 'frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]'");
-        }
-        String enc = bom && encoding.equals("UTF-8") ? "UTF-8 with byte-order mark" : encoding;
-        char sep = detectSeparator(headerText);
-        Row headerRow = row(path, headerText, n, sep);
+        String enc = src.bom && encoding.equals("UTF-8") ? "UTF-8 with byte-order mark" : encoding;
+        char sep = detectSeparator(headerLine.text());
+        Row headerRow = withUnits(path, row(path, headerLine.text(), headerLine.number(), sep),
+                unitsLine == null ? null : row(path, unitsLine.text(), unitsLine.number(), sep));
         List<Row> first = new ArrayList<>();
         first.add(headerRow);
-        while (first.size() < SNIFFED_ROWS && (line = in.readLine()) != null) {
-            n++;
-            if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
-                first.add(row(path, line, n, sep));
+        List<Line> sniffed = src.peek(SNIFFED_ROWS);
+        for (Line l : sniffed) {
+            if (!l.text().isBlank() && !l.comment()) {
+                first.add(row(path, l.text(), l.number(), sep));
             }
         }
-        if (wideLayout(path, first, metadata, metadataLines, enc, "", sep) != null) {
-            List<Row> all = new ArrayList<>(first);
-            while ((line = in.readLine()) != null) {
-                n++;
-                if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
-                    all.add(row(path, line, n, sep));
+        if (wideLayout(path, first, pre.metadata, pre.lines, enc, "", sep) != null) {
+            List<Row> all = new ArrayList<>(List.of(headerRow));
+            Line l;
+            while ((l = src.next()) != null) {
+                if (!l.text().isBlank() && !l.comment()) {
+                    all.add(row(path, l.text(), l.number(), sep));
                 }
             }
-            return sink.wide(wideLayout(path, all, metadata, metadataLines, enc, sink.sha(), sep));
+            return sink.wide(wideLayout(path, all, pre.metadata, pre.lines, enc, sink.sha(), sep));
         }
-        Header hd = header(path, headerRow, metadata, metadataLines, warnings);
         char dm = detectDecimalMark(sep, first);
-        RowParser<B> rp = new RowParser<>(path, hd, dm, metadata, metadataLines, sink, warnings);
-        for (int i = 1; i < first.size(); i++) {
-            rp.accept(first.get(i));
-        }
-        while ((line = in.readLine()) != null) {
-            n++;
-            if (!line.isBlank() && !line.stripLeading().startsWith("#")) {
-                rp.accept(row(path, line, n, sep));
+        Header hd = header(path, headerRow, pre.metadata, pre.lines, warnings, true);
+        Header firstHeader = hd;
+        Map<String, String> firstMetadata = new LinkedHashMap<>(pre.metadata);
+        Map<String, String> notes = new LinkedHashMap<>(pre.notes);
+        RowParser<B> rp = new RowParser<>(path, dm, sink, warnings);
+        rp.block(hd, pre.metadata, pre.lines);
+        int blocks = 1;
+        while (true) {
+            readBlock(path, src, sep, dm, hd, rp);
+            Preamble next = new Preamble(path);
+            next.inherit(firstMetadata);
+            Start s = findStart(path, src, next, hd == null ? 0 : hd.columns().size(), true);
+            notes.putAll(next.notes);
+            if (s == null) {
+                break;
             }
+            if (s.header() != null) {
+                Row h = withUnits(path, row(path, s.header().text(), s.header().number(), sep),
+                        s.units() == null ? null : row(path, s.units().text(), s.units().number(), sep));
+                Header nh = header(path, h, next.metadata, next.lines, warnings, false);
+                if (nh == null) {
+                    warnings.add(new ReadWarning(path, h.line(), "the table under the header on line " + h.line()
+                            + " has no frequency column and is not a sweep table; it is left out"));
+                    hd = null;
+                    continue;
+                }
+                hd = nh;
+            } else if (hd == null) {
+                continue;
+            }
+            blocks++;
+            rp.block(hd, next.metadata, next.lines);
         }
-        if (rp.buckets.isEmpty()) {
-            throw new InputException(path, headerRow.line(), 0, "the header is not followed by any data rows");
+        if (rp.all.isEmpty()) {
+            if (rp.skippedLines.isEmpty()) {
+                throw new InputException(path, headerRow.line(), 0, "the header is not followed by any data rows");
+            }
+            throw new InputException(path, rp.skippedLines.get(0), 0, "no data row can be used: every row has a blank or "
+                    + "not-a-number cell in a needed column");
         }
-        boolean tidy = hd.byQuantity().containsKey(Quantity.SAMPLE) || hd.byQuantity().containsKey(Quantity.REPLICATE);
-        TableInfo info = new TableInfo(tidy ? new Layout.Tidy() : new Layout.OneSample(), sep, dm, enc, headerRow.line(),
-                hd.columns(), metadata);
-        return sink.table(hd, info, metadata, List.copyOf(rp.buckets.values()), warnings);
+        rp.finish(firstHeader);
+        boolean tidy = firstHeader.byQuantity().containsKey(Quantity.SAMPLE) || firstHeader.byQuantity().containsKey(Quantity.REPLICATE);
+        Layout layout = tidy ? new Layout.Tidy() : new Layout.OneSample();
+        if (blocks > 1) {
+            layout = new Layout.Blocks(blocks, layout);
+        }
+        Map<String, String> infoMeta = new LinkedHashMap<>(firstMetadata);
+        notes.forEach((k, v) -> infoMeta.putIfAbsent("note_" + k, v));
+        TableInfo info = new TableInfo(layout, sep, dm, enc, headerRow.line(), firstHeader.columns(), infoMeta);
+        return sink.table(info, List.copyOf(rp.all), rp.attributes(), warnings);
     }
 
     /** Rows read before the decimal mark and the layout are decided. */
     private static final int SNIFFED_ROWS = 1000;
+
+    /** Preamble lines read while looking for a table before the first row is taken as the header anyway. */
+    private static final int MAX_PREAMBLE = 1000;
+
+    /** Input lines with their 1-based numbers, one at a time, with push-back. */
+    private static final class Lines {
+        private final java.io.BufferedReader in;
+        private final java.util.ArrayDeque<Line> back = new java.util.ArrayDeque<>();
+        private int n;
+        boolean bom;
+
+        Lines(java.io.BufferedReader in) {
+            this.in = in;
+        }
+
+        Line next() throws IOException {
+            if (!back.isEmpty()) {
+                return back.pollFirst();
+            }
+            String s = in.readLine();
+            if (s == null) {
+                return null;
+            }
+            n++;
+            if (n == 1 && s.startsWith("\uFEFF")) {
+                s = s.substring(1);
+                bom = true;
+            }
+            return new Line(n, s);
+        }
+
+        void pushBack(Line l) {
+            back.addFirst(l);
+        }
+
+        void pushBack(List<Line> ls) {
+            for (int i = ls.size() - 1; i >= 0; i--) {
+                back.addFirst(ls.get(i));
+            }
+        }
+
+        /** Up to {@code count} following lines, left to be read again. */
+        List<Line> peek(int count) throws IOException {
+            List<Line> out = new ArrayList<>();
+            Line l;
+            while (out.size() < count && (l = next()) != null) {
+                out.add(l);
+            }
+            pushBack(out);
+            return out;
+        }
+
+        /** The next {@code count} lines that are neither blank nor comments (fewer at the end), left to be read again. */
+        List<Line> peekContent(int count) throws IOException {
+            List<Line> read = new ArrayList<>();
+            List<Line> out = new ArrayList<>();
+            Line l;
+            while (out.size() < count && read.size() < 50 && (l = next()) != null) {
+                read.add(l);
+                if (!l.text().isBlank() && !l.comment()) {
+                    out.add(l);
+                }
+            }
+            pushBack(read);
+            return out;
+        }
+
+        int count() {
+            return n;
+        }
+    }
+
+    /** One input line and its 1-based number. */
+    private record Line(int number, String text) {
+        boolean comment() {
+            return text.stripLeading().startsWith("#");
+        }
+    }
+
+    /** What starts a table: its header line and units line (null when the previous header goes on). */
+    private record Start(Line header, Line units) {
+    }
+
+    /** The preamble of one block: metadata (keys as Viscarta reads them), notes, and the lines seen. */
+    private static final class Preamble {
+        final Path path;
+        final Map<String, String> metadata = new LinkedHashMap<>();
+        final Map<String, Integer> lines = new LinkedHashMap<>();
+        final Map<String, String> notes = new LinkedHashMap<>();
+        final List<Line> seen = new ArrayList<>();
+        boolean any;
+
+        Preamble(Path path) {
+            this.path = path;
+        }
+
+        /** A later block keeps the first block's settings but not its sample and replicate. */
+        void inherit(Map<String, String> first) {
+            first.forEach((k, v) -> {
+                if (!k.equals("sample") && !k.equals("replicate")) {
+                    metadata.put(k, v);
+                }
+            });
+        }
+
+        void reset() {
+            metadata.clear();
+            lines.clear();
+            notes.clear();
+        }
+
+        void hash(Line l) {
+            for (String key : parseMetadataLine(l.text().strip().substring(1), metadata)) {
+                String canonical = PREAMBLE_KEYS.getOrDefault(key, key);
+                if (!canonical.equals(key) && !metadata.containsKey(canonical) || canonical.equals(key)) {
+                    String v = metadata.get(key);
+                    if (!canonical.equals(key)) {
+                        metadata.remove(key);
+                        metadata.put(canonical, v);
+                    }
+                    lines.put(canonical, l.number());
+                }
+            }
+        }
+
+        /** An unmarked preamble line: 'key: value', 'key&lt;sep&gt;value [unit]', or a title. */
+        void plain(Line l, List<String> cells) {
+            String key;
+            String value;
+            List<String> filled = cells.stream().filter(c -> !c.isEmpty()).toList();
+            if (filled.isEmpty()) {
+                return;
+            }
+            String c0 = filled.get(0);
+            int colon = c0.indexOf(':');
+            if (colon > 0 && (filled.size() == 1 || colon < c0.length() - 1)) {
+                key = c0.substring(0, colon);
+                value = (c0.substring(colon + 1) + " " + String.join(" ", filled.subList(1, filled.size()))).strip();
+            } else if (filled.size() >= 2) {
+                key = c0;
+                value = String.join(" ", filled.subList(1, filled.size()));
+            } else {
+                notes.put("line_" + l.number(), c0);
+                return;
+            }
+            Matcher unit = KEY_UNIT.matcher(key.strip());
+            if (unit.matches()) {
+                key = unit.group(1);
+                if (!value.isEmpty() && isPlainNumber(value.replace(',', '.'))) {
+                    value = value + " " + unit.group(2).strip();
+                }
+            }
+            String k = key.strip().toLowerCase(Locale.ROOT).replaceAll("[\\s-]+", "_").replaceAll("[:.]+$", "");
+            String canonical = PREAMBLE_KEYS.get(k);
+            if (canonical != null && !value.isEmpty()) {
+                metadata.put(canonical, value);
+                lines.put(canonical, l.number());
+            } else if (!k.isEmpty()) {
+                notes.put(k, value);
+            }
+        }
+    }
+
+    private static final Pattern KEY_UNIT = Pattern.compile("^(.*?)\\s*[\\[(]([^\\])]*)[\\])]\\s*$");
+
+    /**
+     * Preamble keys understood in their common spellings (lower case, spaces as underscores), and the
+     * metadata key each stands for; other keys are kept as notes.
+     */
+    private static final Map<String, String> PREAMBLE_KEYS = Map.ofEntries(
+            Map.entry("sample", "sample"), Map.entry("sample_name", "sample"), Map.entry("specimen", "sample"),
+            Map.entry("specimen_name", "sample"), Map.entry("sample_id", "sample"), Map.entry("specimen_id", "sample"),
+            Map.entry("temperature", "temperature"), Map.entry("temp", "temperature"), Map.entry("test_temperature", "temperature"),
+            Map.entry("sample_temperature", "temperature"), Map.entry("set_temperature", "temperature"),
+            Map.entry("replicate", "replicate"), Map.entry("repeat", "replicate"), Map.entry("group", "group"),
+            Map.entry("geometry", "geometry"), Map.entry("measuring_system", "geometry"), Map.entry("probe", "geometry"),
+            Map.entry("poisson_ratio", "poisson_ratio"), Map.entry("poisson's_ratio", "poisson_ratio"),
+            Map.entry("method", "method"), Map.entry("test_method", "method"), Map.entry("modulus", "modulus"));
+
+    /**
+     * Reads lines up to the start of the next table, the preamble going into {@code pre}. Returns the
+     * header (and units) line, a Start without header when a data row of the previous table's width
+     * comes without a new header (the previous header goes on), or null at the end of the input.
+     */
+    private Start findStart(Path path, Lines src, Preamble pre, int previousColumns, boolean later) throws IOException {
+        Line l;
+        while ((l = src.next()) != null) {
+            if (l.text().isBlank()) {
+                continue;
+            }
+            pre.any = true;
+            if (l.comment()) {
+                pre.hash(l);
+                continue;
+            }
+            char sep = detectSeparator(l.text());
+            List<String> cells = trimmed(splitLoose(l.text(), sep));
+            if (previousColumns > 0 && numbers(cells, sep) >= 2 && cells.size() <= previousColumns) {
+                src.pushBack(l);
+                return new Start(null, null);
+            }
+            if (headerLike(cells, sep)) {
+                List<Line> next = src.peekContent(3);
+                if (!next.isEmpty()) {
+                    List<String> n1 = trimmed(splitLoose(next.get(0).text(), sep));
+                    Line units = null;
+                    int at = 0;
+                    if (unitsLike(n1, sep)) {
+                        units = next.get(0);
+                        at = 1;
+                    }
+                    if (next.size() > at && startsData(next, at, sep, cells.size())) {
+                        if (units != null) {
+                            Line x;
+                            do {
+                                x = src.next(); // up to and with the units line
+                            } while (x != null && x.number() < units.number());
+                        }
+                        return new Start(l, units);
+                    }
+                }
+            }
+            if (!later) {
+                pre.seen.add(l);
+                if (pre.seen.size() > MAX_PREAMBLE) {
+                    return null;
+                }
+            }
+            pre.plain(l, cells);
+        }
+        return null;
+    }
+
+    /** True when the lines from {@code at} begin with data rows: the first with two numbers, or one number and the next with two. */
+    private static boolean startsData(List<Line> next, int at, char sep, int headerColumns) {
+        List<String> d1 = trimmed(splitLoose(next.get(at).text(), sep));
+        if (d1.size() > headerColumns) {
+            return false;
+        }
+        int k = numbers(d1, sep);
+        if (k >= 2) {
+            return true;
+        }
+        return k == 1 && next.size() > at + 1 && numbers(trimmed(splitLoose(next.get(at + 1).text(), sep)), sep) >= 2;
+    }
+
+    /** Reads data rows of one block into the parser, up to the end of the input or a line that ends the block (left unread). */
+    private void readBlock(Path path, Lines src, char sep, char dm, Header hd, RowParser<?> rp) throws IOException {
+        Line l;
+        while ((l = src.next()) != null) {
+            if (l.text().isBlank() || l.comment()) {
+                continue;
+            }
+            Row r = row(path, l.text(), l.number(), sep);
+            if (endsBlock(r.cells(), sep)) {
+                src.pushBack(l);
+                return;
+            }
+            if (hd != null) {
+                rp.accept(r);
+            }
+        }
+    }
+
+    /** A footer or title (one cell of text), a 'key:' line, or a new header row with a frequency column. */
+    private boolean endsBlock(List<String> cells, char sep) {
+        List<String> filled = cells.stream().filter(c -> !c.isEmpty()).toList();
+        if (filled.isEmpty()) {
+            return false;
+        }
+        if (filled.size() == 1 && !numeric(filled.get(0), sep) && !NOT_A_NUMBER.contains(filled.get(0).toLowerCase(Locale.ROOT))) {
+            return true;
+        }
+        if (cells.get(0).endsWith(":") && !numeric(cells.get(0), sep)) {
+            return true;
+        }
+        if (headerLike(cells, sep)) {
+            for (int i = 0; i < cells.size(); i++) {
+                String h = cells.get(i);
+                HeaderRecognizer.Result r = HeaderRecognizer.recognize(i, columnMap.getOrDefault(h, h));
+                if (r.column() != null && (r.column().quantity() == Quantity.FREQUENCY || r.column().quantity() == Quantity.ANGULAR_FREQUENCY)) {
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
+    /** Cell texts that stand for a missing value: the point is left out with a warning. */
+    static final java.util.Set<String> NOT_A_NUMBER = java.util.Set.of("", "-", "--", "---", "nan", "n/a", "na", "*", "#n/a", "null");
+
+    private static boolean numeric(String cell, char sep) {
+        return isPlainNumber(cell) || (sep != ',' && cell.indexOf(',') > 0 && isPlainNumber(cell.replace(',', '.')));
+    }
+
+    private static int numbers(List<String> cells, char sep) {
+        int k = 0;
+        for (String c : cells) {
+            if (numeric(c, sep)) {
+                k++;
+            }
+        }
+        return k;
+    }
+
+    /** Two or more cells of text, none a number. */
+    private static boolean headerLike(List<String> cells, char sep) {
+        int filled = 0;
+        for (String c : cells) {
+            if (c.isEmpty()) {
+                continue;
+            }
+            if (numeric(c, sep)) {
+                return false;
+            }
+            filled++;
+        }
+        return filled >= 2;
+    }
+
+    /** A units row: no numbers, every cell short, at least one a known unit ("Hz", "(kPa)", "[Pa]", "rad/s"). */
+    private static boolean unitsLike(List<String> cells, char sep) {
+        boolean known = false;
+        for (String c : cells) {
+            if (c.isEmpty()) {
+                continue;
+            }
+            if (numeric(c, sep) || c.length() > 20) {
+                return false;
+            }
+            known |= Unit.anyDimension(c).isPresent() && !c.equals("-") && !c.equals("1");
+        }
+        return known;
+    }
+
+    /** The header row with the units row's units written into it ("Storage modulus" + "Pa" → "Storage modulus [Pa]"). */
+    private static Row withUnits(Path path, Row header, Row units) {
+        if (units == null) {
+            return header;
+        }
+        List<String> out = new ArrayList<>(header.cells());
+        for (int i = 0; i < out.size() && i < units.size(); i++) {
+            String u = units.get(i).strip();
+            if (u.length() >= 2 && (u.charAt(0) == '[' || u.charAt(0) == '(')) {
+                u = u.substring(1, u.length() - 1).strip();
+            }
+            if (!u.isEmpty() && !u.equals("-") && !out.get(i).isEmpty() && !KEY_UNIT.matcher(out.get(i)).matches()) {
+                out.set(i, out.get(i) + " [" + u + "]");
+            }
+        }
+        return new Row(header.line(), out);
+    }
+
+    /** Splits at the separator without the quote rules (enough to judge a line's shape). */
+    private static List<String> splitLoose(String line, char sep) {
+        List<String> cells = splitPlain(line, sep);
+        for (int i = 0; i < cells.size(); i++) {
+            String c = cells.get(i);
+            if (c.length() >= 2 && c.startsWith("\"") && c.endsWith("\"")) {
+                cells.set(i, c.substring(1, c.length() - 1).strip());
+            }
+        }
+        return cells;
+    }
+
+    /** The cells without trailing empty ones. */
+    private static List<String> trimmed(List<String> cells) {
+        int n = cells.size();
+        while (n > 0 && cells.get(n - 1).isEmpty()) {
+            n--;
+        }
+        return cells.subList(0, n);
+    }
 
     /** The rows of one sweep (sample, replicate, temperature) as a sink keeps them. */
     private abstract static class Bucket {
         final String sample;
         final String replicate;
         final String group;
-        final double temperature;
+        final ModulusKind kind;
         final int firstLine;
+        final int block;
+        final double firstTemperature;
+        double temperatureSum;
+        int temperatureCount;
+        final Map<String, String> attributes = new LinkedHashMap<>();
+        final Map<String, String> metadata;
 
-        Bucket(String sample, String replicate, String group, double temperature, int firstLine) {
-            this.sample = sample;
-            this.replicate = replicate;
-            this.group = group;
-            this.temperature = temperature;
+        Bucket(Key k, int firstLine) {
+            this.metadata = k.metadata();
+            this.sample = k.sample();
+            this.replicate = k.replicate();
+            this.group = k.group();
+            this.kind = k.kind();
+            this.firstTemperature = k.temperature();
             this.firstLine = firstLine;
+            this.block = k.block();
+        }
+
+        /** The mean of the sweep's temperatures (NaN when not known). */
+        double temperature() {
+            return temperatureCount == 0 ? Double.NaN : temperatureSum / temperatureCount;
         }
 
         abstract void add(SweepPoint p, List<ReadWarning> warnings);
+
+        abstract int count();
+    }
+
+    /** What a new sweep starts with. */
+    private record Key(String sample, String replicate, String group, ModulusKind kind, double temperature, int block,
+                       Map<String, String> metadata) {
     }
 
     /** Where validated rows go: whole sweeps ({@link SweepSink}) or each sweep's extent ({@link ExtentSink}). */
     private interface Sink<T, B extends Bucket> {
-        B bucket(String sample, String replicate, String group, double temperature, int line);
+        B bucket(Key key, int line);
 
-        T table(Header hd, TableInfo info, Map<String, String> metadata, List<B> buckets, List<ReadWarning> warnings);
+        /** @param attributes the descriptive columns constant over every sweep */
+        T table(TableInfo info, List<B> buckets, List<String> attributes, List<ReadWarning> warnings);
 
         /** A wide table, read whole. */
         T wide(SweepFile whole);
@@ -309,13 +733,18 @@ public final class SweepReader {
     private static final class Points extends Bucket {
         final List<SweepPoint> points = new ArrayList<>();
 
-        Points(String sample, String replicate, String group, double temperature, int firstLine) {
-            super(sample, replicate, group, temperature, firstLine);
+        Points(Key key, int firstLine) {
+            super(key, firstLine);
         }
 
         @Override
         void add(SweepPoint p, List<ReadWarning> warnings) {
             points.add(p);
+        }
+
+        @Override
+        int count() {
+            return points.size();
         }
     }
 
@@ -330,16 +759,19 @@ public final class SweepReader {
         }
 
         @Override
-        public Points bucket(String sample, String replicate, String group, double temperature, int line) {
-            return new Points(sample, replicate, group, temperature, line);
+        public Points bucket(Key key, int line) {
+            return new Points(key, line);
         }
 
         @Override
-        public SweepFile table(Header hd, TableInfo info, Map<String, String> metadata, List<Points> buckets,
-                               List<ReadWarning> warnings) {
+        public SweepFile table(TableInfo info, List<Points> buckets, List<String> attributes, List<ReadWarning> warnings) {
             List<Sweep> sweeps = new ArrayList<>();
             for (Points b : buckets) {
-                Sweep s = new Sweep(b.sample, b.replicate, b.group, hd.kind(), b.temperature, path, metadata, b.points);
+                Map<String, String> attrs = new LinkedHashMap<>();
+                for (String a : attributes) {
+                    attrs.put(a, b.attributes.getOrDefault(a, ""));
+                }
+                Sweep s = new Sweep(b.sample, b.replicate, b.group, b.kind, b.temperature(), path, b.metadata, b.points, attrs);
                 checkPoints(path, s, warnings);
                 sweeps.add(s);
             }
@@ -365,9 +797,14 @@ public final class SweepReader {
         double max = 0;
         long warningsDropped;
 
-        Extent(Path path, String sample, String replicate, String group, double temperature, int firstLine) {
-            super(sample, replicate, group, temperature, firstLine);
+        Extent(Path path, Key key, int firstLine) {
+            super(key, firstLine);
             this.path = path;
+        }
+
+        @Override
+        int count() {
+            return (int) Math.min(Integer.MAX_VALUE, points);
         }
 
         @Override
@@ -396,20 +833,19 @@ public final class SweepReader {
         }
 
         @Override
-        public Extent bucket(String sample, String replicate, String group, double temperature, int line) {
-            return new Extent(path, sample, replicate, group, temperature, line);
+        public Extent bucket(Key key, int line) {
+            return new Extent(path, key, line);
         }
 
         @Override
-        public Summary table(Header hd, TableInfo info, Map<String, String> metadata, List<Extent> buckets,
-                             List<ReadWarning> warnings) {
+        public Summary table(TableInfo info, List<Extent> buckets, List<String> attributes, List<ReadWarning> warnings) {
             long dropped = buckets.stream().mapToLong(e -> e.warningsDropped).sum();
             if (dropped > 0) {
                 warnings.add(new ReadWarning(path, 0, dropped + " more warnings like the above"));
             }
             List<SweepSummary> out = new ArrayList<>();
             for (Extent e : buckets) {
-                out.add(new SweepSummary(e.sample, e.replicate, e.group, hd.kind(), e.temperature, e.points, e.min, e.max));
+                out.add(new SweepSummary(e.sample, e.replicate, e.group, e.kind, e.temperature(), e.points, e.min, e.max));
             }
             return new Summary(path, info, out, warnings);
         }
@@ -484,30 +920,71 @@ public final class SweepReader {
         }
     }
 
-    /** Validates rows one at a time — the one row check of every layout but the wide one — into the sink's buckets. */
+    /**
+     * Validates rows one at a time — the one row check of every layout but the wide one — into the
+     * sink's buckets, block by block. Labels left blank below a label fill down; a point with a blank
+     * or not-a-number cell in a needed column is left out and counted; a temperature column that
+     * varies by up to {@value #SAME_TEMPERATURE_C} °C within a sweep is one sweep at the mean
+     * temperature; descriptive columns are collected as attributes.
+     */
     private final class RowParser<B extends Bucket> {
         private final Path path;
-        private final Header hd;
         private final char dm;
-        private final String defaultSample;
-        private final String defaultReplicate;
-        private final String defaultGroup;
-        private final double defaultTemperature;
         private final Sink<?, B> sink;
         private final List<ReadWarning> warnings;
-        final Map<List<String>, B> buckets = new LinkedHashMap<>();
+        private Header hd;
+        private String defaultSample;
+        private String defaultReplicate;
+        private boolean replicateGiven;
+        private String defaultGroup;
+        private double defaultTemperature;
+        private int block;
+        private String lastSample;
+        private String lastReplicate;
+        private String lastGroup;
+        private String lastTemperature;
+        final Map<List<String>, List<B>> buckets = new LinkedHashMap<>();
+        final List<B> all = new ArrayList<>();
+        final List<Integer> skippedLines = new ArrayList<>();
+        private int skipped;
+        private final java.util.Set<String> unused = new java.util.LinkedHashSet<>();
+        private final java.util.Set<String> varying = new java.util.LinkedHashSet<>();
+        private final java.util.Set<String> attributeNames = new java.util.LinkedHashSet<>();
+        private int disagreements;
+        private int firstDisagreement;
+        private String disagreementText;
+        private B current;
+        private Map<String, String> metadata = Map.of();
 
-        RowParser(Path path, Header hd, char dm, Map<String, String> metadata, Map<String, Integer> metadataLines, Sink<?, B> sink,
-                  List<ReadWarning> warnings) {
+        RowParser(Path path, char dm, Sink<?, B> sink, List<ReadWarning> warnings) {
             this.path = path;
-            this.hd = hd;
             this.dm = dm;
-            this.defaultSample = metadata.getOrDefault("sample", stem(path));
-            this.defaultReplicate = metadata.getOrDefault("replicate", "1");
-            this.defaultGroup = metadata.getOrDefault("group", "");
-            this.defaultTemperature = metadataTemperature(path, metadata, metadataLines.getOrDefault("temperature", 0));
             this.sink = sink;
             this.warnings = warnings;
+        }
+
+        /** Starts a block under a header with its metadata. */
+        void block(Header header, Map<String, String> blockMetadata, Map<String, Integer> metadataLines) {
+            hd = header;
+            metadata = Map.copyOf(blockMetadata);
+            block++;
+            defaultSample = blockMetadata.getOrDefault("sample", stem(path));
+            replicateGiven = blockMetadata.containsKey("replicate");
+            defaultReplicate = blockMetadata.getOrDefault("replicate", "1");
+            defaultGroup = blockMetadata.getOrDefault("group", "");
+            defaultTemperature = metadataTemperature(path, blockMetadata, metadataLines.getOrDefault("temperature", 0));
+            lastSample = null;
+            lastReplicate = null;
+            lastGroup = null;
+            lastTemperature = null;
+            current = null;
+            for (ColumnSpec c : header.columns()) {
+                if (c.quantity() == Quantity.UNUSED) {
+                    unused.add(c.header());
+                } else if (c.quantity() == Quantity.ATTRIBUTE) {
+                    attributeNames.add(c.header());
+                }
+            }
         }
 
         void accept(Row rec) {
@@ -515,26 +992,204 @@ public final class SweepReader {
             if (rec.size() == 1 && rec.get(0).isEmpty()) {
                 return;
             }
-            if (rec.size() != hd.columns().size()) {
-                throw new InputException(path, line, Math.min(rec.size(), hd.columns().size()) + 1, "row has " + rec.size()
-                        + " fields but the header has " + hd.columns().size() + "; fill or remove the missing or extra cells");
+            int width = hd.width();
+            if (rec.size() > width) {
+                for (int i = width; i < rec.size(); i++) {
+                    if (!rec.get(i).isEmpty()) {
+                        throw new InputException(path, line, width + 1, "row has " + rec.size()
+                                + " fields but the header has " + width + "; fill or remove the missing or extra cells");
+                    }
+                }
+            }
+            for (int i : hd.unnamed()) {
+                if (i < rec.size() && !rec.get(i).isEmpty()) {
+                    throw new InputException(path, line, i + 1, "a value " + InputException.quote(rec.get(i))
+                            + " in a column without a header; name the column or remove the value");
+                }
             }
             Map<Quantity, ColumnSpec> q = hd.byQuantity();
-            String sample = label(rec, q.get(Quantity.SAMPLE), defaultSample, path, line);
-            String replicate = label(rec, q.get(Quantity.REPLICATE), defaultReplicate, path, line);
-            String group = label(rec, q.get(Quantity.GROUP), defaultGroup, path, line);
-            double temperature = q.containsKey(Quantity.TEMPERATURE) ? number(rec, q.get(Quantity.TEMPERATURE), dm, path, line)
-                    : defaultTemperature;
+            String sample = fill(rec, q.get(Quantity.SAMPLE), lastSample, defaultSample, line);
+            String replicate = fill(rec, q.get(Quantity.REPLICATE), lastReplicate, defaultReplicate, line);
+            String group = fill(rec, q.get(Quantity.GROUP), lastGroup, defaultGroup, line);
+            lastSample = sample;
+            lastReplicate = replicate;
+            lastGroup = group;
+            double temperature = defaultTemperature;
+            ColumnSpec tc = q.get(Quantity.TEMPERATURE);
+            if (tc != null) {
+                String cell = cell(rec, tc.index());
+                if (cell.isEmpty() && lastTemperature != null) {
+                    cell = lastTemperature;
+                }
+                if (!NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT))) {
+                    temperature = number(cell, tc, dm, path, line);
+                }
+                lastTemperature = cell;
+            }
             SweepPoint p = point(rec, q, dm, path, line);
-            B b = buckets.computeIfAbsent(List.of(sample, replicate, Double.toString(temperature)),
-                    k -> sink.bucket(sample, replicate, group, temperature, line));
-            if (!b.group.equals(group)) {
-                throw new InputException(path, line, q.get(Quantity.GROUP).index() + 1, "sample '" + sample
-                        + "' is in group '" + b.group + "' on line " + b.firstLine + " but in group '" + group
-                        + "' here; a sample belongs to one group");
+            if (p == null) {
+                skipped++;
+                if (skippedLines.size() < 5) {
+                    skippedLines.add(line);
+                }
+                return;
+            }
+            checkRedundant(rec, q, p, line);
+            B b = bucketFor(sample, replicate, group, temperature, line, q);
+            if (!Double.isNaN(temperature)) {
+                b.temperatureSum += temperature;
+                b.temperatureCount++;
+            }
+            for (ColumnSpec c : hd.columns()) {
+                if (c.quantity() == Quantity.ATTRIBUTE) {
+                    String v = cell(rec, c.index());
+                    if (!v.isEmpty()) {
+                        String had = b.attributes.putIfAbsent(c.header(), v);
+                        if (had != null && !had.equals(v)) {
+                            varying.add(c.header());
+                        }
+                    }
+                }
             }
             b.add(p, warnings);
         }
+
+        private B bucketFor(String sample, String replicate, String group, double temperature, int line, Map<Quantity, ColumnSpec> q) {
+            boolean ownReplicate = replicateGiven || q.containsKey(Quantity.REPLICATE);
+            String rep = replicate;
+            for (int k = 2; ; k++) {
+                B b = find(sample, rep, temperature);
+                if (b == null || ownReplicate || b.block == block) {
+                    if (b == null) {
+                        b = sink.bucket(new Key(sample, rep, group, hd.kind(), temperature, block, metadata), line);
+                        buckets.computeIfAbsent(List.of(sample, rep), x -> new ArrayList<>()).add(b);
+                        all.add(b);
+                    }
+                    if (!b.group.equals(group)) {
+                        throw new InputException(path, line, q.get(Quantity.GROUP).index() + 1, "sample " + InputException.quote(sample)
+                                + " is in group " + InputException.quote(b.group) + " on line " + b.firstLine + " but in group "
+                                + InputException.quote(group) + " here; a sample belongs to one group");
+                    }
+                    current = b;
+                    return b;
+                }
+                // a block without its own replicate label repeats a sample already read: its next replicate
+                rep = Integer.toString(k);
+            }
+        }
+
+        /** The sweep of this sample and replicate whose first temperature is within the tolerance, the current one first. */
+        private B find(String sample, String replicate, double temperature) {
+            if (current != null && current.sample.equals(sample) && current.replicate.equals(replicate)
+                    && sameTemperature(current.firstTemperature, temperature)) {
+                return current;
+            }
+            List<B> list = buckets.get(List.of(sample, replicate));
+            if (list != null) {
+                for (B b : list) {
+                    if (sameTemperature(b.firstTemperature, temperature)) {
+                        return b;
+                    }
+                }
+            }
+            return null;
+        }
+
+        private String fill(Row rec, ColumnSpec c, String last, String fallback, int line) {
+            if (c == null) {
+                return fallback;
+            }
+            String v = cell(rec, c.index());
+            if (!v.isEmpty()) {
+                return v;
+            }
+            if (last != null) {
+                return last;
+            }
+            throw new InputException(path, line, c.index() + 1, "empty " + c.quantity().canonical()
+                    + " cell; the first row of a table names its " + c.quantity().canonical() + " (rows below may leave it blank)");
+        }
+
+        private void checkRedundant(Row rec, Map<Quantity, ColumnSpec> q, SweepPoint p, int line) {
+            ColumnSpec t = hd.redundantTangent();
+            if (t == null) {
+                return;
+            }
+            String cell = cell(rec, t.index());
+            String c = dm == ',' ? cell.replace(',', '.') : cell;
+            if (!isPlainNumber(c)) {
+                return;
+            }
+            double v = Double.parseDouble(c) * (t.unit() == null ? 1 : t.unit().toSi());
+            double given = t.quantity() == Quantity.PHASE_ANGLE ? Math.tan(v) : v;
+            double fromModuli = p.loss() / p.storage();
+            if (Math.abs(given - fromModuli) > 0.01 * Math.abs(fromModuli) + 1e-12) {
+                if (disagreements++ == 0) {
+                    firstDisagreement = line;
+                    disagreementText = String.format(Locale.ROOT, "tan δ %.4g there against E″/E′ = %.4g", given, fromModuli);
+                }
+            }
+        }
+
+        /** The descriptive columns that are constant over every sweep (the others are listed as not used). */
+        List<String> attributes() {
+            List<String> out = new ArrayList<>(attributeNames);
+            out.removeAll(varying);
+            return out;
+        }
+
+        /** The file's summary warnings and the ramp check, once every row is read. */
+        void finish(Header first) {
+            if (skipped > 0) {
+                StringBuilder where = new StringBuilder();
+                for (int i = 0; i < skippedLines.size(); i++) {
+                    where.append(i == 0 ? "" : ", ").append(skippedLines.get(i));
+                }
+                if (skipped > skippedLines.size()) {
+                    where.append(" and ").append(skipped - skippedLines.size()).append(" more");
+                }
+                warnings.add(new ReadWarning(path, skippedLines.get(0), skipped + (skipped == 1 ? " point was" : " points were")
+                        + " left out: a blank or not-a-number cell ('', '--', 'NaN', 'n/a', '*') in a needed column, on line"
+                        + (skipped == 1 ? " " : "s ") + where));
+            }
+            java.util.Set<String> notUsed = new java.util.LinkedHashSet<>(unused);
+            notUsed.addAll(varying);
+            if (!notUsed.isEmpty()) {
+                StringBuilder sb = new StringBuilder();
+                for (String h : notUsed) {
+                    sb.append(sb.length() == 0 ? "" : ", ").append(InputException.quote(h));
+                    if (varying.contains(h)) {
+                        sb.append(" (varies within a sweep)");
+                    }
+                }
+                warnings.add(new ReadWarning(path, first.line(), "columns not used in the analysis: " + sb));
+            }
+            if (disagreements > 0) {
+                warnings.add(new ReadWarning(path, firstDisagreement, "the " + InputException.quote(first.redundantTangentHeader())
+                        + " column disagrees with the moduli by more than 1 % on " + disagreements + " row(s), first here ("
+                        + disagreementText + "); the moduli were used"));
+            }
+            for (Map.Entry<List<String>, List<B>> e : buckets.entrySet()) {
+                List<B> list = e.getValue();
+                if (list.size() >= 5 && list.stream().allMatch(b -> b.count() <= 3)) {
+                    ColumnSpec tc = first.byQuantity().get(Quantity.TEMPERATURE);
+                    throw new InputException(path, list.get(0).firstLine, tc == null ? 0 : tc.index() + 1, "sample "
+                            + InputException.quote(e.getKey().get(0)) + " is a temperature ramp (the temperature varies at a few fixed "
+                            + "frequencies); Viscarta reads frequency sweeps, and does not analyse ramps yet");
+                }
+            }
+        }
+    }
+
+    /** Temperatures of one sweep within this many °C of its first are one sweep (instrument exports log the measured temperature). */
+    private static final double SAME_TEMPERATURE_C = 1.0;
+
+    private static boolean sameTemperature(double a, double b) {
+        return (Double.isNaN(a) && Double.isNaN(b)) || Math.abs(a - b) <= SAME_TEMPERATURE_C;
+    }
+
+    private static String cell(Row rec, int i) {
+        return i < rec.size() ? rec.get(i) : "";
     }
 
     private static Row row(Path path, String line, int n, char sep) {
@@ -553,45 +1208,181 @@ public final class SweepReader {
         }
     }
 
-    /** How the header row was understood. */
-    private record Header(List<ColumnSpec> columns, Map<Quantity, ColumnSpec> byQuantity, ModulusKind kind) {
+    /**
+     * How the header row was understood.
+     *
+     * @param width            number of fields of the header (trailing empty ones left out)
+     * @param unnamed          indices of columns without a header (their cells must stay empty)
+     * @param redundantTangent a tan δ or phase column beside E′ and E″, checked against them (null for none)
+     */
+    private record Header(int line, List<ColumnSpec> columns, Map<Quantity, ColumnSpec> byQuantity, ModulusKind kind, int width,
+                          List<Integer> unnamed, ColumnSpec redundantTangent) {
+        String redundantTangentHeader() {
+            return redundantTangent == null ? "" : redundantTangent.header();
+        }
     }
 
+    /**
+     * Understands a header row: every column a quantity, a label, an attribute (a descriptive column
+     * of unknown name, when the needed columns are all there), or not used (names lab exports carry
+     * that the analysis does not need, and tan δ, phase, |E*|, compliances or viscosities beside
+     * E′ and E″). When the needed columns are incomplete the error lists every header not understood,
+     * each with the {@code --column} option that would map it.
+     *
+     * @param required false for a later block: a header without a frequency column gives null (a table that is not a sweep table)
+     */
     private Header header(Path path, Row headerRecord, Map<String, String> metadata, Map<String, Integer> metadataLines,
-                          List<ReadWarning> warnings) {
+                          List<ReadWarning> warnings, boolean required) {
         int headerLine = headerRecord.line();
+        List<String> cells = trimmed(headerRecord.cells());
         List<ColumnSpec> columns = new ArrayList<>();
         EnumMap<Quantity, ColumnSpec> byQuantity = new EnumMap<>(Quantity.class);
-        for (int c = 0; c < headerRecord.size(); c++) {
-            String h = headerRecord.get(c);
+        List<Integer> unnamed = new ArrayList<>();
+        List<Integer> unknown = new ArrayList<>();
+        for (int c = 0; c < cells.size(); c++) {
+            String h = cells.get(c);
             if (h.isEmpty()) {
-                throw new InputException(path, headerLine, c + 1, "empty column header; give every column a name and unit, e.g. 'loss_modulus [Pa]'");
-            }
-            String mapped = columnMap.get(h);
-            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, mapped == null ? h : mapped);
-            if (r.column() == null) {
-                throw new InputException(path, headerLine, c + 1, mapped == null
-                        ? r.problem() + ", or map it with --column \"" + h + "=quantity [unit]\""
-                        : "--column \"" + h + "=" + mapped + "\": " + r.problem());
-            }
-            if (mapped != null) {
-                ColumnSpec m = r.column();
-                r = new HeaderRecognizer.Result(new ColumnSpec(m.index(), h, m.quantity(), m.unit(), m.kindHint()), null);
-            }
-            if (r.column().quantity() == Quantity.QUALITY) {
-                columns.add(r.column());
+                unnamed.add(c);
                 continue;
             }
-            ColumnSpec prev = byQuantity.put(r.column().quantity(), r.column());
+            String mapped = mapping(h);
+            HeaderRecognizer.Result r = HeaderRecognizer.recognize(c, mapped == null ? h : mapped);
+            if (r.column() == null) {
+                if (mapped != null) {
+                    throw new InputException(path, headerLine, c + 1, "--column \"" + InputException.oneLine(h) + "=" + mapped + "\": "
+                            + r.problem());
+                }
+                if (r.nameKnown()) {
+                    throw new InputException(path, headerLine, c + 1, r.problem() + ", or map it with --column \""
+                            + InputException.oneLine(h) + "=quantity [unit]\"");
+                }
+                if (HeaderRecognizer.unneeded(h)) {
+                    columns.add(new ColumnSpec(c, h, Quantity.UNUSED, null, null));
+                } else {
+                    unknown.add(c);
+                    columns.add(new ColumnSpec(c, h, Quantity.ATTRIBUTE, null, null));
+                }
+                continue;
+            }
+            ColumnSpec spec = r.column();
+            if (mapped != null) {
+                spec = new ColumnSpec(spec.index(), h, spec.quantity(), spec.unit(), spec.kindHint());
+            }
+            if (spec.quantity() == Quantity.QUALITY) {
+                columns.add(spec);
+                continue;
+            }
+            ColumnSpec prev = byQuantity.put(spec.quantity(), spec);
             if (prev != null) {
                 throw new InputException(path, headerLine, c + 1, "columns " + (prev.index() + 1) + " and " + (c + 1)
-                        + " both hold " + r.column().quantity().canonical() + "; keep one of them");
+                        + " both hold " + spec.quantity().canonical() + "; keep one of them, or map the other with --column \""
+                        + InputException.oneLine(h) + "=ignore\"");
             }
-            columns.add(r.column());
+            columns.add(spec);
         }
-        checkRequiredColumns(path, headerLine, byQuantity);
+        boolean hasFrequency = byQuantity.containsKey(Quantity.FREQUENCY) || byQuantity.containsKey(Quantity.ANGULAR_FREQUENCY);
+        if (!required && !hasFrequency) {
+            return null;
+        }
+        try {
+            checkRequiredColumns(path, headerLine, byQuantity);
+        } catch (InputException e) {
+            if (unknown.isEmpty()) {
+                throw e;
+            }
+            StringBuilder sb = new StringBuilder(e.problem()).append(". Not understood: ");
+            for (int i = 0; i < unknown.size(); i++) {
+                String h = cells.get(unknown.get(i));
+                sb.append(i == 0 ? "" : ", ").append(InputException.quote(h)).append(" (column ").append(unknown.get(i) + 1).append(")");
+            }
+            sb.append("; map each with its own option, e.g.");
+            int stress = 0;
+            for (int i : unknown) {
+                String g = guess(cells.get(i), stress);
+                stress += g.startsWith("storage_modulus") || g.startsWith("loss_modulus") ? 1 : 0;
+                sb.append(" --column \"").append(InputException.oneLine(cells.get(i).length() > 80 ? cells.get(i).substring(0, 80) : cells.get(i)))
+                        .append('=').append(g).append('"');
+            }
+            throw new InputException(path, headerLine, unknown.get(0) + 1, sb.toString());
+        }
+        ColumnSpec redundant = null;
+        if (byQuantity.containsKey(Quantity.STORAGE_MODULUS) && byQuantity.containsKey(Quantity.LOSS_MODULUS)) {
+            for (Quantity extra : List.of(Quantity.LOSS_TANGENT, Quantity.PHASE_ANGLE, Quantity.COMPLEX_MODULUS_MAGNITUDE,
+                    Quantity.STORAGE_COMPLIANCE, Quantity.LOSS_COMPLIANCE, Quantity.DYNAMIC_VISCOSITY, Quantity.OUT_OF_PHASE_VISCOSITY,
+                    Quantity.COMPLEX_VISCOSITY_MAGNITUDE)) {
+                ColumnSpec x = byQuantity.remove(extra);
+                if (x == null) {
+                    continue;
+                }
+                columns.set(columns.indexOf(x), new ColumnSpec(x.index(), x.header(), Quantity.UNUSED, x.unit(), null));
+                if (redundant == null && (extra == Quantity.LOSS_TANGENT || extra == Quantity.PHASE_ANGLE)) {
+                    redundant = x;
+                }
+            }
+        }
         ModulusKind kind = resolveKind(path, headerLine, byQuantity, metadata, metadataLines, warnings);
-        return new Header(columns, byQuantity, kind);
+        return new Header(headerLine, columns, byQuantity, kind, cells.size(), unnamed, redundant);
+    }
+
+    /** The --column mapping of a header, looked up as written and without a units row's unit. */
+    private String mapping(String header) {
+        String m = columnMap.get(header);
+        if (m == null) {
+            Matcher u = KEY_UNIT.matcher(header);
+            if (u.matches()) {
+                m = columnMap.get(u.group(1));
+                if (m != null && !KEY_UNIT.matcher(m).matches() && !m.equals("ignore") && !m.startsWith("quality_")) {
+                    m = m + " [" + u.group(2) + "]";
+                }
+            }
+        }
+        return m;
+    }
+
+    /**
+     * A likely mapping for an unknown header, for the error's suggestion (the user checks it): from
+     * its name where it says, else from its unit (a stress unit: storage, then loss modulus), else ignore.
+     *
+     * @param stressSeen how many earlier suggestions were moduli
+     */
+    private static String guess(String header, int stressSeen) {
+        Matcher u = KEY_UNIT.matcher(header);
+        String name = (u.matches() ? u.group(1) : header).toLowerCase(Locale.ROOT);
+        String unitText = u.matches() ? u.group(2).strip() : "";
+        Optional<Unit> unit = Unit.anyDimension(unitText);
+        String bracket = unitText.isEmpty() ? "" : " [" + unitText + "]";
+        Quantity.Dimension d = unit.map(Unit::dimension).orElse(null);
+        if (name.contains("stor") || name.contains("elastic")) {
+            return "storage_modulus" + (bracket.isEmpty() ? " [Pa]" : bracket);
+        }
+        if (name.contains("loss") && !name.contains("tan") && !name.contains("factor")) {
+            return "loss_modulus" + (bracket.isEmpty() ? " [Pa]" : bracket);
+        }
+        if (name.contains("angular") || name.contains("omega") || name.contains("rad")) {
+            return "angular_frequency" + (bracket.isEmpty() ? " [rad/s]" : bracket);
+        }
+        if (name.contains("freq") || d == Quantity.Dimension.FREQUENCY) {
+            return "frequency" + (bracket.isEmpty() ? " [Hz]" : bracket);
+        }
+        if (d == Quantity.Dimension.ANGULAR_FREQUENCY) {
+            return "angular_frequency" + bracket;
+        }
+        if (d == Quantity.Dimension.STRESS) {
+            return (stressSeen % 2 == 0 ? "storage_modulus" : "loss_modulus") + bracket;
+        }
+        if (name.contains("tan") || name.contains("factor")) {
+            return "loss_tangent";
+        }
+        if (name.contains("phase") || d == Quantity.Dimension.ANGLE) {
+            return "phase_angle" + (bracket.isEmpty() ? " [deg]" : bracket);
+        }
+        if (name.contains("temp") || d == Quantity.Dimension.TEMPERATURE) {
+            return "temperature [°C]";
+        }
+        if (name.contains("sample") || name.contains("specimen") || name.contains("name")) {
+            return "sample";
+        }
+        return "ignore";
     }
 
     private static final Pattern WIDE_HEADER = Pattern.compile(
@@ -667,7 +1458,10 @@ public final class SweepReader {
                 if (rec.get(e.getValue()[0].index()).isEmpty() && rec.get(e.getValue()[1].index()).isEmpty()) {
                     continue; // a sample measured at fewer frequencies than the others
                 }
-                pts.add(point(rec, q, dm, path, rec.line()));
+                SweepPoint p = point(rec, q, dm, path, rec.line());
+                if (p != null) {
+                    pts.add(p);
+                }
             }
             if (pts.isEmpty()) {
                 throw new InputException(path, header.line(), e.getValue()[0].index() + 1, "sample '" + e.getKey() + "' has no values");
@@ -749,10 +1543,40 @@ public final class SweepReader {
         return kind;
     }
 
+    /**
+     * The point of one row in SI units, or null when a needed cell is blank or not a number
+     * ({@link #NOT_A_NUMBER}): the caller leaves the point out and counts it.
+     */
     private static SweepPoint point(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line) {
+        try {
+            return pointOrThrow(rec, q, dm, path, line);
+        } catch (MissingValue e) {
+            return null;
+        }
+    }
+
+    /** A needed cell that holds no value. */
+    private static final class MissingValue extends RuntimeException {
+        private static final long serialVersionUID = 1L;
+        static final MissingValue INSTANCE = new MissingValue();
+
+        private MissingValue() {
+            super(null, null, false, false);
+        }
+    }
+
+    private static double value(Row rec, ColumnSpec c, char dm, Path path, int line) {
+        String cell = cell(rec, c.index());
+        if (cell.isEmpty() || NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT))) {
+            throw MissingValue.INSTANCE;
+        }
+        return number(cell, c, dm, path, line);
+    }
+
+    private static SweepPoint pointOrThrow(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line) {
         double f;
         ColumnSpec fc = q.containsKey(Quantity.FREQUENCY) ? q.get(Quantity.FREQUENCY) : q.get(Quantity.ANGULAR_FREQUENCY);
-        f = number(rec, fc, dm, path, line);
+        f = value(rec, fc, dm, path, line);
         if (fc.quantity() == Quantity.ANGULAR_FREQUENCY) {
             f = f / (2.0 * Math.PI);
         }
@@ -764,12 +1588,12 @@ public final class SweepReader {
         double loss;
         double omega = 2 * Math.PI * f;
         if (q.containsKey(Quantity.STORAGE_MODULUS) && q.containsKey(Quantity.LOSS_MODULUS)) {
-            storage = number(rec, q.get(Quantity.STORAGE_MODULUS), dm, path, line);
-            loss = number(rec, q.get(Quantity.LOSS_MODULUS), dm, path, line);
+            storage = value(rec, q.get(Quantity.STORAGE_MODULUS), dm, path, line);
+            loss = value(rec, q.get(Quantity.LOSS_MODULUS), dm, path, line);
         } else if (q.containsKey(Quantity.STORAGE_COMPLIANCE) && q.containsKey(Quantity.LOSS_COMPLIANCE)) {
             // J* = J′ − iJ″ = 1/M* ⇒ M′ = J′/(J′² + J″²), M″ = J″/(J′² + J″²) (DOMAIN.md section 0)
-            double jp = number(rec, q.get(Quantity.STORAGE_COMPLIANCE), dm, path, line);
-            double jpp = number(rec, q.get(Quantity.LOSS_COMPLIANCE), dm, path, line);
+            double jp = value(rec, q.get(Quantity.STORAGE_COMPLIANCE), dm, path, line);
+            double jpp = value(rec, q.get(Quantity.LOSS_COMPLIANCE), dm, path, line);
             double n = jp * jp + jpp * jpp;
             if (!(n > 0)) {
                 throw new InputException(path, line, q.get(Quantity.STORAGE_COMPLIANCE).index() + 1, "the compliances are both zero");
@@ -778,21 +1602,21 @@ public final class SweepReader {
             loss = jpp / n;
         } else if (q.containsKey(Quantity.DYNAMIC_VISCOSITY) && q.containsKey(Quantity.OUT_OF_PHASE_VISCOSITY)) {
             // η* = G*/(iω) = η′ − iη″ ⇒ G′ = ωη″, G″ = ωη′ (ISO 6721-10; DOMAIN.md section 1)
-            loss = omega * number(rec, q.get(Quantity.DYNAMIC_VISCOSITY), dm, path, line);
-            storage = omega * number(rec, q.get(Quantity.OUT_OF_PHASE_VISCOSITY), dm, path, line);
+            loss = omega * value(rec, q.get(Quantity.DYNAMIC_VISCOSITY), dm, path, line);
+            storage = omega * value(rec, q.get(Quantity.OUT_OF_PHASE_VISCOSITY), dm, path, line);
         } else {
             boolean viscous = !q.containsKey(Quantity.COMPLEX_MODULUS_MAGNITUDE);
             ColumnSpec mc = viscous ? q.get(Quantity.COMPLEX_VISCOSITY_MAGNITUDE) : q.get(Quantity.COMPLEX_MODULUS_MAGNITUDE);
-            double mag = number(rec, mc, dm, path, line) * (viscous ? omega : 1);
+            double mag = value(rec, mc, dm, path, line) * (viscous ? omega : 1);
             if (!(mag > 0)) {
                 throw new InputException(path, line, mc.index() + 1, "|E*| must be greater than zero, found '"
-                        + rec.get(mc.index()) + "'");
+                        + InputException.oneLine(cell(rec, mc.index())) + "'");
             }
             double delta;
             if (q.containsKey(Quantity.PHASE_ANGLE)) {
-                delta = number(rec, q.get(Quantity.PHASE_ANGLE), dm, path, line);
+                delta = value(rec, q.get(Quantity.PHASE_ANGLE), dm, path, line);
             } else {
-                delta = Math.atan(number(rec, q.get(Quantity.LOSS_TANGENT), dm, path, line));
+                delta = Math.atan(value(rec, q.get(Quantity.LOSS_TANGENT), dm, path, line));
             }
             storage = mag * Math.cos(delta);
             loss = mag * Math.sin(delta);
@@ -807,22 +1631,26 @@ public final class SweepReader {
         return new SweepPoint(f, storage, loss, line);
     }
 
-    private static double number(Row rec, ColumnSpec c, char decimalMark, Path path, int line) {
-        String cell = rec.get(c.index());
+    private static double number(String cell, ColumnSpec c, char decimalMark, Path path, int line) {
         String t = decimalMark == ',' ? cell.replace(',', '.') : cell;
         if (t.isEmpty()) {
             throw new InputException(path, line, c.index() + 1, "empty cell in column '" + c.header()
                     + "'; fill it or remove the row");
         }
         if (!isPlainNumber(t)) {
-            throw new InputException(path, line, c.index() + 1, "'" + cell + "' in column '" + c.header()
-                    + "' is not a number; write plain numbers such as 1250 or 1.25e3");
+            throw new InputException(path, line, c.index() + 1, InputException.quote(cell) + " in column "
+                    + InputException.quote(c.header()) + " is not a number; write plain numbers such as 1250 or 1.25e3");
         }
         double v = Double.parseDouble(t);
         if (!Double.isFinite(v)) {
-            throw new InputException(path, line, c.index() + 1, "'" + cell + "' is too large to be a number");
+            throw new InputException(path, line, c.index() + 1, InputException.quote(cell) + " is too large to be a number");
         }
-        return c.unit() == null ? v : v * c.unit().toSi();
+        double si = c.unit() == null ? v : v * c.unit().toSi();
+        if (!Double.isFinite(si)) {
+            throw new InputException(path, line, c.index() + 1, InputException.quote(cell) + " " + c.unit().symbol()
+                    + " is too large once converted to SI units");
+        }
+        return si;
     }
 
     /** Splits a line that holds no quotes at the separator, trimming each cell (the common, fast case). */
@@ -881,17 +1709,6 @@ public final class SweepReader {
         return i == n;
     }
 
-    private static String label(Row rec, ColumnSpec c, String fallback, Path path, int line) {
-        if (c == null) {
-            return fallback;
-        }
-        String v = rec.get(c.index());
-        if (v.isEmpty()) {
-            throw new InputException(path, line, c.index() + 1, "empty " + c.quantity().canonical()
-                    + " cell; every row of a tidy table names its " + c.quantity().canonical());
-        }
-        return v;
-    }
 
     private static void checkPoints(Path path, Sweep s, List<ReadWarning> warnings) {
         List<SweepPoint> pts = s.points();

@@ -44,7 +44,11 @@ public enum Quantity {
     /** Position on the sample, y, stored in m. */
     POSITION_Y("y", Dimension.LENGTH),
     /** A quality column written by {@code moduli} (name starting with {@code quality_}): kept in the file, not used. */
-    QUALITY("quality", Dimension.LABEL);
+    QUALITY("quality", Dimension.LABEL),
+    /** A descriptive column of a tidy table (composition, exposure ...): an attribute of each sample when constant over its sweeps. */
+    ATTRIBUTE("attribute", Dimension.LABEL),
+    /** A column the analysis does not need (point number, strain, torque, time, a redundant tan δ ...): read past, listed once. */
+    UNUSED("not used", Dimension.LABEL);
 
     /** What kind of unit a quantity takes. */
     public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH, COMPLIANCE, VISCOSITY }

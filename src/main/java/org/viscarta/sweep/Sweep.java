@@ -20,9 +20,17 @@ import java.util.OptionalDouble;
  * @param source      the file the sweep was read from
  * @param metadata    the file's {@code # key: value} lines, keys in lower case
  * @param points      the measured points, sorted by frequency
+ * @param attributes  descriptive columns of a tidy table that are constant over the sweep
+ *                    (composition, layer height, exposure ...), header as written → value, in column order
  */
 public record Sweep(String sample, String replicate, String group, ModulusKind kind, double temperatureC,
-                    Path source, Map<String, String> metadata, List<SweepPoint> points) {
+                    Path source, Map<String, String> metadata, List<SweepPoint> points, Map<String, String> attributes) {
+
+    /** A sweep without attributes. */
+    public Sweep(String sample, String replicate, String group, ModulusKind kind, double temperatureC,
+                 Path source, Map<String, String> metadata, List<SweepPoint> points) {
+        this(sample, replicate, group, kind, temperatureC, source, metadata, points, Map.of());
+    }
 
     public Sweep {
         Objects.requireNonNull(sample, "sample");
@@ -34,6 +42,7 @@ public record Sweep(String sample, String replicate, String group, ModulusKind k
             throw new IllegalArgumentException("a sweep needs at least one point");
         }
         metadata = Map.copyOf(metadata);
+        attributes = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(attributes));
         List<SweepPoint> sorted = new ArrayList<>(points);
         sorted.sort(Comparator.comparingDouble(SweepPoint::frequencyHz));
         points = List.copyOf(sorted);
@@ -70,7 +79,12 @@ public record Sweep(String sample, String replicate, String group, ModulusKind k
 
     /** The same sweep with other points and modulus kind (used by basis conversion). */
     public Sweep withPoints(ModulusKind newKind, List<SweepPoint> newPoints) {
-        return new Sweep(sample, replicate, group, newKind, temperatureC, source, metadata, newPoints);
+        return new Sweep(sample, replicate, group, newKind, temperatureC, source, metadata, newPoints, attributes);
+    }
+
+    /** The same sweep in another group (a sample attribute chosen as the group). */
+    public Sweep withGroup(String newGroup) {
+        return new Sweep(sample, replicate, newGroup, kind, temperatureC, source, metadata, points, attributes);
     }
 
     /** The points whose loss modulus is positive, i.e. those a fit on log moduli can use. */

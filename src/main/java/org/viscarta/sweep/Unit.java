@@ -79,6 +79,24 @@ public enum Unit {
         return Optional.empty();
     }
 
+    /** A unit of any dimension spelled as {@code text}, brackets or parentheses around it allowed (a units row's cell). */
+    public static Optional<Unit> anyDimension(String text) {
+        String t = text.strip();
+        if (t.length() >= 2 && (t.charAt(0) == '[' || t.charAt(0) == '(')) {
+            t = t.substring(1, t.length() - 1).strip();
+        }
+        if (t.isEmpty()) {
+            return Optional.empty();
+        }
+        for (Quantity.Dimension d : Quantity.Dimension.values()) {
+            Optional<Unit> u = find(t, d);
+            if (u.isPresent()) {
+                return u;
+            }
+        }
+        return Optional.empty();
+    }
+
     /**
      * A value with its unit, such as {@code 0.5 Hz}, {@code 2kHz} or {@code 6.28 rad/sec}, in SI units of
      * its dimension — the one parser behind column headers and option values. The unit must be of

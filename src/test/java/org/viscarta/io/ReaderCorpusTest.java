@@ -55,14 +55,31 @@ class ReaderCorpusTest {
     @MethodSource("cases")
     void readsAsExpected(String file, String outcome, String detail) throws URISyntaxException {
         Path p = corpus().resolve(file);
-        String[] d = detail.split(";", 3);
         if (outcome.equals("ok")) {
+            String[] d = detail.split(";");
             SweepFile f = new SweepReader(null).read(p);
             assertEquals(Integer.parseInt(d[0]), f.sweeps().size(), "sweeps");
             assertEquals(Integer.parseInt(d[1]), f.sweeps().stream().mapToInt(s -> s.points().size()).sum(), "points");
             double expected = Double.parseDouble(d[2]);
             assertEquals(expected, f.sweeps().get(0).points().get(0).storage(), 1e-9 * expected, "first storage modulus [Pa]");
+            org.viscarta.sweep.Sweep first = f.sweeps().get(0);
+            String warnings = f.warnings().toString();
+            for (int i = 3; i < d.length; i++) {
+                String key = d[i].substring(0, d[i].indexOf('='));
+                String value = d[i].substring(d[i].indexOf('=') + 1);
+                switch (key) {
+                    case "sample" -> assertEquals(value, first.sample(), "sample");
+                    case "replicate" -> assertEquals(value, first.replicate(), "replicate");
+                    case "temperature" -> assertEquals(Double.parseDouble(value), first.temperatureC(), 1e-9, "temperature");
+                    case "attribute" -> assertEquals(value.substring(value.indexOf('=') + 1),
+                            first.attributes().get(value.substring(0, value.indexOf('='))), "attribute " + value + " in " + first.attributes());
+                    case "warning" -> assertTrue(warnings.contains(value), "a warning says '" + value + "': " + warnings);
+                    case "nowarning" -> assertFalse(warnings.contains(value), "no warning says '" + value + "': " + warnings);
+                    default -> throw new IllegalArgumentException("unknown expectation " + key);
+                }
+            }
         } else {
+            String[] d = detail.split(";", 3);
             InputException e = assertThrows(InputException.class, () -> new SweepReader(null).read(p));
             assertEquals(Integer.parseInt(d[0]), e.line(), "line: " + e.getMessage());
             assertEquals(Integer.parseInt(d[1]), e.column(), "column: " + e.getMessage());

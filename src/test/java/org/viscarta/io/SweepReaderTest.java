@@ -236,9 +236,18 @@ class SweepReaderTest {
     }
 
     @Test
-    void rejectsAnUnknownHeader() throws IOException {
-        InputException e = bad("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],colour\n1,100,10,red\n");
-        assertEquals(4, e.column());
+    void anUnknownDescriptiveColumnBesideCompleteModuliIsASampleAttribute() throws IOException {
+        SweepFile f = read("frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],colour\n1,100,10,red\n");
+        assertEquals("red", f.sweeps().get(0).attributes().get("colour"));
+        InputException e = bad("frequency [Hz],storage_modulus [Pa],colour\n1,100,red\n");
+        assertEquals(3, e.column(), "with the moduli incomplete, the unknown column is named: " + e.getMessage());
+        assertTrue(e.problem().contains("'colour' (column 3)"), e.problem());
+    }
+
+    @Test
+    void aUnitWrittenAfterTheNameIsRead() throws IOException {
+        SweepFile f = read("frequency_Hz,storage_modulus_kPa,loss_modulus_kPa\n1,2,0.5\n");
+        assertEquals(2000, f.sweeps().get(0).points().get(0).storage(), 1e-9);
     }
 
     @Test
@@ -321,7 +330,7 @@ class SweepReaderTest {
             h.createCell(2).setCellValue("loss_modulus [Pa]");
             var r = s.createRow(1);
             r.createCell(0).setCellValue(1);
-            r.createCell(1).setCellValue("n/a");
+            r.createCell(1).setCellValue("about 2");
             r.createCell(2).setCellValue(3);
             try (var out = Files.newOutputStream(p)) {
                 wb.write(out);
@@ -376,7 +385,9 @@ class SweepReaderTest {
         assertEquals(1.0, f.sweeps().get(0).points().get(0).frequencyHz(), 1e-12);
         assertEquals("G_storage_Pa", f.info().columns().get(1).header());
         InputException e = assertThrows(InputException.class, () -> reader.read(p));
-        assertTrue(e.problem().contains("--column \"angular_frequency_rad_s=quantity [unit]\""), e.problem());
+        assertTrue(e.problem().contains("--column \"angular_frequency_rad_s=angular_frequency [rad/s]\""), e.problem());
+        assertTrue(e.problem().contains("--column \"G_storage_Pa=storage_modulus [Pa]\""), e.problem());
+        assertTrue(e.problem().contains("--column \"G_loss_Pa=loss_modulus [Pa]\""), e.problem());
         Path extra = write("extra.csv", "frequency [Hz],storage_modulus [Pa],loss_modulus [Pa],acrylamide_conc_percent\n1,100,10,12.5\n");
         assertEquals(100, new SweepReader(null, java.util.Map.of("acrylamide_conc_percent", "ignore")).read(extra).sweeps().get(0)
                 .points().get(0).storage());
