@@ -61,13 +61,25 @@ final class LibraryCommand implements Runnable {
         @Mixin
         LibraryOption library;
 
+        @Mixin
+        ReadOptions read;
+
         @CommandLine.Spec
         CommandLine.Model.CommandSpec spec;
 
         @Override
         public Integer call() throws IOException {
-            Path written = new LibraryFolder(library.folder()).add(file,
-                    new LibraryFolder.Additions(name, clazz, composition, condition, notes, temperature, method), replace);
+            if (read.basis != null || read.poisson != null) {
+                throw new UsageException("library add keeps a reference on the basis it was measured on; --basis and --poisson "
+                        + "are not taken here (a comparison across bases says so; --basis converts the samples there)");
+            }
+            org.viscarta.analysis.ReadSettings rs = read.settings();
+            LibraryFolder.Added added = new LibraryFolder(library.folder()).add(file,
+                    new LibraryFolder.Additions(name, clazz, composition, condition, notes, temperature, method), replace,
+                    new org.viscarta.io.SweepReader(rs.declaredKind().orElse(null), rs.columns()), rs.declaredKind().isPresent());
+            added.warnings().forEach(w -> spec.commandLine().getErr().println("warning: " + w));
+            spec.commandLine().getErr().flush();
+            Path written = added.file();
             spec.commandLine().getOut().println("added '" + name + "' as " + written);
             spec.commandLine().getOut().flush();
             return CommandLine.ExitCode.OK;

@@ -42,6 +42,7 @@ public final class InputCollector {
                     walk.filter(Files::isRegularFile)
                             .filter(p -> !isHidden(in, p))
                             .filter(InputCollector::looksLikeSweepTable)
+                            .filter(p -> !insideOwnOutput(in, p) && !ownOutputTable(p))
                             .sorted()
                             .forEach(found::add);
                 } catch (IOException e) {
@@ -56,6 +57,52 @@ public final class InputCollector {
             }
         }
         return List.copyOf(out);
+    }
+
+    /**
+     * True when the file lies in a folder Viscarta wrote: a report (report.xlsx beside a figures
+     * folder) or the tables of {@code shift} (shift-factors.csv beside shift-fits.csv). A report
+     * written inside the inputs is not read back as data.
+     */
+    static boolean insideOwnOutput(Path root, Path p) {
+        for (Path d = p.getParent(); d != null; d = d.getParent()) {
+            if ((Files.isRegularFile(d.resolve("report.xlsx")) && Files.isDirectory(d.resolve("figures")))
+                    || (Files.isRegularFile(d.resolve("shift-factors.csv")) && Files.isRegularFile(d.resolve("shift-fits.csv")))) {
+                return true;
+            }
+            if (d.equals(root)) {
+                break;
+            }
+        }
+        return false;
+    }
+
+    /**
+     * The header lines of the CSV tables {@code fit}, {@code rank} and {@code match} write with
+     * {@code -o} (their column ids; InputCollectorTest writes each and checks that it is skipped).
+     */
+    private static final List<String> OUTPUT_HEADERS = List.of("rank,sample,group,n_replicates,", "sample,reference,rank,distance,",
+            "sample,model,parameter,value,", "sample,model,time_s,");
+
+    /** True for a CSV table Viscarta wrote with -o (not a sweep table). */
+    static boolean ownOutputTable(Path p) {
+        if (!p.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(".csv")) {
+            return false;
+        }
+        byte[] head = new byte[256];
+        int n;
+        try (java.io.InputStream in = Files.newInputStream(p)) {
+            n = in.readNBytes(head, 0, head.length);
+        } catch (IOException e) {
+            return false;
+        }
+        String first = new String(head, 0, n, java.nio.charset.StandardCharsets.UTF_8);
+        for (String h : OUTPUT_HEADERS) {
+            if (first.startsWith(h)) {
+                return true;
+            }
+        }
+        return false;
     }
 
     private static boolean isHidden(Path root, Path p) {

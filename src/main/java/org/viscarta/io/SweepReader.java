@@ -167,7 +167,8 @@ public final class SweepReader {
                 if (org.apache.poi.ss.usermodel.DateUtil.isCellDateFormatted(cell)) {
                     return "a date cell (" + fmt.formatCellValue(cell).strip() + ")";
                 }
-                return Double.toString(cell.getNumericCellValue());
+                double v = cell.getNumericCellValue();
+                return v == Math.rint(v) && Math.abs(v) < 1e15 ? Long.toString((long) v) : Double.toString(v);
             case STRING:
                 return cell.getStringCellValue().strip();
             case BOOLEAN:

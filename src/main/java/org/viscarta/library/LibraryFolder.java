@@ -53,13 +53,30 @@ public final class LibraryFolder {
         return folder;
     }
 
+    /** {@link #add(Path, Additions, boolean, SweepReader, boolean)} with the default reading. */
+    public Path add(Path source, Additions a, boolean replace) throws IOException {
+        return add(source, a, replace, new SweepReader(null), false).file();
+    }
+
+    /**
+     * What {@code library add} did.
+     *
+     * @param file     the entry's file
+     * @param warnings what the user should know (reading warnings; a basis that was not stated)
+     */
+    public record Added(Path file, List<String> warnings) {
+    }
+
     /**
      * Adds a sweep file as a reference in the canonical form (SI units, complete metadata).
      *
      * @return the file written
+     * @param reader     reads the source with the user's reading options (--column, --modulus)
+     * @param kindGiven  whether the user stated the basis (--modulus); when neither it, the headers nor the
+     *                   file say, the entry is written without a basis and a warning says so
      * @throws InputException for a bad file, missing metadata, or a name already used (without replace)
      */
-    public Path add(Path source, Additions a, boolean replace) throws IOException {
+    public Added add(Path source, Additions a, boolean replace, SweepReader reader, boolean kindGiven) throws IOException {
         requireFolder();
         if (a.name() == null || a.name().isBlank()) {
             throw new UsageException("a reference needs a name: pass --name");
@@ -74,7 +91,7 @@ public final class LibraryFolder {
         checkValue("--notes", a.notes());
         checkValue("--temperature", a.temperature());
         checkValue("--method", a.method());
-        SweepFile sf = new SweepReader(null).read(source);
+        SweepFile sf = reader.read(source);
         if (sf.sweeps().size() != 1) {
             throw new InputException(source, sf.info().headerLine(), 0, "a reference is one sweep; this file holds "
                     + sf.sweeps().size() + " (several samples, replicates or temperatures): add them one by one");
@@ -95,11 +112,26 @@ public final class LibraryFolder {
                     + "(or DMA, rheometer, ...) to the file or pass --method");
         }
         meta.put("method", method.strip());
-        meta.put("modulus", sw.kind().toString());
+        List<String> warnings = new java.util.ArrayList<>();
+        sf.warnings().forEach(w -> warnings.add(w.toString()));
+        boolean kindStated = kindGiven || sf.info().metadata().containsKey("modulus")
+                || sf.info().columns().stream().anyMatch(c -> c.kindHint() != null);
+        if (kindStated) {
+            meta.put("modulus", sw.kind().toString());
+        } else {
+            warnings.add(source + ": the entry is written without a basis (tensile or shear): neither the file nor --modulus "
+                    + "says which; it is read as tensile, with a warning, until '# modulus:' is added to it");
+        }
         putIf(meta, "composition", a.composition());
         putIf(meta, "condition", a.condition());
         putIf(meta, "notes", a.notes());
         for (Map.Entry<String, String> e : sf.info().metadata().entrySet()) {
+            if (e.getKey().equals("modulus") && !kindStated) {
+                continue;
+            }
+            if (e.getValue().chars().anyMatch(c -> c == ';' || Character.isISOControl(c)) || e.getKey().contains(";")) {
+                continue; // a preamble note that one metadata line cannot hold
+            }
             meta.putIfAbsent(e.getKey(), e.getValue());
         }
         meta.put("source_file", source.getFileName().toString());
@@ -115,7 +147,7 @@ public final class LibraryFolder {
             if (existing == null) {
                 Path target = freeFile(slug(a.name()));
                 AtomicOutput.write(target, false, out -> out.write(table.getBytes(StandardCharsets.UTF_8)));
-                return target;
+                return new Added(target, warnings);
             }
             // the entry keeps its own file: write the new version over it, then keep the old one in .removed/;
             // if the old one cannot be kept, put it back
@@ -129,7 +161,7 @@ public final class LibraryFolder {
                 throw new IOException("the old version of '" + a.name().strip() + "' cannot be kept in " + folder.resolve(REMOVED)
                         + " (" + e.getMessage() + "); the library is unchanged", e);
             }
-            return existing;
+            return new Added(existing, warnings);
         } catch (IOException | RuntimeException e) {
             throw e;
         } catch (Exception e) {

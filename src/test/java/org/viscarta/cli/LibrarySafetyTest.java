@@ -115,4 +115,24 @@ class LibrarySafetyTest {
         assertEquals(0, remove.exitCode(), remove.err());
         assertEquals(List.of("gel-a"), names());
     }
+
+    @Test
+    void libraryAddTakesTheReadingOptionsAndNeverWritesAnUnstatedBasisAsAFact() throws IOException {
+        Path export = dir.resolve("export.csv");
+        Files.writeString(export, "# temperature: 25 °C\n# method: rheometer\nfreq_hz,stor_pa,loss_pa\n0.1,1000,100\n1,1200,150\n");
+        CliRun refused = CliRun.of("library", "add", export.toString(), "--name", "E1", "--class", "gel", "--library", lib.toString());
+        assertEquals(2, refused.exitCode(), refused.err());
+        assertTrue(refused.err().contains("--column \"stor_pa=storage_modulus [Pa]\""), "the message names the fix: " + refused.err());
+        CliRun mapped = CliRun.of("library", "add", export.toString(), "--name", "E1", "--class", "gel", "--library", lib.toString(),
+                "--column", "freq_hz=frequency [Hz]", "--column", "stor_pa=storage_modulus [Pa]", "--column", "loss_pa=loss_modulus [Pa]");
+        assertEquals(0, mapped.exitCode(), mapped.err());
+        assertTrue(mapped.err().contains("without a basis"), mapped.err());
+        Path entry = lib.resolve("e1.csv");
+        assertTrue(!Files.readString(entry).contains("# modulus:"), "no basis written as a fact: " + Files.readString(entry));
+        CliRun shear = CliRun.of("library", "add", export.toString(), "--name", "E2", "--class", "gel", "--library", lib.toString(),
+                "--modulus", "shear", "--column", "freq_hz=frequency [Hz]", "--column", "stor_pa=storage_modulus [Pa]",
+                "--column", "loss_pa=loss_modulus [Pa]");
+        assertEquals(0, shear.exitCode(), shear.err());
+        assertTrue(Files.readString(lib.resolve("e2.csv")).contains("# modulus: shear"), "a stated basis is kept");
+    }
 }

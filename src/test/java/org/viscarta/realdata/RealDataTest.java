@@ -42,4 +42,49 @@ class RealDataTest {
             assertTrue(sf.best().isPresent(), sf.sample().name() + ": some model converges");
         }
     }
+
+    private static final Path PAA = Path.of("..", "shared", "real-data", "polyacrylamide-hydrogel-sweeps");
+
+    /**
+     * The original workbook's sheet "filtered" (SOURCE.md): the formulation ("Condition") and the
+     * replicate ("Serial no.") are written only on the first row of each 16-row block, the composition
+     * and printing settings in columns of their own. Read with two column maps, it gives the 29
+     * formulations and 146 sweeps SOURCE.md counts, the composition columns as attributes, and the same
+     * numbers as the tidy re-layout beside it.
+     */
+    @Test
+    void thePolyacrylamideWorkbookReadsAsItsTidyCopy() throws java.io.IOException {
+        Path book = PAA.resolve("Rheology_data.xlsx");
+        assumeTrue(Files.exists(book), "../shared/real-data is not here");
+        org.viscarta.io.SweepFile f = new org.viscarta.io.SweepReader(org.viscarta.sweep.ModulusKind.SHEAR,
+                Map.of("Condition", "sample", "Serial no.", "replicate")).read(book);
+        List<org.viscarta.sweep.Sweep> sweeps = f.sweeps();
+        assertEquals(146, sweeps.size(), "146 sweeps (SOURCE.md)");
+        assertEquals(29, sweeps.stream().map(org.viscarta.sweep.Sweep::sample).distinct().count(), "29 formulations (SOURCE.md)");
+        assertEquals("10", sweeps.get(0).attributes().get("Acylamide Conc. %"), sweeps.get(0).attributes().toString());
+        assertEquals(6, sweeps.get(0).attributes().size(), "six composition and printing columns: " + sweeps.get(0).attributes());
+        // the tidy CSV: sweep_id in sheet order, 16 rows each; numbers copied unchanged
+        List<String> rows = Files.readAllLines(PAA.resolve("paa_frequency_sweeps_tidy.csv"));
+        Map<String, List<String[]>> byId = new java.util.LinkedHashMap<>();
+        for (String r : rows.subList(1, rows.size())) {
+            String[] c = r.split(",");
+            byId.computeIfAbsent(c[0], k -> new java.util.ArrayList<>()).add(c);
+        }
+        assertEquals(146, byId.size());
+        int i = 0;
+        for (List<String[]> csv : byId.values()) {
+            org.viscarta.sweep.Sweep s = sweeps.get(i++);
+            assertEquals(csv.get(0)[1], s.replicate(), "replicate label of sweep " + i);
+            assertEquals(csv.get(0)[2], s.attributes().get("Acylamide Conc. %"), "acrylamide of sweep " + i);
+            List<String[]> sorted = new java.util.ArrayList<>(csv);
+            sorted.sort(java.util.Comparator.comparingDouble(c -> Double.parseDouble(c[8])));
+            assertEquals(sorted.size(), s.points().size(), "points of sweep " + i);
+            for (int k = 0; k < sorted.size(); k++) {
+                double g1 = Double.parseDouble(sorted.get(k)[9]);
+                assertEquals(Double.parseDouble(sorted.get(k)[8]), s.points().get(k).frequencyHz(), 1e-12, "frequency");
+                assertEquals(g1, s.points().get(k).storage(), 1e-9 * g1, "G′ of sweep " + i);
+                assertEquals(Double.parseDouble(sorted.get(k)[10]), s.points().get(k).loss(), 1e-9 * g1, "G″ of sweep " + i);
+            }
+        }
+    }
 }
