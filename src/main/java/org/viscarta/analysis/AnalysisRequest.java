@@ -104,6 +104,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         private OptionalDouble poisson = OptionalDouble.empty();
         private Map<String, String> columns = Map.of();
         private ReadSettings.BadFiles badFiles = ReadSettings.BadFiles.LEAVE_OUT;
+        private Optional<String> groupBy = Optional.empty();
         private List<String> modelIds = ModelCatalogue.ids();
         private Weighting weighting = Weighting.LOG;
         private RankingPoint rankingPoint = RankingPoint.DEFAULT;
@@ -142,6 +143,12 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         /** Headers (as written) mapped to what they hold. */
         public Builder columns(Map<String, String> map) {
             this.columns = new LinkedHashMap<>(map);
+            return this;
+        }
+
+        /** A sample attribute whose value becomes each sample's group ({@code --group-by}). */
+        public Builder groupBy(String attribute) {
+            this.groupBy = Optional.ofNullable(attribute);
             return this;
         }
 
@@ -214,7 +221,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         }
 
         public AnalysisRequest build() {
-            return new AnalysisRequest(inputs, new ReadSettings(declaredKind, basis, poisson, columns, badFiles), modelIds, weighting,
+            return new AnalysisRequest(inputs, new ReadSettings(declaredKind, basis, poisson, columns, badFiles, groupBy), modelIds, weighting,
                     rankingPoint, outsideRange, alpha, sets, library, matching, target, masterCurves, timeGrid, parts);
         }
     }

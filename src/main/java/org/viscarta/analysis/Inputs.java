@@ -81,9 +81,19 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             warnings.addAll(sf.warnings());
             for (Sweep s : sf.sweeps()) {
                 Sweep sweep = s;
+                if (settings.groupBy().isPresent()) {
+                    String attribute = settings.groupBy().get();
+                    String value = s.attributes().get(attribute);
+                    if (value == null) {
+                        throw new InputException(file, sf.info().headerLine(), 0, "--group-by " + InputException.quote(attribute)
+                                + ": the file has no such descriptive column" + (s.attributes().isEmpty() ? ""
+                                : " (it has " + String.join(", ", s.attributes().keySet().stream().map(InputException::quote).toList()) + ")"));
+                    }
+                    sweep = sweep.withGroup(value);
+                }
                 if (settings.basis().isPresent()) {
                     try {
-                        BasisConversion.Converted c = BasisConversion.toBasis(s, settings.basis().get(), settings.poisson());
+                        BasisConversion.Converted c = BasisConversion.toBasis(sweep, settings.basis().get(), settings.poisson());
                         sweep = c.sweep();
                         if (!c.note().isEmpty()) {
                             notes.add(file + ": sample '" + s.sample() + "': " + c.note());

@@ -14,9 +14,10 @@ import org.viscarta.sweep.ModulusKind;
  * @param poisson      Poisson's ratio for the conversion, overriding each file's (empty: each file's own)
  * @param columns      headers (as written) mapped to what they hold, e.g. "Gstar_abs_Pa" to "complex_modulus_magnitude [Pa]"
  * @param badFiles     what a bad file among several does
+ * @param groupBy      a sample attribute (a descriptive column of a tidy table) whose value becomes each sample's group
  */
 public record ReadSettings(Optional<ModulusKind> declaredKind, Optional<ModulusKind> basis, OptionalDouble poisson,
-                           Map<String, String> columns, BadFiles badFiles) {
+                           Map<String, String> columns, BadFiles badFiles, Optional<String> groupBy) {
 
     /** What a bad input file among several does to the run. */
     public enum BadFiles {
@@ -31,6 +32,7 @@ public record ReadSettings(Optional<ModulusKind> declaredKind, Optional<ModulusK
         Objects.requireNonNull(basis, "basis");
         Objects.requireNonNull(poisson, "poisson");
         Objects.requireNonNull(badFiles, "badFiles");
+        Objects.requireNonNull(groupBy, "groupBy");
         columns = Map.copyOf(columns);
         if (poisson.isPresent() && !(poisson.getAsDouble() > -1 && poisson.getAsDouble() <= 0.5)) {
             throw new IllegalArgumentException("--poisson must lie in (-1, 0.5], got " + poisson.getAsDouble());
@@ -39,6 +41,6 @@ public record ReadSettings(Optional<ModulusKind> declaredKind, Optional<ModulusK
 
     /** Each sweep as read, tensile when unstated (with a warning), bad files left out. */
     public static ReadSettings defaults() {
-        return new ReadSettings(Optional.empty(), Optional.empty(), OptionalDouble.empty(), Map.of(), BadFiles.LEAVE_OUT);
+        return new ReadSettings(Optional.empty(), Optional.empty(), OptionalDouble.empty(), Map.of(), BadFiles.LEAVE_OUT, Optional.empty());
     }
 }

@@ -37,6 +37,20 @@ public record Sample(String name, String group, ModulusKind kind, double tempera
         return replicates.stream().mapToDouble(Sweep::maxFrequencyHz).max().orElse(Double.NaN);
     }
 
+    /**
+     * The descriptive columns of its sweeps (composition, exposure ...), header → value; a value
+     * that differs between replicates is given as the distinct values joined by " / ".
+     */
+    public java.util.Map<String, String> attributes() {
+        java.util.Map<String, java.util.LinkedHashSet<String>> seen = new java.util.LinkedHashMap<>();
+        for (Sweep s : replicates) {
+            s.attributes().forEach((k, v) -> seen.computeIfAbsent(k, x -> new java.util.LinkedHashSet<>()).add(v));
+        }
+        java.util.Map<String, String> out = new java.util.LinkedHashMap<>();
+        seen.forEach((k, v) -> out.put(k, String.join(" / ", v)));
+        return out;
+    }
+
     /** Points measured, over all replicates. */
     public int pointCount() {
         return replicates.stream().mapToInt(x -> x.points().size()).sum();

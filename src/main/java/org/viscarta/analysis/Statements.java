@@ -82,6 +82,7 @@ public final class Statements {
         m.put("modulus kind when unstated", read.declaredKind().map(Object::toString).orElse("tensile (with a warning)"));
         m.put("column map", read.columns().isEmpty() ? "none" : read.columns().entrySet().stream()
                 .map(e -> e.getKey() + " = " + e.getValue()).sorted().collect(Collectors.joining("; ")));
+        m.put("groups from", read.groupBy().map(a -> "the column '" + a + "'").orElse("the group column or '# group:' line"));
         m.put("bad input files", read.badFiles() == ReadSettings.BadFiles.STOP ? "stop the run"
                 : "left out and reported (a single input stops the run)");
         m.put("master curves", r.masterCurves().map(MasterCurves::describe).orElse("not built"));

@@ -26,6 +26,10 @@ final class ReadOptions {
                     + "HEADER=ignore leaves a column out (repeatable).")
     java.util.Map<String, String> columns = new java.util.LinkedHashMap<>();
 
+    @Option(names = "--group-by", paramLabel = "COLUMN",
+            description = "Take each sample's group from this descriptive column of the table (e.g. a composition or exposure column).")
+    String groupBy;
+
     @Option(names = "--strict", description = "Stop at the first bad file; by default a bad file among several is reported and left out.")
     boolean strict;
 
@@ -40,7 +44,7 @@ final class ReadOptions {
         if (poisson != null) {
             b.poisson(poisson);
         }
-        return b.columns(columns).badFiles(strict ? ReadSettings.BadFiles.STOP : ReadSettings.BadFiles.LEAVE_OUT);
+        return b.columns(columns).groupBy(groupBy).badFiles(strict ? ReadSettings.BadFiles.STOP : ReadSettings.BadFiles.LEAVE_OUT);
     }
 
     /** The reading settings alone, for verbs that read without analysing. */

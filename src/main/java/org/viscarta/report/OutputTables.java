@@ -2,6 +2,7 @@ package org.viscarta.report;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import org.viscarta.analysis.AnalysisRequest;
 import org.viscarta.analysis.AnalysisResult;
 import org.viscarta.analysis.Sample;
@@ -102,10 +103,13 @@ public final class OutputTables {
     /** One row per sample (sheet Summary, the page). */
     public static Table<SampleAnalysis> summary(AnalysisResult result) {
         AnalysisRequest request = result.request();
-        return Table.<SampleAnalysis>named("Summary")
+        Table.Builder<SampleAnalysis> b = Table.<SampleAnalysis>named("Summary")
                 .column("sample", "sample", "", Style.TEXT, 28, sa -> sa.sample().name())
-                .column("group", "group", "", Style.TEXT, 16, sa -> sa.sample().group())
-                .column("basis", "modulus basis", "", Style.TEXT, 12, sa -> sa.sample().kind() + " (" + sa.sample().kind().letter() + ")")
+                .column("group", "group", "", Style.TEXT, 16, sa -> sa.sample().group());
+        for (String a : attributeNames(result.samples().stream().map(sa -> sa.sample().attributes()).toList())) {
+            b.column(attributeId(a), a, "", Style.TEXT, 14, sa -> sa.sample().attributes().getOrDefault(a, ""), SHEET_CSV);
+        }
+        return b.column("basis", "modulus basis", "", Style.TEXT, 12, sa -> sa.sample().kind() + " (" + sa.sample().kind().letter() + ")")
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, sa -> sa.sample().temperatureC())
                 .column("n_replicates", "replicates", "", Style.INTEGER, 11, sa -> sa.sample().replicates().size())
                 .column("points", "points", "", Style.INTEGER, 9, sa -> sa.sample().pointCount(), SHEET_CSV)
@@ -139,6 +143,18 @@ public final class OutputTables {
                         sa -> sa.closest().map(m -> m.result().distance()).orElse(null), SHEET_CSV)
                 .column("notes", "notes", "", Style.TEXT, 60, sa -> summaryNotes(result, sa))
                 .build();
+    }
+
+    /** The attribute names of these samples or sweeps, in the order first met. */
+    static List<String> attributeNames(List<Map<String, String>> attributes) {
+        java.util.LinkedHashSet<String> names = new java.util.LinkedHashSet<>();
+        attributes.forEach(m -> names.addAll(m.keySet()));
+        return List.copyOf(names);
+    }
+
+    /** An attribute's machine name: "attribute_" and its header in lower case, other characters as underscores. */
+    static String attributeId(String header) {
+        return "attribute_" + header.toLowerCase(java.util.Locale.ROOT).replaceAll("[^a-z0-9]+", "_").replaceAll("^_|_$", "");
     }
 
     private static String summaryNotes(AnalysisResult result, SampleAnalysis sa) {
@@ -263,12 +279,16 @@ public final class OutputTables {
         return out;
     }
 
-    /** Every measured point as read, with its file and line (sheet Data). */
-    public static final Table<DataRow> DATA = Table.<DataRow>named("Data")
+    /** Every measured point as read, with its file and line and its sweep's attributes (sheet Data). */
+    public static Table<DataRow> data(List<SampleAnalysis> samples) {
+        Table.Builder<DataRow> b = Table.<DataRow>named("Data")
             .column("sample", "sample", "", Style.TEXT, 28, r -> r.sample().name())
             .column("replicate", "replicate", "", Style.TEXT, 10, r -> r.sweep().replicate())
-            .column("group", "group", "", Style.TEXT, 16, r -> r.sweep().group())
-            .column("file", "file", "", Style.TEXT, 34, r -> r.sweep().source().toString())
+            .column("group", "group", "", Style.TEXT, 16, r -> r.sweep().group());
+        for (String a : attributeNames(samples.stream().flatMap(sa -> sa.sample().replicates().stream()).map(Sweep::attributes).toList())) {
+            b.column(attributeId(a), a, "", Style.TEXT, 14, r -> r.sweep().attributes().getOrDefault(a, ""));
+        }
+        return b.column("file", "file", "", Style.TEXT, 34, r -> r.sweep().source().toString())
             .column("line", "line", "", Style.INTEGER, 7, r -> r.point().line())
             .column("frequency_hz", "frequency", "Hz", Style.FREQUENCY, 14, r -> r.point().frequencyHz())
             .column("angular_frequency_rad_s", "angular frequency", "rad/s", Style.FREQUENCY, 16, r -> r.point().omega())
@@ -280,8 +300,9 @@ public final class OutputTables {
             .column("basis", "basis", "", Style.TEXT, 10, r -> r.sweep().kind().letter())
             .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, r -> r.sweep().temperatureC())
             .build();
+    }
 
-    /** The rows of {@link #DATA}: every point of every replicate of every sample. */
+    /** The rows of {@link #data}: every point of every replicate of every sample. */
     public static Iterable<DataRow> dataRows(List<SampleAnalysis> samples) {
         return () -> samples.stream().flatMap(sa -> sa.sample().replicates().stream()
                 .flatMap(sw -> sw.points().stream().map(p -> new DataRow(sa.sample(), sw, p)))).iterator();

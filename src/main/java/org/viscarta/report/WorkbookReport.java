@@ -84,7 +84,7 @@ public final class WorkbookReport {
             table(wb, st, OutputTables.modelFits(r.request()), OutputTables.fitRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.DERIVED, OutputTables.derivedRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.CORRELATIONS, OutputTables.correlationRows(r.samples()), "", List.of());
-            table(wb, st, OutputTables.DATA, OutputTables.dataRows(r.samples()), "", List.of());
+            table(wb, st, OutputTables.data(r.samples()), OutputTables.dataRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
                     r.library().isEmpty() ? NO_LIBRARY : "", List.of());
             if (!figures.isEmpty()) {
