@@ -102,7 +102,7 @@ final class ModuliCommand implements Callable<Integer> {
             }
             t.print(out);
             for (ReadWarning w : r.warnings()) {
-                err.println("warning: " + w);
+                err.println("warning: " + org.viscarta.io.InputException.oneLine(String.valueOf(w)));
             }
         }
         if (results.isEmpty()) {

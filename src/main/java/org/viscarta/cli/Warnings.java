@@ -14,10 +14,10 @@ final class Warnings {
     static void print(CommandLine.Model.CommandSpec spec, Inputs inputs) {
         PrintWriter err = spec.commandLine().getErr();
         for (ReadWarning w : inputs.warnings()) {
-            err.println("warning: " + w);
+            err.println("warning: " + org.viscarta.io.InputException.oneLine(String.valueOf(w)));
         }
         for (String n : inputs.notes()) {
-            err.println("note: " + n);
+            err.println("note: " + org.viscarta.io.InputException.oneLine(n));
         }
         err.flush();
     }

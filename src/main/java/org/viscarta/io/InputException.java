@@ -74,7 +74,7 @@ public final class InputException extends RuntimeException {
     }
 
     static String format(Path file, int line, int column, String problem) {
-        StringBuilder sb = new StringBuilder(String.valueOf(file));
+        StringBuilder sb = new StringBuilder(oneLine(String.valueOf(file).replace("\n", "\\n")));
         if (line > 0) {
             sb.append(':').append(line);
             if (column > 0) {

@@ -1729,7 +1729,13 @@ public final class SweepReader {
         }
     }
 
-    private static double metadataTemperature(Path path, Map<String, String> metadata, int line) {
+    /**
+     * The test temperature [°C] a '# temperature:' line gives ("23 °C", "23"), NaN when there is none;
+     * the one reading of it for sweep tables and raw signals.
+     *
+     * @throws InputException at {@code line} when it is not a plausible temperature in °C
+     */
+    public static double metadataTemperature(Path path, Map<String, String> metadata, int line) {
         String t = metadata.get("temperature");
         if (t == null) {
             return Double.NaN;
@@ -1742,7 +1748,17 @@ public final class SweepReader {
         if (!u.isEmpty() && Unit.find(u, Quantity.Dimension.TEMPERATURE).isEmpty()) {
             throw new InputException(path, line, 0, "'# temperature: " + t + "' has an unknown unit; write it in °C");
         }
-        return Double.parseDouble(m.group(1));
+        double value = Double.parseDouble(m.group(1));
+        if (!(value >= -273.15 && value <= 2000)) {
+            throw new InputException(path, line, 0, "'temperature: " + InputException.oneLine(t0(metadata)) + "' is not a plausible "
+                    + "temperature in °C (from -273.15 to 2000)");
+        }
+        return value;
+    }
+
+    private static String t0(Map<String, String> metadata) {
+        String t = metadata.get("temperature");
+        return t.length() > 80 ? t.substring(0, 80) + "…" : t;
     }
 
     /** Parses "key: value" or "key: value; key: value" (geometry lines). Keys lower-case, spaces as underscores. */

@@ -155,6 +155,22 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
         return String.format(Locale.ROOT, "%.4g m", metres);
     }
 
+    /** A geometry value that must be finite and greater than zero. */
+    private static double positive(Map<String, String> meta, String key, double v) {
+        if (!(v > 0) || Double.isInfinite(v)) {
+            throw new IllegalArgumentException("'" + key + ": " + meta.get(key) + "' must be a finite value greater than zero");
+        }
+        return v;
+    }
+
+    private static double poisson(Map<String, String> meta) {
+        double nu = Units.number(meta, "poisson_ratio");
+        if (!(nu > -1 && nu <= 0.5)) {
+            throw new IllegalArgumentException("'poisson_ratio: " + meta.get("poisson_ratio") + "' must lie in (-1, 0.5]");
+        }
+        return nu;
+    }
+
     static Geometry from(Map<String, String> meta) {
         String g = meta.get("geometry");
         if (g == null) {
@@ -163,18 +179,23 @@ public sealed interface Geometry permits Geometry.Sphere, Geometry.FlatPunch, Ge
         }
         switch (g.strip().toLowerCase(Locale.ROOT).replace(' ', '_')) {
             case "sphere":
-                return new Sphere(Units.length(meta, "tip_radius"), Units.length(meta, "indentation_depth"), Units.number(meta, "poisson_ratio"));
+                return new Sphere(positive(meta, "tip_radius", Units.length(meta, "tip_radius")),
+                        positive(meta, "indentation_depth", Units.length(meta, "indentation_depth")), poisson(meta));
             case "flat_punch":
-                return new FlatPunch(Units.length(meta, "punch_radius"), Units.number(meta, "poisson_ratio"));
+                return new FlatPunch(positive(meta, "punch_radius", Units.length(meta, "punch_radius")), poisson(meta));
             case "cone":
-                return new Cone(Units.angle(meta, "half_angle"), Units.length(meta, "indentation_depth"), Units.number(meta, "poisson_ratio"),
-                        meta.containsKey("beta") ? Units.number(meta, "beta") : 1.0);
+                double half = positive(meta, "half_angle", Units.angle(meta, "half_angle"));
+                if (!(half < Math.PI / 2)) {
+                    throw new IllegalArgumentException("'half_angle: " + meta.get("half_angle") + "' must lie between 0 and 90°");
+                }
+                return new Cone(half, positive(meta, "indentation_depth", Units.length(meta, "indentation_depth")), poisson(meta),
+                        meta.containsKey("beta") ? positive(meta, "beta", Units.number(meta, "beta")) : 1.0);
             case "tension":
             case "compression":
-                return new Tension(Units.length(meta, "length"), Units.area(meta, "area"));
+                return new Tension(positive(meta, "length", Units.length(meta, "length")), positive(meta, "area", Units.area(meta, "area")));
             case "plate_shear":
             case "parallel_plate_shear":
-                return new PlateShear(Units.length(meta, "gap"), Units.area(meta, "area"));
+                return new PlateShear(positive(meta, "gap", Units.length(meta, "gap")), positive(meta, "area", Units.area(meta, "area")));
             default:
                 throw new IllegalArgumentException("geometry '" + g + "' is not known; use sphere, flat_punch, cone, tension or plate_shear");
         }

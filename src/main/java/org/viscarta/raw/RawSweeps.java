@@ -65,11 +65,7 @@ public record RawSweeps(RawReader.Measurement measurement, Geometry geometry, Li
     }
 
     private static double parseTemperature(RawReader.Measurement m, String text) {
-        try {
-            return Double.parseDouble(text.replaceAll("[^0-9.eE+-]", ""));
-        } catch (NumberFormatException e) {
-            throw new InputException(m.file(), 1, 0, "'# temperature: " + text + "' is not understood; write e.g. '# temperature: 23 °C'");
-        }
+        return org.viscarta.io.SweepReader.metadataTemperature(m.file(), Map.of("temperature", text), 1);
     }
 
     /** The sweep table {@code moduli} writes: the standard columns and quality columns. */

@@ -176,4 +176,24 @@ class HardeningTest {
         assertEquals(0, r.exitCode(), r.err());
         assertTrue(Files.readString(out.resolve("report.html")).contains("Best mimic of target-soft-tissue"));
     }
+
+    /** Raw geometry out of range, an implausible temperature and a file name with a line break: each one line, exit 2. */
+    @Test
+    void badRawValuesAndOddFileNamesGiveOneLineInputErrors() throws IOException {
+        Path demo = Path.of("demo-data", "raw-signals");
+        Files.copy(demo.resolve("calibration-sapphire.csv"), dir.resolve("calibration-sapphire.csv"));
+        String raw = Files.readString(demo.resolve("alkyd-unaged-raw.csv"));
+        Path neg = dir.resolve("neg.csv");
+        Files.writeString(neg, raw.replace("tip_radius: 50 µm", "tip_radius: -50 µm"));
+        Path hot = dir.resolve("hot.csv");
+        Files.writeString(hot, raw.replace("# temperature: 23 °C", "# temperature: 1e999 °C"));
+        Path odd = dir.resolve("odd\nname.csv");
+        Files.writeString(odd, "frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n1,abc,10\n");
+        for (Object[] c : new Object[][] {{neg, "tip_radius"}, {hot, "plausible temperature"}, {odd, "'abc'"}}) {
+            CliRun r = CliRun.of("fit", c[0].toString(), "--models", "springpot");
+            assertEquals(2, r.exitCode(), r.err());
+            assertEquals(1, r.err().strip().lines().count(), "one line: " + r.err());
+            assertTrue(r.err().contains((String) c[1]), r.err());
+        }
+    }
 }
