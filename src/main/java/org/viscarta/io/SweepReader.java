@@ -63,32 +63,66 @@ public final class SweepReader {
 
     /** Reads one file. */
     public SweepFile read(Path path) {
-        SweepFile f = readWhole(path);
-        if (f.warnings().size() <= MAX_WARNINGS) {
-            return f;
-        }
-        List<ReadWarning> kept = new ArrayList<>(f.warnings().subList(0, MAX_WARNINGS));
-        kept.add(new ReadWarning(path, 0, (f.warnings().size() - MAX_WARNINGS) + " more warnings like the above"));
-        return new SweepFile(f.path(), f.sha256(), f.info(), f.sweeps(), kept);
+        return readWhole(path);
     }
 
     private SweepFile readWhole(Path path) {
-        byte[] bytes;
-        try {
-            bytes = Files.readAllBytes(path);
-        } catch (IOException e) {
-            throw new InputException(path, 0, 0, "cannot read the file (" + e.getMessage() + ")");
-        }
         String name = path.getFileName().toString().toLowerCase(Locale.ROOT);
         if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
+            byte[] bytes;
+            try {
+                bytes = Files.readAllBytes(path);
+            } catch (IOException e) {
+                throw new InputException(path, 0, 0, "cannot read the file (" + e.getMessage() + ")");
+            }
             return readWorkbook(path, bytes);
         }
-        String[] encodingUsed = new String[1];
-        String text = decode(bytes, encodingUsed);
-        if (text.isBlank()) {
-            throw new InputException(path, 1, 0, "the file is empty; a sweep table needs a header row and data rows");
+        return decoded(path, cs -> new SweepSink(path));
+    }
+
+    /**
+     * Streams a text file through {@link #scan} as UTF-8, and again as windows-1252 when it is not
+     * valid UTF-8; the sink's checksum is taken from the bytes as they pass.
+     */
+    private <T, B extends Bucket> T decoded(Path path, java.util.function.Function<Charset, Sink<T, B>> sinks) {
+        try {
+            return stream(path, StandardCharsets.UTF_8, sinks.apply(StandardCharsets.UTF_8));
+        } catch (CharacterCodingException e) {
+            try {
+                Charset cp = Charset.forName("windows-1252");
+                return stream(path, cp, sinks.apply(cp));
+            } catch (CharacterCodingException impossible) {
+                throw new InputException(path, 0, 0, "cannot decode the file");
+            }
         }
-        return parse(path, text, encodingUsed[0], sha256(bytes));
+    }
+
+    private <T, B extends Bucket> T stream(Path path, Charset charset, Sink<T, B> sink) throws CharacterCodingException {
+        java.nio.charset.CharsetDecoder decoder = charset.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                .onUnmappableCharacter(CodingErrorAction.REPORT);
+        MessageDigest md;
+        try {
+            md = MessageDigest.getInstance("SHA-256");
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is missing from this Java runtime", e);
+        }
+        try (java.io.InputStream raw = Files.newInputStream(path);
+             java.security.DigestInputStream digest = new java.security.DigestInputStream(raw, md);
+             java.io.BufferedReader in = new java.io.BufferedReader(new java.io.InputStreamReader(digest, decoder), 1 << 16)) {
+            sink.checksum(() -> {
+                try {
+                    digest.transferTo(java.io.OutputStream.nullOutputStream()); // any bytes the reader left unread
+                } catch (IOException e) {
+                    throw new UncheckedIOException(e);
+                }
+                return HexFormat.of().formatHex(md.digest());
+            });
+            return scan(path, in, charset.equals(StandardCharsets.UTF_8) ? "UTF-8" : "windows-1252", sink);
+        } catch (java.nio.charset.MalformedInputException | java.nio.charset.UnmappableCharacterException e) {
+            throw e;
+        } catch (IOException | UncheckedIOException e) {
+            throw new InputException(path, 0, 0, "cannot read the file (" + e.getMessage() + ")");
+        }
     }
 
     /**
@@ -99,7 +133,7 @@ public final class SweepReader {
      */
     private SweepFile readWorkbook(Path path, byte[] bytes) {
         List<Sweep> sweeps = new ArrayList<>();
-        List<ReadWarning> warnings = new ArrayList<>();
+        CappedWarnings warnings = new CappedWarnings(path);
         TableInfo first = null;
         int sheets = 0;
         try (org.apache.poi.ss.usermodel.Workbook wb = org.apache.poi.ss.usermodel.WorkbookFactory.create(
@@ -151,7 +185,7 @@ public final class SweepReader {
         }
         TableInfo info = new TableInfo(new Layout.WorkbookSheets(sheets, first.kind()), '\t', '.', "XLSX/XLS",
                 first.headerLine(), first.columns(), first.metadata());
-        return new SweepFile(path, sha256(bytes), info, sweeps, warnings);
+        return new SweepFile(path, sha256(bytes), info, sweeps, warnings.closeOut());
     }
 
     private static String cellText(org.apache.poi.ss.usermodel.Cell cell, org.apache.poi.ss.usermodel.DataFormatter fmt) {
@@ -205,7 +239,7 @@ public final class SweepReader {
     private <T, B extends Bucket> T scan(Path path, java.io.BufferedReader in, String encoding, Sink<T, B> sink) throws IOException {
         Lines src = new Lines(in);
         Preamble pre = new Preamble(path);
-        List<ReadWarning> warnings = new ArrayList<>();
+        CappedWarnings warnings = new CappedWarnings(path);
         Start start = findStart(path, src, pre, 0, false);
         Line headerLine;
         Line unitsLine = null;
@@ -721,13 +755,17 @@ public final class SweepReader {
         B bucket(Key key, int line);
 
         /** @param attributes the descriptive columns constant over every sweep */
-        T table(TableInfo info, List<B> buckets, List<String> attributes, List<ReadWarning> warnings);
+        T table(TableInfo info, List<B> buckets, List<String> attributes, CappedWarnings warnings);
 
         /** A wide table, read whole. */
         T wide(SweepFile whole);
 
-        /** The file's checksum when the sink knows it ("" otherwise). */
+        /** The file's checksum when the sink keeps it ("" otherwise). */
         String sha();
+
+        /** Where the checksum comes from once the file is read (a sink that does not keep it ignores it). */
+        default void checksum(java.util.function.Supplier<String> source) {
+        }
     }
 
     /** Every point of one sweep. */
@@ -752,11 +790,21 @@ public final class SweepReader {
     /** Keeps every point: the sweeps of {@link #read}; sweep-level checks once each sweep is whole. */
     private static final class SweepSink implements Sink<SweepFile, Points> {
         private final Path path;
-        private final String sha;
+        private String sha;
+        private java.util.function.Supplier<String> source;
+
+        SweepSink(Path path) {
+            this.path = path;
+        }
 
         SweepSink(Path path, String sha) {
             this.path = path;
             this.sha = sha;
+        }
+
+        @Override
+        public void checksum(java.util.function.Supplier<String> from) {
+            this.source = from;
         }
 
         @Override
@@ -765,7 +813,7 @@ public final class SweepReader {
         }
 
         @Override
-        public SweepFile table(TableInfo info, List<Points> buckets, List<String> attributes, List<ReadWarning> warnings) {
+        public SweepFile table(TableInfo info, List<Points> buckets, List<String> attributes, CappedWarnings warnings) {
             List<Sweep> sweeps = new ArrayList<>();
             for (Points b : buckets) {
                 Map<String, String> attrs = new LinkedHashMap<>();
@@ -776,7 +824,7 @@ public final class SweepReader {
                 checkPoints(path, s, warnings);
                 sweeps.add(s);
             }
-            return new SweepFile(path, sha, info, sweeps, warnings);
+            return new SweepFile(path, sha(), info, sweeps, warnings.closeOut());
         }
 
         @Override
@@ -786,6 +834,9 @@ public final class SweepReader {
 
         @Override
         public String sha() {
+            if (sha == null) {
+                sha = source == null ? "" : source.get();
+            }
             return sha;
         }
     }
@@ -839,16 +890,13 @@ public final class SweepReader {
         }
 
         @Override
-        public Summary table(TableInfo info, List<Extent> buckets, List<String> attributes, List<ReadWarning> warnings) {
-            long dropped = buckets.stream().mapToLong(e -> e.warningsDropped).sum();
-            if (dropped > 0) {
-                warnings.add(new ReadWarning(path, 0, dropped + " more warnings like the above"));
-            }
+        public Summary table(TableInfo info, List<Extent> buckets, List<String> attributes, CappedWarnings warnings) {
+            warnings.drop(buckets.stream().mapToLong(e -> e.warningsDropped).sum());
             List<SweepSummary> out = new ArrayList<>();
             for (Extent e : buckets) {
                 out.add(new SweepSummary(e.sample, e.replicate, e.group, e.kind, e.temperature(), e.points, e.min, e.max));
             }
-            return new Summary(path, info, out, warnings);
+            return new Summary(path, info, out, warnings.closeOut());
         }
 
         @Override
@@ -876,7 +924,7 @@ public final class SweepReader {
     }
 
     /** Warnings kept per file; the rest are counted. */
-    private static final int MAX_WARNINGS = 50;
+    private static final int MAX_WARNINGS = CappedWarnings.MAX;
 
     /**
      * Reads a sweep table in one streaming pass, keeping for each sweep only its labels, point count
@@ -888,15 +936,7 @@ public final class SweepReader {
         if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
             return summaryOf(read(path));
         }
-        try {
-            return stream(path, StandardCharsets.UTF_8);
-        } catch (CharacterCodingException e) {
-            try {
-                return stream(path, Charset.forName("windows-1252"));
-            } catch (CharacterCodingException impossible) {
-                throw new InputException(path, 0, 0, "cannot decode the file");
-            }
-        }
+        return decoded(path, cs -> new ExtentSink(path));
     }
 
     private static Summary summaryOf(SweepFile f) {
@@ -908,18 +948,6 @@ public final class SweepReader {
         return new Summary(f.path(), f.info(), out, f.warnings());
     }
 
-    private Summary stream(Path path, Charset charset) throws CharacterCodingException {
-        java.nio.charset.CharsetDecoder decoder = charset.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
-                .onUnmappableCharacter(CodingErrorAction.REPORT);
-        try (java.io.BufferedReader in = new java.io.BufferedReader(
-                new java.io.InputStreamReader(Files.newInputStream(path), decoder), 1 << 16)) {
-            return scan(path, in, charset.equals(StandardCharsets.UTF_8) ? "UTF-8" : "windows-1252", new ExtentSink(path));
-        } catch (java.nio.charset.MalformedInputException | java.nio.charset.UnmappableCharacterException e) {
-            throw e;
-        } catch (IOException e) {
-            throw new InputException(path, 0, 0, "cannot read the file (" + e.getMessage() + ")");
-        }
-    }
 
     /**
      * Validates rows one at a time — the one row check of every layout but the wide one — into the
@@ -1434,7 +1462,7 @@ public final class SweepReader {
                         + "a wide table gives each sample a storage and a loss column");
             }
         }
-        List<ReadWarning> warnings = new ArrayList<>();
+        CappedWarnings warnings = new CappedWarnings(path);
         Map<Quantity, ColumnSpec> kinds = new EnumMap<>(Quantity.class);
         kinds.put(Quantity.STORAGE_MODULUS, bySample.values().iterator().next()[0]);
         ModulusKind kind = resolveKind(path, header.line(), kinds, metadata, metadataLines, warnings);
@@ -1474,7 +1502,7 @@ public final class SweepReader {
         }
         TableInfo info = new TableInfo(new Layout.Wide(), sep, dm, encoding, header.line(), columns,
                 metadata);
-        return new SweepFile(path, sha, info, sweeps, warnings);
+        return new SweepFile(path, sha, info, sweeps, warnings.closeOut());
     }
 
     /** One table row with its 1-based line number. */
@@ -1711,10 +1739,14 @@ public final class SweepReader {
     }
 
 
-    private static void checkPoints(Path path, Sweep s, List<ReadWarning> warnings) {
+    private static void checkPoints(Path path, Sweep s, CappedWarnings warnings) {
         List<SweepPoint> pts = s.points();
         for (SweepPoint p : pts) {
             if (!(p.loss() > 0)) {
+                if (warnings.full()) {
+                    warnings.drop();
+                    continue;
+                }
                 warnings.add(new ReadWarning(path, p.line(), String.format(Locale.ROOT,
                         "loss modulus %g Pa is not positive (sample '%s'); the point is kept in the data but left out of model fits",
                         p.loss(), s.sample())));
@@ -1722,6 +1754,10 @@ public final class SweepReader {
         }
         for (int i = 1; i < pts.size(); i++) {
             if (pts.get(i).frequencyHz() == pts.get(i - 1).frequencyHz()) {
+                if (warnings.full()) {
+                    warnings.drop();
+                    continue;
+                }
                 warnings.add(new ReadWarning(path, pts.get(i).line(), String.format(Locale.ROOT,
                         "frequency %g Hz appears twice in sample '%s' replicate '%s'; both points are used",
                         pts.get(i).frequencyHz(), s.sample(), s.replicate())));

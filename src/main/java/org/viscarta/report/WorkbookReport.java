@@ -544,6 +544,16 @@ public final class WorkbookReport {
             rows.row(f.path().toString(), f.sha256(), f.info().layout(), f.info().separatorName(),
                     String.valueOf(f.info().decimalMark()), f.info().encoding(), f.sweeps().size());
         }
+        if (c.result().inputs().files().stream().anyMatch(f -> !f.info().metadata().isEmpty())) {
+            rows.blank();
+            rows.styled(st.header, "input file", "metadata or preamble note", "value");
+            for (SweepFile f : c.result().inputs().files()) {
+                for (Map.Entry<String, String> e : f.info().metadata().entrySet()) {
+                    rows.row(f.path().getFileName().toString(), e.getKey().startsWith("note_")
+                            ? "note: " + e.getKey().substring(5) : e.getKey(), e.getValue());
+                }
+            }
+        }
         rows.blank();
         List<String> warnings = c.result().inputs().warningTexts();
         rows.styled(st.header, "warnings and conversions (" + warnings.size() + ")");

@@ -52,6 +52,10 @@ public final class Benchmarks {
             streaming(out, Long.parseLong(args[0]));
             return;
         }
+        if (args.length >= 2 && args[1].equals("read-only")) {
+            fullRead(out, Long.parseLong(args[0]));
+            return;
+        }
         if (args.length >= 2 && args[1].equals("raw-only")) {
             raw(out);
             return;
@@ -216,7 +220,34 @@ public final class Benchmarks {
      * MB (unless it is there), then summarises it; run with a small heap (-Xmx256m) to show that
      * memory does not grow with the file.
      */
-    private static void streaming(Path out, long megabytes) throws IOException {
+    /**
+     * The full read the analysing verbs use (every point kept) of a tidy table of the given size,
+     * twice (the second timed), with the peak heap.
+     */
+    private static void fullRead(Path out, long megabytes) throws IOException {
+        Path file = bigTidy(out, megabytes);
+        long size = Files.size(file);
+        new SweepReader(null).read(file);
+        System.gc();
+        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+            pool.resetPeakUsage();
+        }
+        long t0 = System.nanoTime();
+        int sweeps = new SweepReader(null).read(file).sweeps().size();
+        double sec = (System.nanoTime() - t0) / 1e9;
+        long heap = 0;
+        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+            if (pool.getType() == MemoryType.HEAP) {
+                heap += pool.getPeakUsage().getUsed();
+            }
+        }
+        System.out.printf(Locale.ROOT, "full read of a %.0f MB tidy table (%d sweeps, every point kept): %.1f s = %.1f MB/s on one thread; "
+                + "peak heap %d MB with max heap %d MB%n", size / 1e6, sweeps, sec, size / 1e6 / sec, heap >> 20,
+                Runtime.getRuntime().maxMemory() >> 20);
+    }
+
+    /** A tidy table of about {@code megabytes} MB: 10,000 samples × 3 replicates × 20 frequencies, repeated. */
+    static Path bigTidy(Path out, long megabytes) throws IOException {
         Path file = out.resolve("big-" + megabytes + "mb.csv");
         if (!Files.exists(file)) {
             try (Writer w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
@@ -234,6 +265,11 @@ public final class Benchmarks {
                 }
             }
         }
+        return file;
+    }
+
+    private static void streaming(Path out, long megabytes) throws IOException {
+        Path file = bigTidy(out, megabytes);
         long size = Files.size(file);
         for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
             pool.resetPeakUsage();
