@@ -340,6 +340,65 @@ class SweepReaderTest {
         assertTrue(e.getMessage().startsWith(p + "#run 2:2:2: "), e.getMessage());
     }
 
+    @Test
+    void aWorkbookSheetWithTitleRowsAndAUnitsRowReadsAndADateCellIsAnError() throws IOException {
+        Path p = dir.resolve("export.xlsx");
+        try (org.apache.poi.xssf.usermodel.XSSFWorkbook wb = new org.apache.poi.xssf.usermodel.XSSFWorkbook()) {
+            var s = wb.createSheet("sweep");
+            s.createRow(0).createCell(0).setCellValue("Frequency sweep (invented example)");
+            var meta = s.createRow(1);
+            meta.createCell(0).setCellValue("Sample name:");
+            meta.createCell(1).setCellValue("gel E");
+            var h = s.createRow(3);
+            String[] names = {"Point", "Frequency", "G'", "G''"};
+            String[] units = {"", "Hz", "kPa", "kPa"};
+            var u = s.createRow(4);
+            for (int c = 0; c < 4; c++) {
+                h.createCell(c).setCellValue(names[c]);
+                u.createCell(c).setCellValue(units[c]);
+            }
+            for (int r = 0; r < 3; r++) {
+                var row = s.createRow(5 + r);
+                row.createCell(0).setCellValue(r + 1);
+                row.createCell(1).setCellValue(Math.pow(10, r - 1));
+                row.createCell(2).setCellValue(1.5 + r);
+                row.createCell(3).setCellValue(0.2);
+            }
+            var bad = wb.createSheet("dated");
+            var bh = bad.createRow(0);
+            bh.createCell(0).setCellValue("frequency [Hz]");
+            bh.createCell(1).setCellValue("storage_modulus [Pa]");
+            bh.createCell(2).setCellValue("loss_modulus [Pa]");
+            var br = bad.createRow(1);
+            var date = br.createCell(0);
+            date.setCellValue(45000);
+            var style = wb.createCellStyle();
+            style.setDataFormat(wb.getCreationHelper().createDataFormat().getFormat("yyyy-mm-dd"));
+            date.setCellStyle(style);
+            br.createCell(1).setCellValue(100);
+            br.createCell(2).setCellValue(10);
+            try (var out = Files.newOutputStream(p)) {
+                wb.write(out);
+            }
+        }
+        InputException e = assertThrows(InputException.class, () -> reader.read(p));
+        assertTrue(e.getMessage().startsWith(p + "#dated:2:1: "), e.getMessage());
+        assertTrue(e.problem().contains("a date cell"), e.problem());
+        // the first sheet alone reads: title and preamble above the header, the units row under it
+        Path good = dir.resolve("good.xlsx");
+        try (var in = Files.newInputStream(p); var wb = org.apache.poi.ss.usermodel.WorkbookFactory.create(in)) {
+            wb.removeSheetAt(1);
+            try (var out = Files.newOutputStream(good)) {
+                wb.write(out);
+            }
+        }
+        SweepFile f = reader.read(good);
+        assertEquals("gel E", f.sweeps().get(0).sample());
+        assertEquals(3, f.sweeps().get(0).points().size());
+        assertEquals(1500, f.sweeps().get(0).points().get(0).storage(), 1e-9);
+        assertEquals(4, f.info().headerLine(), "the header is the sheet's row 4, below the title and the preamble");
+    }
+
     @ParameterizedTest(name = "''{0}'' is a number: {1}")
     @CsvSource({"1,true", "-1.5,true", "+.5,true", "2.,true", "1e3,true", "1.25E-7,true", "NaN,false", "Infinity,false",
         "1d,false", "0x1p3,false", "1e,false", "'',false", ".,false", "1.2.3,false", "١٢,false"})
