@@ -72,7 +72,8 @@ final class InspectCommand implements Callable<Integer> {
             for (ColumnSpec c : info.columns()) {
                 o.printf("  column %d '%s' -> %s%n", c.index() + 1, c.header(), c.describe());
             }
-            info.metadata().forEach((k, v) -> o.printf("  metadata %s: %s%n", k, v));
+            info.metadata().forEach((k, v) -> o.printf(k.startsWith("note_") ? "  preamble note %s: %s%n" : "  metadata %s: %s%n",
+                    k.startsWith("note_") ? k.substring(5) : k, v));
             TextTable t = new TextTable("sample", "replicate", "group", "basis", "points", "frequency [Hz]", "temperature [°C]");
             for (SweepReader.SweepSummary w : s.sweeps()) {
                 t.add(w.sample(), w.replicate(), w.group(), w.kind().toString(), Long.toString(w.points()),

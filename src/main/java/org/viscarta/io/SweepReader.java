@@ -1189,6 +1189,8 @@ public final class SweepReader {
                     sb.append(sb.length() == 0 ? "" : ", ").append(InputException.quote(h));
                     if (varying.contains(h)) {
                         sb.append(" (varies within a sweep)");
+                    } else if (h.equals(first.redundantTangentHeader())) {
+                        sb.append(" (checked against E″/E′)");
                     }
                 }
                 warnings.add(new ReadWarning(path, first.line(), "columns not used in the analysis: " + sb));
