@@ -229,21 +229,31 @@ public final class Benchmarks {
         long size = Files.size(file);
         new SweepReader(null).read(file);
         System.gc();
-        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
-            pool.resetPeakUsage();
-        }
+        resetPeakHeap();
         long t0 = System.nanoTime();
         int sweeps = new SweepReader(null).read(file).sweeps().size();
         double sec = (System.nanoTime() - t0) / 1e9;
+        long heap = peakHeap();
+        System.out.printf(Locale.ROOT, "full read of a %.0f MB tidy table (%d sweeps, every point kept): %.1f s = %.1f MB/s on one thread; "
+                + "peak heap %d MB with max heap %d MB%n", size / 1e6, sweeps, sec, size / 1e6 / sec, heap >> 20,
+                Runtime.getRuntime().maxMemory() >> 20);
+    }
+
+    private static void resetPeakHeap() {
+        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+            pool.resetPeakUsage();
+        }
+    }
+
+    /** Peak heap use since {@link #resetPeakHeap} [bytes]. */
+    private static long peakHeap() {
         long heap = 0;
         for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
             if (pool.getType() == MemoryType.HEAP) {
                 heap += pool.getPeakUsage().getUsed();
             }
         }
-        System.out.printf(Locale.ROOT, "full read of a %.0f MB tidy table (%d sweeps, every point kept): %.1f s = %.1f MB/s on one thread; "
-                + "peak heap %d MB with max heap %d MB%n", size / 1e6, sweeps, sec, size / 1e6 / sec, heap >> 20,
-                Runtime.getRuntime().maxMemory() >> 20);
+        return heap;
     }
 
     /** A tidy table of about {@code megabytes} MB: 10,000 samples × 3 replicates × 20 frequencies, repeated. */
@@ -271,18 +281,11 @@ public final class Benchmarks {
     private static void streaming(Path out, long megabytes) throws IOException {
         Path file = bigTidy(out, megabytes);
         long size = Files.size(file);
-        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
-            pool.resetPeakUsage();
-        }
+        resetPeakHeap();
         long t0 = System.nanoTime();
         SweepReader.Summary s = new SweepReader(null).summarize(file);
         double sec = (System.nanoTime() - t0) / 1e9;
-        long heap = 0;
-        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
-            if (pool.getType() == MemoryType.HEAP) {
-                heap += pool.getPeakUsage().getUsed();
-            }
-        }
+        long heap = peakHeap();
         System.out.printf(Locale.ROOT, "streaming summary of a %.0f MB tidy table (%d sweeps): %.1f s = %.1f MB/s on one thread; "
                 + "peak heap %d MB with max heap %d MB%n", size / 1e6, s.sweeps().size(), sec, size / 1e6 / sec, heap >> 20,
                 Runtime.getRuntime().maxMemory() >> 20);
@@ -374,9 +377,7 @@ public final class Benchmarks {
             }
             Files.writeString(library.resolve(String.format(Locale.ROOT, "ref-%02d.csv", r)), sb.toString());
         }
-        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
-            pool.resetPeakUsage();
-        }
+        resetPeakHeap();
         java.util.Map<org.viscarta.analysis.Progress.Stage, Long> started = new java.util.concurrent.ConcurrentHashMap<>();
         org.viscarta.analysis.Progress timing = new org.viscarta.analysis.Progress() {
             @Override
@@ -397,12 +398,7 @@ public final class Benchmarks {
         long t1 = started.get(org.viscarta.analysis.Progress.Stage.FITTING);
         long t2 = started.get(org.viscarta.analysis.Progress.Stage.RANKING);
         long t2b = started.get(org.viscarta.analysis.Progress.Stage.MATCHING);
-        long heap = 0;
-        for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
-            if (pool.getType() == MemoryType.HEAP) {
-                heap += pool.getPeakUsage().getUsed();
-            }
-        }
+        long heap = peakHeap();
         System.out.printf(Locale.ROOT, "campaign: %d sweeps x %d models, matched against %d references: read %.2f s, fit %.2f s, "
                 + "rank and letters %.2f s, references fitted and matched %.2f s, workbook %.2f s, total %.2f s wall; "
                 + "peak heap (sum of pool peaks) %d MB%n", n, request.modelIds().size(), c.library().orElseThrow().entries().size(),
