@@ -602,11 +602,21 @@ public final class SweepReader {
 
     /** A footer or title (one cell of text), a 'key:' line, or a new header row with a frequency column. */
     private boolean endsBlock(List<String> cells, char sep) {
-        List<String> filled = cells.stream().filter(c -> !c.isEmpty()).toList();
-        if (filled.isEmpty()) {
+        if (!cells.isEmpty() && numeric(cells.get(0), sep)) {
+            return false; // the common case: a data row starting with a number
+        }
+        int filled = 0;
+        String only = null;
+        for (String c : cells) {
+            if (!c.isEmpty()) {
+                filled++;
+                only = c;
+            }
+        }
+        if (filled == 0) {
             return false;
         }
-        if (filled.size() == 1 && !numeric(filled.get(0), sep) && !NOT_A_NUMBER.contains(filled.get(0).toLowerCase(Locale.ROOT))) {
+        if (filled == 1 && !numeric(only, sep) && !NOT_A_NUMBER.contains(only.toLowerCase(Locale.ROOT))) {
             return true;
         }
         if (cells.get(0).endsWith(":") && !numeric(cells.get(0), sep)) {
