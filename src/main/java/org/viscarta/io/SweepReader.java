@@ -450,14 +450,13 @@ public final class SweepReader {
         void hash(Line l) {
             for (String key : parseMetadataLine(l.text().strip().substring(1), metadata)) {
                 String canonical = PREAMBLE_KEYS.getOrDefault(key, key);
-                if (!canonical.equals(key) && !metadata.containsKey(canonical) || canonical.equals(key)) {
-                    String v = metadata.get(key);
-                    if (!canonical.equals(key)) {
-                        metadata.remove(key);
-                        metadata.put(canonical, v);
+                if (!canonical.equals(key)) {
+                    if (metadata.containsKey(canonical)) {
+                        continue; // the key as Viscarta writes it wins over another spelling
                     }
-                    lines.put(canonical, l.number());
+                    metadata.put(canonical, metadata.remove(key));
                 }
+                lines.put(canonical, l.number());
             }
         }
 
