@@ -546,11 +546,11 @@ public final class WorkbookReport {
         }
         if (c.result().inputs().files().stream().anyMatch(f -> !f.info().metadata().isEmpty())) {
             rows.blank();
-            rows.styled(st.header, "input file", "metadata or preamble note", "value");
+            rows.styled(st.header, "input file: metadata or preamble note", "value");
             for (SweepFile f : c.result().inputs().files()) {
                 for (Map.Entry<String, String> e : f.info().metadata().entrySet()) {
-                    rows.row(f.path().getFileName().toString(), e.getKey().startsWith("note_")
-                            ? "note: " + e.getKey().substring(5) : e.getKey(), e.getValue());
+                    rows.paragraph(st.wrap, st.wrap, f.path().getFileName() + ": " + (e.getKey().startsWith("note_")
+                            ? "note " + e.getKey().substring(5) : e.getKey()), e.getValue(), 30, 60);
                 }
             }
         }
