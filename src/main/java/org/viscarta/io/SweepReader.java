@@ -24,6 +24,9 @@ import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
+import org.viscarta.io.TableStart.Line;
+import org.viscarta.io.TableStart.Lines;
+import org.viscarta.io.TableStart.Start;
 import org.viscarta.sweep.ModulusKind;
 import org.viscarta.sweep.Quantity;
 import org.viscarta.sweep.Sweep;
@@ -69,13 +72,7 @@ public final class SweepReader {
     private SweepFile readWhole(Path path) {
         String name = path.getFileName().toString().toLowerCase(Locale.ROOT);
         if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
-            byte[] bytes;
-            try {
-                bytes = Files.readAllBytes(path);
-            } catch (IOException e) {
-                throw new InputException(path, 0, 0, "cannot read the file (" + e.getMessage() + ")");
-            }
-            return readWorkbook(path, bytes);
+            return readWorkbook(path);
         }
         return decoded(path, cs -> new SweepSink(path));
     }
@@ -126,53 +123,30 @@ public final class SweepReader {
     }
 
     /**
-     * Reads every non-empty sheet of an XLSX or XLS workbook (Apache POI) as its own table — one
-     * sample per sheet (named after the sheet unless a '# sample:' cell says otherwise), or a tidy
-     * table; cells holding formulas are read as their cached values. Locations read
-     * {@code book.xlsx#Sheet:row:column}.
+     * Reads every non-empty sheet of an XLSX or XLS workbook ({@link WorkbookText}: XLSX streamed)
+     * as its own table — one sample per sheet (named after the sheet unless a '# sample:' cell says
+     * otherwise), or a tidy table; cells holding formulas are read as their cached values.
+     * Locations read {@code book.xlsx#Sheet:row:column}.
      */
-    private SweepFile readWorkbook(Path path, byte[] bytes) {
+    private SweepFile readWorkbook(Path path) {
         List<Sweep> sweeps = new ArrayList<>();
         CappedWarnings warnings = new CappedWarnings(path);
-        TableInfo first = null;
-        int sheets = 0;
-        try (org.apache.poi.ss.usermodel.Workbook wb = org.apache.poi.ss.usermodel.WorkbookFactory.create(
-                new java.io.ByteArrayInputStream(bytes))) {
-            org.apache.poi.ss.usermodel.DataFormatter fmt = new org.apache.poi.ss.usermodel.DataFormatter(Locale.ROOT);
-            for (org.apache.poi.ss.usermodel.Sheet sheet : wb) {
-                StringBuilder text = new StringBuilder();
-                int last = sheet.getLastRowNum();
-                boolean any = false;
-                for (int r = 0; r <= last; r++) {
-                    org.apache.poi.ss.usermodel.Row row = sheet.getRow(r);
-                    if (row != null) {
-                        short lastCell = row.getLastCellNum();
-                        List<String> cells = new ArrayList<>();
-                        for (int c = 0; c < lastCell; c++) {
-                            cells.add(cellText(row.getCell(c), fmt));
-                        }
-                        while (!cells.isEmpty() && cells.get(cells.size() - 1).isEmpty()) {
-                            cells.remove(cells.size() - 1);
-                        }
-                        if (!cells.isEmpty()) {
-                            any = true;
-                            text.append(cells.get(0).startsWith("#") ? String.join(" ", cells) : String.join("\t", cells));
-                        }
-                    }
-                    text.append('\n');
-                }
-                if (!any) {
-                    continue;
-                }
-                Path where = path.resolveSibling(path.getFileName() + "#" + sheet.getSheetName());
-                SweepFile sf = parse(where, text.toString(), "XLSX/XLS workbook, sheet '" + sheet.getSheetName() + "'", "");
+        TableInfo[] first = new TableInfo[1];
+        int[] sheets = new int[1];
+        String sha;
+        try {
+            sha = sha256(path);
+            WorkbookText.read(path, (sheet, text) -> {
+                Path where = path.resolveSibling(path.getFileName() + "#" + sheet);
+                SweepFile sf = scan(where, new java.io.BufferedReader(text, 1 << 16), "XLSX/XLS workbook, sheet '" + sheet + "'",
+                        new SweepSink(where, ""));
                 sweeps.addAll(sf.sweeps());
                 warnings.addAll(sf.warnings());
-                if (first == null) {
-                    first = sf.info();
+                if (first[0] == null) {
+                    first[0] = sf.info();
                 }
-                sheets++;
-            }
+                sheets[0]++;
+            });
         } catch (IOException | RuntimeException e) {
             if (e instanceof InputException ie) {
                 throw ie;
@@ -180,47 +154,26 @@ public final class SweepReader {
             throw new InputException(path, 0, 0, "the workbook cannot be read (" + e.getMessage() + "); save it again from a "
                     + "spreadsheet program or export the sheet as CSV");
         }
-        if (first == null) {
+        if (first[0] == null) {
             throw new InputException(path, 1, 0, "the workbook has no sheet with data");
         }
-        TableInfo info = new TableInfo(new Layout.WorkbookSheets(sheets, first.kind()), '\t', '.', "XLSX/XLS",
-                first.headerLine(), first.columns(), first.metadata());
-        return new SweepFile(path, sha256(bytes), info, sweeps, warnings.closeOut());
+        TableInfo info = new TableInfo(new Layout.WorkbookSheets(sheets[0], first[0].kind()), '\t', '.', "XLSX/XLS",
+                first[0].headerLine(), first[0].columns(), first[0].metadata());
+        return new SweepFile(path, sha, info, sweeps, warnings.closeOut());
     }
 
-    private static String cellText(org.apache.poi.ss.usermodel.Cell cell, org.apache.poi.ss.usermodel.DataFormatter fmt) {
-        if (cell == null) {
-            return "";
-        }
-        org.apache.poi.ss.usermodel.CellType type = cell.getCellType();
-        if (type == org.apache.poi.ss.usermodel.CellType.FORMULA) {
-            type = cell.getCachedFormulaResultType();
-        }
-        switch (type) {
-            case NUMERIC:
-                if (org.apache.poi.ss.usermodel.DateUtil.isCellDateFormatted(cell)) {
-                    return "a date cell (" + fmt.formatCellValue(cell).strip() + ")";
-                }
-                double v = cell.getNumericCellValue();
-                return v == Math.rint(v) && Math.abs(v) < 1e15 ? Long.toString((long) v) : Double.toString(v);
-            case STRING:
-                return cell.getStringCellValue().strip();
-            case BOOLEAN:
-                return Boolean.toString(cell.getBooleanCellValue());
-            case ERROR:
-                return "#ERROR";
-            default:
-                return fmt.formatCellValue(cell).strip();
-        }
-    }
-
-    /** Reads a sweep table held as text (a decoded file, or a workbook sheet) in full. */
-    private SweepFile parse(Path path, String text, String encoding, String sha) {
+    /** The SHA-256 of a file's bytes, read in a stream. */
+    private static String sha256(Path path) throws IOException {
+        MessageDigest md;
         try {
-            return scan(path, new java.io.BufferedReader(new java.io.StringReader(text)), encoding, new SweepSink(path, sha));
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
+            md = MessageDigest.getInstance("SHA-256");
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is missing from this Java runtime", e);
         }
+        try (java.io.InputStream in = new java.security.DigestInputStream(Files.newInputStream(path), md)) {
+            in.transferTo(java.io.OutputStream.nullOutputStream());
+        }
+        return HexFormat.of().formatHex(md.digest());
     }
 
     /**
@@ -240,7 +193,7 @@ public final class SweepReader {
         Lines src = new Lines(in);
         Preamble pre = new Preamble(path);
         CappedWarnings warnings = new CappedWarnings(path);
-        Start start = findStart(path, src, pre, 0, false);
+        Start start = TableStart.findStart(src, pre, 0, false);
         Line headerLine;
         Line unitsLine = null;
         if (start == null || start.header() == null) {
@@ -260,7 +213,7 @@ public final class SweepReader {
             unitsLine = start.units();
         }
         String enc = src.bom && encoding.equals("UTF-8") ? "UTF-8 with byte-order mark" : encoding;
-        char sep = detectSeparator(headerLine.text());
+        char sep = TableStart.detectSeparator(headerLine.text());
         Row headerRow = withUnits(path, row(path, headerLine.text(), headerLine.number(), sep),
                 unitsLine == null ? null : row(path, unitsLine.text(), unitsLine.number(), sep));
         List<Row> first = new ArrayList<>();
@@ -293,7 +246,7 @@ public final class SweepReader {
             readBlock(path, src, sep, dm, hd, rp);
             Preamble next = new Preamble(path);
             next.inherit(firstMetadata);
-            Start s = findStart(path, src, next, hd == null ? 0 : hd.columns().size(), true);
+            Start s = TableStart.findStart(src, next, hd == null ? 0 : hd.columns().size(), true);
             notes.putAll(next.notes);
             if (s == null) {
                 break;
@@ -337,250 +290,6 @@ public final class SweepReader {
     /** Rows read before the decimal mark and the layout are decided. */
     private static final int SNIFFED_ROWS = 1000;
 
-    /** Preamble lines read while looking for a table before the first row is taken as the header anyway. */
-    private static final int MAX_PREAMBLE = 1000;
-
-    /** Input lines with their 1-based numbers, one at a time, with push-back. */
-    private static final class Lines {
-        private final java.io.BufferedReader in;
-        private final java.util.ArrayDeque<Line> back = new java.util.ArrayDeque<>();
-        private int n;
-        boolean bom;
-
-        Lines(java.io.BufferedReader in) {
-            this.in = in;
-        }
-
-        Line next() throws IOException {
-            if (!back.isEmpty()) {
-                return back.pollFirst();
-            }
-            String s = in.readLine();
-            if (s == null) {
-                return null;
-            }
-            n++;
-            if (n == 1 && s.startsWith("\uFEFF")) {
-                s = s.substring(1);
-                bom = true;
-            }
-            return new Line(n, s);
-        }
-
-        void pushBack(Line l) {
-            back.addFirst(l);
-        }
-
-        void pushBack(List<Line> ls) {
-            for (int i = ls.size() - 1; i >= 0; i--) {
-                back.addFirst(ls.get(i));
-            }
-        }
-
-        /** Up to {@code count} following lines, left to be read again. */
-        List<Line> peek(int count) throws IOException {
-            List<Line> out = new ArrayList<>();
-            Line l;
-            while (out.size() < count && (l = next()) != null) {
-                out.add(l);
-            }
-            pushBack(out);
-            return out;
-        }
-
-        /** The next {@code count} lines that are neither blank nor comments (fewer at the end), left to be read again. */
-        List<Line> peekContent(int count) throws IOException {
-            List<Line> read = new ArrayList<>();
-            List<Line> out = new ArrayList<>();
-            Line l;
-            while (out.size() < count && read.size() < 50 && (l = next()) != null) {
-                read.add(l);
-                if (!l.text().isBlank() && !l.comment()) {
-                    out.add(l);
-                }
-            }
-            pushBack(read);
-            return out;
-        }
-
-        int count() {
-            return n;
-        }
-    }
-
-    /** One input line and its 1-based number. */
-    private record Line(int number, String text) {
-        boolean comment() {
-            return text.stripLeading().startsWith("#");
-        }
-    }
-
-    /** What starts a table: its header line and units line (null when the previous header goes on). */
-    private record Start(Line header, Line units) {
-    }
-
-    /** The preamble of one block: metadata (keys as Viscarta reads them), notes, and the lines seen. */
-    private static final class Preamble {
-        final Path path;
-        final Map<String, String> metadata = new LinkedHashMap<>();
-        final Map<String, Integer> lines = new LinkedHashMap<>();
-        final Map<String, String> notes = new LinkedHashMap<>();
-        final List<Line> seen = new ArrayList<>();
-        boolean any;
-
-        Preamble(Path path) {
-            this.path = path;
-        }
-
-        /** A later block keeps the first block's settings but not its sample and replicate. */
-        void inherit(Map<String, String> first) {
-            first.forEach((k, v) -> {
-                if (!k.equals("sample") && !k.equals("replicate")) {
-                    metadata.put(k, v);
-                }
-            });
-        }
-
-        void reset() {
-            metadata.clear();
-            lines.clear();
-            notes.clear();
-        }
-
-        void hash(Line l) {
-            for (String key : parseMetadataLine(l.text().strip().substring(1), metadata)) {
-                String canonical = PREAMBLE_KEYS.getOrDefault(key, key);
-                if (!canonical.equals(key)) {
-                    if (metadata.containsKey(canonical)) {
-                        continue; // the key as Viscarta writes it wins over another spelling
-                    }
-                    metadata.put(canonical, metadata.remove(key));
-                }
-                lines.put(canonical, l.number());
-            }
-        }
-
-        /** An unmarked preamble line: 'key: value', 'key&lt;sep&gt;value [unit]', or a title. */
-        void plain(Line l, List<String> cells) {
-            String key;
-            String value;
-            List<String> filled = cells.stream().filter(c -> !c.isEmpty()).toList();
-            if (filled.isEmpty()) {
-                return;
-            }
-            String c0 = filled.get(0);
-            int colon = c0.indexOf(':');
-            if (colon > 0 && (filled.size() == 1 || colon < c0.length() - 1)) {
-                key = c0.substring(0, colon);
-                value = (c0.substring(colon + 1) + " " + String.join(" ", filled.subList(1, filled.size()))).strip();
-            } else if (filled.size() >= 2) {
-                key = c0;
-                value = String.join(" ", filled.subList(1, filled.size()));
-            } else {
-                notes.put("line_" + l.number(), c0);
-                return;
-            }
-            Matcher unit = KEY_UNIT.matcher(key.strip());
-            if (unit.matches()) {
-                key = unit.group(1);
-                if (!value.isEmpty() && isPlainNumber(value.replace(',', '.'))) {
-                    value = value + " " + unit.group(2).strip();
-                }
-            }
-            String k = key.strip().toLowerCase(Locale.ROOT).replaceAll("[\\s-]+", "_").replaceAll("[:.]+$", "");
-            String canonical = PREAMBLE_KEYS.get(k);
-            if (canonical != null && !value.isEmpty()) {
-                metadata.put(canonical, value);
-                lines.put(canonical, l.number());
-            } else if (!k.isEmpty()) {
-                notes.put(k, value);
-            }
-        }
-    }
-
-    private static final Pattern KEY_UNIT = Pattern.compile("^(.*?)\\s*[\\[(]([^\\])]*)[\\])]\\s*$");
-
-    /**
-     * Preamble keys understood in their common spellings (lower case, spaces as underscores), and the
-     * metadata key each stands for; other keys are kept as notes.
-     */
-    private static final Map<String, String> PREAMBLE_KEYS = Map.ofEntries(
-            Map.entry("sample", "sample"), Map.entry("sample_name", "sample"), Map.entry("specimen", "sample"),
-            Map.entry("specimen_name", "sample"), Map.entry("sample_id", "sample"), Map.entry("specimen_id", "sample"),
-            Map.entry("temperature", "temperature"), Map.entry("temp", "temperature"), Map.entry("test_temperature", "temperature"),
-            Map.entry("sample_temperature", "temperature"), Map.entry("set_temperature", "temperature"),
-            Map.entry("replicate", "replicate"), Map.entry("repeat", "replicate"), Map.entry("group", "group"),
-            Map.entry("geometry", "geometry"), Map.entry("measuring_system", "geometry"), Map.entry("probe", "geometry"),
-            Map.entry("poisson_ratio", "poisson_ratio"), Map.entry("poisson's_ratio", "poisson_ratio"),
-            Map.entry("method", "method"), Map.entry("test_method", "method"), Map.entry("modulus", "modulus"));
-
-    /**
-     * Reads lines up to the start of the next table, the preamble going into {@code pre}. Returns the
-     * header (and units) line, a Start without header when a data row of the previous table's width
-     * comes without a new header (the previous header goes on), or null at the end of the input.
-     */
-    private Start findStart(Path path, Lines src, Preamble pre, int previousColumns, boolean later) throws IOException {
-        Line l;
-        while ((l = src.next()) != null) {
-            if (l.text().isBlank()) {
-                continue;
-            }
-            pre.any = true;
-            if (l.comment()) {
-                pre.hash(l);
-                continue;
-            }
-            char sep = detectSeparator(l.text());
-            List<String> cells = trimmed(splitLoose(l.text(), sep));
-            if (previousColumns > 0 && numbers(cells, sep) >= 2 && cells.size() <= previousColumns) {
-                src.pushBack(l);
-                return new Start(null, null);
-            }
-            if (headerLike(cells, sep)) {
-                List<Line> next = src.peekContent(3);
-                if (!next.isEmpty()) {
-                    List<String> n1 = trimmed(splitLoose(next.get(0).text(), sep));
-                    Line units = null;
-                    int at = 0;
-                    if (unitsLike(n1, sep)) {
-                        units = next.get(0);
-                        at = 1;
-                    }
-                    if (next.size() > at && startsData(next, at, sep, cells.size())) {
-                        if (units != null) {
-                            Line x;
-                            do {
-                                x = src.next(); // up to and with the units line
-                            } while (x != null && x.number() < units.number());
-                        }
-                        return new Start(l, units);
-                    }
-                }
-            }
-            if (!later) {
-                pre.seen.add(l);
-                if (pre.seen.size() > MAX_PREAMBLE) {
-                    return null;
-                }
-            }
-            pre.plain(l, cells);
-        }
-        return null;
-    }
-
-    /** True when the lines from {@code at} begin with data rows: the first with two numbers, or one number and the next with two. */
-    private static boolean startsData(List<Line> next, int at, char sep, int headerColumns) {
-        List<String> d1 = trimmed(splitLoose(next.get(at).text(), sep));
-        if (d1.size() > headerColumns) {
-            return false;
-        }
-        int k = numbers(d1, sep);
-        if (k >= 2) {
-            return true;
-        }
-        return k == 1 && next.size() > at + 1 && numbers(trimmed(splitLoose(next.get(at + 1).text(), sep)), sep) >= 2;
-    }
-
     /** Reads data rows of one block into the parser, up to the end of the input or a line that ends the block (left unread). */
     private void readBlock(Path path, Lines src, char sep, char dm, Header hd, RowParser<?> rp) throws IOException {
         Line l;
@@ -601,7 +310,7 @@ public final class SweepReader {
 
     /** A footer or title (one cell of text), a 'key:' line, or a new header row with a frequency column. */
     private boolean endsBlock(List<String> cells, char sep) {
-        if (!cells.isEmpty() && numeric(cells.get(0), sep)) {
+        if (!cells.isEmpty() && TableStart.numeric(cells.get(0), sep)) {
             return false; // the common case: a data row starting with a number
         }
         int filled = 0;
@@ -615,13 +324,13 @@ public final class SweepReader {
         if (filled == 0) {
             return false;
         }
-        if (filled == 1 && !numeric(only, sep) && !NOT_A_NUMBER.contains(only.toLowerCase(Locale.ROOT))) {
+        if (filled == 1 && !TableStart.numeric(only, sep) && !TableStart.NOT_A_NUMBER.contains(only.toLowerCase(Locale.ROOT))) {
             return true;
         }
-        if (cells.get(0).endsWith(":") && !numeric(cells.get(0), sep)) {
+        if (cells.get(0).endsWith(":") && !TableStart.numeric(cells.get(0), sep)) {
             return true;
         }
-        if (headerLike(cells, sep)) {
+        if (TableStart.headerLike(cells, sep)) {
             for (int i = 0; i < cells.size(); i++) {
                 String h = cells.get(i);
                 HeaderRecognizer.Result r = HeaderRecognizer.recognize(i, columnMap.getOrDefault(h, h));
@@ -631,53 +340,6 @@ public final class SweepReader {
             }
         }
         return false;
-    }
-
-    /** Cell texts that stand for a missing value: the point is left out with a warning. */
-    static final java.util.Set<String> NOT_A_NUMBER = java.util.Set.of("", "-", "--", "---", "nan", "n/a", "na", "*", "#n/a", "null");
-
-    private static boolean numeric(String cell, char sep) {
-        return isPlainNumber(cell) || (sep != ',' && cell.indexOf(',') > 0 && isPlainNumber(cell.replace(',', '.')));
-    }
-
-    private static int numbers(List<String> cells, char sep) {
-        int k = 0;
-        for (String c : cells) {
-            if (numeric(c, sep)) {
-                k++;
-            }
-        }
-        return k;
-    }
-
-    /** Two or more cells of text, none a number. */
-    private static boolean headerLike(List<String> cells, char sep) {
-        int filled = 0;
-        for (String c : cells) {
-            if (c.isEmpty()) {
-                continue;
-            }
-            if (numeric(c, sep)) {
-                return false;
-            }
-            filled++;
-        }
-        return filled >= 2;
-    }
-
-    /** A units row: no numbers, every cell short, at least one a known unit ("Hz", "(kPa)", "[Pa]", "rad/s"). */
-    private static boolean unitsLike(List<String> cells, char sep) {
-        boolean known = false;
-        for (String c : cells) {
-            if (c.isEmpty()) {
-                continue;
-            }
-            if (numeric(c, sep) || c.length() > 20) {
-                return false;
-            }
-            known |= Unit.anyDimension(c).isPresent() && !c.equals("-") && !c.equals("1");
-        }
-        return known;
     }
 
     /** The header row with the units row's units written into it ("Storage modulus" + "Pa" → "Storage modulus [Pa]"). */
@@ -691,32 +353,11 @@ public final class SweepReader {
             if (u.length() >= 2 && (u.charAt(0) == '[' || u.charAt(0) == '(')) {
                 u = u.substring(1, u.length() - 1).strip();
             }
-            if (!u.isEmpty() && !u.equals("-") && !out.get(i).isEmpty() && !KEY_UNIT.matcher(out.get(i)).matches()) {
+            if (!u.isEmpty() && !u.equals("-") && !out.get(i).isEmpty() && !Preamble.KEY_UNIT.matcher(out.get(i)).matches()) {
                 out.set(i, out.get(i) + " [" + u + "]");
             }
         }
         return new Row(header.line(), out);
-    }
-
-    /** Splits at the separator without the quote rules (enough to judge a line's shape). */
-    private static List<String> splitLoose(String line, char sep) {
-        List<String> cells = splitPlain(line, sep);
-        for (int i = 0; i < cells.size(); i++) {
-            String c = cells.get(i);
-            if (c.length() >= 2 && c.startsWith("\"") && c.endsWith("\"")) {
-                cells.set(i, c.substring(1, c.length() - 1).strip());
-            }
-        }
-        return cells;
-    }
-
-    /** The cells without trailing empty ones. */
-    private static List<String> trimmed(List<String> cells) {
-        int n = cells.size();
-        while (n > 0 && cells.get(n - 1).isEmpty()) {
-            n--;
-        }
-        return cells.subList(0, n);
     }
 
     /** The rows of one sweep (sample, replicate, temperature) as a sink keeps them. */
@@ -933,6 +574,14 @@ public final class SweepReader {
     }
 
     /** Warnings kept per file; the rest are counted. */
+    /**
+     * True for plain decimal numbers with an optional sign, fraction and exponent (see
+     * {@link TableStart#isPlainNumber}).
+     */
+    public static boolean isPlainNumber(String t) {
+        return TableStart.isPlainNumber(t);
+    }
+
     private static final int MAX_WARNINGS = CappedWarnings.MAX;
 
     /**
@@ -1059,7 +708,7 @@ public final class SweepReader {
                 if (cell.isEmpty() && lastTemperature != null) {
                     cell = lastTemperature;
                 }
-                if (!NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT))) {
+                if (!TableStart.NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT))) {
                     temperature = number(cell, tc, dm, path, line);
                 }
                 lastTemperature = cell;
@@ -1155,7 +804,7 @@ public final class SweepReader {
             }
             String cell = cell(rec, t.index());
             String c = dm == ',' ? cell.replace(',', '.') : cell;
-            if (!isPlainNumber(c)) {
+            if (!TableStart.isPlainNumber(c)) {
                 return;
             }
             double v = Double.parseDouble(c) * (t.unit() == null ? 1 : t.unit().toSi());
@@ -1234,7 +883,7 @@ public final class SweepReader {
 
     private static Row row(Path path, String line, int n, char sep) {
         if (line.indexOf('"') < 0) {
-            return new Row(n, splitPlain(line, sep));
+            return new Row(n, TableStart.splitPlain(line, sep));
         }
         CSVFormat format = CSVFormat.DEFAULT.builder().setDelimiter(sep).setIgnoreSurroundingSpaces(true).setTrim(true).get();
         try (CSVParser parser = CSVParser.parse(line, format)) {
@@ -1274,7 +923,7 @@ public final class SweepReader {
     private Header header(Path path, Row headerRecord, Map<String, String> metadata, Map<String, Integer> metadataLines,
                           List<ReadWarning> warnings, boolean required) {
         int headerLine = headerRecord.line();
-        List<String> cells = trimmed(headerRecord.cells());
+        List<String> cells = TableStart.trimmed(headerRecord.cells());
         List<ColumnSpec> columns = new ArrayList<>();
         EnumMap<Quantity, ColumnSpec> byQuantity = new EnumMap<>(Quantity.class);
         List<Integer> unnamed = new ArrayList<>();
@@ -1368,10 +1017,10 @@ public final class SweepReader {
     private String mapping(String header) {
         String m = columnMap.get(header);
         if (m == null) {
-            Matcher u = KEY_UNIT.matcher(header);
+            Matcher u = Preamble.KEY_UNIT.matcher(header);
             if (u.matches()) {
                 m = columnMap.get(u.group(1));
-                if (m != null && !KEY_UNIT.matcher(m).matches() && !m.equals("ignore") && !m.startsWith("quality_")) {
+                if (m != null && !Preamble.KEY_UNIT.matcher(m).matches() && !m.equals("ignore") && !m.startsWith("quality_")) {
                     m = m + " [" + u.group(2) + "]";
                 }
             }
@@ -1386,7 +1035,7 @@ public final class SweepReader {
      * @param stressSeen how many earlier suggestions were moduli
      */
     private static String guess(String header, int stressSeen) {
-        Matcher u = KEY_UNIT.matcher(header);
+        Matcher u = Preamble.KEY_UNIT.matcher(header);
         String name = (u.matches() ? u.group(1) : header).toLowerCase(Locale.ROOT);
         String unitText = u.matches() ? u.group(2).strip() : "";
         Optional<Unit> unit = Unit.anyDimension(unitText);
@@ -1585,7 +1234,7 @@ public final class SweepReader {
 
     /**
      * The point of one row in SI units, or null when a needed cell is blank or not a number
-     * ({@link #NOT_A_NUMBER}): the caller leaves the point out and counts it.
+     * ({@link #TableStart.NOT_A_NUMBER}): the caller leaves the point out and counts it.
      */
     private static SweepPoint point(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line) {
         try {
@@ -1607,7 +1256,7 @@ public final class SweepReader {
 
     private static double value(Row rec, ColumnSpec c, char dm, Path path, int line) {
         String cell = cell(rec, c.index());
-        if (cell.isEmpty() || NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT))) {
+        if (cell.isEmpty() || TableStart.NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT))) {
             throw MissingValue.INSTANCE;
         }
         return number(cell, c, dm, path, line);
@@ -1677,7 +1326,7 @@ public final class SweepReader {
             throw new InputException(path, line, c.index() + 1, "empty cell in column '" + c.header()
                     + "'; fill it or remove the row");
         }
-        if (!isPlainNumber(t)) {
+        if (!TableStart.isPlainNumber(t)) {
             throw new InputException(path, line, c.index() + 1, InputException.quote(cell) + " in column "
                     + InputException.quote(c.header()) + " is not a number; write plain numbers such as 1250 or 1.25e3");
         }
@@ -1691,62 +1340,6 @@ public final class SweepReader {
                     + " is too large once converted to SI units");
         }
         return si;
-    }
-
-    /** Splits a line that holds no quotes at the separator, trimming each cell (the common, fast case). */
-    private static List<String> splitPlain(String line, char sep) {
-        List<String> cells = new ArrayList<>(8);
-        int start = 0;
-        for (int i = 0; i <= line.length(); i++) {
-            if (i == line.length() || line.charAt(i) == sep) {
-                cells.add(line.substring(start, i).strip());
-                start = i + 1;
-            }
-        }
-        return cells;
-    }
-
-    /**
-     * True for plain decimal numbers with an optional sign, fraction and exponent
-     * ({@code [+-]?(d+.?d*|.d+)([eE][+-]?d+)?}); rejects what Double.parseDouble would also take
-     * but a table should not hold (NaN, Infinity, hex, a trailing d or f).
-     */
-    public static boolean isPlainNumber(String t) {
-        int n = t.length();
-        int i = 0;
-        if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
-            i++;
-        }
-        int digits = 0;
-        while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
-            i++;
-            digits++;
-        }
-        if (i < n && t.charAt(i) == '.') {
-            i++;
-            while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
-                i++;
-                digits++;
-            }
-        }
-        if (digits == 0) {
-            return false;
-        }
-        if (i < n && (t.charAt(i) == 'e' || t.charAt(i) == 'E')) {
-            i++;
-            if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
-                i++;
-            }
-            int exp = 0;
-            while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
-                i++;
-                exp++;
-            }
-            if (exp == 0) {
-                return false;
-            }
-        }
-        return i == n;
     }
 
 
@@ -1806,48 +1399,6 @@ public final class SweepReader {
     private static String t0(Map<String, String> metadata) {
         String t = metadata.get("temperature");
         return t.length() > 80 ? t.substring(0, 80) + "…" : t;
-    }
-
-    /** Parses "key: value" or "key: value; key: value" (geometry lines). Keys lower-case, spaces as underscores. */
-    static List<String> parseMetadataLine(String body, Map<String, String> out) {
-        List<String> keys = new ArrayList<>();
-        for (String part : body.split(";")) {
-            int colon = part.indexOf(':');
-            if (colon <= 0) {
-                continue;
-            }
-            String key = part.substring(0, colon).strip().toLowerCase(Locale.ROOT).replaceAll("\\s+", "_");
-            String value = part.substring(colon + 1).strip();
-            if (!key.isEmpty()) {
-                out.put(key, value);
-                keys.add(key);
-            }
-        }
-        return keys;
-    }
-
-    private static char detectSeparator(String headerLine) {
-        int commas = 0;
-        int semis = 0;
-        int tabs = 0;
-        boolean quoted = false;
-        for (char ch : headerLine.toCharArray()) {
-            if (ch == '"') {
-                quoted = !quoted;
-            } else if (!quoted) {
-                if (ch == ',') {
-                    commas++;
-                } else if (ch == ';') {
-                    semis++;
-                } else if (ch == '\t') {
-                    tabs++;
-                }
-            }
-        }
-        if (tabs >= commas && tabs >= semis && tabs > 0) {
-            return '\t';
-        }
-        return semis > commas ? ';' : ',';
     }
 
     private static char detectDecimalMark(char sep, List<Row> records) {

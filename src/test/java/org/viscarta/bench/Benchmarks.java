@@ -20,6 +20,7 @@ import org.viscarta.analysis.AnalysisResult;
 import org.viscarta.report.ReportContent;
 import org.viscarta.fit.LeastSquaresEngine;
 import org.viscarta.fit.ModelFitter;
+import org.viscarta.io.SweepFile;
 import org.viscarta.io.SweepReader;
 import org.viscarta.model.Zener;
 import org.viscarta.report.Provenance;
@@ -54,6 +55,10 @@ public final class Benchmarks {
         }
         if (args.length >= 2 && args[1].equals("read-only")) {
             fullRead(out, Long.parseLong(args[0]));
+            return;
+        }
+        if (args.length >= 2 && args[1].equals("workbook-only")) {
+            workbook(out, Integer.parseInt(args[0]));
             return;
         }
         if (args.length >= 2 && args[1].equals("raw-only")) {
@@ -216,11 +221,6 @@ public final class Benchmarks {
     }
 
     /**
-     * Streaming a large tidy table ({@code inspect}'s pass): writes a file of about {@code megabytes}
-     * MB (unless it is there), then summarises it; run with a small heap (-Xmx256m) to show that
-     * memory does not grow with the file.
-     */
-    /**
      * The full read the analysing verbs use (every point kept) of a tidy table of the given size,
      * twice (the second timed), with the peak heap.
      */
@@ -278,6 +278,11 @@ public final class Benchmarks {
         return file;
     }
 
+    /**
+     * Streaming a large tidy table ({@code inspect}'s pass): writes a file of about {@code megabytes}
+     * MB (unless it is there), then summarises it; run with a small heap (-Xmx256m) to show that
+     * memory does not grow with the file.
+     */
     private static void streaming(Path out, long megabytes) throws IOException {
         Path file = bigTidy(out, megabytes);
         long size = Files.size(file);
@@ -289,6 +294,62 @@ public final class Benchmarks {
         System.out.printf(Locale.ROOT, "streaming summary of a %.0f MB tidy table (%d sweeps): %.1f s = %.1f MB/s on one thread; "
                 + "peak heap %d MB with max heap %d MB%n", size / 1e6, s.sweeps().size(), sec, size / 1e6 / sec, heap >> 20,
                 Runtime.getRuntime().maxMemory() >> 20);
+    }
+
+    /**
+     * A tidy workbook sheet of {@code thousands} × 1,000 rows (samples × replicates × 20 frequencies)
+     * read by the streaming workbook reader, twice (the second timed), with the peak heap; then, for
+     * contrast, the peak heap of POI's object model merely opening a tenth of it.
+     */
+    private static void workbook(Path out, int thousands) throws IOException {
+        Path file = bigWorkbook(out, thousands);
+        Path tenth = bigWorkbook(out, Math.max(1, thousands / 10));
+        new SweepReader(null).read(file);
+        System.gc();
+        resetPeakHeap();
+        long t0 = System.nanoTime();
+        SweepFile f = new SweepReader(null).read(file);
+        double sec = (System.nanoTime() - t0) / 1e9;
+        long heap = peakHeap();
+        long points = f.sweeps().stream().mapToLong(x -> x.points().size()).sum();
+        System.out.printf(Locale.ROOT, "streamed workbook read: %.1f MB XLSX, %d rows, %d sweeps: %.1f s = %.0f rows/s on one thread "
+                + "(plus the sheet's XML parsed on a second); peak heap %d MB with max heap %d MB%n", Files.size(file) / 1e6,
+                points, f.sweeps().size(), sec, points / sec, heap >> 20, Runtime.getRuntime().maxMemory() >> 20);
+        f = null;
+        System.gc();
+        resetPeakHeap();
+        try (var wb = org.apache.poi.ss.usermodel.WorkbookFactory.create(tenth.toFile(), null, true)) {
+            System.out.printf(Locale.ROOT, "for contrast, POI's object model opening a %d-row copy: peak heap %d MB%n",
+                    wb.getSheetAt(0).getLastRowNum(), peakHeap() >> 20);
+        }
+    }
+
+    static Path bigWorkbook(Path out, int thousands) throws IOException {
+        Path file = out.resolve("big-" + thousands + "k-rows.xlsx");
+        if (!Files.exists(file)) {
+            try (var wb = new org.apache.poi.xssf.streaming.SXSSFWorkbook(200)) {
+                var sheet = wb.createSheet("sweeps");
+                String[] head = {"sample", "replicate", "frequency [Hz]", "storage_modulus [Pa]", "loss_modulus [Pa]"};
+                var h = sheet.createRow(0);
+                for (int c = 0; c < head.length; c++) {
+                    h.createCell(c).setCellValue(head[c]);
+                }
+                for (int row = 0; row < thousands * 1000; row++) {
+                    int s = row / 20;
+                    var r = sheet.createRow(row + 1);
+                    r.createCell(0).setCellValue("sample-" + s % 10_000);
+                    r.createCell(1).setCellValue(1 + (s / 10_000) % 3);
+                    r.createCell(2).setCellValue(0.1 * (1 + row % 20));
+                    r.createCell(3).setCellValue(10_000 + row % 977);
+                    r.createCell(4).setCellValue(1_000 + row % 331);
+                }
+                try (var w = Files.newOutputStream(file)) {
+                    wb.write(w);
+                }
+                wb.dispose();
+            }
+        }
+        return file;
     }
 
     /** Raw signals: 10 drive frequencies × 100,000 samples of force and displacement, read and demodulated. */

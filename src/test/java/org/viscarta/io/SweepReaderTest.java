@@ -340,6 +340,94 @@ class SweepReaderTest {
         assertTrue(e.getMessage().startsWith(p + "#run 2:2:2: "), e.getMessage());
     }
 
+    /** Writes one sheet: a header whose loss column name holds a line break, rows 2 and 4 with data, row 3 left out. */
+    private static void gappySheet(org.apache.poi.ss.usermodel.Workbook wb) {
+        var s = wb.createSheet("gaps");
+        var h = s.createRow(0);
+        h.createCell(0).setCellValue("frequency [Hz]");
+        h.createCell(2).setCellValue("storage_modulus [Pa]"); // column B left empty in the header ...
+        h.createCell(3).setCellValue("loss_modulus\n[Pa]");
+        var twoDecimals = wb.createCellStyle();
+        twoDecimals.setDataFormat(wb.getCreationHelper().createDataFormat().getFormat("0.00"));
+        double[][] rows = {{0.125, 1234.5678, 9.87654321}, {10, 2000, 20}};
+        int[] at = {1, 3};
+        for (int i = 0; i < 2; i++) {
+            var r = s.createRow(at[i]);
+            for (int c = 0; c < 3; c++) {
+                var cell = r.createCell(c == 0 ? 0 : c + 1); // ... and in every row
+                cell.setCellValue(rows[i][c]);
+                cell.setCellStyle(twoDecimals);
+            }
+        }
+    }
+
+    @Test
+    void workbookCellsKeepEveryDigitWhateverTheirDisplayFormatAndRowsKeepTheirNumbers() throws IOException {
+        Path xlsx = dir.resolve("gaps.xlsx");
+        try (var wb = new org.apache.poi.xssf.usermodel.XSSFWorkbook()) {
+            gappySheet(wb);
+            try (var out = Files.newOutputStream(xlsx)) {
+                wb.write(out);
+            }
+        }
+        Path xls = dir.resolve("gaps.xls");
+        try (var wb = new org.apache.poi.hssf.usermodel.HSSFWorkbook()) {
+            gappySheet(wb);
+            try (var out = Files.newOutputStream(xls)) {
+                wb.write(out);
+            }
+        }
+        for (Path p : List.of(xlsx, xls)) { // XLSX through the streaming reader, XLS through the object model
+            SweepFile f = reader.read(p);
+            List<SweepPoint> pts = f.sweeps().get(0).points();
+            assertEquals(2, pts.size(), p.toString());
+            assertEquals(0.125, pts.get(0).frequencyHz(), 0, "a '0.00' display format must not round 0.125 Hz: " + p);
+            assertEquals(1234.5678, pts.get(0).storage(), 0, p.toString());
+            assertEquals(9.87654321, pts.get(0).loss(), 0, "the header with a line break is read as one name: " + p);
+            assertEquals(List.of(2, 4), List.of(pts.get(0).line(), pts.get(1).line()), "spreadsheet row numbers: " + p);
+            String expected;
+            try {
+                expected = java.util.HexFormat.of().formatHex(
+                        java.security.MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(p)));
+            } catch (java.security.NoSuchAlgorithmException ex) {
+                throw new AssertionError(ex);
+            }
+            assertEquals(expected, f.sha256(), "checksum of the file's bytes, read in a stream");
+        }
+    }
+
+    @Test
+    void aWorkbookRefusedEarlyLeavesNoReaderThreadBehind() throws IOException, InterruptedException {
+        Path p = dir.resolve("long.xlsx");
+        try (var wb = new org.apache.poi.xssf.streaming.SXSSFWorkbook(100)) {
+            var s = wb.createSheet("long");
+            var h = s.createRow(0);
+            h.createCell(0).setCellValue("frequency [Hz]");
+            h.createCell(1).setCellValue("storage_modulus [Pa]");
+            h.createCell(2).setCellValue("loss_modulus [Pa]");
+            for (int r = 1; r <= 50_000; r++) {
+                var row = s.createRow(r);
+                row.createCell(0).setCellValue(r);
+                row.createCell(1).setCellValue(r == 3 ? "about 2" : "100"); // row 4 is refused: the rest is never read
+                row.createCell(2).setCellValue(10);
+            }
+            try (var out = Files.newOutputStream(p)) {
+                wb.write(out);
+            }
+            wb.dispose();
+        }
+        InputException e = assertThrows(InputException.class, () -> reader.read(p));
+        assertTrue(e.getMessage().startsWith(p + "#long:4:2: "), e.getMessage());
+        for (int i = 0; i < 100 && readerThreads() > 0; i++) {
+            Thread.sleep(50);
+        }
+        assertEquals(0, readerThreads(), "the sheet's parsing thread stops when the table reader stops");
+    }
+
+    private static long readerThreads() {
+        return Thread.getAllStackTraces().keySet().stream().filter(t -> t.getName().equals("viscarta-sheet-reader")).count();
+    }
+
     @Test
     void aWorkbookSheetWithTitleRowsAndAUnitsRowReadsAndADateCellIsAnError() throws IOException {
         Path p = dir.resolve("export.xlsx");

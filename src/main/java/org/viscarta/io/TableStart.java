@@ -1,0 +1,314 @@
+package org.viscarta.io;
+
+import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
+import org.viscarta.sweep.Unit;
+
+/**
+ * Where a table starts in a text: input lines with their numbers and push-back, the shape of a
+ * line (header-like, units-like, numbers), and the search for the next header past a preamble.
+ * Shared by every text layout of {@link SweepReader}.
+ */
+final class TableStart {
+
+    private TableStart() {
+    }
+
+    /** Preamble lines read while looking for a table before the first row is taken as the header anyway. */
+    static final int MAX_PREAMBLE = 1000;
+
+    /** Input lines with their 1-based numbers, one at a time, with push-back. */
+    static final class Lines {
+        private final java.io.BufferedReader in;
+        private final java.util.ArrayDeque<Line> back = new java.util.ArrayDeque<>();
+        private int n;
+        boolean bom;
+
+        Lines(java.io.BufferedReader in) {
+            this.in = in;
+        }
+
+        Line next() throws IOException {
+            if (!back.isEmpty()) {
+                return back.pollFirst();
+            }
+            String s = in.readLine();
+            if (s == null) {
+                return null;
+            }
+            n++;
+            if (n == 1 && s.startsWith("\uFEFF")) {
+                s = s.substring(1);
+                bom = true;
+            }
+            return new Line(n, s);
+        }
+
+        void pushBack(Line l) {
+            back.addFirst(l);
+        }
+
+        void pushBack(List<Line> ls) {
+            for (int i = ls.size() - 1; i >= 0; i--) {
+                back.addFirst(ls.get(i));
+            }
+        }
+
+        /** Up to {@code count} following lines, left to be read again. */
+        List<Line> peek(int count) throws IOException {
+            List<Line> out = new ArrayList<>();
+            Line l;
+            while (out.size() < count && (l = next()) != null) {
+                out.add(l);
+            }
+            pushBack(out);
+            return out;
+        }
+
+        /** The next {@code count} lines that are neither blank nor comments (fewer at the end), left to be read again. */
+        List<Line> peekContent(int count) throws IOException {
+            List<Line> read = new ArrayList<>();
+            List<Line> out = new ArrayList<>();
+            Line l;
+            while (out.size() < count && read.size() < 50 && (l = next()) != null) {
+                read.add(l);
+                if (!l.text().isBlank() && !l.comment()) {
+                    out.add(l);
+                }
+            }
+            pushBack(read);
+            return out;
+        }
+
+        int count() {
+            return n;
+        }
+    }
+
+    /** One input line and its 1-based number. */
+    record Line(int number, String text) {
+        boolean comment() {
+            return text.stripLeading().startsWith("#");
+        }
+    }
+
+    /** What starts a table: its header line and units line (null when the previous header goes on). */
+    record Start(Line header, Line units) {
+    }
+
+    /**
+     * Reads lines up to the start of the next table, the preamble going into {@code pre}. Returns the
+     * header (and units) line, a Start without header when a data row of the previous table's width
+     * comes without a new header (the previous header goes on), or null at the end of the input.
+     */
+    static Start findStart(Lines src, Preamble pre, int previousColumns, boolean later) throws IOException {
+        Line l;
+        while ((l = src.next()) != null) {
+            if (l.text().isBlank()) {
+                continue;
+            }
+            pre.any = true;
+            if (l.comment()) {
+                pre.hash(l);
+                continue;
+            }
+            char sep = detectSeparator(l.text());
+            List<String> cells = trimmed(splitLoose(l.text(), sep));
+            if (previousColumns > 0 && numbers(cells, sep) >= 2 && cells.size() <= previousColumns) {
+                src.pushBack(l);
+                return new Start(null, null);
+            }
+            if (headerLike(cells, sep)) {
+                List<Line> next = src.peekContent(3);
+                if (!next.isEmpty()) {
+                    List<String> n1 = trimmed(splitLoose(next.get(0).text(), sep));
+                    Line units = null;
+                    int at = 0;
+                    if (unitsLike(n1, sep)) {
+                        units = next.get(0);
+                        at = 1;
+                    }
+                    if (next.size() > at && startsData(next, at, sep, cells.size())) {
+                        if (units != null) {
+                            Line x;
+                            do {
+                                x = src.next(); // up to and with the units line
+                            } while (x != null && x.number() < units.number());
+                        }
+                        return new Start(l, units);
+                    }
+                }
+            }
+            if (!later) {
+                pre.seen.add(l);
+                if (pre.seen.size() > MAX_PREAMBLE) {
+                    return null;
+                }
+            }
+            pre.plain(l, cells);
+        }
+        return null;
+    }
+
+    /** True when the lines from {@code at} begin with data rows: the first with two numbers, or one number and the next with two. */
+    static boolean startsData(List<Line> next, int at, char sep, int headerColumns) {
+        List<String> d1 = trimmed(splitLoose(next.get(at).text(), sep));
+        if (d1.size() > headerColumns) {
+            return false;
+        }
+        int k = numbers(d1, sep);
+        if (k >= 2) {
+            return true;
+        }
+        return k == 1 && next.size() > at + 1 && numbers(trimmed(splitLoose(next.get(at + 1).text(), sep)), sep) >= 2;
+    }
+
+    /** Cell texts that stand for a missing value: the point is left out with a warning. */
+    static final java.util.Set<String> NOT_A_NUMBER = java.util.Set.of("", "-", "--", "---", "nan", "n/a", "na", "*", "#n/a", "null");
+
+    static boolean numeric(String cell, char sep) {
+        return isPlainNumber(cell) || (sep != ',' && cell.indexOf(',') > 0 && isPlainNumber(cell.replace(',', '.')));
+    }
+
+    static int numbers(List<String> cells, char sep) {
+        int k = 0;
+        for (String c : cells) {
+            if (numeric(c, sep)) {
+                k++;
+            }
+        }
+        return k;
+    }
+
+    /** Two or more cells of text, none a number. */
+    static boolean headerLike(List<String> cells, char sep) {
+        int filled = 0;
+        for (String c : cells) {
+            if (c.isEmpty()) {
+                continue;
+            }
+            if (numeric(c, sep)) {
+                return false;
+            }
+            filled++;
+        }
+        return filled >= 2;
+    }
+
+    /** A units row: no numbers, every cell short, at least one a known unit ("Hz", "(kPa)", "[Pa]", "rad/s"). */
+    static boolean unitsLike(List<String> cells, char sep) {
+        boolean known = false;
+        for (String c : cells) {
+            if (c.isEmpty()) {
+                continue;
+            }
+            if (numeric(c, sep) || c.length() > 20) {
+                return false;
+            }
+            known |= Unit.anyDimension(c).isPresent() && !c.equals("-") && !c.equals("1");
+        }
+        return known;
+    }
+
+    /** Splits at the separator without the quote rules (enough to judge a line's shape). */
+    static List<String> splitLoose(String line, char sep) {
+        List<String> cells = splitPlain(line, sep);
+        for (int i = 0; i < cells.size(); i++) {
+            String c = cells.get(i);
+            if (c.length() >= 2 && c.startsWith("\"") && c.endsWith("\"")) {
+                cells.set(i, c.substring(1, c.length() - 1).strip());
+            }
+        }
+        return cells;
+    }
+
+    /** The cells without trailing empty ones. */
+    static List<String> trimmed(List<String> cells) {
+        int n = cells.size();
+        while (n > 0 && cells.get(n - 1).isEmpty()) {
+            n--;
+        }
+        return cells.subList(0, n);
+    }
+
+    /** Splits a line that holds no quotes at the separator, trimming each cell (the common, fast case). */
+    static List<String> splitPlain(String line, char sep) {
+        List<String> cells = new ArrayList<>(8);
+        int start = 0;
+        for (int i = 0; i <= line.length(); i++) {
+            if (i == line.length() || line.charAt(i) == sep) {
+                cells.add(line.substring(start, i).strip());
+                start = i + 1;
+            }
+        }
+        return cells;
+    }
+
+    /**
+     * True for plain decimal numbers with an optional sign, fraction and exponent
+     * ({@code [+-]?(d+.?d*|.d+)([eE][+-]?d+)?}); rejects what Double.parseDouble would also take
+     * but a table should not hold (NaN, Infinity, hex, a trailing d or f).
+     */
+    public static boolean isPlainNumber(String t) {
+        int n = t.length();
+        int i = 0;
+        if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
+            i++;
+        }
+        int digits = 0;
+        while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
+            i++;
+            digits++;
+        }
+        if (i < n && t.charAt(i) == '.') {
+            i++;
+            while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
+                i++;
+                digits++;
+            }
+        }
+        if (digits == 0) {
+            return false;
+        }
+        if (i < n && (t.charAt(i) == 'e' || t.charAt(i) == 'E')) {
+            i++;
+            if (i < n && (t.charAt(i) == '+' || t.charAt(i) == '-')) {
+                i++;
+            }
+            int exp = 0;
+            while (i < n && Character.isDigit(t.charAt(i)) && t.charAt(i) < 128) {
+                i++;
+                exp++;
+            }
+            if (exp == 0) {
+                return false;
+            }
+        }
+        return i == n;
+    }
+
+    static char detectSeparator(String headerLine) {
+        int commas = 0;
+        int semis = 0;
+        int tabs = 0;
+        boolean quoted = false;
+        for (char ch : headerLine.toCharArray()) {
+            if (ch == '"') {
+                quoted = !quoted;
+            } else if (!quoted) {
+                if (ch == ',') {
+                    commas++;
+                } else if (ch == ';') {
+                    semis++;
+                } else if (ch == '\t') {
+                    tabs++;
+                }
+            }
+        }
+        if (tabs >= commas && tabs >= semis && tabs > 0) {
+            return '\t';
+        }
+        return semis > commas ? ';' : ',';
+    }
+}
