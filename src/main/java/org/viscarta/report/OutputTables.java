@@ -195,21 +195,21 @@ public final class OutputTables {
     /** Every parameter of every model fitted to every sample ({@code fit}'s CSV, sheet Model fits). */
     public static Table<FitRow> modelFits(AnalysisRequest request) {
         return Table.<FitRow>named("Model fits")
-                .column("sample", "sample", "", Style.TEXT, 28, r -> r.ranked().fit().sample())
+                .column("sample", "sample", "", Style.TEXT, 20, r -> r.ranked().fit().sample())
                 .column("model", "model", "", Style.TEXT, 16, r -> r.ranked().fit().model())
-                .column("parameter", "parameter", "", Style.TEXT, 10, r -> r.parameter().name())
-                .column("unit", "unit", "", Style.TEXT, 10, r -> r.parameter().unit(), NOT_CSV)
-                .column("value", "value", "", Style.SCIENTIFIC, 14, r -> r.parameter().value())
-                .column("std_error", "standard error", "", Style.SCIENTIFIC, 14, r -> r.parameter().stdError())
-                .column("ci95_low", "95 % CI low", "", Style.SCIENTIFIC, 14, r -> r.parameter().ci95Low())
-                .column("ci95_high", "95 % CI high", "", Style.SCIENTIFIC, 14, r -> r.parameter().ci95High())
-                .column("rss", Statements.rssLabel(request), "–", Style.SCIENTIFIC, 12, r -> r.ranked().fit().rss())
-                .column("aicc", "AICc", "–", Style.DECIMAL2, 12, r -> r.ranked().fit().aicc())
-                .column("delta_aicc", "ΔAICc", "–", Style.DECIMAL2, 10, r -> r.ranked().deltaAicc(), NOT_CSV)
-                .column("akaike_weight", "Akaike weight", "–", Style.DECIMAL4, 12, r -> r.ranked().weight())
-                .column("best", "best", "", Style.TEXT, 8, r -> r.ranked().best())
-                .column("converged", "converged", "", Style.TEXT, 11, r -> r.ranked().fit().converged(), NOT_CSV)
-                .column("note", "note", "", Style.TEXT, 70, FitRow::note)
+                .column("parameter", "parameter", "", Style.TEXT, 11, r -> r.parameter().name())
+                .column("unit", "unit", "", Style.TEXT, 7, r -> r.parameter().unit(), NOT_CSV)
+                .column("value", "value", "", Style.SCIENTIFIC, 11, r -> r.parameter().value())
+                .column("std_error", "standard error", "", Style.SCIENTIFIC, 11, r -> r.parameter().stdError())
+                .column("ci95_low", "95 % CI low", "", Style.SCIENTIFIC, 11, r -> r.parameter().ci95Low())
+                .column("ci95_high", "95 % CI high", "", Style.SCIENTIFIC, 11, r -> r.parameter().ci95High())
+                .column("rss", Statements.rssLabel(request), "–", Style.SCIENTIFIC, 10, r -> r.ranked().fit().rss())
+                .column("aicc", "AICc", "–", Style.DECIMAL2, 9, r -> r.ranked().fit().aicc())
+                .column("delta_aicc", "ΔAICc", "–", Style.DECIMAL2, 8, r -> r.ranked().deltaAicc(), NOT_CSV)
+                .column("akaike_weight", "Akaike weight", "–", Style.DECIMAL4, 9, r -> r.ranked().weight())
+                .column("best", "best", "", Style.TEXT, 6, r -> r.ranked().best())
+                .column("converged", "converged", "", Style.TEXT, 10, r -> r.ranked().fit().converged(), NOT_CSV)
+                .column("note", "note", "", Style.TEXT, 40, FitRow::note)
                 .build();
     }
 
@@ -282,23 +282,23 @@ public final class OutputTables {
     /** Every measured point as read, with its file and line and its sweep's attributes (sheet Data). */
     public static Table<DataRow> data(List<SampleAnalysis> samples) {
         Table.Builder<DataRow> b = Table.<DataRow>named("Data")
-            .column("sample", "sample", "", Style.TEXT, 28, r -> r.sample().name())
+            .column("sample", "sample", "", Style.TEXT, 22, r -> r.sample().name())
             .column("replicate", "replicate", "", Style.TEXT, 10, r -> r.sweep().replicate())
             .column("group", "group", "", Style.TEXT, 16, r -> r.sweep().group());
         for (String a : attributeNames(samples.stream().flatMap(sa -> sa.sample().replicates().stream()).map(Sweep::attributes).toList())) {
             b.column(attributeId(a), a, "", Style.TEXT, 14, r -> r.sweep().attributes().getOrDefault(a, ""));
         }
-        return b.column("file", "file", "", Style.TEXT, 34, r -> r.sweep().source().toString())
+        return b.column("file", "file", "", Style.TEXT, 30, r -> r.sweep().source().toString())
             .column("line", "line", "", Style.INTEGER, 7, r -> r.point().line())
-            .column("frequency_hz", "frequency", "Hz", Style.FREQUENCY, 14, r -> r.point().frequencyHz())
-            .column("angular_frequency_rad_s", "angular frequency", "rad/s", Style.FREQUENCY, 16, r -> r.point().omega())
-            .column("storage_modulus_pa", "storage modulus", "Pa", Style.SCIENTIFIC, 16, r -> r.point().storage())
-            .column("loss_modulus_pa", "loss modulus", "Pa", Style.SCIENTIFIC, 16, r -> r.point().loss())
+            .column("frequency_hz", "frequency", "Hz", Style.FREQUENCY, 11, r -> r.point().frequencyHz())
+            .column("angular_frequency_rad_s", "angular frequency", "rad/s", Style.FREQUENCY, 12, r -> r.point().omega())
+            .column("storage_modulus_pa", "storage modulus", "Pa", Style.SCIENTIFIC, 12, r -> r.point().storage())
+            .column("loss_modulus_pa", "loss modulus", "Pa", Style.SCIENTIFIC, 12, r -> r.point().loss())
             .column("tan_delta", "tan δ", "–", Style.DECIMAL4, 12, r -> r.point().lossTangent())
-            .column("complex_modulus_pa", "|E*| or |G*|", "Pa", Style.SCIENTIFIC, 16, r -> r.point().magnitude())
-            .column("phase_angle_deg", "phase angle", "°", Style.DECIMAL2, 12, r -> Math.toDegrees(r.point().phaseAngle()))
+            .column("complex_modulus_pa", "|E*| or |G*|", "Pa", Style.SCIENTIFIC, 12, r -> r.point().magnitude())
+            .column("phase_angle_deg", "phase angle", "°", Style.DECIMAL2, 10, r -> Math.toDegrees(r.point().phaseAngle()))
             .column("basis", "basis", "", Style.TEXT, 10, r -> r.sweep().kind().letter())
-            .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, r -> r.sweep().temperatureC())
+            .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 12, r -> r.sweep().temperatureC())
             .build();
     }
 

@@ -114,8 +114,14 @@ public final class WorkbookReport {
             formats[i] = col.style() == Style.TEXT && col.width() >= WRAPPED_WIDTH ? st.wrapInTable : st.byStyle.get(col.style());
             header[i] = col.header();
         }
-        Rows rows = new Rows(s, formats);
-        rows.styled(st.header, header);
+        Rows rows = new Rows(st, s, formats);
+        Row head = rows.styled(st.header, header);
+        int headLines = 1;
+        for (Column<R> col : cols) {
+            headLines = Math.max(headLines, headerLines(col.header(), col.width()));
+        }
+        head.setHeightInPoints(headLines * 15f);
+        rows.wrapping(cols.stream().mapToInt(c -> c.style() == Style.TEXT && c.width() >= WRAPPED_WIDTH ? c.width() : 0).toArray());
         freezeHeader(s);
         if (!empty.isEmpty()) {
             rows.row(empty);
@@ -142,9 +148,33 @@ public final class WorkbookReport {
         widths(s, cols.stream().mapToInt(Column::width).toArray());
     }
 
+    /**
+     * Lines a bold header needs in a column of {@code width} characters, wrapped at spaces: a word
+     * longer than the line is broken by the spreadsheet program, so widths are chosen to hold the
+     * longest word (bold letters are about as wide as the digits a column width counts).
+     */
+    static int headerLines(String text, int width) {
+        int perLine = Math.max(1, width - 1);
+        int lines = 1;
+        int used = 0;
+        for (String word : text.split(" ")) {
+            int len = word.length();
+            if (used > 0 && used + 1 + len > perLine) {
+                lines++;
+                used = 0;
+            }
+            used += (used > 0 ? 1 : 0) + len;
+            while (used > perLine) {
+                lines++;
+                used -= perLine;
+            }
+        }
+        return lines;
+    }
+
     private static void figures(SXSSFWorkbook wb, Styles st, List<RenderedFigure> figures) {
         Sheet s = wb.createSheet("Figures");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(st, s);
         rows.styled(st.title, "Figures (also written as PNG at 300 dpi and SVG under figures/)");
         org.apache.poi.ss.usermodel.Drawing<?> drawing = s.createDrawingPatriarch();
         org.apache.poi.ss.usermodel.CreationHelper helper = wb.getCreationHelper();
@@ -211,8 +241,37 @@ public final class WorkbookReport {
         /** The number format of each declared column style. */
         final java.util.Map<Style, CellStyle> byStyle = new java.util.EnumMap<>(Style.class);
 
+        /** Four significant figures: fixed decimals from 0 to 7, and the scientific form. */
+        private final CellStyle[] fixed = new CellStyle[8];
+        private final CellStyle scientific4;
+
+        /**
+         * The display format of a value in a column of moduli or parameters: four significant figures,
+         * written plainly between 0.0001 and 10,000 (147.9, 0.2572) and in powers of ten outside
+         * (2.305E+04, 1.641E-15), as the terminal and the page write them; the cell keeps every digit.
+         */
+        CellStyle significant(double v) {
+            double a = Math.abs(v);
+            if (a == 0) {
+                return fixed[0];
+            }
+            if (a < 1e-4 || a >= 1e4) {
+                return scientific4;
+            }
+            int exponent = (int) Math.floor(Math.log10(a));
+            if (Math.round(a * Math.pow(10, 3 - exponent)) >= 10_000) {
+                exponent++; // 0.99999 shows as 1.000, not 1.0000
+            }
+            int decimals = 3 - exponent;
+            return fixed[Math.max(0, Math.min(fixed.length - 1, decimals))];
+        }
+
         Styles(Workbook wb) {
-            sci = numberStyle(wb, "0.0000E+00");
+            sci = numberStyle(wb, "0.000E+00");
+            scientific4 = sci;
+            for (int d = 0; d < fixed.length; d++) {
+                fixed[d] = numberStyle(wb, d == 0 ? "0" : "0." + "0".repeat(d));
+            }
             dec4 = numberStyle(wb, "0.0000");
             dec2 = numberStyle(wb, "0.00");
             freq = numberStyle(wb, "0.0###");
@@ -253,17 +312,30 @@ public final class WorkbookReport {
 
     /** Appends rows to a sheet; numbers go in as numeric cells, NaN as an empty cell. */
     private static final class Rows {
+        private final Styles styles;
         private final Sheet sheet;
         private CellStyle[] numberStyles;
+        /** Width in characters of each column whose text wraps (0: does not wrap), for the row heights. */
+        private int[] wrapped = new int[0];
         private int next;
 
         /**
          * @param numberStyles the display format of numbers in each column (null: General); the
          *                     stored value keeps full precision
          */
-        Rows(Sheet sheet, CellStyle... numberStyles) {
+        Rows(Styles styles, Sheet sheet, CellStyle... numberStyles) {
+            this.styles = styles;
             this.sheet = sheet;
             this.numberStyles = numberStyles;
+        }
+
+        /**
+         * The widths of the columns whose text wraps [characters; 0 for one that does not]: a row
+         * with a longer text there gets the height its lines need (SXSSF cannot measure text, and a
+         * spreadsheet program does not resize rows it reads from a file).
+         */
+        void wrapping(int[] widths) {
+            this.wrapped = widths.clone();
         }
 
         /** The number formats of the columns from here on (a sheet with several blocks changes them per block). */
@@ -273,6 +345,7 @@ public final class WorkbookReport {
 
         Row row(Object... values) {
             Row r = sheet.createRow(next++);
+            int lines = 1;
             for (int i = 0; i < values.length; i++) {
                 Object v = values[i];
                 if (v == null) {
@@ -284,7 +357,7 @@ public final class WorkbookReport {
                     if (Double.isFinite(d)) {
                         cell.setCellValue(d);
                         if (i < numberStyles.length && numberStyles[i] != null) {
-                            cell.setCellStyle(numberStyles[i]);
+                            cell.setCellStyle(numberStyles[i] == styles.sci ? styles.significant(d) : numberStyles[i]);
                         }
                     }
                 } else if (v instanceof Boolean b) {
@@ -294,7 +367,13 @@ public final class WorkbookReport {
                     if (i < numberStyles.length && numberStyles[i] != null && !v.toString().isEmpty()) {
                         cell.setCellStyle(numberStyles[i]);
                     }
+                    if (i < wrapped.length && wrapped[i] > 0) {
+                        lines = Math.max(lines, tableLinesOf(v.toString(), wrapped[i]));
+                    }
                 }
+            }
+            if (lines > 1) {
+                r.setHeightInPoints(Math.min(MAX_ROW_POINTS, lines * 15f));
             }
             return r;
         }
@@ -304,6 +383,17 @@ public final class WorkbookReport {
             for (Cell cell : r) {
                 cell.setCellStyle(style);
             }
+            return r;
+        }
+
+        /** A header row whose height fits its texts, wrapped in columns of the given widths [characters]. */
+        Row heading(int[] widths, Object... texts) {
+            Row r = styled(styles.header, texts);
+            int lines = 1;
+            for (int i = 0; i < texts.length && i < widths.length; i++) {
+                lines = Math.max(lines, headerLines(String.valueOf(texts[i]), widths[i]));
+            }
+            r.setHeightInPoints(lines * 15f);
             return r;
         }
 
@@ -339,6 +429,17 @@ public final class WorkbookReport {
             sheet.addMergedRegion(new org.apache.poi.ss.util.CellRangeAddress(r.getRowNum(), r.getRowNum(), 0, lastColumn));
             r.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, linesOf(text, width)) * 15f));
             return r;
+        }
+
+        /**
+         * Lines a text needs in a wrapped table cell of {@code width} characters: a column width
+         * counts digits, and running text is narrower (about 1.5 letters a digit in the default font,
+         * measured on the demo's notes printed by LibreOffice); rounded up, plus one when long.
+         */
+        private static int tableLinesOf(String text, int width) {
+            double perLine = Math.max(1, width - 2) * 1.5;
+            int lines = (int) Math.ceil(text.length() / perLine);
+            return lines > 2 ? lines + 1 : lines;
         }
 
         private static int linesOf(String text, int width) {
@@ -394,7 +495,6 @@ public final class WorkbookReport {
         return new org.apache.poi.xssf.usermodel.XSSFColor(new byte[] {(byte) r, (byte) g, (byte) b}, null);
     }
 
-    /** Landscape, one page wide, so that a printed or PDF sheet keeps its columns together. */
     /** Characters of column width a landscape page holds while the print stays legible (about 70 % scale). */
     private static final int PAGE_CHARACTERS = 190;
 
@@ -407,11 +507,16 @@ public final class WorkbookReport {
         s.getPrintSetup().setLandscape(true);
         s.getPrintSetup().setFitWidth((short) Math.max(1, (totalWidth + PAGE_CHARACTERS - 1) / PAGE_CHARACTERS));
         s.getPrintSetup().setFitHeight((short) 0);
+        if (totalWidth > PAGE_CHARACTERS) {
+            // printed more than one page wide: every page repeats the first column (the sample), so
+            // that a right-hand page still says whose row it is
+            s.setRepeatingColumns(org.apache.poi.ss.util.CellRangeAddress.valueOf("A:A"));
+        }
     }
 
     private static void readMe(Workbook wb, Styles st, AnalysisResult r) {
         Sheet s = wb.createSheet("Read me");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(st, s);
         rows.styled(st.title, "Viscarta report: oscillatory measurements of soft, lossy materials");
         rows.blank();
         rows.paragraph(st.bold, st.wrap, "What this is", Statements.whatThisIs(r) + " Every number can be traced to its input "
@@ -447,7 +552,7 @@ public final class WorkbookReport {
 
     private static void groupComparison(Workbook wb, Styles st, org.viscarta.analysis.Ranking ranking) {
         Sheet s = wb.createSheet("Group comparison");
-        Rows rows = new Rows(s);
+        Rows rows = new Rows(st, s);
         rows.styled(st.title, "Which differences in damping are supported, within each comparable set");
         if (ranking.sets().isEmpty()) {
             rows.row("No comparable set holds two or more samples, so nothing was compared.");
@@ -457,12 +562,14 @@ public final class WorkbookReport {
             rows.styled(st.title, set.label());
             comparison(rows, st, set.result().comparison());
         }
-        widths(s, 28, 28, 14, 14, 14, 16, 14);
+        widths(s, GROUP_COMPARISON_COLUMNS);
     }
 
     /** Widths of the Group comparison and Temperature series sheets' columns, summed [characters]. */
-    private static final int GROUP_COMPARISON_WIDTH = 28 + 28 + 14 + 14 + 14 + 16 + 14;
-    private static final int TEMPERATURE_SERIES_WIDTH = 16 + 14 + 16 + 14 + 14 + 14 + 10 + 12;
+    private static final int[] GROUP_COMPARISON_COLUMNS = {28, 28, 14, 14, 14, 16, 14};
+    private static final int[] TEMPERATURE_SERIES_COLUMNS = {16, 14, 16, 14, 14, 14, 10, 12};
+    private static final int GROUP_COMPARISON_WIDTH = java.util.Arrays.stream(GROUP_COMPARISON_COLUMNS).sum();
+    private static final int TEMPERATURE_SERIES_WIDTH = java.util.Arrays.stream(TEMPERATURE_SERIES_COLUMNS).sum();
 
     private static void comparison(Rows rows, Styles st, DampingComparison.Result cmp) {
         for (String statement : cmp.statements()) {
@@ -470,7 +577,7 @@ public final class WorkbookReport {
         }
         rows.blank();
         rows.use(null, null, st.dec2, st.dec2, st.pValue, st.pValue);
-        rows.styled(st.header, "sample", "other sample", "Welch t [–]", "degrees of freedom [–]", "p [–]", "Holm-adjusted p [–]",
+        rows.heading(GROUP_COMPARISON_COLUMNS, "sample", "other sample", "Welch t [–]", "degrees of freedom [–]", "p [–]", "Holm-adjusted p [–]",
                 "supported at α = " + Numbers.plain(cmp.alpha()));
         for (DampingComparison.Pair p : cmp.pairs()) {
             rows.row(p.first(), p.second(), p.welch().t(), p.welch().df(), p.welch().p(), p.pHolm(), p.significant() ? "yes" : "no");
@@ -478,7 +585,7 @@ public final class WorkbookReport {
         if (!cmp.groups().isEmpty()) {
             rows.blank();
             rows.use(null, st.integer, st.dec4, st.dec4, st.dec4, st.dec4, st.integer);
-            rows.styled(st.header, "group", "samples", "tan δ mean [–]", "tan δ SD [–]", "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]",
+            rows.heading(GROUP_COMPARISON_COLUMNS, "group", "samples", "tan δ mean [–]", "tan δ SD [–]", "tan δ 95 % CI low [–]", "tan δ 95 % CI high [–]",
                     "values");
             for (DampingComparison.GroupSummary g : cmp.groups()) {
                 rows.row(g.group(), g.samples(), g.values().mean(), g.values().sd(), g.values().ci95Low(), g.values().ci95High(),
@@ -487,7 +594,7 @@ public final class WorkbookReport {
             if (cmp.anova() != null) {
                 rows.blank();
                 rows.use(null, st.dec2, st.integer, st.integer, st.pValue);
-                rows.styled(st.header, "test across groups", "statistic", "df1 [–]", "df2 [–]", "p [–]");
+                rows.heading(GROUP_COMPARISON_COLUMNS, "test across groups", "statistic", "df1 [–]", "df2 [–]", "p [–]");
                 rows.row("one-way ANOVA (F)", cmp.anova().statistic(), cmp.anova().df1(), cmp.anova().df2(), cmp.anova().p());
                 rows.row("Kruskal–Wallis (H)", cmp.kruskal().statistic(), cmp.kruskal().df1(), null, cmp.kruskal().p());
             }
@@ -496,7 +603,8 @@ public final class WorkbookReport {
 
     private static void temperatureSeries(Workbook wb, Styles st, AnalysisResult res) {
         Sheet s = wb.createSheet("Temperature series");
-        Rows rows = new Rows(s, st.dec2, st.dec4, st.dec4, st.sci, st.dec4, null);
+        Rows rows = new Rows(st, s, st.dec2, st.dec4, st.dec4, st.sci, st.dec4, null);
+        int[] widths = TEMPERATURE_SERIES_COLUMNS;
         for (TemperatureSeries ts : res.series()) {
             ShiftAnalysis.Result r = ts.result();
             rows.styled(st.title, ts.sample() + ": time–temperature superposition at " + Numbers.plain(r.referenceC()) + " °C");
@@ -505,12 +613,12 @@ public final class WorkbookReport {
             }
             rows.row("The master curve is analysed as the sample '" + ts.masterName() + "' in the other sheets.");
             rows.use(st.dec2, st.dec4, st.dec4, st.sci, st.dec4, null);
-            rows.styled(st.header, "temperature [°C]", "log10 a_T [–]", "log10 a_T standard error [–]", "a_T [–]", "b_T [–]", "placed");
+            rows.heading(widths, "temperature [°C]", "log10 a_T [–]", "log10 a_T standard error [–]", "a_T [–]", "b_T [–]", "placed");
             for (ShiftAnalysis.Factor f : r.factors()) {
                 rows.row(f.temperatureC(), f.log10aT(), f.log10aTStdError(), f.placed() ? f.aT() : null, f.bT(), f.placed() ? "yes" : "no");
             }
             rows.use(null, null, st.sci, st.sci, st.sci, st.sci, null, st.dec2);
-            rows.styled(st.header, "law", "parameter", "value", "standard error", "95 % CI low", "95 % CI high", "unit", "AICc [–]");
+            rows.heading(widths, "law", "parameter", "value", "standard error", "95 % CI low", "95 % CI high", "unit", "AICc [–]");
             for (ShiftFits.Fit fit : java.util.Arrays.asList(r.wlf(), r.arrhenius())) {
                 if (fit == null) {
                     continue;
@@ -521,12 +629,12 @@ public final class WorkbookReport {
             }
             rows.blank();
         }
-        widths(s, 16, 14, 16, 14, 14, 14, 10, 12);
+        widths(s, widths);
     }
 
     private static void provenance(Workbook wb, Styles st, ReportContent c) {
         Sheet s = wb.createSheet("Provenance");
-        Rows rows = new Rows(s, null, null, null, null, null, null, st.integer);
+        Rows rows = new Rows(st, s, null, null, null, null, null, null, st.integer);
         Provenance p = c.provenance();
         rows.styled(st.title, "Provenance");
         rows.row("tool", "Viscarta " + p.toolVersion());

@@ -6,8 +6,11 @@ public enum Style {
     TEXT("@"),
     /** Whole numbers (ranks, counts, line numbers). */
     INTEGER("0"),
-    /** Significant figures, for moduli and parameters of any scale. */
-    SCIENTIFIC("0.0000E+00"),
+    /**
+     * Four significant figures, for moduli and parameters of any scale: plain between 0.0001 and
+     * 10,000, powers of ten outside (the workbook picks the format cell by cell).
+     */
+    SCIENTIFIC("0.000E+00"),
     /** Four decimals, for tan δ, weights, distances, p-values. */
     DECIMAL4("0.0000"),
     /** Two decimals, for AICc, temperatures, angles. */

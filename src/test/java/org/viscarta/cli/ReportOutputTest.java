@@ -160,4 +160,46 @@ class ReportOutputTest {
             assertEquals(List.of(), general.stream().limit(20).toList(), general.size() + " numbers without a display format");
         }
     }
+    /**
+     * Parameters, their errors and intervals read with four significant figures, plainly between
+     * 0.0001 and 10,000 and in powers of ten outside — never "9.72734137542975" — and the shown
+     * value is the cell's value rounded (the cell keeps every digit).
+     */
+    @Test
+    void parametersShowFourSignificantFigures() throws IOException {
+        try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            org.apache.poi.ss.usermodel.Sheet sheet = wb.getSheet("Model fits");
+            org.apache.poi.ss.usermodel.DataFormatter shown = new org.apache.poi.ss.usermodel.DataFormatter(java.util.Locale.ROOT);
+            List<Integer> columns = new java.util.ArrayList<>();
+            for (org.apache.poi.ss.usermodel.Cell h : sheet.getRow(0)) {
+                String name = h.getStringCellValue();
+                if (name.startsWith("value") || name.startsWith("standard error") || name.startsWith("95 % CI")) {
+                    columns.add(h.getColumnIndex());
+                }
+            }
+            assertEquals(4, columns.size(), "value, standard error and the two interval ends");
+            int checked = 0;
+            boolean plain = false;
+            boolean powers = false;
+            for (org.apache.poi.ss.usermodel.Row row : sheet) {
+                for (int c : columns) {
+                    org.apache.poi.ss.usermodel.Cell cell = row.getCell(c);
+                    if (row.getRowNum() == 0 || cell == null || cell.getCellType() != org.apache.poi.ss.usermodel.CellType.NUMERIC) {
+                        continue;
+                    }
+                    double v = cell.getNumericCellValue();
+                    String text = shown.formatCellValue(cell);
+                    String mantissa = text.replaceFirst("[eE].*$", "").replace("-", "").replace(".", "").replaceFirst("^0+", "");
+                    assertTrue(mantissa.length() <= 4 || (!text.contains(".") && !text.contains("E")),
+                            "more than four significant figures shown: " + text + " for " + v);
+                    double back = Double.parseDouble(text);
+                    assertEquals(v, back, Math.abs(v) * 5.1e-4 + 1e-300, text + " is not " + v + " rounded");
+                    plain |= !text.contains("E") && v != 0 && Math.abs(v) < 1e4;
+                    powers |= text.contains("E");
+                    checked++;
+                }
+            }
+            assertTrue(checked > 100 && plain && powers, checked + " values; plain and powers of ten both seen");
+        }
+    }
 }
