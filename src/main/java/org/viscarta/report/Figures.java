@@ -84,7 +84,12 @@ public final class Figures {
     }
 
     private static LogAxis frequencyAxis() {
-        LogAxis x = new ReadableLogAxis("frequency [Hz]");
+        return frequencyAxis(false);
+    }
+
+    /** @param reduced the data are a master curve: the axis is the reduced frequency a_T·f */
+    private static LogAxis frequencyAxis(boolean reduced) {
+        LogAxis x = new ReadableLogAxis(reduced ? "reduced frequency a_T·f [Hz]" : "frequency [Hz]");
         x.setTickUnit(new NumberTickUnit(1.0));
         x.setMinorTickMarksVisible(true);
         x.setNumberFormatOverride(new DecimalFormat("0.####"));
@@ -125,6 +130,15 @@ public final class Figures {
      * with its 95 % band, and a residual panel below.
      */
     public static Figure fit(Sample s, FittedCurve curve, String stem) {
+        return fit(s, curve, stem, false);
+    }
+
+    /**
+     * A sample's measured moduli with the best model's curve and band, and the residuals.
+     *
+     * @param reduced the sample is a master curve: frequencies are reduced frequencies a_T·f
+     */
+    public static Figure fit(Sample s, FittedCurve curve, String stem, boolean reduced) {
         String m = s.kind().letter();
         List<Aggregate> agg = aggregate(s);
         YIntervalSeriesCollection measured = new YIntervalSeriesCollection();
@@ -208,7 +222,7 @@ public final class Figures {
             residuals.setRenderer(rr);
             title = shortName(s.name()) + ": " + curve.model().id() + " (best supported)";
         }
-        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(frequencyAxis());
+        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(frequencyAxis(reduced));
         plot.setGap(6);
         plot.add(top, 3);
         plot.add(residuals, 1);
@@ -398,35 +412,145 @@ public final class Figures {
      * within a panel.
      */
     public static Figure tanDelta(List<Sample> samples) {
+        return tanDelta(samples, 0);
+    }
+
+    /**
+     * As {@link #tanDelta(List)}, where {@code seriesLeftOut} temperatures of temperature series were
+     * left out of {@code samples} (their master curves stay): the caption says where they are shown.
+     */
+    public static Figure tanDelta(List<Sample> samples, int seriesLeftOut) {
         Map<String, List<Sample>> byGroup = new java.util.LinkedHashMap<>();
         for (Sample s : samples) {
             byGroup.computeIfAbsent(s.group().isEmpty() ? "no group" : s.group(), g -> new ArrayList<>()).add(s);
         }
         String caption = "Loss tangent tan δ = E″/E′ against frequency for every sample (geometric mean of replicates); higher "
-                + "means more damping.";
+                + "means more damping."
+                + (seriesLeftOut > 0 ? " The " + seriesLeftOut + " single temperatures of temperature series are shown in their "
+                + "master-curve and van Gurp–Palmen figures; their master curves (at reduced frequency a_T·f) are here." : "");
         if (samples.size() <= Palette.colours() || byGroup.size() < 2) {
             XYPlot plot = tanDeltaPlot(samples, logAxis("loss tangent tan δ [–]"));
             return new Figure("tan-delta", caption, chart("Loss tangent of every sample", plot, samples.size() <= 24));
         }
         CombinedDomainXYPlot combined = new CombinedDomainXYPlot(frequencyAxis());
         combined.setGap(8);
+        double fLow = Double.POSITIVE_INFINITY;
+        double fHigh = 0;
+        for (Sample s : samples) {
+            for (Aggregate a : aggregate(s)) {
+                fLow = Math.min(fLow, a.f());
+                fHigh = Math.max(fHigh, a.f());
+            }
+        }
+        int panelsHeight = 0;
         for (Map.Entry<String, List<Sample>> e : byGroup.entrySet()) {
             XYPlot panel = tanDeltaPlot(e.getValue(), logAxis(shortName(e.getKey()) + ": tan δ [–]"));
             org.jfree.chart.title.LegendTitle legend = new org.jfree.chart.title.LegendTitle(panel,
                     new org.jfree.chart.block.ColumnArrangement(), new org.jfree.chart.block.ColumnArrangement());
             legend.setItemFont(Palette.TICK);
             legend.setBackgroundPaint(new Color(255, 255, 255, 150));
-            panel.addAnnotation(new org.jfree.chart.annotations.XYTitleAnnotation(0.995, 0.98, legend,
-                    org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT));
-            combined.add(panel, 1);
+            // a panel is tall enough for its legend, which goes into the corner the data leave freest
+            int entries = e.getValue().size();
+            int height = Math.max(150, 24 + LEGEND_LINE_PT * entries);
+            int longest = e.getValue().stream().mapToInt(x -> shortName(x.name()).length()).max().orElse(10);
+            double w = Math.min(1, (24 + 6.0 * longest) / DATA_WIDTH_PT);
+            double h = Math.min(1, (8.0 + LEGEND_LINE_PT * entries) / (height - 10));
+            double[] corner = freestCorner(e.getValue(), fLow, fHigh, w, h);
+            panel.addAnnotation(new CornerTitle(corner[0], corner[1], legend,
+                    corner[0] > 0.5 ? (corner[1] > 0.5 ? org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT
+                            : org.jfree.chart.ui.RectangleAnchor.BOTTOM_RIGHT)
+                            : (corner[1] > 0.5 ? org.jfree.chart.ui.RectangleAnchor.TOP_LEFT
+                            : org.jfree.chart.ui.RectangleAnchor.BOTTOM_LEFT)));
+            combined.add(panel, height);
+            panelsHeight += height + 8;
         }
         JFreeChart c = new JFreeChart("Loss tangent of every sample, by group", Palette.TITLE, combined, false);
         for (Object p : combined.getSubplots()) {
             finish(c, (XYPlot) p);
         }
         c.setBackgroundPaint(Color.WHITE);
-        int height = Math.max(Figure.HEIGHT_PT, 80 + 150 * byGroup.size());
+        int height = Math.max(Figure.HEIGHT_PT, 80 + panelsHeight);
         return new Figure("tan-delta", caption + " One panel per group.", c, height);
+    }
+
+    /**
+     * A title (a panel's legend) drawn at a position relative to the data area. JFreeChart's
+     * XYTitleAnnotation interpolates its relative position in data units, which on a log axis puts
+     * "the left edge" in the middle of the panel.
+     */
+    static final class CornerTitle extends org.jfree.chart.annotations.AbstractXYAnnotation {
+        private static final long serialVersionUID = 1L;
+        private final double x;
+        private final double y;
+        private final org.jfree.chart.title.Title title;
+        private final org.jfree.chart.ui.RectangleAnchor anchor;
+
+        /** @param x, y the anchor's position, 0 … 1 from the left and from the bottom of the data area */
+        CornerTitle(double x, double y, org.jfree.chart.title.Title title, org.jfree.chart.ui.RectangleAnchor anchor) {
+            this.x = x;
+            this.y = y;
+            this.title = title;
+            this.anchor = anchor;
+        }
+
+        @Override
+        public void draw(java.awt.Graphics2D g2, XYPlot plot, java.awt.geom.Rectangle2D dataArea,
+                         org.jfree.chart.axis.ValueAxis domainAxis, org.jfree.chart.axis.ValueAxis rangeAxis, int rendererIndex,
+                         org.jfree.chart.plot.PlotRenderingInfo info) {
+            org.jfree.chart.block.RectangleConstraint rc = new org.jfree.chart.block.RectangleConstraint(
+                    new org.jfree.data.Range(0, dataArea.getWidth()), new org.jfree.data.Range(0, dataArea.getHeight()));
+            org.jfree.chart.ui.Size2D size = title.arrange(g2, rc);
+            double ax = dataArea.getX() + x * dataArea.getWidth();
+            double ay = dataArea.getY() + (1 - y) * dataArea.getHeight();
+            title.draw(g2, org.jfree.chart.ui.RectangleAnchor.createRectangle(size, ax, ay, anchor));
+        }
+    }
+
+    /** Height of one legend line [points], and the approximate width of a panel's data area. */
+    private static final int LEGEND_LINE_PT = 15;
+    private static final double DATA_WIDTH_PT = Figure.WIDTH_PT - 80;
+
+    /**
+     * The corner of a tan δ panel where a legend box of relative size w × h covers the fewest
+     * measured points (ties: top right, then top left, bottom right, bottom left), as the relative
+     * position of the box's outer corner. Positions are taken on the log scales of the shared
+     * frequency range and of the panel's own tan δ range.
+     */
+    static double[] freestCorner(List<Sample> samples, double fLow, double fHigh, double w, double h) {
+        double tLow = Double.POSITIVE_INFINITY;
+        double tHigh = 0;
+        List<double[]> points = new ArrayList<>();
+        for (Sample s : samples) {
+            for (Aggregate a : aggregate(s)) {
+                if (a.tanDelta() > 0 && Double.isFinite(a.tanDelta())) {
+                    points.add(new double[] {a.f(), a.tanDelta()});
+                    tLow = Math.min(tLow, a.tanDelta());
+                    tHigh = Math.max(tHigh, a.tanDelta());
+                }
+            }
+        }
+        double[][] corners = {{0.995, 0.98}, {0.005, 0.98}, {0.995, 0.02}, {0.005, 0.02}};
+        double[] best = corners[0];
+        int fewest = Integer.MAX_VALUE;
+        double fSpan = Math.log(fHigh / fLow);
+        double tSpan = Math.log(tHigh / tLow);
+        for (double[] c : corners) {
+            int covered = 0;
+            for (double[] p : points) {
+                double x = fSpan > 0 ? Math.log(p[0] / fLow) / fSpan : 0.5;
+                double y = tSpan > 0 ? 0.05 + 0.9 * Math.log(p[1] / tLow) / tSpan : 0.5; // the axis pads its range
+                boolean inX = c[0] > 0.5 ? x >= 1 - w - 0.02 : x <= w + 0.02;
+                boolean inY = c[1] > 0.5 ? y >= 1 - h - 0.03 : y <= h + 0.03;
+                if (inX && inY) {
+                    covered++;
+                }
+            }
+            if (covered < fewest) {
+                fewest = covered;
+                best = c;
+            }
+        }
+        return best;
     }
 
     private static XYPlot tanDeltaPlot(List<Sample> samples, LogAxis y) {
@@ -513,11 +637,11 @@ public final class Figures {
 
     /** A sample's measured E′ and E″ against the fitted curves of its closest references. */
     public static Figure references(Sample s, List<Matcher.Match> matches, Map<String, FittedCurve> references,
-                                    int shown, String stem) {
+                                    int shown, String stem, boolean reduced) {
         XYSeriesCollection data = new XYSeriesCollection();
         String m = s.kind().letter();
-        XYSeries ms = new XYSeries(shortName(s.name()) + " " + m + "′");
-        XYSeries ml = new XYSeries(shortName(s.name()) + " " + m + "″");
+        XYSeries ms = new XYSeries("measured " + m + "′");
+        XYSeries ml = new XYSeries("measured " + m + "″");
         for (Aggregate a : aggregate(s)) {
             ms.add(a.f(), a.storage());
             ml.add(a.f(), a.loss());
@@ -530,7 +654,7 @@ public final class Figures {
             if (match.rank() == 0 || c == null || k >= shown) {
                 continue;
             }
-            XYSeries rs = new XYSeries(String.format(Locale.ROOT, "%d. %s %s′ (d = %.3f)", match.rank(), shortName(match.reference()), m,
+            XYSeries rs = new XYSeries(String.format(Locale.ROOT, "%d. %s (d = %.3f)", match.rank(), shortName(match.reference()),
                     match.result().distance()));
             XYSeries rl = new XYSeries(String.format(Locale.ROOT, "%d. %s %s″", match.rank(), shortName(match.reference()), m));
             double[] out = new double[2];
@@ -546,8 +670,8 @@ public final class Figures {
             k++;
         }
         LogAxis moduli = logAxis("moduli");
-        inModulusUnit(moduli, "moduli " + m + "′, " + m + "″", largest(data, true));
-        XYPlot plot = new XYPlot(data, frequencyAxis(), moduli, null);
+        inModulusUnit(moduli, "moduli " + m + "′ (solid), " + m + "″ (dashed)", largest(data, true));
+        XYPlot plot = new XYPlot(data, frequencyAxis(reduced), moduli, null);
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
         // one path per curve, so that the dashes of loss curves run on over densely sampled points
         r.setDrawSeriesLineAsPath(true);
@@ -562,6 +686,7 @@ public final class Figures {
             r.setSeriesShapesVisible(i, false);
             r.setSeriesPaint(i, Palette.colour(ref + 1));
             r.setSeriesStroke(i, Palette.line((i - 2) % 2 == 0 ? 0 : 1));
+            r.setSeriesVisibleInLegend(i, (i - 2) % 2 == 0); // one legend entry a reference: its colour; the axis says which line is which
         }
         plot.setRenderer(r);
         return new Figure(stem, "Measured moduli of " + shortName(s.name()) + " (markers) against the fitted curves of its " + k
@@ -596,7 +721,7 @@ public final class Figures {
         LogAxis x = frequencyAxis();
         x.setLabel("reduced frequency a_T·f [Hz] at " + Numbers.plain(r.referenceC()) + " °C");
         LogAxis moduli = logAxis("moduli");
-        inModulusUnit(moduli, "moduli " + m + "′ (filled), " + m + "″" + (vertical ? " divided by b_T" : ""), largest(data, true));
+        inModulusUnit(moduli, "moduli " + m + "′ (filled), " + m + "″ (open)" + (vertical ? " divided by b_T" : ""), largest(data, true));
         XYPlot plot = new XYPlot(data, x, moduli, null);
         XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
         for (int i = 0; i < data.getSeriesCount(); i++) {

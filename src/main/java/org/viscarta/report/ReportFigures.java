@@ -8,9 +8,11 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.analysis.Sample;
 import org.viscarta.analysis.SampleAnalysis;
 import org.viscarta.compare.FittedCurve;
 import org.viscarta.compare.Matcher;
+import org.viscarta.sweep.Sweep;
 import org.viscarta.temperature.TemperatureSeries;
 
 /** Chooses and builds the figures of a report. */
@@ -48,6 +50,7 @@ public final class ReportFigures {
                 mark.setPosition(org.jfree.chart.ui.RectangleEdge.BOTTOM);
                 mark.setHorizontalAlignment(org.jfree.chart.ui.HorizontalAlignment.RIGHT);
                 mark.setPaint(java.awt.Color.GRAY);
+                mark.setPadding(2, 2, 2, 12); // clear of the figure's right edge
                 f.chart().addSubtitle(mark);
             }
         }
@@ -58,7 +61,12 @@ public final class ReportFigures {
         List<Figure> out = new ArrayList<>();
         r.ranking().filter(rk -> !rk.sets().isEmpty())
                 .ifPresent(rk -> out.add(Figures.ranking(rk, r.request().rankingPoint().describe())));
-        out.add(Figures.tanDelta(r.samples().stream().map(SampleAnalysis::sample).toList()));
+        // the single temperatures of a series are its own data, shown in its figures; its master curve stays
+        Set<Sweep> inSeries = java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>());
+        r.series().forEach(ts -> inSeries.addAll(ts.sweeps()));
+        List<Sample> shown = r.samples().stream().map(SampleAnalysis::sample)
+                .filter(s -> s.replicates().stream().noneMatch(inSeries::contains)).toList();
+        out.add(Figures.tanDelta(shown, r.samples().size() - shown.size()));
         for (TemperatureSeries ts : r.series()) {
             String slug = slug(ts.sample());
             out.add(Figures.master(ts, "master-" + slug));
@@ -74,15 +82,18 @@ public final class ReportFigures {
                 refCurves.put(ref.name(), ref.curve());
             }
         }
+        Set<String> masters = new HashSet<>();
+        r.series().forEach(ts -> masters.add(ts.masterName()));
         Set<String> used = new HashSet<>();
         for (SampleAnalysis sa : r.samples()) {
+            boolean reduced = masters.contains(sa.sample().name());
             String slug = slug(sa.sample().name());
             for (int k = 2; !used.add(slug); k++) {
                 slug = slug(sa.sample().name()) + "-" + k;
             }
-            out.add(Figures.fit(sa.sample(), sa.curve().orElse(null), "fit-" + slug));
+            out.add(Figures.fit(sa.sample(), sa.curve().orElse(null), "fit-" + slug, reduced));
             if (!sa.matches().isEmpty()) {
-                out.add(Figures.references(sa.sample(), sa.matches(), refCurves, REFERENCES_SHOWN, "references-" + slug));
+                out.add(Figures.references(sa.sample(), sa.matches(), refCurves, REFERENCES_SHOWN, "references-" + slug, reduced));
             }
         }
         return out;

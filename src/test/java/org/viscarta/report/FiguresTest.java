@@ -95,4 +95,26 @@ class FiguresTest {
                 .map(t -> ((org.jfree.chart.axis.NumberTick) t)).filter(t -> t.getTickType() == org.jfree.chart.axis.TickType.MAJOR)
                 .map(org.jfree.chart.axis.NumberTick::getText).toList();
     }
+    private static org.viscarta.analysis.Sample rising(String name, double fromHz, double toHz) {
+        List<org.viscarta.sweep.SweepPoint> pts = new java.util.ArrayList<>();
+        for (int i = 0; i <= 10; i++) {
+            double f = fromHz * Math.pow(toHz / fromHz, i / 10.0);
+            pts.add(new org.viscarta.sweep.SweepPoint(f, 1000, 1000 * 0.01 * Math.pow(10, 2 * i / 10.0), i + 2));
+        }
+        org.viscarta.sweep.Sweep sw = new org.viscarta.sweep.Sweep(name, "1", "g", org.viscarta.sweep.ModulusKind.TENSILE, 23,
+                Path.of(name + ".csv"), java.util.Map.of(), pts);
+        return new org.viscarta.analysis.Sample(name, "g", org.viscarta.sweep.ModulusKind.TENSILE, 23, List.of(sw));
+    }
+
+    /**
+     * A panel's legend goes where the data leave room: tan δ rising from 0.01 to 1 over 1–100 Hz,
+     * on a shared axis from 0.01 Hz, fills the top right; the top left is free.
+     */
+    @Test
+    void aPanelLegendTakesTheCornerTheDataLeaveFree() {
+        double[] corner = Figures.freestCorner(List.of(rising("a", 1, 100)), 0.01, 100, 0.3, 0.3);
+        assertTrue(corner[0] < 0.5 && corner[1] > 0.5, "top left: " + java.util.Arrays.toString(corner));
+        double[] spread = Figures.freestCorner(List.of(rising("b", 0.01, 1)), 0.01, 100, 0.3, 0.3);
+        assertTrue(spread[0] > 0.5 && spread[1] > 0.5, "data low on the left leave the top right: " + java.util.Arrays.toString(spread));
+    }
 }
