@@ -129,7 +129,7 @@ final class MatchCommand implements Callable<Integer> {
         for (Matcher.Match m : shown) {
             ReferenceDistance.Result r = m.result();
             String where = r.comparable() ? String.format(java.util.Locale.ROOT, "compared over %s–%s Hz, departs most at %s Hz "
-                    + "(%+.3f decades)", Numbers.plain(r.bandLowHz()), Numbers.plain(r.bandHighHz()), Numbers.plain(r.departureHz()),
+                    + "(%+.3f decades)", Numbers.readable(r.bandLowHz()), Numbers.readable(r.bandHighHz()), Numbers.readable(r.departureHz()),
                     r.departure())
                     : "";
             String text = String.join("; ", java.util.stream.Stream.of(where, r.note()).filter(x -> !x.isEmpty()).toList());

@@ -158,7 +158,7 @@ public final class DampingRanking {
                     missing, s.replicates().size(), point.describe());
             return valued(subject, s, values, ValueSource.MEASURED, note);
         }
-        String range = String.format(Locale.ROOT, "measured %s–%s Hz", Numbers.plain(s.lowHz()), Numbers.plain(s.highHz()));
+        String range = String.format(Locale.ROOT, "measured %s–%s Hz", Numbers.readable(s.lowHz()), Numbers.readable(s.highHz()));
         boolean modelMaySpeak = outside == OutsideRange.BEST_MODEL && point instanceof RankingPoint.At;
         if (modelMaySpeak && s.best().isPresent()) {
             FittedCurve curve = s.best().get();

@@ -117,8 +117,8 @@ public final class OutputTables {
                         NOT_HTML)
                 .column("frequency_high_hz", "highest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().maxFrequencyHz(),
                         NOT_HTML)
-                .column("frequency_range", "frequency range", "Hz", Style.TEXT, 16, sa -> org.viscarta.sweep.Numbers.plain(
-                        sa.sample().minFrequencyHz()) + "–" + org.viscarta.sweep.Numbers.plain(sa.sample().maxFrequencyHz()),
+                .column("frequency_range", "frequency range", "Hz", Style.TEXT, 16, sa -> org.viscarta.sweep.Numbers.readable(
+                        sa.sample().minFrequencyHz()) + "–" + org.viscarta.sweep.Numbers.readable(sa.sample().maxFrequencyHz()),
                         java.util.EnumSet.of(Medium.HTML))
                 .column("tan_delta", Statements.rankedBy(request), "–", Style.DECIMAL4, 14,
                         sa -> result.rankOf(sa.sample()).map(r -> mean(r.tanDelta())).orElse(null)).colourScale()

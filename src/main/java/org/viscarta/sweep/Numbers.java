@@ -19,4 +19,19 @@ public final class Numbers {
         }
         return BigDecimal.valueOf(v).round(new MathContext(6)).stripTrailingZeros().toPlainString();
     }
+
+    /**
+     * A measured value for reading: three significant figures, plain ("0.000604", "287", "0.1"),
+     * powers of ten only beyond a million or below 1e-6.
+     */
+    public static String readable(double v) {
+        if (!Double.isFinite(v)) {
+            return plain(v);
+        }
+        double a = Math.abs(v);
+        if (a != 0 && (a < 1e-6 || a >= 1e6)) {
+            return String.format(java.util.Locale.ROOT, "%.2e", v);
+        }
+        return BigDecimal.valueOf(v).round(new MathContext(3)).stripTrailingZeros().toPlainString();
+    }
 }
