@@ -4,8 +4,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
-import org.apache.commons.math3.distribution.ChiSquaredDistribution;
-import org.apache.commons.math3.distribution.FDistribution;
 import org.apache.commons.math3.distribution.TDistribution;
 
 /**
@@ -45,7 +43,7 @@ public final class GroupStatistics {
         }
         double t = (mean(a) - mean(b)) / Math.sqrt(se2);
         double df = se2 * se2 / (va * va / (a.length - 1) + vb * vb / (b.length - 1));
-        double p = 2 * new TDistribution(null, df, 1e-14).cumulativeProbability(-Math.abs(t));
+        double p = Math.min(1, 2 * new TDistribution(null, df, 1e-14).cumulativeProbability(-Math.abs(t))); // lower tail: no cancellation
         return new Welch(t, df, p);
     }
 
@@ -107,7 +105,7 @@ public final class GroupStatistics {
         double df1 = k - 1;
         double df2 = total - k;
         double f = (between / df1) / (within / df2);
-        double p = 1 - new FDistribution(null, df1, df2, 1e-14).cumulativeProbability(f);
+        double p = fSurvival(f, df1, df2);
         return new GroupTest(f, df1, df2, p);
     }
 
@@ -150,7 +148,7 @@ public final class GroupStatistics {
             h /= correction;
         }
         double df = groups.size() - 1;
-        double p = 1 - new ChiSquaredDistribution(null, df, 1e-14).cumulativeProbability(h);
+        double p = chiSquaredSurvival(h, df);
         return new GroupTest(h, df, Double.NaN, p);
     }
 
@@ -169,5 +167,25 @@ public final class GroupStatistics {
             s += (x - m) * (x - m);
         }
         return s / (v.length - 1);
+    }
+
+    /**
+     * P(F &gt; f) for the F distribution with (df1, df2) degrees of freedom, as the regularised
+     * incomplete beta function I_x(df2/2, df1/2) at x = df2/(df2 + df1 f) (Abramowitz &amp; Stegun
+     * 26.6.2), so that very small p-values keep their digits instead of 1 − cdf rounding to 0.
+     */
+    static double fSurvival(double f, double df1, double df2) {
+        if (!(f > 0)) {
+            return Double.isNaN(f) ? Double.NaN : 1;
+        }
+        return org.apache.commons.math3.special.Beta.regularizedBeta(df2 / (df2 + df1 * f), df2 / 2, df1 / 2, 1e-15, 100_000);
+    }
+
+    /** P(X &gt; x) for the chi-squared distribution, as the upper regularised gamma function Q(df/2, x/2). */
+    static double chiSquaredSurvival(double x, double df) {
+        if (!(x > 0)) {
+            return Double.isNaN(x) ? Double.NaN : 1;
+        }
+        return org.apache.commons.math3.special.Gamma.regularizedGammaQ(df / 2, x / 2, 1e-15, 100_000);
     }
 }

@@ -135,4 +135,41 @@ class GroupStatisticsTest {
         assertTrue(d.exact());
         assertEquals(List.of("a", "b", "a"), d.letters());
     }
+
+    /** Values of src/test/resources/scipy/far_apart_groups.out, written by far_apart_groups.py beside it (SciPy 1.17.1). */
+    private static java.util.Map<String, Double> farApart() throws java.io.IOException {
+        java.util.Map<String, Double> out = new java.util.HashMap<>();
+        try (var in = GroupStatisticsTest.class.getResourceAsStream("/scipy/far_apart_groups.out")) {
+            for (String line : new String(in.readAllBytes(), java.nio.charset.StandardCharsets.UTF_8).split("\n")) {
+                String[] kv = line.trim().split(" ");
+                if (kv.length == 2 && !kv[0].equals("scipy")) {
+                    out.put(kv[0], Double.parseDouble(kv[1]));
+                }
+            }
+        }
+        return out;
+    }
+
+    /**
+     * Groups far apart: p-values far below 1e-16 keep their digits (1 − cdf gave 0). Relative
+     * agreement with SciPy's survival functions to 1e-9.
+     */
+    @Test
+    void tinyPValuesMatchScipysSurvivalFunctions() throws java.io.IOException {
+        java.util.Map<String, Double> ref = farApart();
+        double[] a = {0.100, 0.101, 0.099, 0.1005, 0.0995, 0.1002, 0.0998, 0.1001};
+        double[] b = {0.300, 0.301, 0.299, 0.3005, 0.2995, 0.3002, 0.2998, 0.3001};
+        double[] c = {0.500, 0.501, 0.499, 0.5005, 0.4995, 0.5002, 0.4998, 0.5001};
+        GroupStatistics.GroupTest f = GroupStatistics.oneWayAnova(List.of(a, b, c));
+        assertEquals(ref.get("anova_f"), f.statistic(), ref.get("anova_f") * 1e-9, "F");
+        assertEquals(ref.get("anova_p"), f.p(), ref.get("anova_p") * 1e-9, "ANOVA p = 2.4e-52, not 0");
+        GroupStatistics.GroupTest h = GroupStatistics.kruskalWallis(List.of(a, b, c));
+        assertEquals(ref.get("kruskal_h"), h.statistic(), 1e-9, "H");
+        assertEquals(ref.get("kruskal_p"), h.p(), ref.get("kruskal_p") * 1e-9, "Kruskal–Wallis p");
+        assertEquals(ref.get("chi2_sf_400_df2"), GroupStatistics.chiSquaredSurvival(400, 2), ref.get("chi2_sf_400_df2") * 1e-9);
+        assertEquals(ref.get("f_sf_1e5_2_21"), GroupStatistics.fSurvival(1e5, 2, 21), ref.get("f_sf_1e5_2_21") * 1e-9);
+        GroupStatistics.Welch w = GroupStatistics.welch(a, c);
+        assertEquals(ref.get("welch_AC_t"), w.t(), Math.abs(ref.get("welch_AC_t")) * 1e-9, "Welch t");
+        assertEquals(ref.get("welch_AC_p"), w.p(), ref.get("welch_AC_p") * 1e-6, "Welch p");
+    }
 }
