@@ -104,8 +104,10 @@ final class FitCommand implements Callable<Integer> {
         t.print(out);
         List<String> close = sa.alsoSupported();
         sa.best().ifPresentOrElse(b -> {
-            out.println("  best supported: " + b.model() + (b.variant().isEmpty() ? "" : " (" + b.variant() + ")")
-                    + (close.isEmpty() ? "" : "; within ΔAICc < 2: " + String.join(", ", close)));
+            out.println(Format.wrap("  best supported: " + b.model() + (b.variant().isEmpty() ? "" : " (" + b.variant() + ")")
+                    + (b.undetermined() ? " (!) but its parameters are not all determined by these data (see below): read it as a "
+                    + "description of the curve, not as material constants" : "")
+                    + (close.isEmpty() ? "" : "; within ΔAICc < 2: " + String.join(", ", close)), TERMINAL_WIDTH, "    "));
             TextTable p = new TextTable("  parameter", "value", "± standard error", "unit", "95 % CI", "");
             for (ParameterEstimate e : b.parameters()) {
                 p.add("  " + e.name(), Cells.g4(e.value()), Cells.g4(e.stdError()), e.unit().equals("-") ? "" : e.unit(),
@@ -114,7 +116,8 @@ final class FitCommand implements Callable<Integer> {
             p.print(out);
             List<String> ds = new ArrayList<>();
             for (DerivedEstimate d : b.derived()) {
-                ds.add(d.name() + " = " + Cells.g4(d.value()) + " ± " + Cells.g4(d.stdError()) + (d.unit().equals("-") ? "" : " " + d.unit()));
+                ds.add(d.name() + " = " + Cells.g4(d.value()) + " ± " + Cells.g4(d.stdError()) + (d.unit().equals("-") ? "" : " " + d.unit())
+                        + (d.undetermined() ? " (!)" : ""));
             }
             if (!ds.isEmpty()) {
                 out.println(Format.wrap("  derived (" + b.model() + "): " + String.join("; ", ds), TERMINAL_WIDTH, "    "));
@@ -129,6 +132,13 @@ final class FitCommand implements Callable<Integer> {
             for (ParameterEstimate p : f.parameters()) {
                 if (p.undetermined()) {
                     out.println(Format.wrap("  (!) " + f.model() + " " + p.name() + ": " + p.note(), TERMINAL_WIDTH, "    "));
+                }
+            }
+            if (rk.best()) {
+                for (DerivedEstimate d : f.derived()) {
+                    if (d.undetermined()) {
+                        out.println(Format.wrap("  (!) " + f.model() + " " + d.name() + ": " + d.note(), TERMINAL_WIDTH, "    "));
+                    }
                 }
             }
         }

@@ -76,4 +76,9 @@ public record FitResult(String sample, String model, List<ParameterEstimate> par
         }
         return c;
     }
+
+    /** True when the data do not determine some parameter of this fit (its flags say why). */
+    public boolean undetermined() {
+        return parameters.stream().anyMatch(ParameterEstimate::undetermined);
+    }
 }

@@ -319,7 +319,9 @@ public final class ModelFitter {
         }
         List<DerivedEstimate> derived = new ArrayList<>();
         for (Derived d : model.derived()) {
-            derived.add(new DerivedEstimate(d.name(), d.unit(), d.value().applyAsDouble(theta), deltaMethod(d, specs, u, cov)));
+            double value = d.value().applyAsDouble(theta);
+            double se = deltaMethod(d, specs, u, cov);
+            derived.add(new DerivedEstimate(d.name(), d.unit(), value, se, derivedFlag(d.unit(), value, se, window)));
         }
         return new FitResult(sample, model.id(), est, n, rss, ModelSelection.aic(n, p, rss),
                 ModelSelection.aicc(n, p, rss), ModelSelection.bic(n, p, rss), corr, true, "", model.describeVariant(), derived,
@@ -368,6 +370,35 @@ public final class ModelFitter {
                             + "separate the two", specs.get(k).name(), corr[j][k]));
                 }
             }
+        }
+        return why.isEmpty() ? "" : "not determined by the data: " + String.join("; ", why);
+    }
+
+    /**
+     * Why a derived quantity is not determined by the data ("" when it is): its uncertainty cannot be
+     * computed or exceeds the value, or, for a time [s] or frequency [Hz], it lies more than ten times
+     * outside the range the measured angular frequencies ω can show (times 1/ω, frequencies ω/2π) —
+     * the same limits as for parameters.
+     */
+    static String derivedFlag(String unit, double value, double se, double[] window) {
+        List<String> why = new ArrayList<>();
+        if (!Double.isFinite(value)) {
+            return "";
+        }
+        if (!Double.isFinite(se)) {
+            why.add("its uncertainty cannot be computed");
+        } else if (value != 0 && !(se / Math.abs(value) <= MAX_RELATIVE_SE)) {
+            why.add(String.format(Locale.ROOT, "its uncertainty (±%.0f %%) is larger than the value itself", 100 * se / Math.abs(value)));
+        }
+        if (unit.equals("s") && (value < 1.0 / window[1] / 10 || value > 1.0 / window[0] * 10)) {
+            why.add(String.format(Locale.ROOT, "the time lies more than ten times outside the times these frequencies can show "
+                    + "(1/ω from %.3g s to %.3g s)", 1.0 / window[1], 1.0 / window[0]));
+        }
+        double fLow = window[0] / (2 * Math.PI);
+        double fHigh = window[1] / (2 * Math.PI);
+        if (unit.equals("Hz") && (value < fLow / 10 || value > fHigh * 10)) {
+            why.add(String.format(Locale.ROOT, "the frequency lies more than ten times outside the measured frequencies "
+                    + "(%.3g Hz to %.3g Hz)", fLow, fHigh));
         }
         return why.isEmpty() ? "" : "not determined by the data: " + String.join("; ", why);
     }

@@ -220,7 +220,8 @@ public final class Figures {
                 rr.setSeriesVisibleInLegend(i, false);
             }
             residuals.setRenderer(rr);
-            title = shortName(s.name()) + ": " + curve.model().id() + " (best supported)";
+            title = shortName(s.name()) + ": " + curve.model().id() + (curve.covariance() == null
+                    ? " (best supported; parameters not determined by the data)" : " (best supported)");
         }
         CombinedDomainXYPlot plot = new CombinedDomainXYPlot(frequencyAxis(reduced));
         plot.setGap(6);

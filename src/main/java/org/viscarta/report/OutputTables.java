@@ -235,6 +235,7 @@ public final class OutputTables {
             .column("value", "value", "", Style.SCIENTIFIC, 14, r -> r.quantity().value())
             .column("std_error", "standard error", "", Style.SCIENTIFIC, 14, r -> r.quantity().stdError())
             .column("best", "best", "", Style.TEXT, 8, r -> r.ranked().best())
+            .column("note", "note", "", Style.TEXT, 50, r -> r.quantity().note())
             .build();
 
     /** The rows of {@link #DERIVED}. */
