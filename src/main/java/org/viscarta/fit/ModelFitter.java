@@ -82,7 +82,20 @@ public final class ModelFitter {
         }
         List<ViscoelasticModel> variants = model.variants();
         FitResult best = null;
+        FitResult previous = null;
+        int step = -1;
+        boolean improved = false;
         for (ViscoelasticModel v : variants) {
+            if (v.variantStep() != step) {
+                if (step >= 0 && !improved) {
+                    break; // no variant of a larger size improved on the smaller ones: stop growing
+                }
+                step = v.variantStep();
+                improved = false;
+            }
+            if (v.fallback() && previous != null && previous.converged() && !previous.undetermined()) {
+                continue; // the variant before determined all its parameters: no need for the fallback
+            }
             String unsuitable = v.unsuitable(data);
             FitResult r;
             if (!unsuitable.isEmpty()) {
@@ -91,13 +104,17 @@ public final class ModelFitter {
                 List<double[]> starts = 2 * data.size() <= v.parameterCount() ? List.of() : v.startValues(data);
                 r = fitFrom(sample, v, data, starts);
             }
-            if (best == null || better(r, best)) {
+            previous = r;
+            boolean wins = v.fallback()
+                    // a fallback must fit better, not merely be regular: a gel is no liquid because its solid fit is singular
+                    ? best == null || r.converged() && r.correlation() != null && (!best.converged() || r.aicc() < best.aicc())
+                    : best == null || better(r, best);
+            if (wins) {
                 best = r;
-            } else if (variants.size() > 1) {
-                break; // a larger member of the family did not improve on a smaller one: stop growing
+                improved = true;
             }
         }
-        if (variants.size() > 1 && best.converged()) {
+        if (variants.stream().map(ViscoelasticModel::variantStep).distinct().count() > 1 && best.converged()) {
             String chosen = best.variant() + ", chosen by AICc among 1–" + GeneralizedMaxwell.MAX_ELEMENTS;
             best = new FitResult(best.sample(), best.model(), best.parameters(), best.n(), best.rss(), best.aic(),
                     best.aicc(), best.bic(), best.correlation(), true, "", chosen, best.derived(), best.fitted(), best.covariance());

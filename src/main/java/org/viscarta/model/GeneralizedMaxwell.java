@@ -18,6 +18,12 @@ import org.viscarta.sweep.SweepPoint;
  * When the number of elements is not fixed, the catalogue's {@code generalized-maxwell} fits
  * N = 1 … 5 and keeps the lowest AICc ({@link #variants()}).
  *
+ * <p>The liquid variant has no E_inf (a material without an equilibrium modulus: E′ ∝ ω² and
+ * E″ ∝ ω at low frequency) and the parameters E_1 … E_N, tau_1 … tau_N. It is tried for each N
+ * when the solid fit of that N cannot pin E_inf down (it runs to zero, and the covariance turns
+ * singular), so that a liquid is fitted with as many elements as its data support rather than
+ * falling back to one.
+ *
  * <p>Sources: Ferry, J. D. (1980), Viscoelastic Properties of Polymers, 3rd ed., Wiley;
  * Tschoegl, N. W. (1989), The Phenomenological Theory of Linear Viscoelastic Behavior, Springer;
  * Park &amp; Schapery (1999), Int. J. Solids Struct. 36:1653. DOMAIN.md section 2.1.
@@ -28,6 +34,9 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
     public static final int MAX_ELEMENTS = 5;
 
     private final int elements;
+    private final boolean liquid;
+    /** Index of E_1 in the parameter array: 1 after E_inf, 0 for the liquid. */
+    private final int off;
     private final List<ParameterSpec> parameters;
 
     /**
@@ -35,12 +44,24 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
      *                 are the fixed-N models)
      */
     public GeneralizedMaxwell(int elements) {
+        this(elements, false);
+    }
+
+    /**
+     * @param elements N in 1 … 5, or 0 for the auto-selecting family
+     * @param liquid   without E_inf (no equilibrium modulus)
+     */
+    public GeneralizedMaxwell(int elements, boolean liquid) {
         if (elements < 0 || elements > MAX_ELEMENTS) {
             throw new IllegalArgumentException("generalized-maxwell takes 1 to " + MAX_ELEMENTS + " elements, got " + elements);
         }
         this.elements = elements;
+        this.liquid = liquid && elements > 0;
+        this.off = this.liquid ? 0 : 1;
         List<ParameterSpec> ps = new ArrayList<>();
-        ps.add(ParameterSpec.positive("E_inf", "Pa"));
+        if (!this.liquid) {
+            ps.add(ParameterSpec.positive("E_inf", "Pa"));
+        }
         for (int i = 1; i <= elements; i++) {
             ps.add(ParameterSpec.positive("E_" + i, "Pa"));
         }
@@ -65,32 +86,49 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
         return parameters;
     }
 
+    /** True for the variant without E_inf. */
+    public boolean liquid() {
+        return liquid;
+    }
+
+    /** For each N (all of 1 … 5 for the family, else the one given): the solid, then the liquid as its fallback. */
     @Override
     public List<ViscoelasticModel> variants() {
-        if (elements > 0) {
+        if (liquid) {
             return List.of(this);
         }
         List<ViscoelasticModel> v = new ArrayList<>();
-        for (int n = 1; n <= MAX_ELEMENTS; n++) {
+        for (int n = elements > 0 ? elements : 1; n <= (elements > 0 ? elements : MAX_ELEMENTS); n++) {
             v.add(new GeneralizedMaxwell(n));
+            v.add(new GeneralizedMaxwell(n, true));
         }
         return v;
     }
 
     @Override
+    public int variantStep() {
+        return elements;
+    }
+
+    @Override
+    public boolean fallback() {
+        return liquid;
+    }
+
+    @Override
     public String describeVariant() {
-        return elements == 1 ? "1 element" : elements + " elements";
+        return (elements == 1 ? "1 element" : elements + " elements") + (liquid ? ", no equilibrium modulus (a liquid)" : "");
     }
 
     @Override
     public void modulus(double omega, double[] p, double[] out) {
-        double s = p[0];
+        double s = liquid ? 0 : p[0];
         double l = 0;
         for (int i = 1; i <= elements; i++) {
-            double x = omega * p[elements + i];
+            double x = omega * p[off + elements + i - 1];
             double d = 1 + x * x;
-            s += p[i] * x * x / d;
-            l += p[i] * x / d;
+            s += p[off + i - 1] * x * x / d;
+            l += p[off + i - 1] * x / d;
         }
         out[0] = s;
         out[1] = l;
@@ -98,15 +136,19 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        dStorage[0] = 1;
-        dLoss[0] = 0;
+        if (!liquid) {
+            dStorage[0] = 1;
+            dLoss[0] = 0;
+        }
         for (int i = 1; i <= elements; i++) {
-            double x = omega * p[elements + i];
+            int e = off + i - 1;
+            int t = off + elements + i - 1;
+            double x = omega * p[t];
             double d = 1 + x * x;
-            dStorage[i] = x * x / d;
-            dLoss[i] = x / d;
-            dStorage[elements + i] = p[i] * 2 * x / (d * d) * omega;
-            dLoss[elements + i] = p[i] * (1 - x * x) / (d * d) * omega;
+            dStorage[e] = x * x / d;
+            dLoss[e] = x / d;
+            dStorage[t] = p[e] * 2 * x / (d * d) * omega;
+            dLoss[t] = p[e] * (1 - x * x) / (d * d) * omega;
         }
     }
 
@@ -134,12 +176,14 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
         for (double widen : new double[] {1, 10}) {
             double tauLo = 1 / (f.omegaMax * widen);
             double tauHi = widen / f.omegaMin;
-            double[] s = new double[1 + 2 * elements];
-            s[0] = 0.5 * f.storageMin;
+            double[] s = new double[off + 2 * elements];
+            if (!liquid) {
+                s[0] = 0.5 * f.storageMin;
+            }
             for (int i = 1; i <= elements; i++) {
-                s[i] = spread / elements;
+                s[off + i - 1] = (liquid ? f.storageMax : spread) / elements;
                 double w = elements == 1 ? 0.5 : (i - 1) / (double) (elements - 1);
-                s[elements + i] = tauLo * Math.pow(tauHi / tauLo, w);
+                s[off + elements + i - 1] = tauLo * Math.pow(tauHi / tauLo, w);
             }
             starts.add(s);
         }
@@ -148,19 +192,19 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
 
     @Override
     public Complex modulusAt(Complex s, double[] p) {
-        Complex m = new Complex(p[0], 0);
+        Complex m = new Complex(liquid ? 0 : p[0], 0);
         for (int i = 1; i <= elements; i++) {
-            Complex x = s.multiply(p[elements + i]);
-            m = m.add(x.multiply(p[i]).divide(x.add(1)));
+            Complex x = s.multiply(p[off + elements + i - 1]);
+            m = m.add(x.multiply(p[off + i - 1]).divide(x.add(1)));
         }
         return m;
     }
 
     @Override
     public double relaxationModulus(double t, double[] p) {
-        double m = p[0];
+        double m = liquid ? 0 : p[0];
         for (int i = 1; i <= elements; i++) {
-            m += p[i] * Math.exp(-t / p[elements + i]);
+            m += p[off + i - 1] * Math.exp(-t / p[off + elements + i - 1]);
         }
         return m;
     }
@@ -168,21 +212,21 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
     @Override
     public List<Derived> derived() {
         int n = elements;
-        return List.of(
-                new Derived("relaxed_modulus", "Pa", p -> p[0]),
-                new Derived("unrelaxed_modulus", "Pa", p -> {
-                    double e = p[0];
-                    for (int i = 1; i <= n; i++) {
-                        e += p[i];
-                    }
-                    return e;
-                }),
-                new Derived("sum_of_arm_viscosities", "Pa·s", p -> {
-                    double eta = 0;
-                    for (int i = 1; i <= n; i++) {
-                        eta += p[i] * p[n + i];
-                    }
-                    return eta;
-                }));
+        int o = off;
+        Derived unrelaxed = new Derived("unrelaxed_modulus", "Pa", p -> {
+            double e = o == 1 ? p[0] : 0;
+            for (int i = 0; i < n; i++) {
+                e += p[o + i];
+            }
+            return e;
+        });
+        Derived viscosity = new Derived(liquid ? "zero_frequency_viscosity" : "sum_of_arm_viscosities", "Pa·s", p -> {
+            double eta = 0;
+            for (int i = 0; i < n; i++) {
+                eta += p[o + i] * p[o + n + i];
+            }
+            return eta;
+        });
+        return liquid ? List.of(unrelaxed, viscosity) : List.of(new Derived("relaxed_modulus", "Pa", p -> p[0]), unrelaxed, viscosity);
     }
 }

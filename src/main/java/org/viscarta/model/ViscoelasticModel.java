@@ -86,6 +86,23 @@ public sealed interface ViscoelasticModel permits Springpot, EmpiricalPowerLaw, 
         return List.of(this);
     }
 
+    /**
+     * The size step of this variant within its family (the number of elements), 0 outside a
+     * family: a family stops growing when no variant of a step improves on the smaller ones.
+     */
+    default int variantStep() {
+        return 0;
+    }
+
+    /**
+     * True for a variant tried only when the variant before it in {@link #variants()} did not
+     * determine all its parameters (e.g. the generalized-Maxwell liquid after the solid whose E_inf
+     * ran to zero).
+     */
+    default boolean fallback() {
+        return false;
+    }
+
     /** What distinguishes this variant within its family (e.g. "3 elements"), or "". */
     default String describeVariant() {
         return "";
