@@ -69,10 +69,40 @@ public final class ShiftAnalysis {
         }
     }
 
-    /** The superposition of one colder curve on its warmer neighbour. */
+    /**
+     * The superposition of one colder curve on its warmer neighbour.
+     *
+     * @param phaseGapDeg      at equal |E*| (van Gurp–Palmen plane), the phase angle of the warm curve
+     *                         minus that of the cold one [°] (NaN when their |E*| ranges barely overlap)
+     * @param phaseGapStdError its standard error [°]
+     * @param phaseOnlyShift   the shift [decades] that superposes the phase angles alone (NaN when the loss
+     *                         tangent is too flat to fix one, or the curves cannot overlap enough)
+     */
     public record PairShift(double coldC, double warmC, double log10Shift, double stdError, double overlapDecades, double rmsMisfit,
-                            boolean shifted, String note, double log10Vertical, double verticalStdError) {
+                            boolean shifted, String note, double log10Vertical, double verticalStdError, double phaseGapDeg,
+                            double phaseGapStdError, double phaseOnlyShift) {
+
+        PairShift withPhase(double[] gap, double phaseShift) {
+            return new PairShift(coldC, warmC, log10Shift, stdError, overlapDecades, rmsMisfit, shifted, note, log10Vertical,
+                    verticalStdError, gap[0], gap[1], phaseShift);
+        }
+
+        /** How far the phase-only shift lies from the shift used [decades] (NaN when either is missing). */
+        public double phaseShiftDifference() {
+            return shifted ? Math.abs(phaseOnlyShift - log10Shift) : Double.NaN;
+        }
     }
+
+    /**
+     * Thermorheological simplicity is questioned (conventions of this product, not a standard) when,
+     * at equal |E*|, the phase angles of neighbouring temperatures differ by more than this [°] and by
+     * more than twice their standard error ...
+     */
+    public static final double PHASE_GAP_DEG = 1.0;
+    /** ... or when shifting by the phase angle alone moves a curve by more than this [decades] from the shift used. */
+    public static final double PHASE_SHIFT_DECADES = 0.3;
+    /** A curve whose log tan δ varies less than this [decades] over its frequencies gives no phase-only shift. */
+    static final double MIN_PHASE_VARIATION = 0.1;
 
     /** The factors of one temperature, relative to the reference. */
     public record Factor(double temperatureC, double log10aT, double log10aTStdError, double bT, boolean placed, double log10bTStdError) {
@@ -132,7 +162,9 @@ public final class ShiftAnalysis {
         }
         List<PairShift> pairs = new ArrayList<>();
         for (int i = 0; i + 1 < curves.size(); i++) {
-            pairs.add(pair(curves.get(i), curves.get(i + 1)));
+            Curve cold = curves.get(i);
+            Curve warm = curves.get(i + 1);
+            pairs.add(pair(cold, warm).withPhase(phaseGap(cold, warm), phaseOnlyShift(cold, warm)));
         }
         int ref = new ArrayList<>(byT.keySet()).indexOf(referenceC);
         List<Factor> factors = new ArrayList<>();
@@ -165,13 +197,35 @@ public final class ShiftAnalysis {
                 worst = Math.max(worst, p.rmsMisfit());
             }
         }
+        double worstGap = 0;
+        double worstPhaseShift = 0;
+        boolean gapQuestioned = false;
+        boolean phaseShiftQuestioned = false;
+        for (PairShift p : pairs) {
+            if (Double.isFinite(p.phaseGapDeg())) {
+                worstGap = Math.max(worstGap, Math.abs(p.phaseGapDeg()));
+                gapQuestioned |= Math.abs(p.phaseGapDeg()) > PHASE_GAP_DEG && Math.abs(p.phaseGapDeg()) > 2 * p.phaseGapStdError();
+            }
+            if (Double.isFinite(p.phaseShiftDifference())) {
+                worstPhaseShift = Math.max(worstPhaseShift, p.phaseShiftDifference());
+                phaseShiftQuestioned |= p.phaseShiftDifference() > PHASE_SHIFT_DECADES;
+            }
+        }
+        String phase = String.format(Locale.ROOT, "at equal |E*| the phase angles of neighbouring temperatures differ by up to %.1f° "
+                + "(van Gurp–Palmen), and shifting by the phase angle alone moves a curve by up to %.2f decades from the shift used",
+                worstGap, worstPhaseShift);
         if (worst > POOR_SUPERPOSITION) {
             notes.add(String.format(Locale.ROOT, "Superposition is poor: after shifting, neighbouring curves still differ by up to "
-                    + "%.3f decades (RMS of log tan δ and log |E*|), more than %.2f; the material may not be thermorheologically "
-                    + "simple (check the van Gurp–Palmen plot).", worst, POOR_SUPERPOSITION));
+                    + "%.3f decades (RMS of log tan δ and log |E*|), more than %.2f; %s. The material may not be thermorheologically "
+                    + "simple.", worst, POOR_SUPERPOSITION, phase));
+        } else if (gapQuestioned || phaseShiftQuestioned) {
+            notes.add(String.format(Locale.ROOT, "Superposition is questionable: the curves can be laid over each other (within "
+                    + "%.3f decades RMS), but %s — more than %.0f° or %.1f decades, the limits this product uses. Shifts cannot change "
+                    + "a phase angle at a given |E*|, so the material is probably not thermorheologically simple: treat the master "
+                    + "curve and the shift factors as approximate.", worst, phase, PHASE_GAP_DEG, PHASE_SHIFT_DECADES));
         } else {
-            notes.add(String.format(Locale.ROOT, "Neighbouring curves superpose to within %.3f decades (RMS), consistent with "
-                    + "thermorheological simplicity.", worst));
+            notes.add(String.format(Locale.ROOT, "Neighbouring curves superpose to within %.3f decades (RMS); %s, consistent with "
+                    + "thermorheological simplicity.", worst, phase));
         }
         ShiftFits.Fit wlf = ShiftFits.wlf(factors, referenceC);
         ShiftFits.Fit arr = ShiftFits.arrhenius(factors, referenceC);
@@ -299,9 +353,11 @@ public final class ShiftAnalysis {
         if (atEdge) {
             return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), false, String.format(Locale.ROOT,
                     "%s °C on %s °C: the best shift lies at the edge of the allowed overlap; the curves do not overlap enough "
-                            + "to be superposed", Numbers.plain(cold.tC()), Numbers.plain(warm.tC())), vert[0], vert[1]);
+                            + "to be superposed", Numbers.plain(cold.tC()), Numbers.plain(warm.tC())), vert[0], vert[1],
+                    Double.NaN, Double.NaN, Double.NaN);
         }
-        return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), true, "", vert[0], vert[1]);
+        return new PairShift(cold.tC(), warm.tC(), bestX, se, overlap, Math.sqrt(best), true, "", vert[0], vert[1],
+                Double.NaN, Double.NaN, Double.NaN);
     }
 
     /**
@@ -326,6 +382,107 @@ public final class ShiftAnalysis {
         return new double[] {mean, sd / Math.sqrt(Math.max(1, n / 2.0))};
     }
 
+    /**
+     * The phase-angle gap of two neighbouring curves in the van Gurp–Palmen plane: over the range of
+     * log |E*| both cover, δ [°] = a + b·u + c·u² + g·[warm curve] is fitted by least squares (u the
+     * centred log |E*|), and g is the gap, with its standard error. {NaN, NaN} when the common range
+     * is shorter than 0.2 decades or holds fewer than three points of either curve.
+     */
+    static double[] phaseGap(Curve cold, Curve warm) {
+        double lo = Math.max(min(cold.logMag()), min(warm.logMag()));
+        double hi = Math.min(max(cold.logMag()), max(warm.logMag()));
+        double[] none = {Double.NaN, Double.NaN};
+        if (!(hi - lo >= 0.2)) {
+            return none;
+        }
+        List<double[]> rows = new ArrayList<>();
+        List<Double> y = new ArrayList<>();
+        int nCold = 0;
+        int nWarm = 0;
+        double mid = (lo + hi) / 2;
+        for (Curve c : List.of(cold, warm)) {
+            for (int i = 0; i < c.logMag().length; i++) {
+                double m = c.logMag()[i];
+                if (m >= lo && m <= hi) {
+                    double u = m - mid;
+                    rows.add(new double[] {u, u * u, c == warm ? 1 : 0});
+                    y.add(Math.toDegrees(Math.atan(Math.pow(10, c.logTan()[i]))));
+                    if (c == warm) {
+                        nWarm++;
+                    } else {
+                        nCold++;
+                    }
+                }
+            }
+        }
+        if (nCold < 3 || nWarm < 3) {
+            return none;
+        }
+        org.apache.commons.math3.stat.regression.OLSMultipleLinearRegression ols =
+                new org.apache.commons.math3.stat.regression.OLSMultipleLinearRegression();
+        ols.newSampleData(y.stream().mapToDouble(Double::doubleValue).toArray(), rows.toArray(new double[0][]));
+        try {
+            return new double[] {ols.estimateRegressionParameters()[3], ols.estimateRegressionParametersStandardErrors()[3]};
+        } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
+            return none;
+        }
+    }
+
+    /**
+     * The shift [decades] of the cold curve onto the warm one that superposes log tan δ alone (a
+     * phase angle no vertical shift can change); NaN when the curves cannot overlap enough.
+     */
+    private double phaseOnlyShift(Curve cold, Curve warm) {
+        if (max(cold.logTan()) - min(cold.logTan()) < MIN_PHASE_VARIATION || max(warm.logTan()) - min(warm.logTan()) < MIN_PHASE_VARIATION) {
+            return Double.NaN; // a nearly flat loss tangent does not fix a shift
+        }
+        double xMin = warm.logF()[0] - cold.logF()[cold.logF().length - 1] + minOverlapDecades;
+        double xMax = warm.logF()[warm.logF().length - 1] - cold.logF()[0] - minOverlapDecades;
+        double bestX = Double.NaN;
+        double best = Double.POSITIVE_INFINITY;
+        for (double x = xMin; x <= xMax + 1e-12; x += SCAN_STEP) {
+            double m = phaseMisfit(cold, warm, x);
+            if (m < best) {
+                best = m;
+                bestX = x;
+            }
+        }
+        if (Double.isNaN(bestX) || bestX <= xMin + 1e-9 || bestX >= xMax - 1e-9) {
+            return Double.NaN;
+        }
+        double lo = Math.max(xMin, bestX - 2 * SCAN_STEP);
+        double hi = Math.min(xMax, bestX + 2 * SCAN_STEP);
+        UnivariatePointValuePair r = new BrentOptimizer(1e-10, 1e-12).optimize(new MaxEval(200), GoalType.MINIMIZE,
+                new SearchInterval(lo, hi, bestX), new UnivariateObjectiveFunction(x -> {
+                    double m = phaseMisfit(cold, warm, x);
+                    return Double.isNaN(m) ? Double.MAX_VALUE : m;
+                }));
+        return r.getValue() <= best ? r.getPoint() : bestX;
+    }
+
+    private double phaseMisfit(Curve cold, Curve warm, double x) {
+        double lo = Math.max(cold.logF()[0] + x, warm.logF()[0]);
+        double hi = Math.min(cold.logF()[cold.logF().length - 1] + x, warm.logF()[warm.logF().length - 1]);
+        if (hi - lo < minOverlapDecades) {
+            return Double.NaN;
+        }
+        double sum = 0;
+        for (int k = 0; k < GRID; k++) {
+            double g = lo + (hi - lo) * k / (GRID - 1);
+            double dt = interp(cold.logF(), cold.logTan(), g - x) - interp(warm.logF(), warm.logTan(), g);
+            sum += dt * dt;
+        }
+        return sum / GRID;
+    }
+
+    private static double min(double[] v) {
+        return java.util.Arrays.stream(v).min().orElse(Double.NaN);
+    }
+
+    private static double max(double[] v) {
+        return java.util.Arrays.stream(v).max().orElse(Double.NaN);
+    }
+
     /** Measured points of the cold curve (shifted by x) inside the warm curve's range. */
     private static int pointsWithin(double[] logF, double x, Curve other) {
         return pointsWithin(logF, x, other, 0);
@@ -346,7 +503,8 @@ public final class ShiftAnalysis {
 
     private PairShift notShifted(Curve cold, Curve warm, String why) {
         return new PairShift(cold.tC(), warm.tC(), Double.NaN, Double.NaN, 0, Double.NaN, false,
-                Numbers.plain(cold.tC()) + " °C on " + Numbers.plain(warm.tC()) + " °C: " + why, Double.NaN, Double.NaN);
+                Numbers.plain(cold.tC()) + " °C on " + Numbers.plain(warm.tC()) + " °C: " + why, Double.NaN, Double.NaN,
+                Double.NaN, Double.NaN, Double.NaN);
     }
 
     private static double interp(double[] x, double[] y, double at) {

@@ -146,4 +146,57 @@ class ShiftAnalysisTest {
         assertFalse(r.factors().get(0).placed());
         assertTrue(r.notes().get(0).contains("10 °C on 50 °C"), r.notes().toString());
     }
+
+    /**
+     * A thermorheologically complex material: two Maxwell processes (E_1 = 1 MPa, τ_1 = 1 s; E_2 =
+     * 0.1 MPa, τ_2 = 0.01 s at 30 °C) whose times follow Arrhenius laws with different activation
+     * energies (100 and 250 kJ/mol). No single shift lays the curves over each other: the phase
+     * angle at equal |E*| changes with temperature.
+     */
+    private static List<Sweep> complexSeries(double[] temps, long seed) {
+        SplittableRandom rng = new SplittableRandom(seed);
+        org.viscarta.model.GeneralizedMaxwell liquid = new org.viscarta.model.GeneralizedMaxwell(2, true);
+        List<Sweep> out = new ArrayList<>();
+        double[] mod = new double[2];
+        for (double t : temps) {
+            double a1 = Math.pow(10, ShiftLaws.arrhenius(100e3, t + 273.15, 303.15));
+            double a2 = Math.pow(10, ShiftLaws.arrhenius(250e3, t + 273.15, 303.15));
+            double[] p = {1e6, 1e5, 1.0 * a1, 0.01 * a2};
+            List<SweepPoint> pts = new ArrayList<>();
+            for (int i = 0; i < 16; i++) {
+                double f = 0.01 * Math.pow(1e4, i / 15.0);
+                liquid.modulus(2 * Math.PI * f, p, mod);
+                pts.add(new SweepPoint(f, mod[0] * Math.exp(0.01 * rng.nextGaussian()), mod[1] * Math.exp(0.01 * rng.nextGaussian()), i + 2));
+            }
+            out.add(new Sweep("blend", "1", "", ModulusKind.TENSILE, t, Path.of("synthetic.csv"), Map.of(), pts));
+        }
+        return out;
+    }
+
+    @Test
+    void aThermorheologicallyComplexMaterialIsCalledQuestionable() {
+        ShiftAnalysis.Result r = new ShiftAnalysis(0.3, ShiftAnalysis.Vertical.NONE).analyse(
+                complexSeries(new double[] {10, 20, 30, 40, 50, 60}, 8), 30);
+        String verdict = String.join(" ", r.notes());
+        assertTrue(verdict.contains("questionable") || verdict.contains("poor"), verdict);
+        double worst = r.pairs().stream().mapToDouble(p -> Math.abs(p.phaseGapDeg())).filter(Double::isFinite).max().orElse(0);
+        assertTrue(worst > ShiftAnalysis.PHASE_GAP_DEG, "van Gurp–Palmen gap " + worst + "°");
+    }
+
+    @Test
+    void aSimpleMaterialKeepsItsVerdictAndItsPhaseAnglesAgree() {
+        // WLF C1 = 12, C2 = 110 K at 30 °C on the broad transition, 1 % noise
+        ShiftAnalysis.Result r = new ShiftAnalysis(0.3, ShiftAnalysis.Vertical.NONE).analyse(
+                series(new double[] {10, 20, 30, 40, 50, 60}, t -> ShiftLaws.wlf(12, 110, t - 30), 12), 30);
+        String verdict = String.join(" ", r.notes());
+        assertTrue(verdict.contains("consistent with thermorheological simplicity"), verdict);
+        for (ShiftAnalysis.PairShift p : r.pairs()) {
+            if (Double.isFinite(p.phaseGapDeg())) {
+                assertTrue(Math.abs(p.phaseGapDeg()) < 0.5, p.coldC() + " °C: gap " + p.phaseGapDeg() + "°");
+            }
+            if (Double.isFinite(p.phaseShiftDifference())) {
+                assertTrue(p.phaseShiftDifference() < 0.1, p.coldC() + " °C: phase-only shift off by " + p.phaseShiftDifference());
+            }
+        }
+    }
 }
