@@ -82,6 +82,11 @@ public final class ShiftAnalysis {
                             boolean shifted, String note, double log10Vertical, double verticalStdError, double phaseGapDeg,
                             double phaseGapStdError, double phaseOnlyShift) {
 
+        PairShift withStdError(double se) {
+            return new PairShift(coldC, warmC, log10Shift, se, overlapDecades, rmsMisfit, shifted, note, log10Vertical,
+                    verticalStdError, phaseGapDeg, phaseGapStdError, phaseOnlyShift);
+        }
+
         PairShift withPhase(double[] gap, double phaseShift) {
             return new PairShift(coldC, warmC, log10Shift, stdError, overlapDecades, rmsMisfit, shifted, note, log10Vertical,
                     verticalStdError, gap[0], gap[1], phaseShift);
@@ -167,6 +172,14 @@ public final class ShiftAnalysis {
             pairs.add(pair(cold, warm).withPhase(phaseGap(cold, warm), phaseOnlyShift(cold, warm)));
         }
         int ref = new ArrayList<>(byT.keySet()).indexOf(referenceC);
+        double[][] boot = bootstrap(curves, pairs, ref);
+        if (boot != null) {
+            for (int i = 0; i < pairs.size(); i++) {
+                if (pairs.get(i).shifted()) {
+                    pairs.set(i, pairs.get(i).withStdError(boot[0][i]));
+                }
+            }
+        }
         List<Factor> factors = new ArrayList<>();
         for (int i = 0; i < curves.size(); i++) {
             double log = 0;
@@ -185,7 +198,8 @@ public final class ShiftAnalysis {
             double sign = i < ref ? 1 : i == ref ? 0 : -1;
             double t = curves.get(i).tC();
             double b = vertical == Vertical.FITTED ? Math.pow(10, i == ref ? 0.0 : sign * logB) : bT(t, referenceC);
-            factors.add(new Factor(t, placed ? (i == ref ? 0.0 : sign * log) : Double.NaN, placed ? Math.sqrt(var) : Double.NaN, b,
+            double se = boot != null ? boot[1][i] : Math.sqrt(var);
+            factors.add(new Factor(t, placed ? (i == ref ? 0.0 : sign * log) : Double.NaN, placed ? se : Double.NaN, b,
                     placed, vertical == Vertical.FITTED ? Math.sqrt(varB) : 0));
         }
         List<String> notes = new ArrayList<>();
@@ -382,6 +396,134 @@ public final class ShiftAnalysis {
         return new double[] {mean, sd / Math.sqrt(Math.max(1, n / 2.0))};
     }
 
+    /** Replicates of the parametric bootstrap of the shift factors, and its fixed seed (the same inputs give the same report). */
+    static final int BOOTSTRAP_REPLICATES = 200;
+    private static final long BOOTSTRAP_SEED = 20261202L;
+
+    /**
+     * Standard errors of the pair shifts and of the chained shift factors by a parametric bootstrap
+     * (Efron &amp; Tibshirani 1993, An Introduction to the Bootstrap, Chapman &amp; Hall, ch. 6): the
+     * noise of log tan δ is estimated from the misfit left after superposition (the mean square
+     * difference of two linearly interpolated noisy curves, divided by its expected multiple of σ²
+     * and corrected for the one fitted shift) and split equally between log E′
+     * and log E″; every curve's measured moduli are perturbed with that noise (so log tan δ and
+     * log |E*| stay correlated as measured), every pair is superposed again, and the shifts are
+     * chained to the reference. The spread of the replicates is the standard error; it counts the
+     * interpolation and the correlation of neighbouring pairs (they share a curve), which the
+     * curvature of the misfit did not. Returns {pair SEs, factor SEs}, or null when no pair was
+     * shifted.
+     */
+    private double[][] bootstrap(List<Curve> curves, List<PairShift> pairs, int ref) {
+        double tanMs = 0;
+        double weight = 0;
+        int k = 0;
+        for (int i = 0; i < pairs.size(); i++) {
+            if (pairs.get(i).shifted()) {
+                Curve cold = curves.get(i);
+                Curve warm = curves.get(i + 1);
+                double x = pairs.get(i).log10Shift();
+                double[] m = misfitParts(cold, warm, x);
+                // the differences over the overlap carry about as many independent values as one curve has points in
+                // it (each pairs a value of each curve); one shift was fitted to them
+                double n = (pointsWithin(cold.logF(), x, warm) + pointsWithin(warm.logF(), 0, cold, x)) / 2.0;
+                tanMs += m[0] * n / Math.max(1, n - 1.0);
+                weight += m[2];
+                k++;
+            }
+        }
+        if (k == 0 || !(weight > 0)) {
+            return null;
+        }
+        // log tan δ = log E″ − log E′: its noise is √2 times that of each modulus (taken as independent)
+        double sdModulus = Math.sqrt(tanMs / weight / 2);
+        java.util.SplittableRandom rng = new java.util.SplittableRandom(BOOTSTRAP_SEED);
+        int np = pairs.size();
+        double[][] shifts = new double[BOOTSTRAP_REPLICATES][np];
+        for (int b = 0; b < BOOTSTRAP_REPLICATES; b++) {
+            List<Curve> noisy = new ArrayList<>();
+            for (Curve c : curves) {
+                double[] lt = c.logTan().clone();
+                double[] lm = c.logMag().clone();
+                for (int j = 0; j < lt.length; j++) {
+                    // back to log E′ and log E″, each perturbed, and on to log tan δ and log |E*| again
+                    double delta = Math.atan(Math.pow(10, lt[j]));
+                    double ls = lm[j] + Math.log10(Math.cos(delta)) + sdModulus * rng.nextGaussian();
+                    double ll = lm[j] + Math.log10(Math.sin(delta)) + sdModulus * rng.nextGaussian();
+                    lt[j] = ll - ls;
+                    lm[j] = ls + 0.5 * Math.log10(1 + Math.pow(10, 2 * (ll - ls)));
+                }
+                noisy.add(new Curve(c.tC(), c.logF(), lt, lm));
+            }
+            for (int i = 0; i < np; i++) {
+                shifts[b][i] = pairs.get(i).shifted() ? reshift(noisy.get(i), noisy.get(i + 1), pairs.get(i).log10Shift()) : 0;
+            }
+        }
+        double[] pairSe = new double[np];
+        for (int i = 0; i < np; i++) {
+            final int col = i;
+            pairSe[i] = sd(java.util.Arrays.stream(shifts).mapToDouble(r -> r[col]).toArray());
+        }
+        double[] factorSe = new double[curves.size()];
+        for (int j = 0; j < curves.size(); j++) {
+            double[] chained = new double[BOOTSTRAP_REPLICATES];
+            for (int b = 0; b < BOOTSTRAP_REPLICATES; b++) {
+                for (int i = Math.min(j, ref); i < Math.max(j, ref); i++) {
+                    chained[b] += shifts[b][i];
+                }
+            }
+            factorSe[j] = j == ref ? 0 : sd(chained);
+        }
+        return new double[][] {pairSe, factorSe};
+    }
+
+    /** The shift of a perturbed pair, searched within half a decade of the measured pair's shift. */
+    private double reshift(Curve cold, Curve warm, double x0) {
+        double xMin = warm.logF()[0] - cold.logF()[cold.logF().length - 1] + minOverlapDecades;
+        double xMax = warm.logF()[warm.logF().length - 1] - cold.logF()[0] - minOverlapDecades;
+        double lo = Math.max(xMin, x0 - 0.5);
+        double hi = Math.min(xMax, x0 + 0.5);
+        if (!(hi > lo)) {
+            return x0;
+        }
+        UnivariatePointValuePair r = new BrentOptimizer(1e-8, 1e-10).optimize(new MaxEval(200), GoalType.MINIMIZE,
+                new SearchInterval(lo, hi, Math.max(lo, Math.min(hi, x0))), new UnivariateObjectiveFunction(x -> {
+                    double m = misfit(cold, warm, x);
+                    return Double.isNaN(m) ? Double.MAX_VALUE : m;
+                }));
+        return r.getPoint();
+    }
+
+    private static double sd(double[] v) {
+        double mean = java.util.Arrays.stream(v).average().orElse(Double.NaN);
+        double ss = 0;
+        for (double x : v) {
+            ss += (x - mean) * (x - mean);
+        }
+        return Math.sqrt(ss / (v.length - 1));
+    }
+
+    /**
+     * Mean squares of the log tan δ and log |E*| differences over the overlap at shift x (the second 0
+     * when fitted vertically), and the mean variance factor of the difference of the two linearly
+     * interpolated curves: E[mean square] = σ² × that factor for independent noise σ at every point.
+     */
+    private double[] misfitParts(Curve cold, Curve warm, double x) {
+        double lo = Math.max(cold.logF()[0] + x, warm.logF()[0]);
+        double hi = Math.min(cold.logF()[cold.logF().length - 1] + x, warm.logF()[warm.logF().length - 1]);
+        double tan = 0;
+        double mag = 0;
+        double variance = 0;
+        for (int k = 0; k < GRID; k++) {
+            double g = lo + (hi - lo) * k / (GRID - 1);
+            double dt = interp(cold.logF(), cold.logTan(), g - x) - interp(warm.logF(), warm.logTan(), g);
+            double dm = interp(cold.logF(), cold.logMag(), g - x) - interp(warm.logF(), warm.logMag(), g);
+            tan += dt * dt / GRID;
+            mag += dm * dm / GRID;
+            variance += (interpolationVariance(cold.logF(), g - x) + interpolationVariance(warm.logF(), g)) / GRID;
+        }
+        return new double[] {tan, vertical == Vertical.FITTED ? 0 : mag, variance};
+    }
+
     /**
      * The phase-angle gap of two neighbouring curves in the van Gurp–Palmen plane: over the range of
      * log |E*| both cover, δ [°] = a + b·u + c·u² + g·[warm curve] is fitted by least squares (u the
@@ -505,6 +647,20 @@ public final class ShiftAnalysis {
         return new PairShift(cold.tC(), warm.tC(), Double.NaN, Double.NaN, 0, Double.NaN, false,
                 Numbers.plain(cold.tC()) + " °C on " + Numbers.plain(warm.tC()) + " °C: " + why, Double.NaN, Double.NaN,
                 Double.NaN, Double.NaN, Double.NaN);
+    }
+
+    /** (1 − w)² + w², the variance of a linear interpolation between two points with independent noise, in units of σ². */
+    private static double interpolationVariance(double[] x, double at) {
+        int n = x.length;
+        if (at <= x[0] || at >= x[n - 1]) {
+            return 1;
+        }
+        int i = 1;
+        while (x[i] < at) {
+            i++;
+        }
+        double w = (at - x[i - 1]) / (x[i] - x[i - 1]);
+        return (1 - w) * (1 - w) + w * w;
     }
 
     private static double interp(double[] x, double[] y, double at) {
