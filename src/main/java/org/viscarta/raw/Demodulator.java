@@ -35,9 +35,10 @@ public final class Demodulator {
      * @param seIm         standard error of b_1
      * @param distortion   THD relative to the fundamental
      * @param secondHarmonic A_2/A_1
+     * @param covReIm      covariance of Re Ŷ and Im Ŷ
      */
     public record Phasor(double amplitude, double phase, double re, double im, double seRe, double seIm, double distortion,
-                         double secondHarmonic) {
+                         double secondHarmonic, double covReIm) {
     }
 
     private Demodulator() {
@@ -86,6 +87,6 @@ public final class Demodulator {
             harm += a * a;
         }
         return new Phasor(amp1, Math.atan2(-b1, a1), a1, -b1, Math.sqrt(s2 * inv.getEntry(2, 2)), Math.sqrt(s2 * inv.getEntry(3, 3)),
-                Math.sqrt(harm) / amp1, amp2 / amp1);
+                Math.sqrt(harm) / amp1, amp2 / amp1, -s2 * inv.getEntry(2, 3)); // Im Ŷ = −b_1
     }
 }

@@ -155,37 +155,88 @@ public final class RawConverter {
         List<Point> out = new ArrayList<>();
         for (RawReader.Segment seg : m.segments()) {
             Demodulated d = demodulate(m, seg, s);
-            Complex k = d.force.divide(d.displacement);
-            if (calibration != null) {
-                double phi = calibration.phaseAt(seg.frequencyHz());
-                if (Double.isNaN(phi)) {
-                    throw new InputException(m.file(), seg.firstLine(), 0, String.format(Locale.ROOT,
-                            "drive frequency %.4g Hz lies outside the calibration's range (%.4g–%.4g Hz); calibrate at this frequency "
-                                    + "too", seg.frequencyHz(), calibration.frequencyHz()[0],
-                            calibration.frequencyHz()[calibration.frequencyHz().length - 1]));
-                }
-                if (calibration.mode() == CalibrationMode.PHASE) {
-                    k = k.multiply(new Complex(Math.cos(-phi), Math.sin(-phi)));
-                } else {
-                    double mag = calibration.magnitudeAt(seg.frequencyHz());
-                    Complex kRef = new Complex(mag * Math.cos(phi), mag * Math.sin(phi));
-                    k = k.reciprocal().subtract(kRef.reciprocal()).reciprocal();
-                }
+            if (calibration != null && Double.isNaN(calibration.phaseAt(seg.frequencyHz()))) {
+                throw new InputException(m.file(), seg.firstLine(), 0, String.format(Locale.ROOT,
+                        "drive frequency %.4g Hz lies outside the calibration's range (%.4g–%.4g Hz); calibrate at this frequency "
+                                + "too", seg.frequencyHz(), calibration.frequencyHz()[0],
+                        calibration.frequencyHz()[calibration.frequencyHz().length - 1]));
             }
-            double w = 2 * Math.PI * seg.frequencyHz();
-            k = k.subtract(new Complex(0, w * drag));
-            Complex e = g.modulus(k);
-            double rel = Math.hypot(d.relForce, d.relDisplacement);
+            double dragCoefficient = drag;
+            java.util.function.BiFunction<Complex, Complex, Complex> pipeline =
+                    (force, displacement) -> modulusOf(force, displacement, seg.frequencyHz(), calibration, dragCoefficient, g);
+            Complex e = pipeline.apply(d.force, d.displacement);
+            double[] se = standardErrors(pipeline, d);
             double contact = g.contactSecondHarmonic(d.displacement.abs());
             double material = Math.max(0, d.forceThd - contact);
             boolean linear = material <= s.distortionLimit() && d.displacementThd <= s.distortionLimit();
             String note = linear ? "" : String.format(Locale.ROOT, "outside the linear range: force distortion %.1f %% (of which the "
                     + "contact geometry accounts for %.1f %%), displacement distortion %.1f %%, limit %.1f %%", 100 * d.forceThd,
                     100 * contact, 100 * d.displacementThd, 100 * s.distortionLimit());
-            out.add(new Point(seg.frequencyHz(), e.getReal(), e.getImaginary(), e.abs() * rel, e.abs() * rel, d.forceThd,
+            out.add(new Point(seg.frequencyHz(), e.getReal(), e.getImaginary(), se[0], se[1], d.forceThd,
                     d.displacementThd, contact, d.cycles, linear, note, seg.firstLine()));
         }
         return out;
+    }
+
+    /**
+     * The sample's complex modulus from the force and displacement phasors: stiffness k* = F/D, the
+     * calibration (instrument phase removed, or the reference's compliance subtracted), the drag
+     * iωb removed, and the geometry's conversion to a modulus.
+     */
+    private static Complex modulusOf(Complex force, Complex displacement, double frequencyHz, Calibration calibration, double drag,
+                                     Geometry g) {
+        Complex k = force.divide(displacement);
+        if (calibration != null) {
+            double phi = calibration.phaseAt(frequencyHz);
+            if (calibration.mode() == CalibrationMode.PHASE) {
+                k = k.multiply(new Complex(Math.cos(-phi), Math.sin(-phi)));
+            } else {
+                double mag = calibration.magnitudeAt(frequencyHz);
+                Complex kRef = new Complex(mag * Math.cos(phi), mag * Math.sin(phi));
+                k = k.reciprocal().subtract(kRef.reciprocal()).reciprocal();
+            }
+        }
+        k = k.subtract(new Complex(0, 2 * Math.PI * frequencyHz * drag));
+        return g.modulus(k);
+    }
+
+    /**
+     * Standard errors of E′ and E″, each by its own first-order propagation (delta method) of the
+     * covariances of the force and displacement phasors (real and imaginary parts and their
+     * covariance, from the sine fits) through {@link #modulusOf}, with a numerical Jacobian.
+     */
+    private static double[] standardErrors(java.util.function.BiFunction<Complex, Complex, Complex> pipeline, Demodulated d) {
+        double[] x = {d.force.getReal(), d.force.getImaginary(), d.displacement.getReal(), d.displacement.getImaginary()};
+        double[][] cov = new double[4][4];
+        cov[0][0] = d.forcePhasor.seRe() * d.forcePhasor.seRe();
+        cov[1][1] = d.forcePhasor.seIm() * d.forcePhasor.seIm();
+        cov[0][1] = cov[1][0] = d.forcePhasor.covReIm();
+        cov[2][2] = d.displacementPhasor.seRe() * d.displacementPhasor.seRe();
+        cov[3][3] = d.displacementPhasor.seIm() * d.displacementPhasor.seIm();
+        cov[2][3] = cov[3][2] = d.displacementPhasor.covReIm();
+        double[][] jac = new double[2][4];
+        for (int j = 0; j < 4; j++) {
+            double h = 1e-6 * Math.max(Math.hypot(x[j < 2 ? 0 : 2], x[j < 2 ? 1 : 3]), Double.MIN_NORMAL);
+            double[] up = x.clone();
+            double[] dn = x.clone();
+            up[j] += h;
+            dn[j] -= h;
+            Complex eu = pipeline.apply(new Complex(up[0], up[1]), new Complex(up[2], up[3]));
+            Complex ed = pipeline.apply(new Complex(dn[0], dn[1]), new Complex(dn[2], dn[3]));
+            jac[0][j] = (eu.getReal() - ed.getReal()) / (2 * h);
+            jac[1][j] = (eu.getImaginary() - ed.getImaginary()) / (2 * h);
+        }
+        double[] se = new double[2];
+        for (int r = 0; r < 2; r++) {
+            double v = 0;
+            for (int i = 0; i < 4; i++) {
+                for (int j = 0; j < 4; j++) {
+                    v += jac[r][i] * cov[i][j] * jac[r][j];
+                }
+            }
+            se[r] = Math.sqrt(Math.max(v, 0));
+        }
+        return se;
     }
 
     /**
@@ -211,8 +262,8 @@ public final class RawConverter {
         }
     }
 
-    private record Demodulated(Complex force, Complex displacement, double relForce, double relDisplacement, double forceThd,
-                               double displacementThd, int cycles) {
+    private record Demodulated(Complex force, Complex displacement, Demodulator.Phasor forcePhasor,
+                               Demodulator.Phasor displacementPhasor, double forceThd, double displacementThd, int cycles) {
     }
 
     private static Complex stiffness(RawReader.Measurement m, RawReader.Segment seg, Settings s) {
@@ -224,7 +275,9 @@ public final class RawConverter {
         double f = seg.frequencyHz();
         double[] t = seg.time();
         double start = t[0] + s.skipCycles() / f;
-        int cycles = (int) Math.floor((t[t.length - 1] - start) * f + 1e-9);
+        // the last sample stands for the interval up to the next one: n samples at spacing dt span n·dt
+        double dt = t.length > 1 ? (t[t.length - 1] - t[0]) / (t.length - 1) : 0;
+        int cycles = (int) Math.floor((t[t.length - 1] + dt - start) * f + 1e-6);
         if (cycles < 2) {
             throw new InputException(m.file(), seg.firstLine(), 0, String.format(Locale.ROOT, "the %.4g Hz segment holds fewer than "
                     + "2 cycles after %d settling cycle(s); record longer or lower --skip-cycles", f, s.skipCycles()));
@@ -241,8 +294,7 @@ public final class RawConverter {
         double[] tt = Arrays.copyOfRange(t, from, to);
         Demodulator.Phasor pf = Demodulator.fit(tt, Arrays.copyOfRange(seg.force(), from, to), f);
         Demodulator.Phasor ph = Demodulator.fit(tt, Arrays.copyOfRange(seg.displacement(), from, to), f);
-        return new Demodulated(new Complex(pf.re(), pf.im()), new Complex(ph.re(), ph.im()),
-                Math.hypot(pf.seRe(), pf.seIm()) / pf.amplitude(), Math.hypot(ph.seRe(), ph.seIm()) / ph.amplitude(),
-                pf.distortion(), ph.distortion(), cycles);
+        return new Demodulated(new Complex(pf.re(), pf.im()), new Complex(ph.re(), ph.im()), pf, ph, pf.distortion(), ph.distortion(),
+                cycles);
     }
 }
