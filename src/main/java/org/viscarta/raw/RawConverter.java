@@ -51,7 +51,7 @@ public final class RawConverter {
      */
     public record Point(double frequencyHz, double storage, double loss, double storageStdError, double lossStdError,
                         double forceDistortion, double displacementDistortion, double contactHarmonic, int cycles, boolean linear,
-                        String note, int firstLine) {
+                        String note, int firstLine, String calibrationNote) {
     }
 
     /** How a calibration corrects the measured stiffness. */
@@ -72,6 +72,12 @@ public final class RawConverter {
      * @param magnitude |k*_ref| [N/m]
      */
     public record Calibration(double[] frequencyHz, double[] phase, double[] magnitude, CalibrationMode mode) {
+
+        /** A delay and a constant are used between calibration points when they fit every point within this [rad] (0.1°). */
+        static final double DELAY_FIT_TOLERANCE = 0.002;
+        /** Neighbouring calibration frequencies further apart than this factor leave a drive frequency between them poorly covered. */
+        static final double WIDE_SPACING = 3;
+
         public Calibration {
             frequencyHz = frequencyHz.clone();
             phase = phase.clone();
@@ -98,7 +104,13 @@ public final class RawConverter {
             return Math.exp((1 - w) * Math.log(magnitude[i - 1]) + w * Math.log(magnitude[i]));
         }
 
-        /** φ_inst(f), interpolated linearly in log f; NaN outside the calibrated range. */
+        /**
+         * φ_inst(f); NaN outside the calibrated range. At a calibration frequency its measured phase;
+         * between them, a constant plus a delay, φ0 + 2π f τ_d, fitted to all calibration points by
+         * least squares, where it fits them within {@link #DELAY_FIT_TOLERANCE} (an instrument's
+         * electronics and filters act mostly as a delay: its phase grows in proportion to f, which
+         * interpolation in log f misses badly); otherwise linear in f between the neighbours.
+         */
         double phaseAt(double f) {
             int n = frequencyHz.length;
             if (f < frequencyHz[0] * (1 - 1e-9) || f > frequencyHz[n - 1] * (1 + 1e-9)) {
@@ -109,12 +121,82 @@ public final class RawConverter {
                     return phase[i];
                 }
             }
+            double[] delay = delayFit();
+            if (delay != null && delay[2] <= DELAY_FIT_TOLERANCE) {
+                return delay[0] + 2 * Math.PI * f * delay[1];
+            }
+            return linear(f, false);
+        }
+
+        /** The phase interpolated linearly between the neighbouring calibration points, in f or in log f. */
+        private double linear(double f, boolean logF) {
             int i = 1;
-            while (frequencyHz[i] < f) {
+            while (i < frequencyHz.length - 1 && frequencyHz[i] < f) {
                 i++;
             }
-            double w = Math.log(f / frequencyHz[i - 1]) / Math.log(frequencyHz[i] / frequencyHz[i - 1]);
+            double w = logF ? Math.log(f / frequencyHz[i - 1]) / Math.log(frequencyHz[i] / frequencyHz[i - 1])
+                    : (f - frequencyHz[i - 1]) / (frequencyHz[i] - frequencyHz[i - 1]);
             return (1 - w) * phase[i - 1] + w * phase[i];
+        }
+
+        /** {φ0, τ_d, largest residual} of the least-squares fit φ = φ0 + 2π f τ_d, or null with fewer than two distinct frequencies. */
+        private double[] delayFit() {
+            int n = frequencyHz.length;
+            double mx = 0;
+            double my = 0;
+            for (int i = 0; i < n; i++) {
+                mx += 2 * Math.PI * frequencyHz[i] / n;
+                my += phase[i] / n;
+            }
+            double sxx = 0;
+            double sxy = 0;
+            for (int i = 0; i < n; i++) {
+                double dx = 2 * Math.PI * frequencyHz[i] - mx;
+                sxx += dx * dx;
+                sxy += dx * (phase[i] - my);
+            }
+            if (!(sxx > 0)) {
+                return null;
+            }
+            double tau = sxy / sxx;
+            double phi0 = my - tau * mx;
+            double worst = 0;
+            for (int i = 0; i < n; i++) {
+                worst = Math.max(worst, Math.abs(phase[i] - phi0 - 2 * Math.PI * frequencyHz[i] * tau));
+            }
+            return new double[] {phi0, tau, worst};
+        }
+
+        /**
+         * How uncertain the interpolated phase at f is [rad]: the largest residual of the delay fit
+         * where it is used, otherwise half the difference between interpolating linearly in f and in
+         * log f; 0 at a calibration frequency.
+         */
+        double phaseUncertainty(double f) {
+            for (double c : frequencyHz) {
+                if (Math.abs(f / c - 1) < 1e-9) {
+                    return 0;
+                }
+            }
+            double[] delay = delayFit();
+            if (delay != null && delay[2] <= DELAY_FIT_TOLERANCE) {
+                return delay[2];
+            }
+            return Math.abs(linear(f, false) - linear(f, true)) / 2;
+        }
+
+        /** The neighbouring calibration frequencies of f when they are more than {@link #WIDE_SPACING} apart, else null. */
+        double[] wideGap(double f) {
+            for (double c : frequencyHz) {
+                if (Math.abs(f / c - 1) < 1e-9) {
+                    return null;
+                }
+            }
+            int i = 1;
+            while (i < frequencyHz.length - 1 && frequencyHz[i] < f) {
+                i++;
+            }
+            return frequencyHz[i] / frequencyHz[i - 1] > WIDE_SPACING ? new double[] {frequencyHz[i - 1], frequencyHz[i]} : null;
         }
     }
 
@@ -172,8 +254,17 @@ public final class RawConverter {
             String note = linear ? "" : String.format(Locale.ROOT, "outside the linear range: force distortion %.1f %% (of which the "
                     + "contact geometry accounts for %.1f %%), displacement distortion %.1f %%, limit %.1f %%", 100 * d.forceThd,
                     100 * contact, 100 * d.displacementThd, 100 * s.distortionLimit());
+            String calibrationNote = "";
+            double[] gap = calibration == null ? null : calibration.wideGap(seg.frequencyHz());
+            if (gap != null) {
+                double u = calibration.phaseUncertainty(seg.frequencyHz());
+                calibrationNote = String.format(Locale.ROOT, "drive frequency %.4g Hz lies between calibration points %.4g and %.4g Hz, "
+                        + "more than %.0f times apart: the instrument phase there is interpolated, uncertain by about %.2g rad "
+                        + "(tan δ by about %.2g); calibrate closer to this frequency", seg.frequencyHz(), gap[0], gap[1],
+                        Calibration.WIDE_SPACING, u, u * (1 + Math.pow(e.getImaginary() / e.getReal(), 2)));
+            }
             out.add(new Point(seg.frequencyHz(), e.getReal(), e.getImaginary(), se[0], se[1], d.forceThd,
-                    d.displacementThd, contact, d.cycles, linear, note, seg.firstLine()));
+                    d.displacementThd, contact, d.cycles, linear, note, seg.firstLine(), calibrationNote));
         }
         return out;
     }

@@ -53,6 +53,9 @@ public record RawSweeps(RawReader.Measurement measurement, Geometry geometry, Li
             if (!p.linear()) {
                 warnings.add(new ReadWarning(m.file(), p.firstLine(), p.note()));
             }
+            if (!p.calibrationNote().isEmpty()) {
+                warnings.add(new ReadWarning(m.file(), p.firstLine(), p.calibrationNote()));
+            }
         }
         Map<String, String> meta = new LinkedHashMap<>(m.metadata());
         String stem = m.file().getFileName().toString().replaceFirst("\\.[^.]*$", "");
