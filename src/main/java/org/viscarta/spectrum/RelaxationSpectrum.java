@@ -1,0 +1,286 @@
+package org.viscarta.spectrum;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.LUDecomposition;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.viscarta.sweep.SweepPoint;
+
+/**
+ * The continuous relaxation spectrum H(τ) — or the retardation spectrum L(τ) — that a frequency
+ * sweep supports, by Tikhonov-regularised non-negative least squares.
+ *
+ * <p>Relaxation (Ferry 1980, Viscoelastic Properties of Polymers, ch. 3; Tschoegl 1989, ch. 4):
+ * \[ E'(\omega) = E_e + \int H(\tau)\frac{\omega^2\tau^2}{1+\omega^2\tau^2}\,d\ln\tau,\quad
+ *    E''(\omega) = \int H(\tau)\frac{\omega\tau}{1+\omega^2\tau^2}\,d\ln\tau. \]
+ * Retardation, on the compliances J* = 1/E*:
+ * \[ J'(\omega) = J_g + \int L(\tau)\frac{1}{1+\omega^2\tau^2}\,d\ln\tau,\quad
+ *    J''(\omega) = \int L(\tau)\frac{\omega\tau}{1+\omega^2\tau^2}\,d\ln\tau + \frac{1}{\omega\eta_0}. \]
+ * The spectrum lives on a log-spaced grid of τ (ten points a decade) over the measured window
+ * 1/ω_max … 1/ω_min widened by half a decade each side (the margin); beyond it the data say
+ * nothing. Residuals are relative (each row divided by its measured value); the penalty is λ² times
+ * the squared second differences of the spectrum (smoothness). The equilibrium modulus E_e (or
+ * J_g and the fluidity 1/η0) is a non-negative unknown of its own.
+ *
+ * <p>λ is chosen by generalised cross-validation, GCV(λ) = n·RSS/(n − tr A_λ)², on a log grid of λ
+ * (Honerkamp &amp; Weese 1989, Macromolecules 22:4372, regularise the same inverse problem; Wahba
+ * 1977 and Golub, Heath &amp; Wahba 1979, Technometrics 21:215, for GCV), with the influence matrix
+ * A_λ of the unconstrained problem on the non-zero entries. The uncertainty band comes from the
+ * same linearisation: Cov = σ² M⁻¹ KᵀK M⁻¹, M = KᵀK + λ²LᵀL, σ² = RSS/(n − tr A_λ); it is
+ * conditional on which entries are zero, and the smoothing bias is not in it.
+ */
+public final class RelaxationSpectrum {
+
+    /** Points of the τ grid per decade. */
+    static final int PER_DECADE = 10;
+    /** Decades the grid reaches beyond the measured window on each side. */
+    public static final double MARGIN_DECADES = 0.5;
+    /** The λ grid: 10^LAMBDA_LOW … 10^LAMBDA_HIGH. */
+    private static final double LAMBDA_LOW = -4;
+    private static final double LAMBDA_HIGH = 1;
+    private static final int LAMBDA_STEPS = 26;
+
+    /** Relaxation H(τ) from E′, E″; or retardation L(τ) from J′, J″. */
+    public enum Kind {
+        RELAXATION, RETARDATION
+    }
+
+    /**
+     * The result.
+     *
+     * @param tau          the grid [s]
+     * @param h            H(τ) [Pa] (or L(τ) [1/Pa])
+     * @param low          lower end of the 95 % band (clipped at 0)
+     * @param high         upper end of the 95 % band
+     * @param constant     E_e [Pa] (or J_g [1/Pa])
+     * @param constantSe   its standard error
+     * @param fluidity     1/η0 [1/(Pa·s)] for the retardation spectrum, NaN for relaxation
+     * @param lambda       the regularisation parameter chosen
+     * @param gcv          the GCV score at λ
+     * @param rmsRelative  RMS relative misfit of the data
+     * @param points       data points used
+     */
+    public record Result(Kind kind, double[] tau, double[] h, double[] low, double[] high, double constant, double constantSe,
+                         double fluidity, double lambda, double gcv, double rmsRelative, int points, double[][] covariance,
+                         double scale) {
+
+        /** Modulus (or compliance) predicted at ω: {storage-like, loss-like}. */
+        public double[] predict(double omega) {
+            double d = Math.log(tau[1] / tau[0]);
+            double re = constant;
+            double im = kind == Kind.RETARDATION && fluidity > 0 ? fluidity / omega : 0;
+            for (int j = 0; j < tau.length; j++) {
+                double x = omega * tau[j];
+                double den = 1 + x * x;
+                re += h[j] * d * (kind == Kind.RELAXATION ? x * x / den : 1 / den);
+                im += h[j] * d * x / den;
+            }
+            return new double[] {re, im};
+        }
+
+        /** ∫ H(τ) τ^p d ln τ for p = 0 (the modulus relaxed away), 1 (η0 for a liquid), 2, with its standard error. */
+        public double[] moment(int p) {
+            double d = Math.log(tau[1] / tau[0]);
+            double v = 0;
+            double var = 0;
+            double[] g = new double[tau.length];
+            for (int j = 0; j < tau.length; j++) {
+                g[j] = Math.pow(tau[j], p) * d;
+                v += h[j] * g[j];
+            }
+            for (int i = 0; i < tau.length; i++) {
+                for (int j = 0; j < tau.length; j++) {
+                    var += g[i] * covariance[i][j] * g[j];
+                }
+            }
+            return new double[] {v, Math.sqrt(Math.max(var, 0)) * scale};
+        }
+
+        /** The weight-average relaxation time ∫Hτ² d ln τ / ∫Hτ d ln τ [s], with its standard error (delta method). */
+        public double[] meanTime() {
+            double d = Math.log(tau[1] / tau[0]);
+            double m1 = 0;
+            double m2 = 0;
+            for (int j = 0; j < tau.length; j++) {
+                m1 += h[j] * tau[j] * d;
+                m2 += h[j] * tau[j] * tau[j] * d;
+            }
+            double t = m2 / m1;
+            double[] g = new double[tau.length];
+            for (int j = 0; j < tau.length; j++) {
+                g[j] = (tau[j] * tau[j] * d * m1 - m2 * tau[j] * d) / (m1 * m1);
+            }
+            double var = 0;
+            for (int i = 0; i < tau.length; i++) {
+                for (int j = 0; j < tau.length; j++) {
+                    var += g[i] * covariance[i][j] * g[j];
+                }
+            }
+            return new double[] {t, Math.sqrt(Math.max(var, 0)) * scale};
+        }
+    }
+
+    private RelaxationSpectrum() {
+    }
+
+    /** The spectrum with λ chosen by GCV. */
+    public static Result of(List<SweepPoint> points, Kind kind) {
+        Result best = null;
+        for (int k = 0; k < LAMBDA_STEPS; k++) {
+            double lambda = Math.pow(10, LAMBDA_LOW + (LAMBDA_HIGH - LAMBDA_LOW) * k / (LAMBDA_STEPS - 1));
+            Result r = at(points, kind, lambda);
+            if (best == null || r.gcv() < best.gcv()) {
+                best = r;
+            }
+        }
+        return best;
+    }
+
+    /** The spectrum at a given λ. */
+    public static Result at(List<SweepPoint> points, Kind kind, double lambda) {
+        Problem pr = problem(points, kind);
+        int m = pr.tau.length;
+        int cols = pr.k[0].length;
+        int n = pr.k.length;
+        double[][] a = new double[n + m - 2][cols];
+        double[] b = new double[n + m - 2];
+        for (int i = 0; i < n; i++) {
+            a[i] = pr.k[i].clone();
+            b[i] = 1;
+        }
+        for (int i = 0; i < m - 2; i++) {
+            a[n + i][i] = lambda;
+            a[n + i][i + 1] = -2 * lambda;
+            a[n + i][i + 2] = lambda;
+        }
+        double[] x = Nnls.solve(a, b);
+        double rss = 0;
+        for (int i = 0; i < n; i++) {
+            double s = -1;
+            for (int j = 0; j < cols; j++) {
+                s += pr.k[i][j] * x[j];
+            }
+            rss += s * s;
+        }
+        // influence of the unconstrained problem on the non-zero unknowns
+        List<Integer> free = new ArrayList<>();
+        for (int j = 0; j < cols; j++) {
+            if (x[j] > 0) {
+                free.add(j);
+            }
+        }
+        int f = free.size();
+        double[][] cov = new double[cols][cols];
+        double trace = 0;
+        if (f > 0) {
+            double[][] ktk = new double[f][f];
+            double[][] mm = new double[f][f];
+            for (int p = 0; p < f; p++) {
+                for (int q = 0; q < f; q++) {
+                    double s = 0;
+                    for (int i = 0; i < n; i++) {
+                        s += pr.k[i][free.get(p)] * pr.k[i][free.get(q)];
+                    }
+                    double l = 0;
+                    for (int i = 0; i < m - 2; i++) {
+                        l += a[n + i][free.get(p)] * a[n + i][free.get(q)];
+                    }
+                    ktk[p][q] = s;
+                    mm[p][q] = s + l;
+                }
+            }
+            RealMatrix inv;
+            try {
+                inv = new LUDecomposition(new Array2DRowRealMatrix(mm, false)).getSolver().getInverse();
+            } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
+                inv = null;
+            }
+            if (inv != null) {
+                RealMatrix kk = new Array2DRowRealMatrix(ktk, false);
+                trace = inv.multiply(kk).getTrace();
+                double dof = Math.max(1, n - trace);
+                RealMatrix c = inv.multiply(kk).multiply(inv).scalarMultiply(rss / dof);
+                for (int p = 0; p < f; p++) {
+                    for (int q = 0; q < f; q++) {
+                        cov[free.get(p)][free.get(q)] = c.getEntry(p, q);
+                    }
+                }
+            }
+        }
+        double gcv = n * rss / Math.pow(Math.max(1e-9, n - trace), 2);
+        double[] h = new double[m];
+        double[] lo = new double[m];
+        double[] hi = new double[m];
+        for (int j = 0; j < m; j++) {
+            h[j] = x[j] * pr.scale;
+            double se = Math.sqrt(Math.max(cov[j][j], 0)) * pr.scale;
+            lo[j] = Math.max(0, h[j] - 1.96 * se);
+            hi[j] = h[j] + 1.96 * se;
+        }
+        double[][] hcov = new double[m][m];
+        for (int i = 0; i < m; i++) {
+            System.arraycopy(cov[i], 0, hcov[i], 0, m);
+        }
+        double constant = x[m] * pr.scale;
+        double constantSe = Math.sqrt(Math.max(cov[m][m], 0)) * pr.scale;
+        double fluidity = kind == Kind.RETARDATION ? x[m + 1] * pr.scale : Double.NaN;
+        return new Result(kind, pr.tau, h, lo, hi, constant, constantSe, fluidity, lambda, gcv, Math.sqrt(rss / n), n, hcov,
+                pr.scale);
+    }
+
+    /** The weighted kernel: rows E′ then E″ (or J′, J″) divided by their measured values; unknowns in units of {@code scale}. */
+    private record Problem(double[] tau, double[][] k, double scale) {
+    }
+
+    private static Problem problem(List<SweepPoint> points, Kind kind) {
+        double wMin = Double.POSITIVE_INFINITY;
+        double wMax = 0;
+        List<double[]> data = new ArrayList<>();
+        for (SweepPoint p : points) {
+            if (!(p.storage() > 0 && p.loss() > 0)) {
+                continue;
+            }
+            double w = 2 * Math.PI * p.frequencyHz();
+            double re = p.storage();
+            double im = p.loss();
+            if (kind == Kind.RETARDATION) {
+                double m2 = re * re + im * im;
+                re = p.storage() / m2;
+                im = p.loss() / m2;
+            }
+            data.add(new double[] {w, re, im});
+            wMin = Math.min(wMin, w);
+            wMax = Math.max(wMax, w);
+        }
+        if (data.size() < 3) {
+            throw new IllegalArgumentException("a spectrum needs at least three points with positive moduli");
+        }
+        double lo = Math.log10(1 / wMax) - MARGIN_DECADES;
+        double hi = Math.log10(1 / wMin) + MARGIN_DECADES;
+        int m = (int) Math.ceil((hi - lo) * PER_DECADE) + 1;
+        double[] tau = new double[m];
+        for (int j = 0; j < m; j++) {
+            tau[j] = Math.pow(10, lo + (hi - lo) * j / (m - 1));
+        }
+        double d = Math.log(tau[1] / tau[0]);
+        double[] mags = data.stream().mapToDouble(r -> Math.hypot(r[1], r[2])).sorted().toArray();
+        double scale = mags[mags.length / 2];
+        int extra = kind == Kind.RELAXATION ? 1 : 2;
+        double[][] k = new double[2 * data.size()][m + extra];
+        for (int i = 0; i < data.size(); i++) {
+            double[] r = data.get(i);
+            for (int j = 0; j < m; j++) {
+                double x = r[0] * tau[j];
+                double den = 1 + x * x;
+                k[2 * i][j] = scale * d * (kind == Kind.RELAXATION ? x * x / den : 1 / den) / r[1];
+                k[2 * i + 1][j] = scale * d * (x / den) / r[2];
+            }
+            k[2 * i][m] = scale / r[1];
+            if (kind == Kind.RETARDATION) {
+                k[2 * i + 1][m + 1] = scale / r[0] / r[2];
+            }
+        }
+        return new Problem(tau, k, scale);
+    }
+}
