@@ -62,6 +62,16 @@ public final class Analysis {
             inputs = inputs.withSamples(masters);
         }
         List<SampleAnalysis> samples = fitAll(inputs.samples(), request, progress);
+        if (request.parts().contains(AnalysisRequest.Part.SPECTRA)) {
+            samples = samples.parallelStream().map(sa -> {
+                try {
+                    return sa.withSpectrum(Optional.of(org.viscarta.spectrum.RelaxationSpectrum.of(sa.sample().pooledFittablePoints(),
+                            org.viscarta.spectrum.RelaxationSpectrum.Kind.RELAXATION)));
+                } catch (IllegalArgumentException tooFewPoints) {
+                    return sa;
+                }
+            }).toList();
+        }
         Optional<Ranking> ranking = Optional.empty();
         if (request.parts().contains(AnalysisRequest.Part.RANKING)) {
             progress.stage(Progress.Stage.RANKING, 0);

@@ -47,7 +47,9 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         /** The damping ranking with letter groups and group tests. */
         RANKING,
         /** Every sample against the reference library (needs a library). */
-        MATCHES
+        MATCHES,
+        /** The relaxation spectrum H(τ) of every sample. */
+        SPECTRA
     }
 
     public AnalysisRequest {

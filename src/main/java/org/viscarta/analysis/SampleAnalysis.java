@@ -19,12 +19,23 @@ import org.viscarta.fit.TimeDomain;
  * @param timeDomain every fitted model's E(t) and J(t) on the request's time grid (empty without one)
  */
 public record SampleAnalysis(Sample sample, List<ModelSelection.Ranked> fits, Optional<FittedCurve> curve,
-                             List<Matcher.Match> matches, List<TimeDomain.Point> timeDomain) {
+                             List<Matcher.Match> matches, List<TimeDomain.Point> timeDomain,
+                             Optional<org.viscarta.spectrum.RelaxationSpectrum.Result> spectrum) {
 
     public SampleAnalysis {
         fits = List.copyOf(fits);
         matches = List.copyOf(matches);
         timeDomain = List.copyOf(timeDomain);
+    }
+
+    /** Without a spectrum. */
+    public SampleAnalysis(Sample sample, List<ModelSelection.Ranked> fits, Optional<FittedCurve> curve,
+                          List<Matcher.Match> matches, List<TimeDomain.Point> timeDomain) {
+        this(sample, fits, curve, matches, timeDomain, Optional.empty());
+    }
+
+    SampleAnalysis withSpectrum(Optional<org.viscarta.spectrum.RelaxationSpectrum.Result> s) {
+        return new SampleAnalysis(sample, fits, curve, matches, timeDomain, s);
     }
 
     /** The time-domain points of the best-supported model (empty when it has none). */
@@ -59,6 +70,6 @@ public record SampleAnalysis(Sample sample, List<ModelSelection.Ranked> fits, Op
     }
 
     SampleAnalysis withMatches(List<Matcher.Match> m) {
-        return new SampleAnalysis(sample, fits, curve, m, timeDomain);
+        return new SampleAnalysis(sample, fits, curve, m, timeDomain, spectrum);
     }
 }

@@ -41,7 +41,7 @@ final class ReportCommand implements Callable<Integer> {
         }
         AnalysisRequest request = Requests.build(spec, () -> {
             AnalysisRequest.Builder b = report.applyTo(rankOptions.applyTo(models.applyTo(input.request()), spec.commandLine()))
-                    .compute(AnalysisRequest.Part.FITS);
+                    .compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.SPECTRA);
             library.folderIfNamed().ifPresent(dir -> b.library(dir).compute(AnalysisRequest.Part.MATCHES));
             return b;
         });

@@ -12,6 +12,8 @@ import org.viscarta.fit.ModelFitter;
 import org.viscarta.fit.ParameterEstimate;
 import org.viscarta.io.UsageException;
 import org.viscarta.model.GeneralizedMaxwell;
+import org.viscarta.report.OutputTables;
+import org.viscarta.report.OutputTables.SpectrumRow;
 import org.viscarta.spectrum.RelaxationSpectrum;
 import org.viscarta.table.Cells;
 import org.viscarta.table.CsvTable;
@@ -44,22 +46,14 @@ final class SpectrumCommand implements Callable<Integer> {
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
-    /** One grid point of one sample's spectrum, for {@code -o FILE.csv}. */
-    record Row(String sample, double tau, double h, double low, double high) {
-    }
-
-    static Table<Row> table(boolean retardation) {
-        String q = retardation ? "l_per_pa" : "h_pa";
-        String unit = retardation ? "1/Pa" : "Pa";
-        String name = retardation ? "L" : "H";
-        return Table.<Row>named(retardation ? "Retardation spectrum" : "Relaxation spectrum")
-                .column("sample", "sample", "", Style.TEXT, 28, Row::sample)
-                .column("tau_s", "τ", "s", Style.SCIENTIFIC, 12, Row::tau)
-                .column(q, name + "(τ)", unit, Style.SCIENTIFIC, 14, Row::h)
-                .column(q.replace("_p", "_low_p"), name + " 95 % band low", unit, Style.SCIENTIFIC, 14, Row::low)
-                .column(q.replace("_p", "_high_p"), name + " 95 % band high", unit, Style.SCIENTIFIC, 14, Row::high)
-                .build();
-    }
+    /** The retardation spectrum's columns; the relaxation spectrum's are the report's ({@link OutputTables#SPECTRA}). */
+    private static final Table<SpectrumRow> RETARDATION = Table.<SpectrumRow>named("Retardation spectrum")
+            .column("sample", "sample", "", Style.TEXT, 28, SpectrumRow::sample)
+            .column("tau_s", "retardation time τ", "s", Style.SCIENTIFIC, 14, SpectrumRow::tau)
+            .column("l_per_pa", "L(τ)", "1/Pa", Style.SCIENTIFIC, 14, SpectrumRow::h)
+            .column("l_low_per_pa", "L 95 % band low", "1/Pa", Style.SCIENTIFIC, 14, SpectrumRow::low)
+            .column("l_high_per_pa", "L 95 % band high", "1/Pa", Style.SCIENTIFIC, 14, SpectrumRow::high)
+            .build();
 
     @Override
     public Integer call() throws java.io.IOException {
@@ -68,7 +62,7 @@ final class SpectrumCommand implements Callable<Integer> {
         Warnings.print(spec, c);
         PrintWriter out = spec.commandLine().getOut();
         RelaxationSpectrum.Kind kind = retardation ? RelaxationSpectrum.Kind.RETARDATION : RelaxationSpectrum.Kind.RELAXATION;
-        List<Row> rows = new ArrayList<>();
+        List<SpectrumRow> rows = new ArrayList<>();
         for (Sample s : c.samples()) {
             RelaxationSpectrum.Result r;
             try {
@@ -80,15 +74,16 @@ final class SpectrumCommand implements Callable<Integer> {
             }
             print(out, s, r);
             for (int j = 0; j < r.tau().length; j++) {
-                rows.add(new Row(s.name(), r.tau()[j], r.h()[j], r.low()[j], r.high()[j]));
+                rows.add(new SpectrumRow(s.name(), r.tau()[j], r.h()[j], r.low()[j], r.high()[j]));
             }
         }
         out.flush();
         if (rows.isEmpty()) {
-            throw new UsageException("no sample has the three points with positive moduli a spectrum needs");
+            throw new UsageException("no sample has the " + RelaxationSpectrum.MIN_FREQUENCIES + " distinct frequencies with positive "
+                    + "moduli a spectrum needs");
         }
         if (output.out != null) {
-            CsvTable.write(table(retardation), rows, output.out, output.force);
+            CsvTable.write(retardation ? RETARDATION : OutputTables.SPECTRA, rows, output.out, output.force);
         }
         return CommandLine.ExitCode.OK;
     }

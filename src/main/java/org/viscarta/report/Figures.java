@@ -26,6 +26,7 @@ import org.jfree.data.xy.XYSeriesCollection;
 import org.jfree.data.xy.YIntervalSeries;
 import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.viscarta.analysis.Sample;
+import org.viscarta.analysis.SampleAnalysis;
 import org.viscarta.compare.DampingRanking;
 import org.viscarta.sweep.Numbers;
 import org.viscarta.compare.FittedCurve;
@@ -472,6 +473,78 @@ public final class Figures {
         c.setBackgroundPaint(Color.WHITE);
         int height = Math.max(Figure.HEIGHT_PT, 80 + panelsHeight);
         return new Figure("tan-delta", caption + " One panel per group.", c, height);
+    }
+
+    /** Where a spectrum's zero is drawn, relative to the largest H of its panel (a log axis cannot show zero). */
+    private static final double FLOOR = 1e-3;
+
+    /**
+     * The relaxation spectra H(τ) of the samples that have one, one panel per group (log–log; H below
+     * a thousandth of a panel's largest, zero included, is drawn at that floor).
+     */
+    public static Figure spectra(List<SampleAnalysis> samples) {
+        Map<String, List<SampleAnalysis>> byGroup = new java.util.LinkedHashMap<>();
+        for (SampleAnalysis sa : samples) {
+            if (sa.spectrum().isPresent()) {
+                byGroup.computeIfAbsent(sa.sample().group().isEmpty() ? "no group" : sa.sample().group(), g -> new ArrayList<>()).add(sa);
+            }
+        }
+        LogAxis tauAxis = logAxis("relaxation time τ [s]");
+        tauAxis.setNumberFormatOverride(new DecimalFormat("0.####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
+        CombinedDomainXYPlot combined = new CombinedDomainXYPlot(tauAxis);
+        combined.setGap(8);
+        int panelsHeight = 0;
+        for (Map.Entry<String, List<SampleAnalysis>> e : byGroup.entrySet()) {
+            XYSeriesCollection data = new XYSeriesCollection();
+            java.util.Set<String> keys = new java.util.HashSet<>();
+            double top = 0;
+            for (SampleAnalysis sa : e.getValue()) {
+                top = Math.max(top, java.util.Arrays.stream(sa.spectrum().get().h()).max().orElse(0));
+            }
+            for (SampleAnalysis sa : e.getValue()) {
+                String key = shortName(sa.sample().name());
+                for (int k = 2; !keys.add(key); k++) {
+                    key = shortName(sa.sample().name()) + " (" + k + ")";
+                }
+                XYSeries series = new XYSeries(key);
+                var r = sa.spectrum().get();
+                for (int j = 0; j < r.tau().length; j++) {
+                    series.add(r.tau()[j], Math.max(r.h()[j], FLOOR * top)); // zero drawn at the panel's floor
+                }
+                data.addSeries(series);
+            }
+            LogAxis y = logAxis("H(τ)");
+            inModulusUnit(y, shortName(e.getKey()) + ": H(τ)", largest(data, true));
+            y.setLowerBound(FLOOR * top * 0.8);
+            y.setAutoRange(false);
+            y.setUpperBound(top * 1.5);
+            XYPlot panel = new XYPlot(data, null, y, null);
+            XYLineAndShapeRenderer r = new XYLineAndShapeRenderer(true, false);
+            for (int i = 0; i < data.getSeriesCount(); i++) {
+                r.setSeriesPaint(i, Palette.colour(i));
+                r.setSeriesStroke(i, Palette.line(i));
+            }
+            panel.setRenderer(r);
+            org.jfree.chart.title.LegendTitle legend = new org.jfree.chart.title.LegendTitle(panel,
+                    new org.jfree.chart.block.ColumnArrangement(), new org.jfree.chart.block.ColumnArrangement());
+            legend.setItemFont(Palette.TICK);
+            legend.setBackgroundPaint(new Color(255, 255, 255, 150));
+            panel.addAnnotation(new CornerTitle(0.995, 0.98, legend, org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT));
+            int height = Math.max(150, 24 + LEGEND_LINE_PT * data.getSeriesCount());
+            combined.add(panel, height);
+            panelsHeight += height + 8;
+        }
+        JFreeChart c = new JFreeChart("Relaxation spectra H(τ), by group", Palette.TITLE, combined, false);
+        for (Object p : combined.getSubplots()) {
+            finish(c, (XYPlot) p);
+        }
+        c.setBackgroundPaint(Color.WHITE);
+        return new Figure("spectra", "Relaxation spectra H(τ): how much modulus relaxes near each relaxation time τ, from E′ and "
+                + "E″ by regularised non-negative least squares over the measured window and half a decade beyond; peaks are "
+                + "relaxation processes, a curve still high at an end reaches beyond the measured frequencies; the bottom of each "
+                + "panel stands for zero. The single temperatures of a temperature series are left out (their master curve "
+                + "is shown).", c,
+                Math.max(Figure.HEIGHT_PT, 80 + panelsHeight));
     }
 
     /**

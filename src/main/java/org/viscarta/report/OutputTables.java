@@ -56,6 +56,10 @@ public final class OutputTables {
     }
 
     /** One measured point as read. */
+    /** One time of one sample's relaxation spectrum (sheet Spectra). */
+    public record SpectrumRow(String sample, double tau, double h, double low, double high) {
+    }
+
     public record DataRow(Sample sample, Sweep sweep, SweepPoint point) {
     }
 
@@ -237,6 +241,49 @@ public final class OutputTables {
             .column("best", "best", "", Style.TEXT, 8, r -> r.ranked().best())
             .column("note", "note", "", Style.TEXT, 50, r -> r.quantity().note())
             .build();
+
+    /** The relaxation spectrum of every sample (sheet Spectra; {@code spectrum -o} writes the same columns). */
+    public static final Table<SpectrumRow> SPECTRA = Table.<SpectrumRow>named("Spectra")
+            .column("sample", "sample", "", Style.TEXT, 28, SpectrumRow::sample)
+            .column("tau_s", "relaxation time τ", "s", Style.SCIENTIFIC, 14, SpectrumRow::tau)
+            .column("h_pa", "H(τ)", "Pa", Style.SCIENTIFIC, 14, SpectrumRow::h)
+            .column("h_low_pa", "H 95 % band low", "Pa", Style.SCIENTIFIC, 14, SpectrumRow::low)
+            .column("h_high_pa", "H 95 % band high", "Pa", Style.SCIENTIFIC, 14, SpectrumRow::high)
+            .build();
+
+    /** The rows of {@link #SPECTRA}. */
+    public static List<SpectrumRow> spectrumRows(List<SampleAnalysis> samples) {
+        List<SpectrumRow> out = new ArrayList<>();
+        for (SampleAnalysis sa : samples) {
+            sa.spectrum().ifPresent(r -> {
+                for (int j = 0; j < r.tau().length; j++) {
+                    out.add(new SpectrumRow(sa.sample().name(), r.tau()[j], r.h()[j], r.low()[j], r.high()[j]));
+                }
+            });
+        }
+        return out;
+    }
+
+    /** Per sample, the spectrum's smoothing, fit and moments in words (under the Spectra table). */
+    public static List<String> spectrumNotes(List<SampleAnalysis> samples) {
+        List<String> out = new ArrayList<>();
+        for (SampleAnalysis sa : samples) {
+            sa.spectrum().ifPresent(r -> {
+                double top = java.util.Arrays.stream(r.h()).max().orElse(0);
+                boolean edge = r.h()[0] > 0.05 * top || r.h()[r.h().length - 1] > 0.05 * top;
+                double[] eta = r.moment(1);
+                double[] mean = r.meanTime();
+                out.add(String.format(java.util.Locale.ROOT, "%s: smoothing λ = %s (generalised cross-validation), data reproduced "
+                        + "to %.1f %% RMS; equilibrium modulus %s ± %s Pa; ∫Hτ dlnτ = %s ± %s Pa·s; %s", sa.sample().name(),
+                        org.viscarta.table.Cells.g4(r.lambda()), 100 * r.rmsRelative(), org.viscarta.table.Cells.g4(r.constant()),
+                        org.viscarta.table.Cells.g4(r.constantSe()), org.viscarta.table.Cells.g4(eta[0]),
+                        org.viscarta.table.Cells.g4(eta[1]), edge ? "the spectrum is still large at an end of the window: "
+                        + "processes outside the measured frequencies, not placed by these data" : "weight-average relaxation "
+                        + "time " + org.viscarta.table.Cells.g4(mean[0]) + " ± " + org.viscarta.table.Cells.g4(mean[1]) + " s"));
+            });
+        }
+        return out;
+    }
 
     /** The rows of {@link #DERIVED}. */
     public static List<DerivedRow> derivedRows(List<SampleAnalysis> samples) {

@@ -67,6 +67,11 @@ public final class ReportFigures {
         List<Sample> shown = r.samples().stream().map(SampleAnalysis::sample)
                 .filter(s -> s.replicates().stream().noneMatch(inSeries::contains)).toList();
         out.add(Figures.tanDelta(shown, r.samples().size() - shown.size()));
+        List<SampleAnalysis> withSpectra = r.samples().stream()
+                .filter(sa -> sa.spectrum().isPresent() && sa.sample().replicates().stream().noneMatch(inSeries::contains)).toList();
+        if (!withSpectra.isEmpty()) {
+            out.add(Figures.spectra(withSpectra));
+        }
         for (TemperatureSeries ts : r.series()) {
             String slug = slug(ts.sample());
             out.add(Figures.master(ts, "master-" + slug));

@@ -138,6 +138,11 @@ public final class Texts {
             new String[] {"Correlations", "For each sample's best-supported model: how strongly each pair of parameters moves "
                     + "together (−1 to 1); beyond ±0.99 the data cannot tell them apart (other models' flags in Model fits name "
                     + "such pairs too)."},
+            new String[] {"Spectra", "For each sample, the distribution of relaxation times H(τ) its E′ and E″ support (how much "
+                    + "modulus relaxes near each time; peaks are relaxation processes), over the measured window and half a decade "
+                    + "beyond, with a 95 % band; under the table, each sample's smoothing, equilibrium modulus, viscosity and mean "
+                    + "relaxation time. Smoothing (Tikhonov regularisation, chosen by cross-validation) can merge close processes "
+                    + "and does not show its own bias."},
             new String[] {"Data", "Every measured point as read, in SI units, with its file and line."},
             new String[] {"Reference library", "The reference materials available for comparison (when a library was given)."},
             new String[] {"Figures", "The figures, also written as PNG (300 dpi) and SVG files under figures/: the damping ranking, tan δ "

@@ -27,7 +27,7 @@ import org.viscarta.temperature.TemperatureSeries;
 
 /**
  * Writes the report workbook: Read me, Summary, Damping ranking, Group comparison, Reference
- * matches, Mimic ranking (with a target), Temperature series, Model fits, Derived quantities,
+ * matches, Mimic ranking (with a target), Temperature series, Model fits, Derived quantities, Spectra,
  * Correlations, Data, Reference library, Figures and Provenance. The tables are drawn from their
  * declarations in {@link OutputTables}; numbers are numeric cells; every header carries its unit.
  * Streams rows (SXSSF) so that large campaigns fit in memory.
@@ -84,6 +84,10 @@ public final class WorkbookReport {
             table(wb, st, OutputTables.modelFits(r.request()), OutputTables.fitRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.DERIVED, OutputTables.derivedRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.CORRELATIONS, OutputTables.correlationRows(r.samples()), "", List.of());
+            List<OutputTables.SpectrumRow> spectra = OutputTables.spectrumRows(r.samples());
+            if (!spectra.isEmpty()) {
+                table(wb, st, OutputTables.SPECTRA, spectra, "", OutputTables.spectrumNotes(r.samples()));
+            }
             table(wb, st, OutputTables.data(r.samples()), OutputTables.dataRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
                     r.library().isEmpty() ? NO_LIBRARY : "", List.of());

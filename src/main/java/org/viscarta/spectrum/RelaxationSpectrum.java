@@ -32,6 +32,11 @@ import org.viscarta.sweep.SweepPoint;
  */
 public final class RelaxationSpectrum {
 
+    /**
+     * Fewest distinct frequencies a spectrum is computed from: with fewer, the regularised solution
+     * degenerates into a spike per frequency (a convention of this product).
+     */
+    public static final int MIN_FREQUENCIES = 8;
     /** Points of the τ grid per decade. */
     static final int PER_DECADE = 10;
     /** Decades the grid reaches beyond the measured window on each side. */
@@ -253,8 +258,10 @@ public final class RelaxationSpectrum {
             wMin = Math.min(wMin, w);
             wMax = Math.max(wMax, w);
         }
-        if (data.size() < 3) {
-            throw new IllegalArgumentException("a spectrum needs at least three points with positive moduli");
+        long distinct = data.stream().mapToLong(r -> Math.round(Math.log10(r[0]) * 1e4)).distinct().count();
+        if (distinct < MIN_FREQUENCIES) {
+            throw new IllegalArgumentException("a spectrum needs at least " + MIN_FREQUENCIES + " distinct frequencies with "
+                    + "positive moduli; these data have " + distinct);
         }
         double lo = Math.log10(1 / wMax) - MARGIN_DECADES;
         double hi = Math.log10(1 / wMin) + MARGIN_DECADES;

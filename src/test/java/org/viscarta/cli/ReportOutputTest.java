@@ -202,4 +202,31 @@ class ReportOutputTest {
             assertTrue(checked > 100 && plain && powers, checked + " values; plain and powers of ten both seen");
         }
     }
+
+    /** The Spectra sheet: H(τ) ≥ 0 inside its band for every sample with enough frequencies, each summarised in words below. */
+    @Test
+    void spectraSheetHoldsNonNegativeSpectraInsideTheirBands() throws IOException {
+        try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            org.apache.poi.ss.usermodel.Sheet sheet = wb.getSheet("Spectra");
+            java.util.Set<String> samples = new java.util.TreeSet<>();
+            java.util.Set<String> described = new java.util.TreeSet<>();
+            for (org.apache.poi.ss.usermodel.Row row : sheet) {
+                if (row.getRowNum() == 0 || row.getCell(0) == null) {
+                    continue;
+                }
+                if (row.getCell(2) != null && row.getCell(2).getCellType() == org.apache.poi.ss.usermodel.CellType.NUMERIC) {
+                    double h = row.getCell(2).getNumericCellValue();
+                    assertTrue(h >= 0 && row.getCell(3).getNumericCellValue() <= h + 1e-9 && h <= row.getCell(4).getNumericCellValue() + 1e-9,
+                            "row " + row.getRowNum());
+                    samples.add(row.getCell(0).getStringCellValue());
+                } else {
+                    String text = row.getCell(0).getStringCellValue();
+                    described.add(text.substring(0, Math.max(0, text.indexOf(": smoothing"))));
+                }
+            }
+            assertTrue(samples.contains("gelatin-10pct") && !samples.contains("alkyd-unaged-raw"),
+                    "sweeps with enough frequencies have spectra, the five-frequency raw sample not: " + samples);
+            assertEquals(samples, described, "every spectrum is summarised in words under the table");
+        }
+    }
 }
