@@ -17,8 +17,6 @@ import org.viscarta.report.OutputTables.SpectrumRow;
 import org.viscarta.spectrum.RelaxationSpectrum;
 import org.viscarta.table.Cells;
 import org.viscarta.table.CsvTable;
-import org.viscarta.table.Style;
-import org.viscarta.table.Table;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -45,15 +43,6 @@ final class SpectrumCommand implements Callable<Integer> {
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
-
-    /** The retardation spectrum's columns; the relaxation spectrum's are the report's ({@link OutputTables#SPECTRA}). */
-    private static final Table<SpectrumRow> RETARDATION = Table.<SpectrumRow>named("Retardation spectrum")
-            .column("sample", "sample", "", Style.TEXT, 28, SpectrumRow::sample)
-            .column("tau_s", "retardation time τ", "s", Style.SCIENTIFIC, 14, SpectrumRow::tau)
-            .column("l_per_pa", "L(τ)", "1/Pa", Style.SCIENTIFIC, 14, SpectrumRow::h)
-            .column("l_low_per_pa", "L 95 % band low", "1/Pa", Style.SCIENTIFIC, 14, SpectrumRow::low)
-            .column("l_high_per_pa", "L 95 % band high", "1/Pa", Style.SCIENTIFIC, 14, SpectrumRow::high)
-            .build();
 
     @Override
     public Integer call() throws java.io.IOException {
@@ -83,7 +72,7 @@ final class SpectrumCommand implements Callable<Integer> {
                     + "moduli a spectrum needs");
         }
         if (output.out != null) {
-            CsvTable.write(retardation ? RETARDATION : OutputTables.SPECTRA, rows, output.out, output.force);
+            CsvTable.write(OutputTables.spectra(retardation), rows, output.out, output.force);
         }
         return CommandLine.ExitCode.OK;
     }

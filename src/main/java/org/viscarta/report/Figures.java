@@ -447,10 +447,7 @@ public final class Figures {
         int panelsHeight = 0;
         for (Map.Entry<String, List<Sample>> e : byGroup.entrySet()) {
             XYPlot panel = tanDeltaPlot(e.getValue(), logAxis(shortName(e.getKey()) + ": tan δ [–]"));
-            org.jfree.chart.title.LegendTitle legend = new org.jfree.chart.title.LegendTitle(panel,
-                    new org.jfree.chart.block.ColumnArrangement(), new org.jfree.chart.block.ColumnArrangement());
-            legend.setItemFont(Palette.TICK);
-            legend.setBackgroundPaint(new Color(255, 255, 255, 150));
+            org.jfree.chart.title.LegendTitle legend = panelLegend(panel);
             // a panel is tall enough for its legend, which goes into the corner the data leave freest
             int entries = e.getValue().size();
             int height = Math.max(150, 24 + LEGEND_LINE_PT * entries);
@@ -466,13 +463,28 @@ public final class Figures {
             combined.add(panel, height);
             panelsHeight += height + 8;
         }
-        JFreeChart c = new JFreeChart("Loss tangent of every sample, by group", Palette.TITLE, combined, false);
+        JFreeChart c = stacked("Loss tangent of every sample, by group", combined);
+        int height = Math.max(Figure.HEIGHT_PT, 80 + panelsHeight);
+        return new Figure("tan-delta", caption + " One panel per group.", c, height);
+    }
+
+    /** A panel's own legend, one entry a line, on a half-transparent white ground (placed by a {@link CornerTitle}). */
+    private static org.jfree.chart.title.LegendTitle panelLegend(XYPlot panel) {
+        org.jfree.chart.title.LegendTitle legend = new org.jfree.chart.title.LegendTitle(panel,
+                new org.jfree.chart.block.ColumnArrangement(), new org.jfree.chart.block.ColumnArrangement());
+        legend.setItemFont(Palette.TICK);
+        legend.setBackgroundPaint(new Color(255, 255, 255, 150));
+        return legend;
+    }
+
+    /** A chart of panels stacked over one shared axis, each panel with its legend inside. */
+    private static JFreeChart stacked(String title, CombinedDomainXYPlot combined) {
+        JFreeChart c = new JFreeChart(title, Palette.TITLE, combined, false);
         for (Object p : combined.getSubplots()) {
             finish(c, (XYPlot) p);
         }
         c.setBackgroundPaint(Color.WHITE);
-        int height = Math.max(Figure.HEIGHT_PT, 80 + panelsHeight);
-        return new Figure("tan-delta", caption + " One panel per group.", c, height);
+        return c;
     }
 
     /** Where a spectrum's zero is drawn, relative to the largest H of its panel (a log axis cannot show zero). */
@@ -525,20 +537,13 @@ public final class Figures {
                 r.setSeriesStroke(i, Palette.line(i));
             }
             panel.setRenderer(r);
-            org.jfree.chart.title.LegendTitle legend = new org.jfree.chart.title.LegendTitle(panel,
-                    new org.jfree.chart.block.ColumnArrangement(), new org.jfree.chart.block.ColumnArrangement());
-            legend.setItemFont(Palette.TICK);
-            legend.setBackgroundPaint(new Color(255, 255, 255, 150));
+            org.jfree.chart.title.LegendTitle legend = panelLegend(panel);
             panel.addAnnotation(new CornerTitle(0.995, 0.98, legend, org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT));
             int height = Math.max(150, 24 + LEGEND_LINE_PT * data.getSeriesCount());
             combined.add(panel, height);
             panelsHeight += height + 8;
         }
-        JFreeChart c = new JFreeChart("Relaxation spectra H(τ), by group", Palette.TITLE, combined, false);
-        for (Object p : combined.getSubplots()) {
-            finish(c, (XYPlot) p);
-        }
-        c.setBackgroundPaint(Color.WHITE);
+        JFreeChart c = stacked("Relaxation spectra H(τ), by group", combined);
         return new Figure("spectra", "Relaxation spectra H(τ): how much modulus relaxes near each relaxation time τ, from E′ and "
                 + "E″ by regularised non-negative least squares over the measured window and half a decade beyond; peaks are "
                 + "relaxation processes, a curve still high at an end reaches beyond the measured frequencies; the bottom of each "

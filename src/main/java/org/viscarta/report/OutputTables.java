@@ -243,13 +243,22 @@ public final class OutputTables {
             .build();
 
     /** The relaxation spectrum of every sample (sheet Spectra; {@code spectrum -o} writes the same columns). */
-    public static final Table<SpectrumRow> SPECTRA = Table.<SpectrumRow>named("Spectra")
-            .column("sample", "sample", "", Style.TEXT, 28, SpectrumRow::sample)
-            .column("tau_s", "relaxation time τ", "s", Style.SCIENTIFIC, 14, SpectrumRow::tau)
-            .column("h_pa", "H(τ)", "Pa", Style.SCIENTIFIC, 14, SpectrumRow::h)
-            .column("h_low_pa", "H 95 % band low", "Pa", Style.SCIENTIFIC, 14, SpectrumRow::low)
-            .column("h_high_pa", "H 95 % band high", "Pa", Style.SCIENTIFIC, 14, SpectrumRow::high)
-            .build();
+    public static final Table<SpectrumRow> SPECTRA = spectra(false);
+
+    /** The columns of a relaxation spectrum H(τ) [Pa], or of a retardation spectrum L(τ) [1/Pa]. */
+    public static Table<SpectrumRow> spectra(boolean retardation) {
+        String id = retardation ? "l" : "h";
+        String per = retardation ? "_per_pa" : "_pa";
+        String unit = retardation ? "1/Pa" : "Pa";
+        String q = retardation ? "L" : "H";
+        return Table.<SpectrumRow>named(retardation ? "Retardation spectra" : "Spectra")
+                .column("sample", "sample", "", Style.TEXT, 28, SpectrumRow::sample)
+                .column("tau_s", (retardation ? "retardation" : "relaxation") + " time τ", "s", Style.SCIENTIFIC, 14, SpectrumRow::tau)
+                .column(id + per, q + "(τ)", unit, Style.SCIENTIFIC, 14, SpectrumRow::h)
+                .column(id + "_low" + per, q + " 95 % band low", unit, Style.SCIENTIFIC, 14, SpectrumRow::low)
+                .column(id + "_high" + per, q + " 95 % band high", unit, Style.SCIENTIFIC, 14, SpectrumRow::high)
+                .build();
+    }
 
     /** The rows of {@link #SPECTRA}. */
     public static List<SpectrumRow> spectrumRows(List<SampleAnalysis> samples) {

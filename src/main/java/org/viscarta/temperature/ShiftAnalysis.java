@@ -298,6 +298,11 @@ public final class ShiftAnalysis {
 
     /** Mean squared difference over the overlap when the cold curve is shifted by x decades; NaN when the overlap is too short. */
     private double misfit(Curve cold, Curve warm, double x) {
+        return misfit(cold, warm, x, vertical != Vertical.FITTED);
+    }
+
+    /** The same, of log tan δ alone or of log tan δ and log |E*|. */
+    private double misfit(Curve cold, Curve warm, double x, boolean withMagnitude) {
         double lo = Math.max(cold.logF()[0] + x, warm.logF()[0]);
         double hi = Math.min(cold.logF()[cold.logF().length - 1] + x, warm.logF()[warm.logF().length - 1]);
         if (hi - lo < minOverlapDecades) {
@@ -308,12 +313,22 @@ public final class ShiftAnalysis {
             double g = lo + (hi - lo) * k / (GRID - 1);
             double dt = interp(cold.logF(), cold.logTan(), g - x) - interp(warm.logF(), warm.logTan(), g);
             sum += dt * dt;
-            if (vertical != Vertical.FITTED) {
+            if (withMagnitude) {
                 double dm = interp(cold.logF(), cold.logMag(), g - x) - interp(warm.logF(), warm.logMag(), g);
                 sum += dm * dm;
             }
         }
-        return sum / (vertical == Vertical.FITTED ? GRID : 2 * GRID);
+        return sum / (withMagnitude ? 2 * GRID : GRID);
+    }
+
+    /** The minimum of a misfit within [lo, hi], searched from {@code start} (Brent's method; NaN counts as the worst). */
+    private static UnivariatePointValuePair refine(java.util.function.DoubleUnaryOperator misfit, double lo, double hi, double start,
+                                                   double tolerance) {
+        return new BrentOptimizer(tolerance, tolerance / 100).optimize(new MaxEval(200), GoalType.MINIMIZE,
+                new SearchInterval(lo, hi, Math.max(lo, Math.min(hi, start))), new UnivariateObjectiveFunction(x -> {
+                    double m = misfit.applyAsDouble(x);
+                    return Double.isNaN(m) ? Double.MAX_VALUE : m;
+                }));
     }
 
     private PairShift pair(Curve cold, Curve warm) {
@@ -337,11 +352,7 @@ public final class ShiftAnalysis {
         double lo = Math.max(xMin, bestX - 2 * SCAN_STEP);
         double hi = Math.min(xMax, bestX + 2 * SCAN_STEP);
         if (hi > lo) {
-            UnivariatePointValuePair r = new BrentOptimizer(1e-10, 1e-12).optimize(new MaxEval(200), GoalType.MINIMIZE,
-                    new SearchInterval(lo, hi, bestX), new UnivariateObjectiveFunction(x -> {
-                        double m = misfit(cold, warm, x);
-                        return Double.isNaN(m) ? Double.MAX_VALUE : m;
-                    }));
+            UnivariatePointValuePair r = refine(x -> misfit(cold, warm, x), lo, hi, bestX, 1e-10);
             if (r.getValue() <= best) {
                 bestX = r.getPoint();
                 best = r.getValue();
@@ -485,12 +496,7 @@ public final class ShiftAnalysis {
         if (!(hi > lo)) {
             return x0;
         }
-        UnivariatePointValuePair r = new BrentOptimizer(1e-8, 1e-10).optimize(new MaxEval(200), GoalType.MINIMIZE,
-                new SearchInterval(lo, hi, Math.max(lo, Math.min(hi, x0))), new UnivariateObjectiveFunction(x -> {
-                    double m = misfit(cold, warm, x);
-                    return Double.isNaN(m) ? Double.MAX_VALUE : m;
-                }));
-        return r.getPoint();
+        return refine(x -> misfit(cold, warm, x), lo, hi, x0, 1e-8).getPoint();
     }
 
     private static double sd(double[] v) {
@@ -583,7 +589,7 @@ public final class ShiftAnalysis {
         double bestX = Double.NaN;
         double best = Double.POSITIVE_INFINITY;
         for (double x = xMin; x <= xMax + 1e-12; x += SCAN_STEP) {
-            double m = phaseMisfit(cold, warm, x);
+            double m = misfit(cold, warm, x, false);
             if (m < best) {
                 best = m;
                 bestX = x;
@@ -594,27 +600,8 @@ public final class ShiftAnalysis {
         }
         double lo = Math.max(xMin, bestX - 2 * SCAN_STEP);
         double hi = Math.min(xMax, bestX + 2 * SCAN_STEP);
-        UnivariatePointValuePair r = new BrentOptimizer(1e-10, 1e-12).optimize(new MaxEval(200), GoalType.MINIMIZE,
-                new SearchInterval(lo, hi, bestX), new UnivariateObjectiveFunction(x -> {
-                    double m = phaseMisfit(cold, warm, x);
-                    return Double.isNaN(m) ? Double.MAX_VALUE : m;
-                }));
+        UnivariatePointValuePair r = refine(x -> misfit(cold, warm, x, false), lo, hi, bestX, 1e-10);
         return r.getValue() <= best ? r.getPoint() : bestX;
-    }
-
-    private double phaseMisfit(Curve cold, Curve warm, double x) {
-        double lo = Math.max(cold.logF()[0] + x, warm.logF()[0]);
-        double hi = Math.min(cold.logF()[cold.logF().length - 1] + x, warm.logF()[warm.logF().length - 1]);
-        if (hi - lo < minOverlapDecades) {
-            return Double.NaN;
-        }
-        double sum = 0;
-        for (int k = 0; k < GRID; k++) {
-            double g = lo + (hi - lo) * k / (GRID - 1);
-            double dt = interp(cold.logF(), cold.logTan(), g - x) - interp(warm.logF(), warm.logTan(), g);
-            sum += dt * dt;
-        }
-        return sum / GRID;
     }
 
     private static double min(double[] v) {
