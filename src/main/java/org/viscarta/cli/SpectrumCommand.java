@@ -82,8 +82,8 @@ final class SpectrumCommand implements Callable<Integer> {
         line(out, String.format(Locale.ROOT, "%s (%d replicate(s), %d points): %s spectrum on %d times %s–%s s", s.name(),
                 s.replicates().size(), r.points() / 2, retardation ? "retardation" : "relaxation", r.tau().length,
                 Cells.g4(r.tau()[0]), Cells.g4(r.tau()[r.tau().length - 1])));
-        line(out, String.format(Locale.ROOT, "  smoothing λ = %s (generalised cross-validation); data reproduced to %.1f %% RMS",
-                Cells.g4(r.lambda()), 100 * r.rmsRelative()));
+        line(out, String.format(Locale.ROOT, "  smoothing λ = %s (generalised cross-validation)%s; data reproduced to %.1f %% RMS",
+                Cells.g4(r.lambda()), RelaxationSpectrum.lambdaAtLimit(r), 100 * r.rmsRelative()));
         double top = java.util.Arrays.stream(r.h()).max().orElse(0);
         int last = r.h().length - 1;
         boolean shortEdge = r.h()[0] > 0.05 * top;

@@ -282,9 +282,10 @@ public final class OutputTables {
                 boolean edge = r.h()[0] > 0.05 * top || r.h()[r.h().length - 1] > 0.05 * top;
                 double[] eta = r.moment(1);
                 double[] mean = r.meanTime();
-                out.add(String.format(java.util.Locale.ROOT, "%s: smoothing λ = %s (generalised cross-validation), data reproduced "
-                        + "to %.1f %% RMS; equilibrium modulus %s ± %s Pa; ∫Hτ dlnτ = %s ± %s Pa·s; %s", sa.sample().name(),
-                        org.viscarta.table.Cells.g4(r.lambda()), 100 * r.rmsRelative(), org.viscarta.table.Cells.g4(r.constant()),
+                out.add(String.format(java.util.Locale.ROOT, "%s: smoothing λ = %s (generalised cross-validation)%s, data "
+                        + "reproduced to %.1f %% RMS; equilibrium modulus %s ± %s Pa; ∫Hτ dlnτ = %s ± %s Pa·s; %s", sa.sample().name(),
+                        org.viscarta.table.Cells.g4(r.lambda()), org.viscarta.spectrum.RelaxationSpectrum.lambdaAtLimit(r),
+                        100 * r.rmsRelative(), org.viscarta.table.Cells.g4(r.constant()),
                         org.viscarta.table.Cells.g4(r.constantSe()), org.viscarta.table.Cells.g4(eta[0]),
                         org.viscarta.table.Cells.g4(eta[1]), edge ? "the spectrum is still large at an end of the window: "
                         + "processes outside the measured frequencies, not placed by these data" : "weight-average relaxation "

@@ -147,7 +147,10 @@ public final class WorkbookReport {
         }
         if (!footer.isEmpty()) {
             rows.blank();
-            footer.forEach(rows::row);
+            int width = cols.stream().mapToInt(Column::width).sum();
+            for (String line : footer) {
+                rows.sentence(st.wrap, line, cols.size() - 1, width); // across the table's width, wrapped
+            }
         }
         widths(s, cols.stream().mapToInt(Column::width).toArray());
     }
@@ -431,7 +434,7 @@ public final class WorkbookReport {
             Row r = row(text);
             r.getCell(0).setCellStyle(style);
             sheet.addMergedRegion(new org.apache.poi.ss.util.CellRangeAddress(r.getRowNum(), r.getRowNum(), 0, lastColumn));
-            r.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, linesOf(text, width)) * 15f));
+            r.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, tableLinesOf(text, width)) * 15f));
             return r;
         }
 

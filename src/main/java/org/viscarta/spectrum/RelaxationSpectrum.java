@@ -46,6 +46,17 @@ public final class RelaxationSpectrum {
     private static final double LAMBDA_HIGH = 1;
     private static final int LAMBDA_STEPS = 26;
 
+    /** In words, when the λ chosen lies at an end of the range searched ("" otherwise). */
+    public static String lambdaAtLimit(Result r) {
+        if (r.lambda() >= Math.pow(10, LAMBDA_HIGH) * 0.999) {
+            return " (the largest λ searched: the data would take still smoother spectra)";
+        }
+        if (r.lambda() <= Math.pow(10, LAMBDA_LOW) * 1.001) {
+            return " (the smallest λ searched: the spectrum is hardly smoothed)";
+        }
+        return "";
+    }
+
     /** Relaxation H(τ) from E′, E″; or retardation L(τ) from J′, J″. */
     public enum Kind {
         RELAXATION, RETARDATION
