@@ -54,4 +54,17 @@ class SpectrumCommandTest {
         CliRun r = CliRun.of("spectrum", p.toString());
         assertEquals(2, r.exitCode(), r.out() + r.err());
     }
+
+    @Test
+    void qualityWritesOneRowPerSweepAndCheck() throws IOException {
+        Path csv = dir.resolve("quality.csv");
+        CliRun r = CliRun.of("quality", maxwell().toString(), "-o", csv.toString());
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("maxwell-liquid replicate"), r.out());
+        List<String> lines = Files.readAllLines(csv);
+        assertEquals("sample,replicate,check,verdict,value,limit,message", lines.get(0));
+        assertEquals(List.of("frequency-span", "points-per-decade", "loss-modulus-sign", "noise", "kramers-kronig"),
+                lines.stream().skip(1).map(l -> l.split(",")[2]).toList());
+        assertTrue(lines.stream().skip(1).allMatch(l -> l.split(",")[3].equals("pass")), String.join("\n", lines));
+    }
 }
