@@ -24,7 +24,7 @@ class FuzzTest {
 
     @Test
     void everyMutatedInputIsReadOrCleanlyRefusedAndNoneIsChanged() throws IOException {
-        Fuzz.Outcome o = Fuzz.run(20261202L, 2000, Duration.ofSeconds(40), dir);
+        Fuzz.Outcome o = Fuzz.run(20261202L, 2000, Duration.ofSeconds(30), dir);
         System.out.printf("fuzz: %d inputs, %d read, %d refused cleanly, %d other outcomes%n", o.trials(), o.read(), o.refused(),
                 o.failures().size());
         assertEquals(List.of(), o.failures());
