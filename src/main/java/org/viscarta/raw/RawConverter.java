@@ -259,8 +259,9 @@ public final class RawConverter {
             if (gap != null) {
                 double u = calibration.phaseUncertainty(seg.frequencyHz());
                 calibrationNote = String.format(Locale.ROOT, "drive frequency %.4g Hz lies between calibration points %.4g and %.4g Hz, "
-                        + "more than %.0f times apart: the instrument phase there is interpolated, uncertain by about %.2g rad "
-                        + "(tan δ by about %.2g); calibrate closer to this frequency", seg.frequencyHz(), gap[0], gap[1],
+                        + "more than %.0f times apart: the instrument phase there is interpolated and may be off by about %.2g rad "
+                        + "(tan δ by about %.2g; an estimate from how well a delay fits the calibration or how far two "
+                        + "interpolations differ, not a measured uncertainty); calibrate closer to this frequency", seg.frequencyHz(), gap[0], gap[1],
                         Calibration.WIDE_SPACING, u, u * (1 + Math.pow(e.getImaginary() / e.getReal(), 2)));
             }
             out.add(new Point(seg.frequencyHz(), e.getReal(), e.getImaginary(), se[0], se[1], d.forceThd,

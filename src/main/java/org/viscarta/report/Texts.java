@@ -140,7 +140,8 @@ public final class Texts {
                     + "such pairs too)."},
             new String[] {"Spectra", "For each sample, the distribution of relaxation times H(τ) its E′ and E″ support (how much "
                     + "modulus relaxes near each time; peaks are relaxation processes), over the measured window and half a decade "
-                    + "beyond, with a 95 % band; under the table, each sample's smoothing, equilibrium modulus, viscosity and mean "
+                    + "beyond, with a band from the measurement noise alone (the smoothing's own bias is not in it, so it is no "
+                    + "confidence interval); under the table, each sample's smoothing, equilibrium modulus, viscosity and mean "
                     + "relaxation time. Smoothing (Tikhonov regularisation, chosen by cross-validation) can merge close processes "
                     + "and does not show its own bias."},
             new String[] {"Data", "Every measured point as read, in SI units, with its file and line."},

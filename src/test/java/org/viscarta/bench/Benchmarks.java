@@ -57,6 +57,10 @@ public final class Benchmarks {
             fullRead(out, Long.parseLong(args[0]));
             return;
         }
+        if (args.length >= 2 && args[1].equals("spectrum-coverage-only")) {
+            spectrumCoverage(Integer.parseInt(args[0]));
+            return;
+        }
         if (args.length >= 2 && args[1].equals("workbook-only")) {
             workbook(out, Integer.parseInt(args[0]));
             return;
@@ -322,6 +326,47 @@ public final class Benchmarks {
             System.out.printf(Locale.ROOT, "for contrast, POI's object model opening a %d-row copy: peak heap %d MB%n",
                     wb.getSheetAt(0).getLastRowNum(), peakHeap() >> 20);
         }
+    }
+
+    /**
+     * Coverage of the spectrum's reported intervals over {@code runs} seeded synthetic sweeps with
+     * known truth (two Maxwell modes, 1e5 Pa at 0.01 s and 2e4 Pa at 1 s, E_e = 1e3 Pa, 41 frequencies
+     * 0.01–100 Hz, 2 % noise): how often value ± 1.96 SE holds E_e, η0 = Σ E_i τ_i and the
+     * weight-average time Σ E_i τ_i² / η0. Too slow for the test suite (GCV over 26 λ per sweep).
+     */
+    static void spectrumCoverage(int runs) {
+        double[] e = {1e5, 2e4};
+        double[] t = {0.01, 1.0};
+        double ee = 1e3;
+        double eta = e[0] * t[0] + e[1] * t[1];
+        double tw = (e[0] * t[0] * t[0] + e[1] * t[1] * t[1]) / eta;
+        int cEe = 0;
+        int cEta = 0;
+        int cTime = 0;
+        for (int k = 0; k < runs; k++) {
+            SplittableRandom rng = new SplittableRandom(1000 + k);
+            List<org.viscarta.sweep.SweepPoint> data = new ArrayList<>();
+            for (int i = 0; i < 41; i++) {
+                double f = 0.01 * Math.pow(1e4, i / 40.0);
+                double w = 2 * Math.PI * f;
+                double re = ee;
+                double im = 0;
+                for (int j = 0; j < 2; j++) {
+                    double x = w * t[j];
+                    re += e[j] * x * x / (1 + x * x);
+                    im += e[j] * x / (1 + x * x);
+                }
+                data.add(new org.viscarta.sweep.SweepPoint(f, re * Math.exp(0.02 * rng.nextGaussian()), im * Math.exp(0.02 * rng.nextGaussian()), i));
+            }
+            var r = org.viscarta.spectrum.RelaxationSpectrum.of(data, org.viscarta.spectrum.RelaxationSpectrum.Kind.RELAXATION);
+            double[] m1 = r.moment(1);
+            double[] mt = r.meanTime();
+            cEe += Math.abs(r.constant() - ee) <= 1.96 * r.constantSe() ? 1 : 0;
+            cEta += Math.abs(m1[0] - eta) <= 1.96 * m1[1] ? 1 : 0;
+            cTime += Math.abs(mt[0] - tw) <= 1.96 * mt[1] ? 1 : 0;
+        }
+        System.out.printf(Locale.ROOT, "spectrum intervals over %d seeded sweeps: E_e covered %.1f %%, η0 %.1f %%, weight-average time %.1f %%%n",
+                runs, 100.0 * cEe / runs, 100.0 * cEta / runs, 100.0 * cTime / runs);
     }
 
     static Path bigWorkbook(Path out, int thousands) throws IOException {
