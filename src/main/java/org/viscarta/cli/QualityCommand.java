@@ -6,8 +6,8 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.viscarta.analysis.Inputs;
 import org.viscarta.analysis.Sample;
-import org.viscarta.quality.KramersKronig;
 import org.viscarta.quality.SweepChecks;
+import org.viscarta.quality.Verdict;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.table.CsvTable;
 import org.viscarta.table.Style;
@@ -47,18 +47,17 @@ final class QualityCommand implements Callable<Integer> {
     @Override
     public Integer call() throws java.io.IOException {
         output.check();
-        Inputs c = Inputs.read(input.inputs, input.read.settings());
-        Warnings.print(spec, c);
+        Inputs c = input.readAndWarn(spec);
         PrintWriter out = spec.commandLine().getOut();
         List<SweepChecks.Check> all = new ArrayList<>();
         for (Sample s : c.samples()) {
             for (Sweep sw : s.replicates()) {
                 List<SweepChecks.Check> checks = SweepChecks.of(sw);
                 all.addAll(checks);
-                long bad = checks.stream().filter(k -> k.verdict() != KramersKronig.Verdict.PASS).count();
+                long bad = checks.stream().filter(k -> k.verdict() != Verdict.PASS).count();
                 out.println(s.name() + " replicate " + sw.replicate() + ": " + (bad == 0 ? "every check passes" : bad + " check(s) to look at"));
                 for (SweepChecks.Check k : checks) {
-                    if (k.verdict() != KramersKronig.Verdict.PASS) {
+                    if (k.verdict() != Verdict.PASS) {
                         out.println(Format.wrap("  " + k.verdict() + " " + k.check() + ": " + k.message(), 100, "    "));
                     }
                 }

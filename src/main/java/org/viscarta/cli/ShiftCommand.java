@@ -68,8 +68,7 @@ final class ShiftCommand implements Callable<Integer> {
                 AtomicOutput.checkWritable(outDir.resolve(f), force);
             }
         }
-        Inputs c = Inputs.read(input.inputs, input.read.settings());
-        Warnings.print(spec, c);
+        Inputs c = input.readAndWarn(spec);
         List<Sweep> sweeps = new ArrayList<>();
         java.util.Set<String> names = new java.util.TreeSet<>();
         for (Sample s : c.samples()) {

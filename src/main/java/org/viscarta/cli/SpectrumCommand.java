@@ -47,8 +47,7 @@ final class SpectrumCommand implements Callable<Integer> {
     @Override
     public Integer call() throws java.io.IOException {
         output.check();
-        Inputs c = Inputs.read(input.inputs, input.read.settings());
-        Warnings.print(spec, c);
+        Inputs c = input.readAndWarn(spec);
         PrintWriter out = spec.commandLine().getOut();
         RelaxationSpectrum.Kind kind = retardation ? RelaxationSpectrum.Kind.RETARDATION : RelaxationSpectrum.Kind.RELAXATION;
         List<SpectrumRow> rows = new ArrayList<>();

@@ -34,16 +34,6 @@ public final class KramersKronig {
     private static final int PER_DECADE = 3;
     private static final double MARGIN = 0.5;
 
-    /** pass, warn or fail. */
-    public enum Verdict {
-        PASS, WARN, FAIL;
-
-        @Override
-        public String toString() {
-            return name().toLowerCase(Locale.ROOT);
-        }
-    }
-
     /**
      * @param departure the largest residual as |ln(measured / fitted)|
      * @param limit     the limit of the component where it occurred

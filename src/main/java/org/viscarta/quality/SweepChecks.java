@@ -27,7 +27,7 @@ public final class SweepChecks {
      * @param value   the measured value (NaN when none)
      * @param limit   the limit it is held to (NaN when none)
      */
-    public record Check(String sample, String replicate, String check, KramersKronig.Verdict verdict, double value, double limit,
+    public record Check(String sample, String replicate, String check, Verdict verdict, double value, double limit,
                         String message) {
     }
 
@@ -42,21 +42,21 @@ public final class SweepChecks {
         double span = Math.log10(fMax / fMin);
         long distinct = pts.stream().mapToLong(p -> Math.round(Math.log10(p.frequencyHz()) * 1e4)).distinct().count();
         double perDecade = span > 0 ? (distinct - 1) / span : 0;
-        out.add(check(s, "frequency-span", span >= MIN_SPAN_DECADES ? KramersKronig.Verdict.PASS : KramersKronig.Verdict.WARN, span,
+        out.add(check(s, "frequency-span", span >= MIN_SPAN_DECADES ? Verdict.PASS : Verdict.WARN, span,
                 MIN_SPAN_DECADES, String.format(Locale.ROOT, "the sweep spans %.2f decades of frequency%s", span,
                         span >= MIN_SPAN_DECADES ? "" : "; less than one decade tells little about how the material changes with rate")));
-        out.add(check(s, "points-per-decade", perDecade >= MIN_POINTS_PER_DECADE ? KramersKronig.Verdict.PASS : KramersKronig.Verdict.WARN,
+        out.add(check(s, "points-per-decade", perDecade >= MIN_POINTS_PER_DECADE ? Verdict.PASS : Verdict.WARN,
                 perDecade, MIN_POINTS_PER_DECADE, String.format(Locale.ROOT, "%.1f frequencies a decade%s", perDecade,
                         perDecade >= MIN_POINTS_PER_DECADE ? "" : "; fewer than three leave a model's shape poorly pinned down")));
         long nonPositive = pts.stream().filter(p -> !(p.loss() > 0)).count();
-        out.add(check(s, "loss-modulus-sign", nonPositive == 0 ? KramersKronig.Verdict.PASS : KramersKronig.Verdict.FAIL, nonPositive, 0,
+        out.add(check(s, "loss-modulus-sign", nonPositive == 0 ? Verdict.PASS : Verdict.FAIL, nonPositive, 0,
                 nonPositive == 0 ? "every loss modulus is positive" : nonPositive + " point(s) with a loss modulus of zero or below: "
                         + "no passive material dissipates negative energy; check the phase calibration"));
         List<SweepPoint> usable = s.fittablePoints();
         KramersKronig.Result kk = KramersKronig.check(usable);
         if (Double.isFinite(kk.residualNoise())) {
             double noise = kk.residualNoise();
-            out.add(check(s, "noise", noise <= NOISE_WARN ? KramersKronig.Verdict.PASS : KramersKronig.Verdict.WARN, noise, NOISE_WARN,
+            out.add(check(s, "noise", noise <= NOISE_WARN ? Verdict.PASS : Verdict.WARN, noise, NOISE_WARN,
                     String.format(Locale.ROOT, "scatter of the moduli about a smooth, causal curve: about %.1f %%%s", 100 * noise,
                             noise <= NOISE_WARN ? "" : ", more than 5 %: replicates or a longer measurement would help")));
         }
@@ -64,7 +64,7 @@ public final class SweepChecks {
         return out;
     }
 
-    private static Check check(Sweep s, String id, KramersKronig.Verdict v, double value, double limit, String message) {
+    private static Check check(Sweep s, String id, Verdict v, double value, double limit, String message) {
         return new Check(s.sample(), s.replicate(), id, v, value, limit, message);
     }
 }

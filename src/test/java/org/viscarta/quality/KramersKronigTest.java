@@ -48,7 +48,7 @@ class KramersKronigTest {
             }
             for (double[] p : model.startValues(base)) {
                 KramersKronig.Result r = KramersKronig.check(sweep(model, p, 7 + checked, 0.02));
-                assertEquals(KramersKronig.Verdict.PASS, r.verdict(), model.id() + " " + java.util.Arrays.toString(p) + ": " + r.message());
+                assertEquals(Verdict.PASS, r.verdict(), model.id() + " " + java.util.Arrays.toString(p) + ": " + r.message());
                 checked++;
             }
         }
@@ -64,8 +64,8 @@ class KramersKronigTest {
             bad.add(new SweepPoint(p.frequencyHz(), p.storage(), p.loss() * (hit ? 1.3 : 1), p.line()));
         }
         KramersKronig.Result r = KramersKronig.check(bad);
-        assertEquals(KramersKronig.Verdict.FAIL, r.verdict(), r.message());
+        assertEquals(Verdict.FAIL, r.verdict(), r.message());
         assertTrue(r.fromHz() >= 0.5 && r.toHz() <= 80, "the band named lies around the distorted one: " + r.fromHz() + "–" + r.toHz());
-        assertEquals(KramersKronig.Verdict.PASS, KramersKronig.check(good).verdict(), KramersKronig.check(good).message());
+        assertEquals(Verdict.PASS, KramersKronig.check(good).verdict(), KramersKronig.check(good).message());
     }
 }

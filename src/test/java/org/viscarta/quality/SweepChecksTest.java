@@ -40,7 +40,7 @@ class SweepChecksTest {
     void aGoodSweepPassesAndItsNoiseIsMeasured() {
         List<SweepChecks.Check> c = SweepChecks.of(zener(31, 0.01, 100, 0.02, false));
         for (SweepChecks.Check k : c) {
-            assertEquals(KramersKronig.Verdict.PASS, k.verdict(), k.check() + ": " + k.message());
+            assertEquals(Verdict.PASS, k.verdict(), k.check() + ": " + k.message());
         }
         assertEquals(0.02, find(c, "noise").value(), 0.008, "2 % noise on each modulus");
         assertEquals(4, find(c, "frequency-span").value(), 1e-9);
@@ -50,11 +50,11 @@ class SweepChecksTest {
     @Test
     void narrowSparseAndNegativeSweepsAreNamed() {
         List<SweepChecks.Check> narrow = SweepChecks.of(zener(9, 1, 5, 0.02, false));
-        assertEquals(KramersKronig.Verdict.WARN, find(narrow, "frequency-span").verdict());
+        assertEquals(Verdict.WARN, find(narrow, "frequency-span").verdict());
         List<SweepChecks.Check> sparse = SweepChecks.of(zener(5, 0.01, 100, 0.02, false));
-        assertEquals(KramersKronig.Verdict.WARN, find(sparse, "points-per-decade").verdict());
+        assertEquals(Verdict.WARN, find(sparse, "points-per-decade").verdict());
         List<SweepChecks.Check> negative = SweepChecks.of(zener(31, 0.01, 100, 0.02, true));
-        assertEquals(KramersKronig.Verdict.FAIL, find(negative, "loss-modulus-sign").verdict());
+        assertEquals(Verdict.FAIL, find(negative, "loss-modulus-sign").verdict());
         assertEquals(1, find(negative, "loss-modulus-sign").value());
     }
 }
