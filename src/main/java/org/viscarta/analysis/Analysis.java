@@ -18,6 +18,8 @@ import org.viscarta.io.UsageException;
 import org.viscarta.library.ReferenceLibrary;
 import org.viscarta.model.ModelCatalogue;
 import org.viscarta.model.ViscoelasticModel;
+import org.viscarta.quality.Assessment;
+import org.viscarta.quality.SweepChecks;
 import org.viscarta.sweep.BasisConversion;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
@@ -48,6 +50,16 @@ public final class Analysis {
         Optional<ReferenceLibrary> library = request.library().map(ReferenceLibrary::open);
         progress.stage(Progress.Stage.READING, 0);
         Inputs inputs = Inputs.read(request.inputs(), request.reading());
+        Assessment quality = Assessment.none();
+        List<SweepChecks.Check> dropped = List.of();
+        if (request.parts().contains(AnalysisRequest.Part.QUALITY) || request.quality().dropOutliers()) {
+            progress.stage(Progress.Stage.CHECKING, 0);
+            quality = assess(inputs, request.quality());
+            if (request.quality().dropOutliers()) {
+                dropped = quality.outliers();
+                inputs = inputs.withoutReplicates(dropped);
+            }
+        }
         List<TemperatureSeries> series = List.of();
         if (request.masterCurves().isPresent()) {
             progress.stage(Progress.Stage.MASTER_CURVES, 0);
@@ -97,7 +109,16 @@ public final class Analysis {
         }
         Optional<AnalysisResult.Mimic> mimic = mimic(request, samples, distance);
         progress.stage(Progress.Stage.DONE, 0);
-        return new AnalysisResult(request, inputs, series, samples, ranking, library, references, mimic);
+        return new AnalysisResult(request, inputs, series, samples, ranking, library, references, mimic, quality, dropped);
+    }
+
+    /** Every quality check of the samples as read (by display name) and of the amplitude sweeps. */
+    private static Assessment assess(Inputs inputs, QualitySettings settings) {
+        Map<String, List<Sweep>> bySample = new java.util.LinkedHashMap<>();
+        for (Sample s : inputs.samples()) {
+            bySample.put(s.name(), s.replicates());
+        }
+        return Assessment.of(bySample, inputs.amplitudeSweeps(), settings.linearDeparture());
     }
 
     /**

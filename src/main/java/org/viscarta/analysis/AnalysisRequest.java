@@ -34,11 +34,12 @@ import org.viscarta.sweep.ModulusKind;
  * @param masterCurves how samples measured at several temperatures are superposed (empty: no master curves)
  * @param timeGrid     times [s] at which every fitted model's E(t) and J(t) are evaluated (empty: none)
  * @param parts        what to compute beyond reading
+ * @param quality      how the quality checks run (and whether outlying replicates are left out)
  */
 public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<String> modelIds, Weighting weighting,
                               RankingPoint rankingPoint, DampingRanking.OutsideRange outsideRange, double alpha, ComparableSets sets,
                               Optional<Path> library, MatchSettings matching, Target target, Optional<MasterCurves> masterCurves,
-                              List<Double> timeGrid, Set<Part> parts) {
+                              List<Double> timeGrid, Set<Part> parts, QualitySettings quality) {
 
     /** What an analysis computes beyond reading. */
     public enum Part {
@@ -49,7 +50,9 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         /** Every sample against the reference library (needs a library). */
         MATCHES,
         /** The relaxation spectrum H(τ) of every sample. */
-        SPECTRA
+        SPECTRA,
+        /** The quality checks of every sweep, replicate set and amplitude sweep. */
+        QUALITY
     }
 
     public AnalysisRequest {
@@ -71,6 +74,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         Objects.requireNonNull(matching, "matching");
         Objects.requireNonNull(target, "target");
         Objects.requireNonNull(masterCurves, "masterCurves");
+        Objects.requireNonNull(quality, "quality");
         if (!(alpha > 0 && alpha < 1)) {
             throw new IllegalArgumentException("the significance level must lie in (0, 1), got " + alpha);
         }
@@ -119,6 +123,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         private Optional<MasterCurves> masterCurves = Optional.empty();
         private List<Double> timeGrid = List.of();
         private final Set<Part> parts = EnumSet.noneOf(Part.class);
+        private QualitySettings quality = QualitySettings.defaults();
 
         private Builder(List<Path> inputs) {
             this.inputs = new ArrayList<>(inputs);
@@ -199,6 +204,16 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
             return this;
         }
 
+        /** The quality settings so far. */
+        public QualitySettings qualitySettings() {
+            return quality;
+        }
+
+        public Builder quality(QualitySettings q) {
+            this.quality = q;
+            return this;
+        }
+
         public Builder target(Target t) {
             this.target = t;
             return this;
@@ -224,7 +239,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
 
         public AnalysisRequest build() {
             return new AnalysisRequest(inputs, new ReadSettings(declaredKind, basis, poisson, columns, badFiles, groupBy), modelIds, weighting,
-                    rankingPoint, outsideRange, alpha, sets, library, matching, target, masterCurves, timeGrid, parts);
+                    rankingPoint, outsideRange, alpha, sets, library, matching, target, masterCurves, timeGrid, parts, quality);
         }
     }
 }

@@ -7,6 +7,8 @@ import java.util.Optional;
 import org.viscarta.compare.DampingRanking;
 import org.viscarta.compare.Matcher;
 import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.quality.Assessment;
+import org.viscarta.quality.SweepChecks;
 import org.viscarta.temperature.TemperatureSeries;
 
 /**
@@ -38,10 +40,15 @@ public final class AnalysisResult {
     private final Optional<Mimic> mimic;
     private final Map<Sample, DampingRanking.Row<Sample>> rankOf = new IdentityHashMap<>();
     private final Map<Sample, String> setOf;
+    private final Assessment quality;
+    private final List<SweepChecks.Check> dropped;
 
     AnalysisResult(AnalysisRequest request, Inputs inputs, List<TemperatureSeries> series, List<SampleAnalysis> samples,
                    Optional<Ranking> ranking, Optional<ReferenceLibrary> library,
-                   List<Matcher.Candidate> references, Optional<Mimic> mimic) {
+                   List<Matcher.Candidate> references, Optional<Mimic> mimic, Assessment quality,
+                   List<SweepChecks.Check> dropped) {
+        this.quality = quality;
+        this.dropped = List.copyOf(dropped);
         this.request = request;
         this.inputs = inputs;
         this.series = List.copyOf(series);
@@ -52,6 +59,16 @@ public final class AnalysisResult {
         this.mimic = mimic;
         ranking.ifPresent(r -> r.rows().forEach(row -> rankOf.put(row.subject(), row)));
         this.setOf = ranking.map(Ranking::setLabels).orElse(Map.of());
+    }
+
+    /** The quality checks (none unless asked for, or needed to leave outliers out). */
+    public Assessment quality() {
+        return quality;
+    }
+
+    /** The replicates left out as outliers, on request (empty otherwise). */
+    public List<SweepChecks.Check> droppedReplicates() {
+        return dropped;
     }
 
     /** What was asked. */

@@ -29,21 +29,50 @@ import org.viscarta.sweep.Numbers;
  * @param samples  the samples, in reading order
  * @param warnings warnings from reading, including the files left out
  * @param notes    conversions that were applied
+ * @param amplitudeSweeps amplitude sweeps (linearity tests at one frequency), kept apart from the samples
  */
-public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarning> warnings, List<String> notes) {
+public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarning> warnings, List<String> notes,
+                     List<Sweep> amplitudeSweeps) {
 
     public Inputs {
         files = List.copyOf(files);
         samples = List.copyOf(samples);
+        amplitudeSweeps = List.copyOf(amplitudeSweeps);
         warnings = List.copyOf(warnings);
         notes = List.copyOf(notes);
+    }
+
+    /**
+     * The same inputs without the given replicates (sample display name and replicate), a sample
+     * keeping at least its other replicates; a note says which were left out.
+     */
+    Inputs withoutReplicates(List<org.viscarta.quality.SweepChecks.Check> leftOut) {
+        if (leftOut.isEmpty()) {
+            return this;
+        }
+        List<Sample> kept = new ArrayList<>();
+        List<String> more = new ArrayList<>(notes);
+        for (Sample s : samples) {
+            List<Sweep> reps = s.replicates().stream().filter(r -> leftOut.stream()
+                    .noneMatch(c -> c.sample().equals(s.name()) && c.replicate().equals(r.replicate()))).toList();
+            if (reps.size() < s.replicates().size() && !reps.isEmpty()) {
+                List<String> gone = s.replicates().stream().map(Sweep::replicate).filter(r -> reps.stream()
+                        .noneMatch(k -> k.replicate().equals(r))).toList();
+                more.add("sample '" + s.name() + "': replicate" + (gone.size() == 1 ? " " : "s ") + String.join(", ", gone)
+                        + " left out of every analysis as an outlier (--drop-outliers)");
+                kept.add(new Sample(s.name(), s.group(), s.kind(), s.temperatureC(), reps));
+            } else {
+                kept.add(s);
+            }
+        }
+        return new Inputs(files, kept, warnings, more, amplitudeSweeps);
     }
 
     /** The same inputs with more samples (master curves built from temperature series), analysed like the others. */
     Inputs withSamples(List<Sample> extra) {
         List<Sample> all = new ArrayList<>(samples);
         all.addAll(extra);
-        return new Inputs(files, all, warnings, notes);
+        return new Inputs(files, all, warnings, notes, amplitudeSweeps);
     }
 
     /**
@@ -61,6 +90,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         List<String> notes = new ArrayList<>();
         Map<String, List<Sweep>> bySample = new LinkedHashMap<>();
         Map<String, Path> replicateSeen = new LinkedHashMap<>();
+        List<Sweep> amplitudeSweeps = new ArrayList<>();
         List<Path> all = InputCollector.collect(inputs);
         for (Path file : all) {
             SweepFile sf;
@@ -80,6 +110,10 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             files.add(sf);
             warnings.addAll(sf.warnings());
             for (Sweep s : sf.sweeps()) {
+                if (s.isAmplitudeSweep()) {
+                    amplitudeSweeps.add(s);
+                    continue;
+                }
                 Sweep sweep = s;
                 if (settings.groupBy().isPresent()) {
                     String attribute = settings.groupBy().get();
@@ -116,7 +150,11 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         if (files.isEmpty() && !skipped.isEmpty()) {
             throw skipped.get(0);
         }
-        return assemble(settings, files, bySample, warnings, notes);
+        if (!amplitudeSweeps.isEmpty()) {
+            notes.add(amplitudeSweeps.size() + (amplitudeSweeps.size() == 1 ? " amplitude sweep" : " amplitude sweeps")
+                    + " (amplitude varied at one frequency) read as linearity tests and kept apart from the frequency sweeps");
+        }
+        return assemble(settings, files, bySample, warnings, notes, amplitudeSweeps);
     }
 
     /**
@@ -166,7 +204,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
     }
 
     private static Inputs assemble(ReadSettings settings, List<SweepFile> files, Map<String, List<Sweep>> bySample,
-                                   List<ReadWarning> warnings, List<String> notes) {
+                                   List<ReadWarning> warnings, List<String> notes, List<Sweep> amplitudeSweeps) {
         Map<String, Long> temperaturesPerName = bySample.values().stream()
                 .collect(Collectors.groupingBy(l -> l.get(0).sample(), Collectors.counting()));
         List<Sample> samples = new ArrayList<>();
@@ -190,7 +228,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             warnings.add(new ReadWarning(Path.of("(inputs)"), 0, "the inputs mix tensile (E) and shear (G) moduli; "
                     + "tan δ compares fine, but moduli do not: pass --basis tensile or --basis shear (with --poisson) to convert"));
         }
-        return new Inputs(files, samples, warnings, notes);
+        return new Inputs(files, samples, warnings, notes, amplitudeSweeps);
     }
 
     /** True when an input says it is invented demo data. */

@@ -2,6 +2,7 @@ package org.viscarta.analysis;
 
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.stream.Collectors;
 import org.viscarta.compare.DampingRanking;
@@ -93,6 +94,36 @@ public final class Statements {
                 : "E(t) and J(t) of every fitted model at " + r.timeGrid().size() + " times from "
                         + Numbers.plain(r.timeGrid().get(0)) + " to " + Numbers.plain(r.timeGrid().get(r.timeGrid().size() - 1)) + " s");
         return m;
+    }
+
+    /** The limits the quality checks hold the data to, each with its source. */
+    public static final List<String> QUALITY_LIMITS = List.of(
+            "kramers-kronig: E′ and E″ fitted together by a causal, linear material (Maxwell modes on a fixed grid of times, "
+                    + "after Schönleber, Klotz and Ivers-Tiffée 2014); fail where two or more neighbouring points depart by more "
+                    + "than three times the noise (a convention of this product)",
+            "linear-range: the amplitude where E′ leaves its small-amplitude plateau by the stated percentage (5 % by default, "
+                    + "common practice); a frequency sweep measured above its sample's limit fails",
+            "replicate-outlier: modified z-score of the log moduli against the other replicates above 3.5 (Iglewicz and "
+                    + "Hoaglin 1993), median over the common band, spread floored at 5 % (a convention of this product)",
+            "film-thickness: indentation depth at most 10 % of the film's thickness (a common rule of thumb, not a standard)",
+            "points-per-decade at least 3, frequency-span at least one decade, noise at most 5 %, storage-monotonic (E′ may "
+                    + "not fall with frequency beyond four times the noise): conventions of this product; loss-modulus-sign: "
+                    + "E″ > 0 for any passive material");
+
+    /** What the quality checks found, in one sentence, and which replicates were left out on request. */
+    public static List<String> qualitySummary(AnalysisResult r) {
+        List<org.viscarta.quality.SweepChecks.Check> all = r.quality().checks();
+        long warn = all.stream().filter(c -> c.verdict() == org.viscarta.quality.Verdict.WARN).count();
+        long fail = all.stream().filter(c -> c.verdict() == org.viscarta.quality.Verdict.FAIL).count();
+        List<String> out = new java.util.ArrayList<>();
+        out.add(all.size() + " checks: " + (all.size() - warn - fail) + " pass, " + warn + " warn, " + fail + " fail"
+                + (r.quality().linearRanges().isEmpty() ? "" : "; " + r.quality().linearRanges().size() + " amplitude sweep(s)")
+                + ". A warning asks for a look; a failure means the numbers concerned should not be used as they are.");
+        if (!r.droppedReplicates().isEmpty()) {
+            out.add("Left out of every analysis on request (--drop-outliers): " + r.droppedReplicates().stream()
+                    .map(c -> c.sample() + " replicate " + c.replicate()).collect(Collectors.joining(", ")) + ".");
+        }
+        return out;
     }
 
     private static String target(Target t) {

@@ -36,9 +36,16 @@ final class RankOptions {
     @Option(names = "--within-groups", description = "Rank only within each group (the group column or '# group:' line).")
     boolean withinGroups;
 
+    @Option(names = "--drop-outliers", description = "Leave out replicates whose curve departs from the sample's other "
+            + "replicates (modified z-score above 3.5, Iglewicz and Hoaglin 1993; three replicates or more); every output names them.")
+    boolean dropOutliers;
+
     AnalysisRequest.Builder applyTo(AnalysisRequest.Builder b, CommandLine cl) {
         b.sets(new ComparableSets(temperatureTolerance, withinGroups)).alpha(alpha).outsideRange(modelOutsideRange ? DampingRanking.OutsideRange.BEST_MODEL : DampingRanking.OutsideRange.NOT_REPORTED)
                 .compute(AnalysisRequest.Part.RANKING);
+        if (dropOutliers) {
+            b.quality(new org.viscarta.analysis.QualitySettings(b.qualitySettings().linearDeparture(), true));
+        }
         if (band == null) {
             return b.rankingPoint(new RankingPoint.At(atHz));
         }

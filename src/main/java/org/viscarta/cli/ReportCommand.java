@@ -30,6 +30,7 @@ final class ReportCommand implements Callable<Integer> {
     @Mixin LibraryOption library;
     @Mixin RankOptions rankOptions;
     @Mixin ReportOptions report;
+    @Mixin QualityOptions quality;
     @Mixin OutputOptions output;
 
     @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -40,8 +41,8 @@ final class ReportCommand implements Callable<Integer> {
             throw new CommandLine.ParameterException(spec.commandLine(), "report needs --out DIR, the folder to write into");
         }
         AnalysisRequest request = Requests.build(spec, () -> {
-            AnalysisRequest.Builder b = report.applyTo(rankOptions.applyTo(models.applyTo(input.request()), spec.commandLine()))
-                    .compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.SPECTRA);
+            AnalysisRequest.Builder b = quality.applyTo(report.applyTo(rankOptions.applyTo(models.applyTo(input.request()),
+                    spec.commandLine())), rankOptions.dropOutliers).compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.SPECTRA);
             library.folderIfNamed().ifPresent(dir -> b.library(dir).compute(AnalysisRequest.Part.MATCHES));
             return b;
         });

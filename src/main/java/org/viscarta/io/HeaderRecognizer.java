@@ -100,6 +100,12 @@ final class HeaderRecognizer {
             Map.entry("replicate", named(Quantity.REPLICATE, null)),
             Map.entry("rep", named(Quantity.REPLICATE, null)),
             Map.entry("group", named(Quantity.GROUP, null)),
+            Map.entry("strain_amplitude", named(Quantity.STRAIN_AMPLITUDE, null)),
+            Map.entry("shear_strain_amplitude", named(Quantity.STRAIN_AMPLITUDE, ModulusKind.SHEAR)),
+            Map.entry("stress_amplitude", named(Quantity.STRESS_AMPLITUDE, null)),
+            Map.entry("shear_stress_amplitude", named(Quantity.STRESS_AMPLITUDE, ModulusKind.SHEAR)),
+            Map.entry("force_amplitude", named(Quantity.FORCE_AMPLITUDE, null)),
+            Map.entry("displacement_amplitude", named(Quantity.DISPLACEMENT_AMPLITUDE, null)),
             Map.entry("x", named(Quantity.POSITION_X, null)),
             Map.entry("y", named(Quantity.POSITION_Y, null)));
 
@@ -133,7 +139,7 @@ final class HeaderRecognizer {
             "n", "strain", "shear_strain", "stress", "shear_stress", "torque", "normal_force", "normal_stress", "force", "axial_force",
             "gap", "time", "step", "step_time", "interval", "displacement", "amplitude", "deflection", "status", "shear_rate",
             "raw_phase", "cycle", "oscillation_strain", "osc._strain", "osc_strain", "deformation", "velocity", "speed",
-            "static_force", "dynamic_force", "strain_amplitude", "stress_amplitude", "motor", "date", "clock");
+            "static_force", "dynamic_force", "motor", "date", "clock");
 
     /** True when a header names a column lab exports carry but the analysis does not need. */
     static boolean unneeded(String rawHeader) {
@@ -203,7 +209,10 @@ final class HeaderRecognizer {
         }
         Optional<Unit> unit;
         if (unitText == null) {
-            if (q.dimension() == Quantity.Dimension.NONE) {
+            if (q == Quantity.STRAIN_AMPLITUDE) {
+                return new Result(null, "column header " + InputException.quote(header) + " gives no unit; a strain amplitude is "
+                        + "written in % or as a fraction: 'strain_amplitude [%]' or 'strain_amplitude [-]'");
+            } else if (q.dimension() == Quantity.Dimension.NONE) {
                 unit = Optional.of(Unit.DIMENSIONLESS);
             } else if (q == Quantity.ANGULAR_FREQUENCY && !key.equals("angular_frequency")) {
                 unit = Optional.of(Unit.RAD_PER_S);

@@ -456,7 +456,14 @@ public final class SweepReader {
         /** Starts a block under a header with its metadata. */
         void block(Header header, Map<String, String> blockMetadata, Map<String, Integer> metadataLines) {
             hd = header;
-            metadata = Map.copyOf(blockMetadata);
+            ColumnSpec amplitude = amplitudeColumn(header.byQuantity());
+            if (amplitude != null) {
+                Map<String, String> m = new LinkedHashMap<>(blockMetadata);
+                m.put(Sweep.AMPLITUDE_COLUMN, amplitude.quantity().canonical());
+                metadata = Map.copyOf(m);
+            } else {
+                metadata = Map.copyOf(blockMetadata);
+            }
             block++;
             defaultSample = blockMetadata.getOrDefault("sample", stem(path));
             replicateGiven = blockMetadata.containsKey("replicate");
@@ -516,7 +523,7 @@ public final class SweepReader {
                 }
                 lastTemperature = cell;
             }
-            SweepPoint p = point(rec, q, dm, path, line);
+            SweepPoint p = point(rec, q, dm, path, line, hd.fixedFrequencyHz());
             if (p == null) {
                 skipped++;
                 if (skippedLines.size() < 5) {
@@ -708,7 +715,7 @@ public final class SweepReader {
      * @param redundantTangent a tan δ or phase column beside E′ and E″, checked against them (null for none)
      */
     private record Header(int line, List<ColumnSpec> columns, Map<Quantity, ColumnSpec> byQuantity, ModulusKind kind, int width,
-                          List<Integer> unnamed, ColumnSpec redundantTangent) {
+                          List<Integer> unnamed, ColumnSpec redundantTangent, double fixedFrequencyHz) {
         String redundantTangentHeader() {
             return redundantTangent == null ? "" : redundantTangent.header();
         }
@@ -773,11 +780,26 @@ public final class SweepReader {
             columns.add(spec);
         }
         boolean hasFrequency = byQuantity.containsKey(Quantity.FREQUENCY) || byQuantity.containsKey(Quantity.ANGULAR_FREQUENCY);
-        if (!required && !hasFrequency) {
+        ColumnSpec amplitude = amplitudeColumn(byQuantity);
+        if (!required && !hasFrequency && amplitude == null) {
             return null;
         }
+        double fixedHz = Double.NaN;
+        if (!hasFrequency && amplitude != null && metadata.containsKey("frequency")) {
+            int at = metadataLines.getOrDefault("frequency", headerLine);
+            try {
+                Unit.Valued v = Unit.parse(metadata.get("frequency").strip(), Quantity.Dimension.FREQUENCY, Quantity.Dimension.ANGULAR_FREQUENCY);
+                fixedHz = v.dimension() == Quantity.Dimension.ANGULAR_FREQUENCY ? v.si() / (2 * Math.PI) : v.si();
+            } catch (IllegalArgumentException e) {
+                throw new InputException(path, at, 0, "'frequency: " + metadata.get("frequency") + "' is not understood ("
+                        + e.getMessage() + "); write e.g. 'frequency: 1 Hz'");
+            }
+            if (!(fixedHz > 0) || Double.isInfinite(fixedHz)) {
+                throw new InputException(path, at, 0, "the amplitude sweep's frequency must be greater than zero");
+            }
+        }
         try {
-            checkRequiredColumns(path, headerLine, byQuantity);
+            checkRequiredColumns(path, headerLine, byQuantity, amplitude, !Double.isNaN(fixedHz));
         } catch (InputException e) {
             if (unknown.isEmpty()) {
                 throw e;
@@ -813,7 +835,7 @@ public final class SweepReader {
             }
         }
         ModulusKind kind = resolveKind(path, headerLine, byQuantity, metadata, metadataLines, warnings);
-        return new Header(headerLine, columns, byQuantity, kind, cells.size(), unnamed, redundant);
+        return new Header(headerLine, columns, byQuantity, kind, cells.size(), unnamed, redundant, fixedHz);
     }
 
     /** The --column mapping of a header, looked up as written and without a units row's unit. */
@@ -979,10 +1001,30 @@ public final class SweepReader {
         }
     }
 
-    private static void checkRequiredColumns(Path path, int headerLine, Map<Quantity, ColumnSpec> q) {
-        if (!q.containsKey(Quantity.FREQUENCY) && !q.containsKey(Quantity.ANGULAR_FREQUENCY)) {
-            throw new InputException(path, headerLine, 0,
-                    "no frequency column; add one named 'frequency [Hz]' or 'angular_frequency [rad/s]'");
+    /** The amplitude columns a table may carry; an amplitude sweep varies one of them at a fixed frequency. */
+    private static final List<Quantity> AMPLITUDES = List.of(Quantity.STRAIN_AMPLITUDE, Quantity.STRESS_AMPLITUDE,
+            Quantity.FORCE_AMPLITUDE, Quantity.DISPLACEMENT_AMPLITUDE);
+
+    /** The table's amplitude column (the first of {@link #AMPLITUDES} present), or null. */
+    private static ColumnSpec amplitudeColumn(Map<Quantity, ColumnSpec> q) {
+        for (Quantity a : AMPLITUDES) {
+            if (q.containsKey(a)) {
+                return q.get(a);
+            }
+        }
+        return null;
+    }
+
+    /**
+     * @param amplitude      the table's amplitude column, or null
+     * @param fixedFrequency whether the preamble gives the frequency (allowed for an amplitude sweep without a frequency column)
+     */
+    private static void checkRequiredColumns(Path path, int headerLine, Map<Quantity, ColumnSpec> q, ColumnSpec amplitude,
+                                             boolean fixedFrequency) {
+        if (!q.containsKey(Quantity.FREQUENCY) && !q.containsKey(Quantity.ANGULAR_FREQUENCY) && !fixedFrequency) {
+            throw new InputException(path, headerLine, 0, amplitude != null
+                    ? "an amplitude sweep needs its frequency: add a 'frequency [Hz]' column or a '# frequency: 1 Hz' line above the table"
+                    : "no frequency column; add one named 'frequency [Hz]' or 'angular_frequency [rad/s]'");
         }
         if (q.containsKey(Quantity.FREQUENCY) && q.containsKey(Quantity.ANGULAR_FREQUENCY)) {
             throw new InputException(path, headerLine, q.get(Quantity.ANGULAR_FREQUENCY).index() + 1,
@@ -1040,8 +1082,13 @@ public final class SweepReader {
      * ({@link #TableStart.NOT_A_NUMBER}): the caller leaves the point out and counts it.
      */
     private static SweepPoint point(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line) {
+        return point(rec, q, dm, path, line, Double.NaN);
+    }
+
+    /** @param fixedHz the frequency of every row when the table has no frequency column (an amplitude sweep), else NaN */
+    private static SweepPoint point(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line, double fixedHz) {
         try {
-            return pointOrThrow(rec, q, dm, path, line);
+            return pointOrThrow(rec, q, dm, path, line, fixedHz);
         } catch (MissingValue e) {
             return null;
         }
@@ -1065,14 +1112,14 @@ public final class SweepReader {
         return number(cell, c, dm, path, line);
     }
 
-    private static SweepPoint pointOrThrow(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line) {
+    private static SweepPoint pointOrThrow(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line, double fixedHz) {
         double f;
         ColumnSpec fc = q.containsKey(Quantity.FREQUENCY) ? q.get(Quantity.FREQUENCY) : q.get(Quantity.ANGULAR_FREQUENCY);
-        f = value(rec, fc, dm, path, line);
-        if (fc.quantity() == Quantity.ANGULAR_FREQUENCY) {
+        f = fc == null ? fixedHz : value(rec, fc, dm, path, line);
+        if (fc != null && fc.quantity() == Quantity.ANGULAR_FREQUENCY) {
             f = f / (2.0 * Math.PI);
         }
-        if (!(f > 0)) {
+        if (fc != null && !(f > 0)) {
             throw new InputException(path, line, fc.index() + 1, "frequency must be greater than zero, found '"
                     + rec.get(fc.index()) + "'; remove the row or correct the value");
         }
@@ -1120,7 +1167,16 @@ public final class SweepReader {
             throw new InputException(path, line, sc.index() + 1, "storage modulus must be greater than zero, found "
                     + String.format(Locale.ROOT, "%g", storage) + " Pa; remove or correct the row");
         }
-        return new SweepPoint(f, storage, loss, line);
+        double amplitude = Double.NaN;
+        ColumnSpec ac = amplitudeColumn(q);
+        if (ac != null) {
+            amplitude = value(rec, ac, dm, path, line);
+            if (!(amplitude > 0)) {
+                throw new InputException(path, line, ac.index() + 1, ac.quantity().canonical() + " must be greater than zero, found '"
+                        + InputException.oneLine(cell(rec, ac.index())) + "'; remove or correct the row");
+            }
+        }
+        return new SweepPoint(f, storage, loss, line, amplitude);
     }
 
     private static double number(String cell, ColumnSpec c, char decimalMark, Path path, int line) {

@@ -18,17 +18,25 @@ public final class SweepChecks {
     static final double MIN_SPAN_DECADES = 1;
     /** Noise above this [relative] is warned. */
     static final double NOISE_WARN = 0.05;
+    /** Smallest fall of ln E′ between neighbouring frequencies counted as a fall (2 %). */
+    static final double MIN_STORAGE_FALL = 0.02;
 
     /**
      * One verdict.
      *
-     * @param check   the check's id: kramers-kronig, points-per-decade, frequency-span, loss-modulus-sign, noise
+     * @param check   the check's id: kramers-kronig, points-per-decade, frequency-span, loss-modulus-sign, noise,
+     *                duplicate-frequency, storage-monotonic, linear-range, replicate-outlier, film-thickness
      * @param verdict pass, warn or fail
      * @param value   the measured value (NaN when none)
      * @param limit   the limit it is held to (NaN when none)
      */
     public record Check(String sample, String replicate, String check, Verdict verdict, double value, double limit,
                         String message) {
+
+        /** The same check under another sample name (a sample's display name). */
+        public Check withSample(String name) {
+            return new Check(name, replicate, check, verdict, value, limit, message);
+        }
     }
 
     private SweepChecks() {
@@ -52,6 +60,10 @@ public final class SweepChecks {
         out.add(check(s, "loss-modulus-sign", nonPositive == 0 ? Verdict.PASS : Verdict.FAIL, nonPositive, 0,
                 nonPositive == 0 ? "every loss modulus is positive" : nonPositive + " point(s) with a loss modulus of zero or below: "
                         + "no passive material dissipates negative energy; check the phase calibration"));
+        long duplicates = pts.size() - distinct;
+        out.add(check(s, "duplicate-frequency", duplicates == 0 ? Verdict.PASS : Verdict.WARN, duplicates, 0,
+                duplicates == 0 ? "no frequency is measured twice" : duplicates + " point(s) repeat a frequency already measured: "
+                        + "both are used, as replicates of that frequency; check that the export did not repeat a segment"));
         List<SweepPoint> usable = s.fittablePoints();
         KramersKronig.Result kk = KramersKronig.check(usable);
         if (Double.isFinite(kk.residualNoise())) {
@@ -61,7 +73,44 @@ public final class SweepChecks {
                             noise <= NOISE_WARN ? "" : ", more than 5 %: replicates or a longer measurement would help")));
         }
         out.add(check(s, "kramers-kronig", kk.verdict(), kk.departure(), kk.limit(), kk.message()));
+        out.add(monotonic(s, Double.isFinite(kk.residualNoise()) ? kk.residualNoise() : 0));
         return out;
+    }
+
+    /**
+     * E′ of a linear viscoelastic material with a non-negative relaxation spectrum — every model of
+     * the catalogue — does not fall as frequency rises (Tschoegl, The Phenomenological Theory of
+     * Linear Viscoelastic Behavior, 1989). A fall between neighbouring frequencies larger than four
+     * times the noise of their difference (at least 2 %; a convention of this product) is warned.
+     */
+    private static Check monotonic(Sweep s, double noise) {
+        List<SweepPoint> pts = s.points();
+        double allowed = Math.max(MIN_STORAGE_FALL, 4 * Math.sqrt(2) * noise);
+        double worst = 0;
+        int at = -1;
+        int falls = 0;
+        for (int i = 1; i < pts.size(); i++) {
+            if (pts.get(i).frequencyHz() <= pts.get(i - 1).frequencyHz()) {
+                continue;
+            }
+            double fall = Math.log(pts.get(i - 1).storage() / pts.get(i).storage());
+            if (fall > allowed) {
+                falls++;
+                if (fall > worst) {
+                    worst = fall;
+                    at = i;
+                }
+            }
+        }
+        if (falls == 0) {
+            return check(s, "storage-monotonic", Verdict.PASS, 0, 100 * allowed, String.format(Locale.ROOT,
+                    "E′ does not fall with frequency beyond the noise (%.1f %% allowed between neighbours)", 100 * allowed));
+        }
+        SweepPoint p = pts.get(at);
+        return check(s, "storage-monotonic", Verdict.WARN, 100 * (1 - Math.exp(-worst)), 100 * allowed, String.format(Locale.ROOT,
+                "E′ falls by %.1f %% as frequency rises to %.3g Hz (line %d)%s; no model of the catalogue can follow that: "
+                        + "look for slip, inertia or a resonance of the instrument", 100 * (1 - Math.exp(-worst)), p.frequencyHz(), p.line(),
+                falls > 1 ? " and at " + (falls - 1) + " other step(s)" : ""));
     }
 
     private static Check check(Sweep s, String id, Verdict v, double value, double limit, String message) {

@@ -17,6 +17,7 @@ import org.viscarta.fit.ModelSelection;
 import org.viscarta.fit.ParameterEstimate;
 import org.viscarta.fit.TimeDomain;
 import org.viscarta.library.ReferenceLibrary;
+import org.viscarta.quality.SweepChecks;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
 import org.viscarta.table.Medium;
@@ -90,10 +91,17 @@ public final class OutputTables {
                 .column("loss_modulus_pa", "loss modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::loss, NOT_TERMINAL)
                 .column("value_from", "value from", "", Style.TEXT, 30, r -> r.source().description(), SHEET)
                 .column("letters", "letters", "", Style.TEXT, 10, DampingRanking.Row::letters)
+                .column("quality", "quality checks", "", Style.TEXT, 26, r -> result.quality().marker(r.subject().name()),
+                        withQuality(result, Medium.allBut(Medium.CSV)))
                 .column("set", "comparable set", "", Style.TEXT, 22, r -> result.setOf(r.subject()), NOT_TERMINAL)
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 12, r -> r.subject().temperatureC(), SHEET_CSV)
                 .column("note", "note", "", Style.TEXT, 60, DampingRanking.Row::note, java.util.EnumSet.of(Medium.SHEET, Medium.HTML))
                 .build();
+    }
+
+    /** The media a quality column shows in: these when the checks ran, none otherwise. */
+    private static java.util.Set<Medium> withQuality(AnalysisResult result, java.util.Set<Medium> media) {
+        return result.request().parts().contains(AnalysisRequest.Part.QUALITY) ? media : java.util.EnumSet.noneOf(Medium.class);
     }
 
     /** "[0.46, 0.57]", or "–" without an interval. */
@@ -116,6 +124,8 @@ public final class OutputTables {
         return b.column("basis", "modulus basis", "", Style.TEXT, 12, sa -> sa.sample().kind() + " (" + sa.sample().kind().letter() + ")")
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, sa -> sa.sample().temperatureC())
                 .column("n_replicates", "replicates", "", Style.INTEGER, 11, sa -> sa.sample().replicates().size())
+                .column("quality", "quality checks", "", Style.TEXT, 24, sa -> result.quality().marker(sa.sample().name()),
+                        withQuality(result, Medium.allBut()))
                 .column("points", "points", "", Style.INTEGER, 9, sa -> sa.sample().pointCount(), SHEET_CSV)
                 .column("frequency_low_hz", "lowest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().minFrequencyHz(),
                         NOT_HTML)
@@ -163,6 +173,11 @@ public final class OutputTables {
 
     private static String summaryNotes(AnalysisResult result, SampleAnalysis sa) {
         List<String> notes = new ArrayList<>();
+        List<String> dropped = result.droppedReplicates().stream().filter(c -> c.sample().equals(sa.sample().name()))
+                .map(org.viscarta.quality.SweepChecks.Check::replicate).toList();
+        if (!dropped.isEmpty()) {
+            notes.add("replicate" + (dropped.size() == 1 ? " " : "s ") + String.join(", ", dropped) + " left out as an outlier");
+        }
         result.rankOf(sa.sample()).filter(r -> !r.note().isEmpty()).ifPresent(r -> notes.add(r.note()));
         if (result.request().needsFits()) {
             sa.best().ifPresentOrElse(best -> best.parameters().stream().filter(ParameterEstimate::undetermined)
@@ -240,6 +255,21 @@ public final class OutputTables {
             .column("std_error", "standard error", "", Style.SCIENTIFIC, 14, r -> r.quantity().stdError())
             .column("best", "best", "", Style.TEXT, 8, r -> r.ranked().best())
             .column("note", "note", "", Style.TEXT, 50, r -> r.quantity().note())
+            .build();
+
+    /**
+     * Every quality check, one row per sample × replicate × check (sheet Quality; {@code quality -o}
+     * writes the same columns). The value of a linear-range row is a strain amplitude in %, or an
+     * amplitude in its SI unit (Pa, N, m) as its message says.
+     */
+    public static final Table<SweepChecks.Check> QUALITY = Table.<SweepChecks.Check>named("Quality")
+            .column("sample", "sample", "", Style.TEXT, 26, SweepChecks.Check::sample)
+            .column("replicate", "replicate", "", Style.TEXT, 9, SweepChecks.Check::replicate)
+            .column("check", "check", "", Style.TEXT, 18, SweepChecks.Check::check)
+            .column("verdict", "verdict", "", Style.TEXT, 8, c -> c.verdict().toString())
+            .column("value", "value", "", Style.SCIENTIFIC, 11, SweepChecks.Check::value)
+            .column("limit", "limit", "", Style.SCIENTIFIC, 11, SweepChecks.Check::limit)
+            .column("message", "what it means", "", Style.TEXT, 90, SweepChecks.Check::message)
             .build();
 
     /** The relaxation spectrum of every sample (sheet Spectra; {@code spectrum -o} writes the same columns). */

@@ -126,6 +126,11 @@ public final class Texts {
             new String[] {"Group comparison", "Which differences in damping the replicates support, within each comparable set "
                     + "(same basis, similar temperature): pairwise Welch t-tests with Holm's adjustment, and, for labelled groups, "
                     + "one-way ANOVA and Kruskal–Wallis tests."},
+            new String[] {"Quality", "Checks a reviewer asks for, one row per sweep and check: are E′ and E″ consistent with "
+                    + "each other (Kramers–Kronig), was the sweep measured in the linear range (against the same sample's amplitude "
+                    + "sweep), is one replicate off, was a film thick enough for the indentation depth, is the sweep wide, dense "
+                    + "and quiet enough. Each row gives the verdict (pass, warn, fail), the value, the limit and what it means; "
+                    + "the Summary and Damping ranking mark the samples concerned."},
             new String[] {"Reference matches", "For each sample, the closest reference materials of the library, with the "
                     + "distance, its uncertainty, the band compared and where the curves differ most."},
             new String[] {"Mimic ranking", "With a target sample: every other sample ranked by how closely it mimics the target."},

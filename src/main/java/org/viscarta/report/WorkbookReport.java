@@ -27,7 +27,7 @@ import org.viscarta.temperature.TemperatureSeries;
 
 /**
  * Writes the report workbook: Read me, Summary, Damping ranking, Group comparison, Reference
- * matches, Mimic ranking (with a target), Temperature series, Model fits, Derived quantities, Spectra,
+ * matches, Mimic ranking (with a target), Quality (when checked), Temperature series, Model fits, Derived quantities, Spectra,
  * Correlations, Data, Reference library, Figures and Provenance. The tables are drawn from their
  * declarations in {@link OutputTables}; numbers are numeric cells; every header carries its unit.
  * Streams rows (SXSSF) so that large campaigns fit in memory.
@@ -74,6 +74,12 @@ public final class WorkbookReport {
             table(wb, st, OutputTables.summary(r), r.samples(), "", List.of());
             table(wb, st, OutputTables.ranking(r), r.rankingRows(), "", List.of());
             r.ranking().ifPresent(rk -> groupComparison(wb, st, rk));
+            if (r.request().parts().contains(org.viscarta.analysis.AnalysisRequest.Part.QUALITY)) {
+                List<String> footer = new java.util.ArrayList<>(Statements.qualitySummary(r));
+                footer.add("Limits:");
+                footer.addAll(Statements.QUALITY_LIMITS);
+                table(wb, st, OutputTables.QUALITY, r.quality().checks(), "no sweep to check", footer);
+            }
             List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(MATCHES_SHOWN)).toList();
             table(wb, st, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());
             r.mimic().ifPresent(m -> table(wb, st, OutputTables.matches(true), m.matches(), "",

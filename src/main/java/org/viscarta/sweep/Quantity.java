@@ -43,6 +43,14 @@ public enum Quantity {
     POSITION_X("x", Dimension.LENGTH),
     /** Position on the sample, y, stored in m. */
     POSITION_Y("y", Dimension.LENGTH),
+    /** Strain amplitude of an amplitude sweep (or of a frequency sweep, when constant), stored as a fraction (1 % = 0.01). */
+    STRAIN_AMPLITUDE("strain_amplitude", Dimension.NONE),
+    /** Stress amplitude, stored in Pa. */
+    STRESS_AMPLITUDE("stress_amplitude", Dimension.STRESS),
+    /** Force amplitude of an indenter or DMA, stored in N. */
+    FORCE_AMPLITUDE("force_amplitude", Dimension.FORCE),
+    /** Displacement amplitude of an indenter or DMA, stored in m. */
+    DISPLACEMENT_AMPLITUDE("displacement_amplitude", Dimension.LENGTH),
     /** A quality column written by {@code moduli} (name starting with {@code quality_}): kept in the file, not used. */
     QUALITY("quality", Dimension.LABEL),
     /** A descriptive column of a tidy table (composition, exposure ...): an attribute of each sample when constant over its sweeps. */
@@ -51,7 +59,7 @@ public enum Quantity {
     UNUSED("not used", Dimension.LABEL);
 
     /** What kind of unit a quantity takes. */
-    public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH, COMPLIANCE, VISCOSITY }
+    public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH, COMPLIANCE, VISCOSITY, FORCE }
 
     private final String canonical;
     private final Dimension dimension;

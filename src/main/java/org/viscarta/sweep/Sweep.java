@@ -58,6 +58,49 @@ public record Sweep(String sample, String replicate, String group, ModulusKind k
         return points.get(points.size() - 1).frequencyHz();
     }
 
+    /** The metadata key under which the reader records which amplitude column the points' amplitudes come from. */
+    public static final String AMPLITUDE_COLUMN = "amplitude_column";
+
+    /** Relative spread of frequencies within which a sweep counts as measured at one frequency. */
+    private static final double ONE_FREQUENCY = 1e-3;
+
+    /**
+     * The quantity of the points' amplitudes ({@code strain_amplitude} ...), when the input gave an
+     * amplitude column.
+     */
+    public Optional<Quantity> amplitudeQuantity() {
+        String c = metadata.get(AMPLITUDE_COLUMN);
+        if (c == null) {
+            return Optional.empty();
+        }
+        for (Quantity q : Quantity.values()) {
+            if (q.canonical().equals(c)) {
+                return Optional.of(q);
+            }
+        }
+        return Optional.empty();
+    }
+
+    /**
+     * True for an amplitude sweep: the amplitude varies (by a factor of two or more) while the
+     * frequency stays put. Such a sweep is a linearity test, kept apart from frequency sweeps.
+     */
+    public boolean isAmplitudeSweep() {
+        if (amplitudeQuantity().isEmpty() || points.size() < 3) {
+            return false;
+        }
+        double aMin = Double.POSITIVE_INFINITY;
+        double aMax = 0;
+        for (SweepPoint p : points) {
+            if (!(p.amplitude() > 0)) {
+                return false;
+            }
+            aMin = Math.min(aMin, p.amplitude());
+            aMax = Math.max(aMax, p.amplitude());
+        }
+        return aMax >= 2 * aMin && maxFrequencyHz() <= minFrequencyHz() * (1 + ONE_FREQUENCY);
+    }
+
     /** A metadata value by (lower-case) key. */
     public Optional<String> meta(String key) {
         return Optional.ofNullable(metadata.get(key));

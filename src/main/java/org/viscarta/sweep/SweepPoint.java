@@ -7,8 +7,15 @@ package org.viscarta.sweep;
  * @param storage      storage modulus M′ [Pa], finite and positive
  * @param loss         loss modulus M″ [Pa], finite (zero or negative values are kept but flagged)
  * @param line         the line of the input file the point came from (1-based), or 0 when made in memory
+ * @param amplitude    the oscillation amplitude in SI units of the sweep's amplitude column (strain as a
+ *                     fraction, stress in Pa, force in N, displacement in m), NaN when the input gives none
  */
-public record SweepPoint(double frequencyHz, double storage, double loss, int line) {
+public record SweepPoint(double frequencyHz, double storage, double loss, int line, double amplitude) {
+
+    /** A point without an amplitude. */
+    public SweepPoint(double frequencyHz, double storage, double loss, int line) {
+        this(frequencyHz, storage, loss, line, Double.NaN);
+    }
 
     public SweepPoint {
         if (!(frequencyHz > 0) || Double.isInfinite(frequencyHz)) {
@@ -49,6 +56,6 @@ public record SweepPoint(double frequencyHz, double storage, double loss, int li
 
     /** The same point with both moduli multiplied by {@code factor} (basis conversion). */
     public SweepPoint scaled(double factor) {
-        return new SweepPoint(frequencyHz, storage * factor, loss * factor, line);
+        return new SweepPoint(frequencyHz, storage * factor, loss * factor, line, amplitude);
     }
 }

@@ -18,6 +18,7 @@ public enum Unit {
     MPA(Quantity.Dimension.STRESS, 1.0e6, "MPa", "mpa", "N/mm²", "N/mm2"),
     GPA(Quantity.Dimension.STRESS, 1.0e9, "GPa", "gpa"),
     DIMENSIONLESS(Quantity.Dimension.NONE, 1.0, "-", "", "1", "–"),
+    PERCENT(Quantity.Dimension.NONE, 0.01, "%"),
     DEGREE(Quantity.Dimension.ANGLE, Math.PI / 180.0, "°", "deg", "degree", "degrees"),
     RADIAN(Quantity.Dimension.ANGLE, 1.0, "rad", "radian", "radians"),
     CELSIUS(Quantity.Dimension.TEMPERATURE, 1.0, "°C", "degC", "C", "deg C", "celsius"),
@@ -31,7 +32,10 @@ public enum Unit {
     METRE(Quantity.Dimension.LENGTH, 1.0, "m"),
     MILLIMETRE(Quantity.Dimension.LENGTH, 1.0e-3, "mm"),
     MICROMETRE(Quantity.Dimension.LENGTH, 1.0e-6, "µm", "μm", "um", "micron"),
-    NANOMETRE(Quantity.Dimension.LENGTH, 1.0e-9, "nm");
+    NANOMETRE(Quantity.Dimension.LENGTH, 1.0e-9, "nm"),
+    NEWTON(Quantity.Dimension.FORCE, 1.0, "N"),
+    MILLINEWTON(Quantity.Dimension.FORCE, 1.0e-3, "mN"),
+    MICRONEWTON(Quantity.Dimension.FORCE, 1.0e-6, "µN", "μN", "uN");
 
     private final Quantity.Dimension dimension;
     private final double toSi;

@@ -62,8 +62,10 @@ class SpectrumCommandTest {
         assertEquals(0, r.exitCode(), r.err());
         assertTrue(r.out().contains("maxwell-liquid replicate"), r.out());
         List<String> lines = Files.readAllLines(csv);
+        assertEquals(QualityCommand.CSV_HEADER, lines.get(0));
         assertEquals("sample,replicate,check,verdict,value,limit,message", lines.get(0));
-        assertEquals(List.of("frequency-span", "points-per-decade", "loss-modulus-sign", "noise", "kramers-kronig"),
+        assertEquals(List.of("frequency-span", "points-per-decade", "loss-modulus-sign", "duplicate-frequency", "noise",
+                        "kramers-kronig", "storage-monotonic"),
                 lines.stream().skip(1).map(l -> l.split(",")[2]).toList());
         assertTrue(lines.stream().skip(1).allMatch(l -> l.split(",")[3].equals("pass")), String.join("\n", lines));
     }

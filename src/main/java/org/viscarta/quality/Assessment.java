@@ -1,0 +1,174 @@
+package org.viscarta.quality;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import org.viscarta.sweep.Quantity;
+import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.SweepPoint;
+import org.viscarta.sweep.Unit;
+
+/**
+ * Every quality check of a set of inputs: each frequency sweep's own checks, its film thickness,
+ * its amplitude against the linear limit of the same sample's amplitude sweep, the replicates of
+ * each sample against each other, and the linear range of each amplitude sweep.
+ *
+ * @param checks      every check, sample by sample, in input order
+ * @param linearRanges the amplitude sweeps' results
+ */
+public record Assessment(List<SweepChecks.Check> checks, List<LinearRange.Result> linearRanges) {
+
+    public Assessment {
+        checks = List.copyOf(checks);
+        linearRanges = List.copyOf(linearRanges);
+    }
+
+    /** Nothing checked. */
+    public static Assessment none() {
+        return new Assessment(List.of(), List.of());
+    }
+
+    /**
+     * @param samples         display name → the sample's replicate sweeps, in order
+     * @param amplitudeSweeps amplitude sweeps read beside them
+     * @param departure       the departure from the plateau that ends the linear range (0.05 for 5 %)
+     */
+    public static Assessment of(Map<String, List<Sweep>> samples, List<Sweep> amplitudeSweeps, double departure) {
+        List<LinearRange.Result> ranges = new ArrayList<>();
+        List<SweepChecks.Check> amplitudeRows = new ArrayList<>();
+        for (Sweep a : amplitudeSweeps) {
+            LinearRange.Result r = LinearRange.of(a, departure);
+            ranges.add(r);
+            amplitudeRows.add(rangeCheck(r));
+        }
+        List<SweepChecks.Check> out = new ArrayList<>();
+        for (Map.Entry<String, List<Sweep>> e : samples.entrySet()) {
+            String name = e.getKey();
+            Map<String, SweepChecks.Check> outliers = new LinkedHashMap<>();
+            for (SweepChecks.Check c : ReplicateOutliers.of(e.getValue())) {
+                outliers.put(c.replicate(), c.withSample(name));
+            }
+            for (Sweep s : e.getValue()) {
+                for (SweepChecks.Check c : SweepChecks.of(s)) {
+                    out.add(c.withSample(name));
+                }
+                FilmThickness.of(s).ifPresent(c -> out.add(c.withSample(name)));
+                amplitudeCheck(s, ranges).ifPresent(c -> out.add(c.withSample(name)));
+                SweepChecks.Check o = outliers.get(s.replicate());
+                if (o != null) {
+                    out.add(o);
+                }
+            }
+        }
+        out.addAll(amplitudeRows);
+        return new Assessment(out, ranges);
+    }
+
+    /** The checks of one sample (by display name) that did not pass. */
+    public List<SweepChecks.Check> concerns(String sample) {
+        return checks.stream().filter(c -> c.sample().equals(sample) && c.verdict() != Verdict.PASS).toList();
+    }
+
+    /** The replicates flagged as outliers, as (sample display name, replicate). */
+    public List<SweepChecks.Check> outliers() {
+        return checks.stream().filter(c -> c.check().equals("replicate-outlier") && c.verdict() != Verdict.PASS).toList();
+    }
+
+    /**
+     * A short marker for a sample in the Summary and the ranking: the worst verdict and the checks
+     * concerned, e.g. "warn: replicate-outlier (2)"; "" when every check passed.
+     */
+    public String marker(String sample) {
+        List<SweepChecks.Check> c = concerns(sample);
+        if (c.isEmpty()) {
+            return "";
+        }
+        Verdict worst = c.stream().map(SweepChecks.Check::verdict).max(Enum::compareTo).orElseThrow();
+        Map<String, List<String>> byCheck = new LinkedHashMap<>();
+        for (SweepChecks.Check k : c) {
+            byCheck.computeIfAbsent(k.check(), x -> new ArrayList<>()).add(k.replicate());
+        }
+        StringBuilder sb = new StringBuilder(worst.toString()).append(':');
+        byCheck.forEach((k, reps) -> sb.append(' ').append(k).append(" (").append(String.join(", ", reps)).append(')'));
+        return sb.toString();
+    }
+
+    private static SweepChecks.Check rangeCheck(LinearRange.Result r) {
+        String at = String.format(Locale.ROOT, "amplitude sweep at %.3g Hz", r.frequencyHz());
+        if (!r.hasPlateau()) {
+            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.WARN, Double.NaN, 100 * r.departure(),
+                    at + ": E′ changes from the smallest amplitude on (" + LinearRange.amplitudeText(r.quantity(), r.minAmplitude())
+                            + "), so no linear plateau was measured; start the sweep at a smaller amplitude");
+        }
+        String plateau = String.format(Locale.ROOT, "plateau E′ %.4g Pa, E″ %.4g Pa over %d points", r.plateauStorage(),
+                r.plateauLoss(), r.plateauPoints());
+        String cross = Double.isNaN(r.crossover()) ? "E″ stays below E′" : "E″ = E′ at " + LinearRange.amplitudeText(r.quantity(),
+                r.crossover());
+        if (r.linearThroughout()) {
+            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS, Double.NaN, 100 * r.departure(),
+                    String.format(Locale.ROOT, "%s: E′ stays within %.0f %% of its plateau up to the largest amplitude, %s; %s; %s",
+                            at, 100 * r.departure(), LinearRange.amplitudeText(r.quantity(), r.maxAmplitude()), plateau, cross));
+        }
+        return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS,
+                LinearRange.reported(r.quantity(), r.limit()), 100 * r.departure(), String.format(Locale.ROOT,
+                "%s: linear up to %s, where E′ leaves its plateau by %.0f %% (a common convention); %s; %s", at,
+                LinearRange.amplitudeText(r.quantity(), r.limit()), 100 * r.departure(), plateau, cross));
+    }
+
+    /**
+     * A frequency sweep's amplitude (constant points of an amplitude column, or a preamble line such
+     * as {@code strain_amplitude: 1 %}) against the smallest linear limit of the same sample's
+     * amplitude sweeps in the same quantity.
+     */
+    private static Optional<SweepChecks.Check> amplitudeCheck(Sweep s, List<LinearRange.Result> ranges) {
+        for (Quantity q : List.of(Quantity.STRAIN_AMPLITUDE, Quantity.STRESS_AMPLITUDE, Quantity.FORCE_AMPLITUDE,
+                Quantity.DISPLACEMENT_AMPLITUDE)) {
+            double amplitude = amplitudeOf(s, q);
+            if (Double.isNaN(amplitude)) {
+                continue;
+            }
+            double limit = Double.POSITIVE_INFINITY;
+            boolean any = false;
+            for (LinearRange.Result r : ranges) {
+                if (r.sample().equals(s.sample()) && r.quantity() == q && r.hasPlateau()) {
+                    any = true;
+                    limit = Math.min(limit, Double.isNaN(r.limit()) ? r.maxAmplitude() : r.limit());
+                }
+            }
+            if (!any) {
+                continue;
+            }
+            boolean above = amplitude > limit;
+            return Optional.of(new SweepChecks.Check(s.sample(), s.replicate(), "linear-range", above ? Verdict.FAIL : Verdict.PASS,
+                    LinearRange.reported(q, amplitude), LinearRange.reported(q, limit), String.format(Locale.ROOT,
+                    "measured at %s; the linear range of this sample's amplitude sweep%s ends at %s%s",
+                    LinearRange.amplitudeText(q, amplitude), ranges.stream().filter(r -> r.sample().equals(s.sample())).count() > 1
+                            ? "s (the smallest)" : "", LinearRange.amplitudeText(q, limit),
+                    above ? ": the sweep was measured outside the linear range and its moduli are not linear viscoelastic properties"
+                            : "")));
+        }
+        return Optional.empty();
+    }
+
+    /** The sweep's amplitude in quantity q: the median of its points' amplitudes, or a preamble line; NaN when not stated. */
+    static double amplitudeOf(Sweep s, Quantity q) {
+        if (s.amplitudeQuantity().orElse(null) == q) {
+            double[] a = s.points().stream().mapToDouble(SweepPoint::amplitude).filter(Double::isFinite).sorted().toArray();
+            if (a.length > 0) {
+                return a[a.length / 2];
+            }
+        }
+        String v = s.metadata().get(q.canonical());
+        if (v == null || (q == Quantity.STRAIN_AMPLITUDE && !v.contains("%") && !v.contains("-") && !v.contains("–"))) {
+            return Double.NaN; // a strain without its unit (% or a fraction) is not guessed
+        }
+        try {
+            return Unit.parse(v.strip(), q.dimension()).si();
+        } catch (IllegalArgumentException e) {
+            return Double.NaN;
+        }
+    }
+}
