@@ -54,15 +54,18 @@ final class QualityCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         List<SweepChecks.Check> all = result.quality().checks();
         Map<String, List<SweepChecks.Check>> bySweep = new LinkedHashMap<>();
+        java.util.Set<SweepChecks.Check> amplitudeRows = java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>());
+        amplitudeRows.addAll(result.quality().amplitudeChecks());
         for (SweepChecks.Check c : all) {
-            boolean amplitude = c.check().equals("linear-range") && c.message().startsWith("amplitude sweep");
-            String key = (amplitude ? "amplitude sweep of " : "") + c.sample() + " replicate " + c.replicate();
+            boolean amplitude = amplitudeRows.contains(c);
+            String key = amplitude ? "amplitude sweep of " + c.sample() + " (replicate " + c.replicate() + ")"
+                    : c.sample() + " replicate " + c.replicate();
             bySweep.computeIfAbsent(key, k -> new java.util.ArrayList<>()).add(c);
         }
         bySweep.forEach((key, checks) -> {
             long bad = checks.stream().filter(k -> k.verdict() != Verdict.PASS).count();
             boolean amplitude = key.startsWith("amplitude sweep");
-            out.println(key + ": " + (amplitude ? "" : bad == 0 ? "every check passes" : bad + " check(s) to look at"));
+            out.println(key + (amplitude ? ":" : ": " + (bad == 0 ? "every check passes" : bad + " check(s) to look at")));
             for (SweepChecks.Check k : checks) {
                 if (k.verdict() != Verdict.PASS || amplitude) {
                     out.println(Format.wrap("  " + k.verdict() + " " + k.check() + ": " + k.message(), 100, "    "));

@@ -70,6 +70,7 @@ public final class DemoData {
         references(rng, files, truths);
         temperatureSeries(rng, files, truths);
         rawSignals(rng, files, truths);
+        amplitudeSweeps(new SplittableRandom(SEED + 1), files);
         return new Generated(files, truths);
     }
 
@@ -102,19 +103,36 @@ public final class DemoData {
         sb.append("# modulus: tensile\n");
         sb.append("# geometry: sphere; tip_radius: 50 µm; indentation_depth: 4 µm; poisson_ratio: 0.35\n");
         sb.append("# ageing: accelerated light ageing, 0 h, 500 h and 1500 h; five replicate indentations per film\n");
-        sb.append("sample,replicate,group,frequency [Hz],storage_modulus [MPa],loss_modulus [MPa]\n");
+        sb.append("sample,replicate,group,film_thickness [µm],frequency [Hz],storage_modulus [MPa],loss_modulus [MPa]\n");
         for (Spec s : specs) {
+            int thickness = s.sample().equals(THIN_FILM) ? THIN_FILM_UM : 90 + 10 * (s.sample().length() % 4);
             for (int r = 1; r <= 5; r++) {
                 double[] p = replicateParams(rng, s);
                 truths.add(truth(s, Integer.toString(r), p));
                 for (double[] pt : points(rng, s.model(), p, f)) {
-                    sb.append(String.format(Locale.ROOT, "%s,%d,%s,%s,%s,%s%n", s.sample(), r, s.group(),
+                    sb.append(String.format(Locale.ROOT, "%s,%d,%s,%d,%s,%s,%s%n", s.sample(), r, s.group(), thickness,
                             num(pt[0]), num(pt[1] / 1e6), num(pt[2] / 1e6)));
                 }
             }
         }
         files.add(new DemoFile("demo-data", "paint-light-ageing.csv", sb.toString()));
     }
+
+    /** The paint film cast too thin for the 4 µm indentation: 4/30 = 13 % of its thickness, above the 10 % rule of thumb. */
+    public static final String THIN_FILM = "acrylic-1500h";
+    static final int THIN_FILM_UM = 30;
+    /** The hydrogel replicate that is off: E_r ×1.5 and E_1 ×2.5 of its own draw (stiffer and more lossy). */
+    public static final String OFF_SAMPLE = "gelatin-10pct";
+    public static final String OFF_REPLICATE = "3";
+    /** Displacement amplitude [m] every hydrogel frequency sweep states. */
+    public static final double HYDROGEL_AMPLITUDE_M = 5e-6;
+    /**
+     * The amplitude-sweep softening of each hydrogel: E′ = E′₀ / sqrt(1 + (u/u_c)²) and
+     * tan δ = tan δ₀ (1 + (u/u_c)²), so the 5 % linear limit is u_c sqrt(1/0.95² − 1) = 0.3287 u_c
+     * (polyacrylamide 3.9 µm: its frequency sweeps, at 5 µm, were measured outside the linear range).
+     */
+    public static final Map<String, Double> SOFTENING_M = Map.of("agarose-1.0pct", 40e-6, "agarose-2.0pct", 25e-6,
+            "gelatin-5pct", 60e-6, "gelatin-10pct", 45e-6, "polyacrylamide-8pct", 12e-6);
 
     private static void hydrogelScreen(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {
         List<Spec> gels = List.of(
@@ -127,6 +145,10 @@ public final class DemoData {
         for (Spec s : gels) {
             for (int r = 1; r <= 3; r++) {
                 double[] p = replicateParams(rng, s);
+                if (s.sample().equals(OFF_SAMPLE) && Integer.toString(r).equals(OFF_REPLICATE)) {
+                    p[0] *= 1.5;
+                    p[1] *= 2.5;
+                }
                 truths.add(truth(s, Integer.toString(r), p));
                 StringBuilder sb = new StringBuilder();
                 sb.append("# sample: ").append(s.sample()).append('\n');
@@ -136,6 +158,7 @@ public final class DemoData {
                 sb.append("# temperature: 23 °C\n");
                 sb.append("# method: dynamic indentation\n");
                 sb.append("# geometry: flat punch; punch_radius: 0.5 mm; poisson_ratio: 0.5\n");
+                sb.append("# displacement_amplitude: ").append(num(HYDROGEL_AMPLITUDE_M * 1e6)).append(" µm\n");
                 sb.append("frequency [Hz],E' [kPa],E'' [kPa]\n");
                 for (double[] pt : points(rng, s.model(), p, f)) {
                     sb.append(num(pt[0])).append(',').append(num(pt[1] / 1e3)).append(',').append(num(pt[2] / 1e3)).append('\n');
@@ -162,6 +185,44 @@ public final class DemoData {
                 sb.append(num(2 * Math.PI * pt[0])).append(',').append(num(pt[1])).append(',').append(num(pt[2])).append('\n');
             }
             files.add(new DemoFile("demo-data", "hydrogel-screen/target-soft-tissue-r" + r + ".csv", sb.toString()));
+        }
+    }
+
+    /**
+     * One amplitude sweep per hydrogel formulation at 1 Hz, displacement 0.5–300 µm, from the
+     * formulation's nominal model and {@link #SOFTENING_M}, with 0.5 % noise on each modulus (its own
+     * random stream, so the other demo files do not change with it).
+     */
+    private static void amplitudeSweeps(SplittableRandom rng, List<DemoFile> files) {
+        Map<String, Spec> gels = new LinkedHashMap<>();
+        gels.put("agarose-1.0pct", new Spec("agarose-1.0pct", "agarose", "kelvin-voigt", new double[] {25e3, 150}));
+        gels.put("agarose-2.0pct", new Spec("agarose-2.0pct", "agarose", "kelvin-voigt", new double[] {80e3, 300}));
+        gels.put("gelatin-5pct", new Spec("gelatin-5pct", "gelatin", "zener", new double[] {4e3, 1.5e3, 0.05}));
+        gels.put("gelatin-10pct", new Spec("gelatin-10pct", "gelatin", "zener", new double[] {12e3, 3e3, 0.08}));
+        gels.put("polyacrylamide-8pct", new Spec("polyacrylamide-8pct", "polyacrylamide", "springpot", new double[] {9e3, 0.04}));
+        double[] mod = new double[2];
+        for (Spec s : gels.values()) {
+            ModelCatalogue.byId(s.model()).orElseThrow().modulus(2 * Math.PI, s.nominal(), mod);
+            double uc = SOFTENING_M.get(s.sample());
+            StringBuilder sb = new StringBuilder();
+            sb.append("# sample: ").append(s.sample()).append('\n');
+            sb.append("# group: ").append(s.group()).append('\n');
+            sb.append("# note: ").append(DEMO_NOTE).append('\n');
+            sb.append("# test: amplitude sweep at one frequency, to find the linear range\n");
+            sb.append("# temperature: 23 °C\n");
+            sb.append("# method: dynamic indentation\n");
+            sb.append("# geometry: flat punch; punch_radius: 0.5 mm; poisson_ratio: 0.5\n");
+            sb.append("# frequency: 1 Hz\n");
+            sb.append("displacement_amplitude [µm],E' [kPa],E'' [kPa]\n");
+            for (int i = 0; i <= 27; i++) {
+                double u = 0.5e-6 * Math.pow(10, i / 10.0);
+                double x2 = (u / uc) * (u / uc);
+                double e1 = mod[0] / Math.sqrt(1 + x2);
+                double e2 = e1 * (mod[1] / mod[0]) * (1 + x2);
+                sb.append(num(u * 1e6)).append(',').append(num(e1 * Math.exp(0.005 * gaussian(rng)) / 1e3)).append(',')
+                        .append(num(e2 * Math.exp(0.005 * gaussian(rng)) / 1e3)).append('\n');
+            }
+            files.add(new DemoFile("demo-data", "hydrogel-screen/amplitude-sweeps/" + s.sample() + "-amplitude.csv", sb.toString()));
         }
     }
 

@@ -238,7 +238,7 @@ final class SweepSinks {
                         p.loss(), s.sample())));
             }
         }
-        for (int i = 1; i < pts.size(); i++) {
+        for (int i = 1; i < pts.size() && !s.isAmplitudeSweep(); i++) {
             if (pts.get(i).frequencyHz() == pts.get(i - 1).frequencyHz()) {
                 if (warnings.full()) {
                     warnings.drop();

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import org.viscarta.sweep.Numbers;
 import org.viscarta.sweep.Quantity;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
@@ -16,19 +17,29 @@ import org.viscarta.sweep.Unit;
  * its amplitude against the linear limit of the same sample's amplitude sweep, the replicates of
  * each sample against each other, and the linear range of each amplitude sweep.
  *
- * @param checks      every check, sample by sample, in input order
- * @param linearRanges the amplitude sweeps' results
+ * @param sweepChecks    the checks of the frequency sweeps, sample by sample, in input order
+ * @param amplitudeChecks one linear-range check per amplitude sweep
+ * @param linearRanges   the amplitude sweeps' results
  */
-public record Assessment(List<SweepChecks.Check> checks, List<LinearRange.Result> linearRanges) {
+public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.Check> amplitudeChecks,
+                         List<LinearRange.Result> linearRanges) {
 
     public Assessment {
-        checks = List.copyOf(checks);
+        sweepChecks = List.copyOf(sweepChecks);
+        amplitudeChecks = List.copyOf(amplitudeChecks);
         linearRanges = List.copyOf(linearRanges);
     }
 
     /** Nothing checked. */
     public static Assessment none() {
-        return new Assessment(List.of(), List.of());
+        return new Assessment(List.of(), List.of(), List.of());
+    }
+
+    /** Every check: the frequency sweeps' first, then the amplitude sweeps'. */
+    public List<SweepChecks.Check> checks() {
+        List<SweepChecks.Check> all = new ArrayList<>(sweepChecks);
+        all.addAll(amplitudeChecks);
+        return all;
     }
 
     /**
@@ -63,8 +74,7 @@ public record Assessment(List<SweepChecks.Check> checks, List<LinearRange.Result
                 }
             }
         }
-        out.addAll(amplitudeRows);
-        return new Assessment(out, ranges);
+        return new Assessment(out, amplitudeRows, ranges);
     }
 
     /** The checks of one sample (by display name) that did not pass. */
@@ -103,8 +113,8 @@ public record Assessment(List<SweepChecks.Check> checks, List<LinearRange.Result
                     at + ": E′ changes from the smallest amplitude on (" + LinearRange.amplitudeText(r.quantity(), r.minAmplitude())
                             + "), so no linear plateau was measured; start the sweep at a smaller amplitude");
         }
-        String plateau = String.format(Locale.ROOT, "plateau E′ %.4g Pa, E″ %.4g Pa over %d points", r.plateauStorage(),
-                r.plateauLoss(), r.plateauPoints());
+        String plateau = String.format(Locale.ROOT, "plateau E′ %s, E″ %s over %d points", Numbers.pascals(r.plateauStorage()),
+                Numbers.pascals(r.plateauLoss()), r.plateauPoints());
         String cross = Double.isNaN(r.crossover()) ? "E″ stays below E′" : "E″ = E′ at " + LinearRange.amplitudeText(r.quantity(),
                 r.crossover());
         if (r.linearThroughout()) {

@@ -64,10 +64,11 @@ public final class HtmlReport {
             }
         });
         if (r.request().parts().contains(org.viscarta.analysis.AnalysisRequest.Part.QUALITY)) {
-            List<org.viscarta.quality.SweepChecks.Check> shown = r.quality().checks().stream()
-                    .filter(k -> k.verdict() != org.viscarta.quality.Verdict.PASS || k.check().equals("linear-range")).toList();
+            List<org.viscarta.quality.SweepChecks.Check> shown = new java.util.ArrayList<>(r.quality().sweepChecks().stream()
+                    .filter(k -> k.verdict() != org.viscarta.quality.Verdict.PASS).toList());
+            shown.addAll(r.quality().amplitudeChecks());
             table(h, OutputTables.QUALITY, shown, String.join(" ", Statements.qualitySummary(r)) + " Shown here: the checks that "
-                    + "did not pass and every linear range; the workbook's Quality sheet lists every check.");
+                    + "did not pass and the linear range of every amplitude sweep; the workbook's Quality sheet lists every check.");
             h.append("<ul class=\"limits\">\n");
             for (String limit : Statements.QUALITY_LIMITS) {
                 h.append("<li>").append(esc(limit)).append("</li>\n");

@@ -34,4 +34,22 @@ public final class Numbers {
         }
         return BigDecimal.valueOf(v).round(new MathContext(3)).stripTrailingZeros().toPlainString();
     }
+
+    /** A stress in the unit people read it in: Pa, kPa, MPa or GPa, three significant figures ("24.9 kPa"). */
+    public static String pascals(double pa) {
+        double a = Math.abs(pa);
+        if (!Double.isFinite(pa)) {
+            return "–";
+        }
+        if (a >= 1e9) {
+            return String.format(java.util.Locale.ROOT, "%.3g GPa", pa / 1e9);
+        }
+        if (a >= 1e6) {
+            return String.format(java.util.Locale.ROOT, "%.3g MPa", pa / 1e6);
+        }
+        if (a >= 1e3) {
+            return String.format(java.util.Locale.ROOT, "%.3g kPa", pa / 1e3);
+        }
+        return String.format(java.util.Locale.ROOT, "%.3g Pa", pa);
+    }
 }

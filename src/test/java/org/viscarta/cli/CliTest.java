@@ -395,7 +395,7 @@ class CliTest {
         try (InputStream in = Files.newInputStream(xlsx); Workbook wb = WorkbookFactory.create(in)) {
             List<String> names = new ArrayList<>();
             wb.forEach(s -> names.add(s.getSheetName()));
-            assertEquals(List.of("Read me", "Summary", "Damping ranking", "Group comparison", "Reference matches", "Mimic ranking", "Temperature series",
+            assertEquals(List.of("Read me", "Summary", "Damping ranking", "Group comparison", "Quality", "Reference matches", "Mimic ranking", "Temperature series",
                     "Model fits", "Derived quantities", "Correlations", "Spectra", "Data", "Reference library", "Figures", "Provenance"), names);
             // both questions of the demo answered: the aged linseed film is closest to the aged reference film,
             // and a gel formulation (not a paint) is the best mimic of the target tissue

@@ -57,7 +57,7 @@ class ReportOutputTest {
         }
         assertTrue(doc.select("style").size() == 1);
         List<String> headings = doc.select("h2").eachText();
-        assertEquals(List.of("Read me", "Summary", "Damping ranking", "Closest reference materials", "Best mimic of target-soft-tissue",
+        assertEquals(List.of("Read me", "Summary", "Damping ranking", "Quality", "Closest reference materials", "Best mimic of target-soft-tissue",
                 "Temperature series: acrylic-film-ts", "Figures", "Provenance"), headings);
         Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
         assertEquals(1 + 23, ranking.select("tr").size(), "a row per sample, the master curve included");
@@ -72,14 +72,75 @@ class ReportOutputTest {
         try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
             org.apache.poi.ss.usermodel.Sheet summary = wb.getSheet("Summary");
             for (org.apache.poi.ss.usermodel.Row row : summary) {
+                int low = column(summary, "lowest frequency [Hz]");
+                int high = column(summary, "highest frequency [Hz]");
                 if (row.getRowNum() > 0 && row.getCell(0).getStringCellValue().equals("acrylic-film-ts master @ 20 °C")) {
-                    double decades = Math.log10(row.getCell(7).getNumericCellValue() / row.getCell(6).getNumericCellValue());
+                    double decades = Math.log10(row.getCell(high).getNumericCellValue() / row.getCell(low).getNumericCellValue());
                     assertTrue(decades > Math.log10(200) + 2, "master curve spans " + decades + " decades");
                     return;
                 }
             }
         }
         throw new AssertionError("no master curve in the Summary");
+    }
+
+    /** The index of the header cell with this text in row 0. */
+    static int column(org.apache.poi.ss.usermodel.Sheet sheet, String header) {
+        for (org.apache.poi.ss.usermodel.Cell c : sheet.getRow(0)) {
+            if (c.getStringCellValue().equals(header)) {
+                return c.getColumnIndex();
+            }
+        }
+        throw new AssertionError("no column '" + header + "' in " + sheet.getSheetName());
+    }
+
+    /** The text of the cell in this column of the first row whose first cell is {@code sample}. */
+    private static String cellOf(org.apache.poi.ss.usermodel.Sheet sheet, String sample, String header) {
+        int col = column(sheet, header);
+        int name = column(sheet, "sample");
+        for (org.apache.poi.ss.usermodel.Row row : sheet) {
+            if (row.getRowNum() > 0 && row.getCell(name) != null && row.getCell(name).getStringCellValue().equals(sample)) {
+                return row.getCell(col) == null ? "" : row.getCell(col).getStringCellValue();
+            }
+        }
+        throw new AssertionError("no row for " + sample + " in " + sheet.getSheetName());
+    }
+
+    /**
+     * The demo's known faults (DemoData: polyacrylamide measured above its linear limit, gelatin-10pct
+     * replicate 3 off, acrylic-1500h too thin for the indentation) are found and marked where a reader
+     * sees them: the Quality sheet, the Summary and Damping ranking, and the page; the other samples are
+     * not marked.
+     */
+    @Test
+    void theDemoFaultsAreFoundAndMarked() throws IOException {
+        try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            org.apache.poi.ss.usermodel.Sheet q = wb.getSheet("Quality");
+            java.util.Set<String> concerns = new java.util.TreeSet<>();
+            for (org.apache.poi.ss.usermodel.Row row : q) {
+                if (row.getRowNum() == 0 || row.getCell(3) == null || row.getCell(2) == null) {
+                    continue;
+                }
+                String verdict = row.getCell(3).getStringCellValue();
+                if (!verdict.equals("pass") && !row.getCell(0).getStringCellValue().endsWith("-raw")) {
+                    concerns.add(row.getCell(0).getStringCellValue() + " " + row.getCell(2).getStringCellValue() + " " + verdict);
+                }
+            }
+            assertEquals(java.util.Set.of("polyacrylamide-8pct linear-range fail", "gelatin-10pct replicate-outlier warn",
+                    "acrylic-1500h film-thickness warn"), concerns);
+            org.apache.poi.ss.usermodel.Sheet summary = wb.getSheet("Summary");
+            assertEquals("fail: linear-range (1, 2, 3)", cellOf(summary, "polyacrylamide-8pct", "quality checks"));
+            assertEquals("warn: replicate-outlier (3)", cellOf(summary, "gelatin-10pct", "quality checks"));
+            assertEquals("warn: film-thickness (1, 2, 3, 4, 5)", cellOf(summary, "acrylic-1500h", "quality checks"));
+            assertEquals("", cellOf(summary, "gelatin-5pct", "quality checks"));
+            org.apache.poi.ss.usermodel.Sheet ranking = wb.getSheet("Damping ranking");
+            assertEquals("warn: replicate-outlier (3)", cellOf(ranking, "gelatin-10pct", "quality checks"));
+        }
+        Document doc = Jsoup.parse(first.resolve("report.html").toFile(), "UTF-8");
+        Element quality = doc.select("h2:contains(Quality) + p + table").first();
+        assertTrue(quality.text().contains("replicate-outlier") && quality.text().contains("film-thickness"), quality.text());
+        assertEquals(5 + 3 + 1 + 5 + 2 * 2, quality.select("tr").size() - 1,
+                "five amplitude sweeps, three sweeps above the linear limit, one outlier, five thin-film sweeps, two raw sweeps' two warnings");
     }
 
     @Test

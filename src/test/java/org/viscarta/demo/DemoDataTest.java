@@ -97,6 +97,22 @@ class DemoDataTest {
     }
 
     @Test
+    void theDemoAmplitudeSweepsGiveTheLinearLimitsTheyWereMadeWith() {
+        // E′ = E′₀ / sqrt(1 + (u/u_c)²): the 5 % limit is u_c sqrt(1/0.95² − 1) (solved by hand); with 0.5 % noise on
+        // each modulus the limit is found within 10 % (LinearityAndReplicatesTest measures the same over 20 seeds)
+        org.viscarta.analysis.Inputs in = org.viscarta.analysis.Inputs.read(List.of(Path.of("demo-data", "hydrogel-screen",
+                "amplitude-sweeps")), org.viscarta.analysis.ReadSettings.defaults());
+        assertEquals(DemoData.SOFTENING_M.size(), in.amplitudeSweeps().size());
+        for (org.viscarta.sweep.Sweep a : in.amplitudeSweeps()) {
+            double truth = DemoData.SOFTENING_M.get(a.sample()) * Math.sqrt(1 / (0.95 * 0.95) - 1);
+            double found = org.viscarta.quality.LinearRange.of(a, 0.05).limit();
+            assertEquals(truth, found, 0.10 * truth, a.sample());
+            boolean aboveLimit = DemoData.HYDROGEL_AMPLITUDE_M > truth;
+            assertEquals(a.sample().equals("polyacrylamide-8pct"), aboveLimit, "only polyacrylamide is measured outside its range");
+        }
+    }
+
+    @Test
     void lightAgeingLowersDampingInEveryPaintAsGenerated() {
         AnalysisRequest request = AnalysisRequest.builder(List.of(Path.of("demo-data", "paint-light-ageing.csv")))
                 .compute(AnalysisRequest.Part.RANKING).build();
