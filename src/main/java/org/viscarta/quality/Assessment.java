@@ -79,12 +79,12 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
 
     /** The checks of one sample (by display name) that did not pass. */
     public List<SweepChecks.Check> concerns(String sample) {
-        return checks.stream().filter(c -> c.sample().equals(sample) && c.verdict() != Verdict.PASS).toList();
+        return sweepChecks.stream().filter(c -> c.sample().equals(sample) && c.verdict() != Verdict.PASS).toList();
     }
 
     /** The replicates flagged as outliers, as (sample display name, replicate). */
     public List<SweepChecks.Check> outliers() {
-        return checks.stream().filter(c -> c.check().equals("replicate-outlier") && c.verdict() != Verdict.PASS).toList();
+        return sweepChecks.stream().filter(c -> c.check().equals("replicate-outlier") && c.verdict() != Verdict.PASS).toList();
     }
 
     /**
