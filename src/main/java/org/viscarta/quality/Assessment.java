@@ -109,7 +109,7 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
     private static SweepChecks.Check rangeCheck(LinearRange.Result r) {
         String at = String.format(Locale.ROOT, "amplitude sweep at %.3g Hz", r.frequencyHz());
         if (!r.hasPlateau()) {
-            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.WARN, Double.NaN, 100 * r.departure(),
+            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.WARN, Double.NaN, 100 * r.departure(), "% departure",
                     at + ": E′ changes from the smallest amplitude on (" + LinearRange.amplitudeText(r.quantity(), r.minAmplitude())
                             + "), so no linear plateau was measured; start the sweep at a smaller amplitude");
         }
@@ -118,12 +118,13 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
         String cross = Double.isNaN(r.crossover()) ? "E″ stays below E′" : "E″ = E′ at " + LinearRange.amplitudeText(r.quantity(),
                 r.crossover());
         if (r.linearThroughout()) {
-            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS, Double.NaN, 100 * r.departure(),
+            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS, Double.NaN, 100 * r.departure(), "% departure",
                     String.format(Locale.ROOT, "%s: E′ stays within %.0f %% of its plateau up to the largest amplitude, %s; %s; %s",
                             at, 100 * r.departure(), LinearRange.amplitudeText(r.quantity(), r.maxAmplitude()), plateau, cross));
         }
         return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS,
-                LinearRange.reported(r.quantity(), r.limit()), 100 * r.departure(), String.format(Locale.ROOT,
+                LinearRange.reported(r.quantity(), r.limit()), 100 * r.departure(), LinearRange.reportedUnit(r.quantity())
+                + " (limit: % departure)", String.format(Locale.ROOT,
                 "%s: linear up to %s, where E′ leaves its plateau by %.0f %% (a common convention); %s; %s", at,
                 LinearRange.amplitudeText(r.quantity(), r.limit()), 100 * r.departure(), plateau, cross));
     }
@@ -153,7 +154,8 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
             }
             boolean above = amplitude > limit;
             return Optional.of(new SweepChecks.Check(s.sample(), s.replicate(), "linear-range", above ? Verdict.FAIL : Verdict.PASS,
-                    LinearRange.reported(q, amplitude), LinearRange.reported(q, limit), String.format(Locale.ROOT,
+                    LinearRange.reported(q, amplitude), LinearRange.reported(q, limit), LinearRange.reportedUnit(q),
+                    String.format(Locale.ROOT,
                     "measured at %s; the linear range of this sample's amplitude sweep%s ends at %s%s",
                     LinearRange.amplitudeText(q, amplitude), ranges.stream().filter(r -> r.sample().equals(s.sample())).count() > 1
                             ? "s (the smallest)" : "", LinearRange.amplitudeText(q, limit),

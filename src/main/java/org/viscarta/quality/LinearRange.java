@@ -138,8 +138,23 @@ public final class LinearRange {
         };
     }
 
-    /** The value written in a check's value column: strain amplitude in %, the others in SI units. */
+    /** The value written in a check's value column: strain amplitude in %, force in mN, displacement in µm, stress in Pa. */
     public static double reported(Quantity q, double si) {
-        return q == Quantity.STRAIN_AMPLITUDE ? 100 * si : si;
+        return switch (q) {
+            case STRAIN_AMPLITUDE -> 100 * si;
+            case FORCE_AMPLITUDE -> 1e3 * si;
+            case DISPLACEMENT_AMPLITUDE -> 1e6 * si;
+            default -> si;
+        };
+    }
+
+    /** The unit of {@link #reported}. */
+    public static String reportedUnit(Quantity q) {
+        return switch (q) {
+            case STRAIN_AMPLITUDE -> "% strain";
+            case FORCE_AMPLITUDE -> "mN";
+            case DISPLACEMENT_AMPLITUDE -> "µm";
+            default -> "Pa";
+        };
     }
 }

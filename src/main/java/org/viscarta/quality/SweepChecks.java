@@ -29,14 +29,31 @@ public final class SweepChecks {
      * @param verdict pass, warn or fail
      * @param value   the measured value (NaN when none)
      * @param limit   the limit it is held to (NaN when none)
+     * @param unit    the unit of value and limit ("%", "decades", "µm" ...)
      */
     public record Check(String sample, String replicate, String check, Verdict verdict, double value, double limit,
-                        String message) {
+                        String unit, String message) {
+
+        /** A check whose value and limit are in the usual unit of its kind ({@link #unitOf}). */
+        public Check(String sample, String replicate, String check, Verdict verdict, double value, double limit, String message) {
+            this(sample, replicate, check, verdict, value, limit, unitOf(check), message);
+        }
 
         /** The same check under another sample name (a sample's display name). */
         public Check withSample(String name) {
-            return new Check(name, replicate, check, verdict, value, limit, message);
+            return new Check(name, replicate, check, verdict, value, limit, unit, message);
         }
+    }
+
+    /** The unit of a check's value and limit (a linear-range check states its own). */
+    static String unitOf(String check) {
+        return switch (check) {
+            case "frequency-span" -> "decades";
+            case "points-per-decade" -> "per decade";
+            case "loss-modulus-sign", "duplicate-frequency" -> "points";
+            case "replicate-outlier" -> "modified z";
+            default -> "%";
+        };
     }
 
     private SweepChecks() {
@@ -68,11 +85,11 @@ public final class SweepChecks {
         KramersKronig.Result kk = KramersKronig.check(usable);
         if (Double.isFinite(kk.residualNoise())) {
             double noise = kk.residualNoise();
-            out.add(check(s, "noise", noise <= NOISE_WARN ? Verdict.PASS : Verdict.WARN, noise, NOISE_WARN,
+            out.add(check(s, "noise", noise <= NOISE_WARN ? Verdict.PASS : Verdict.WARN, 100 * noise, 100 * NOISE_WARN,
                     String.format(Locale.ROOT, "scatter of the moduli about a smooth, causal curve: about %.1f %%%s", 100 * noise,
                             noise <= NOISE_WARN ? "" : ", more than 5 %: replicates or a longer measurement would help")));
         }
-        out.add(check(s, "kramers-kronig", kk.verdict(), kk.departure(), kk.limit(), kk.message()));
+        out.add(check(s, "kramers-kronig", kk.verdict(), 100 * Math.expm1(kk.departure()), 100 * Math.expm1(kk.limit()), kk.message()));
         out.add(monotonic(s, Double.isFinite(kk.residualNoise()) ? kk.residualNoise() : 0));
         return out;
     }

@@ -269,6 +269,7 @@ public final class OutputTables {
             .column("verdict", "verdict", "", Style.TEXT, 8, c -> c.verdict().toString())
             .column("value", "value", "", Style.SCIENTIFIC, 11, SweepChecks.Check::value)
             .column("limit", "limit", "", Style.SCIENTIFIC, 11, SweepChecks.Check::limit)
+            .column("unit", "unit", "", Style.TEXT, 14, SweepChecks.Check::unit, Medium.allBut(Medium.CSV))
             .column("message", "what it means", "", Style.TEXT, 90, SweepChecks.Check::message)
             .build();
 

@@ -78,7 +78,7 @@ public final class WorkbookReport {
                 List<String> footer = new java.util.ArrayList<>(Statements.qualitySummary(r));
                 footer.add("Limits:");
                 footer.addAll(Statements.QUALITY_LIMITS);
-                table(wb, st, OutputTables.QUALITY, r.quality().checks(), "no sweep to check", footer);
+                table(wb, st, OutputTables.QUALITY, r.quality().checks(), r.quality().checks().isEmpty() ? "no sweep to check" : "", footer);
             }
             List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(MATCHES_SHOWN)).toList();
             table(wb, st, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());
@@ -239,6 +239,8 @@ public final class WorkbookReport {
         final CellStyle wrap;
         /** Wrapped text in a table row, aligned with the row's numbers. */
         final CellStyle wrapInTable;
+        /** Plain text in a table row, at the top of the cell like the rest of the row. */
+        final CellStyle text;
         final CellStyle bold;
         /** Significant figures for moduli and parameters of any scale. */
         final CellStyle sci;
@@ -311,6 +313,9 @@ public final class WorkbookReport {
             bold.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
             wrapInTable = wb.createCellStyle();
             wrapInTable.setWrapText(true);
+            wrapInTable.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
+            text = wb.createCellStyle();
+            text.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
             wrap = wb.createCellStyle();
             wrap.setWrapText(true);
             wrap.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
@@ -320,6 +325,7 @@ public final class WorkbookReport {
     private static CellStyle numberStyle(Workbook wb, String format) {
         CellStyle cs = wb.createCellStyle();
         cs.setDataFormat(wb.createDataFormat().getFormat(format));
+        cs.setVerticalAlignment(org.apache.poi.ss.usermodel.VerticalAlignment.TOP);
         return cs;
     }
 
@@ -379,6 +385,8 @@ public final class WorkbookReport {
                     cell.setCellValue(fitCell(v.toString()));
                     if (i < numberStyles.length && numberStyles[i] != null && !v.toString().isEmpty()) {
                         cell.setCellStyle(numberStyles[i]);
+                    } else if (lines > 1 || hasWrapped()) {
+                        cell.setCellStyle(styles.text);
                     }
                     if (i < wrapped.length && wrapped[i] > 0) {
                         lines = Math.max(lines, tableLinesOf(v.toString(), wrapped[i]));
@@ -389,6 +397,15 @@ public final class WorkbookReport {
                 r.setHeightInPoints(Math.min(MAX_ROW_POINTS, lines * 15f));
             }
             return r;
+        }
+
+        private boolean hasWrapped() {
+            for (int w : wrapped) {
+                if (w > 0) {
+                    return true;
+                }
+            }
+            return false;
         }
 
         Row styled(CellStyle style, Object... values) {

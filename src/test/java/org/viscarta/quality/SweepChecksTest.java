@@ -42,7 +42,7 @@ class SweepChecksTest {
         for (SweepChecks.Check k : c) {
             assertEquals(Verdict.PASS, k.verdict(), k.check() + ": " + k.message());
         }
-        assertEquals(0.02, find(c, "noise").value(), 0.008, "2 % noise on each modulus");
+        assertEquals(2, find(c, "noise").value(), 0.8, "2 % noise on each modulus, in %");
         assertEquals(4, find(c, "frequency-span").value(), 1e-9);
         assertEquals(7.5, find(c, "points-per-decade").value(), 1e-9);
     }
