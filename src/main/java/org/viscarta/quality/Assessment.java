@@ -89,7 +89,7 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
 
     /**
      * A short marker for a sample in the Summary and the ranking: the worst verdict and the checks
-     * concerned, e.g. "warn: replicate-outlier (2)"; "" when every check passed.
+     * concerned, e.g. "warn: replicate-outlier (replicate 2)"; "" when every check passed.
      */
     public String marker(String sample) {
         List<SweepChecks.Check> c = concerns(sample);
@@ -101,15 +101,19 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
         for (SweepChecks.Check k : c) {
             byCheck.computeIfAbsent(k.check(), x -> new ArrayList<>()).add(k.replicate());
         }
+        long replicates = sweepChecks.stream().filter(k -> k.sample().equals(sample)).map(SweepChecks.Check::replicate).distinct()
+                .count();
         StringBuilder sb = new StringBuilder(worst.toString()).append(':');
-        byCheck.forEach((k, reps) -> sb.append(' ').append(k).append(" (").append(String.join(", ", reps)).append(')'));
+        int[] n = {0};
+        byCheck.forEach((k, reps) -> sb.append(n[0]++ == 0 ? " " : ", ").append(k).append(reps.size() == replicates && replicates > 1
+                ? " (every replicate)" : replicates == 1 ? "" : " (replicate" + (reps.size() == 1 ? " " : "s ") + String.join(", ", reps) + ")"));
         return sb.toString();
     }
 
     private static SweepChecks.Check rangeCheck(LinearRange.Result r) {
         String at = String.format(Locale.ROOT, "amplitude sweep at %.3g Hz", r.frequencyHz());
         if (!r.hasPlateau()) {
-            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.WARN, Double.NaN, 100 * r.departure(), "% departure",
+            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.WARN, Double.NaN, Double.NaN, LinearRange.reportedUnit(r.quantity()),
                     at + ": E′ changes from the smallest amplitude on (" + LinearRange.amplitudeText(r.quantity(), r.minAmplitude())
                             + "), so no linear plateau was measured; start the sweep at a smaller amplitude");
         }
@@ -118,13 +122,13 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
         String cross = Double.isNaN(r.crossover()) ? "E″ stays below E′" : "E″ = E′ at " + LinearRange.amplitudeText(r.quantity(),
                 r.crossover());
         if (r.linearThroughout()) {
-            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS, Double.NaN, 100 * r.departure(), "% departure",
+            return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS, Double.NaN, Double.NaN, LinearRange.reportedUnit(r.quantity()),
                     String.format(Locale.ROOT, "%s: E′ stays within %.0f %% of its plateau up to the largest amplitude, %s; %s; %s",
                             at, 100 * r.departure(), LinearRange.amplitudeText(r.quantity(), r.maxAmplitude()), plateau, cross));
         }
         return new SweepChecks.Check(r.sample(), r.replicate(), "linear-range", Verdict.PASS,
-                LinearRange.reported(r.quantity(), r.limit()), 100 * r.departure(), LinearRange.reportedUnit(r.quantity())
-                + " (limit: % departure)", String.format(Locale.ROOT,
+                LinearRange.reported(r.quantity(), r.limit()), Double.NaN, LinearRange.reportedUnit(r.quantity()),
+                String.format(Locale.ROOT,
                 "%s: linear up to %s, where E′ leaves its plateau by %.0f %% (a common convention); %s; %s", at,
                 LinearRange.amplitudeText(r.quantity(), r.limit()), 100 * r.departure(), plateau, cross));
     }

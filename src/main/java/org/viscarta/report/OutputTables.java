@@ -91,7 +91,7 @@ public final class OutputTables {
                 .column("loss_modulus_pa", "loss modulus mean", "Pa", Style.SCIENTIFIC, 18, DampingRanking.Row::loss, NOT_TERMINAL)
                 .column("value_from", "value from", "", Style.TEXT, 30, r -> r.source().description(), SHEET)
                 .column("letters", "letters", "", Style.TEXT, 10, DampingRanking.Row::letters)
-                .column("quality", "quality checks", "", Style.TEXT, 26, r -> result.quality().marker(r.subject().name()),
+                .column("quality", "quality checks", "", Style.TEXT, 30, r -> result.quality().marker(r.subject().name()),
                         withQuality(result, Medium.allBut(Medium.CSV)))
                 .column("set", "comparable set", "", Style.TEXT, 22, r -> result.setOf(r.subject()), NOT_TERMINAL)
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 12, r -> r.subject().temperatureC(), SHEET_CSV)
@@ -124,7 +124,7 @@ public final class OutputTables {
         return b.column("basis", "modulus basis", "", Style.TEXT, 12, sa -> sa.sample().kind() + " (" + sa.sample().kind().letter() + ")")
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 14, sa -> sa.sample().temperatureC())
                 .column("n_replicates", "replicates", "", Style.INTEGER, 11, sa -> sa.sample().replicates().size())
-                .column("quality", "quality checks", "", Style.TEXT, 24, sa -> result.quality().marker(sa.sample().name()),
+                .column("quality", "quality checks", "", Style.TEXT, 30, sa -> result.quality().marker(sa.sample().name()),
                         withQuality(result, Medium.allBut()))
                 .column("points", "points", "", Style.INTEGER, 9, sa -> sa.sample().pointCount(), SHEET_CSV)
                 .column("frequency_low_hz", "lowest frequency", "Hz", Style.FREQUENCY, 13, sa -> sa.sample().minFrequencyHz(),
@@ -269,7 +269,7 @@ public final class OutputTables {
             .column("verdict", "verdict", "", Style.TEXT, 8, c -> c.verdict().toString())
             .column("value", "value", "", Style.SCIENTIFIC, 11, SweepChecks.Check::value)
             .column("limit", "limit", "", Style.SCIENTIFIC, 11, SweepChecks.Check::limit)
-            .column("unit", "unit", "", Style.TEXT, 14, SweepChecks.Check::unit, Medium.allBut(Medium.CSV))
+            .column("unit", "unit", "", Style.TEXT, 14, c -> " " + c.unit(), Medium.allBut(Medium.CSV))
             .column("message", "what it means", "", Style.TEXT, 90, SweepChecks.Check::message)
             .build();
 

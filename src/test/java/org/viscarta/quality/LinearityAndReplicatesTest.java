@@ -119,7 +119,7 @@ class LinearityAndReplicatesTest {
         assertEquals(100 * limit, lr.get(0).limit(), 1e-9);
         assertEquals(Verdict.FAIL, lr.get(1).verdict(), lr.get(1).message());
         assertEquals(100 * limit, lr.get(2).value(), 1e-9, "the amplitude sweep's row: its limit in %");
-        assertTrue(as.marker("gel").startsWith("fail: linear-range (2)"), as.marker("gel"));
+        assertEquals("fail: linear-range (replicate 2)", as.marker("gel"));
     }
 
     private static List<SweepChecks.Check> outliers(double... offsets) {
