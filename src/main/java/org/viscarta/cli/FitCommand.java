@@ -43,6 +43,7 @@ final class FitCommand implements Callable<Integer> {
     @Mixin InputOptions input;
     @Mixin ModelOptions models;
     @Mixin OutputOptions output;
+    @Mixin QualityOptions quality;
 
     @Option(names = "--time-domain", paramLabel = "GRID", converter = TimeGridConverter.class,
             description = "Also compute the relaxation modulus E(t) and creep compliance J(t) of every fitted model on this "
@@ -58,7 +59,7 @@ final class FitCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         AnalysisRequest request = Requests.build(spec, () -> {
-            AnalysisRequest.Builder b = models.applyTo(input.request()).compute(AnalysisRequest.Part.FITS);
+            AnalysisRequest.Builder b = quality.applyTo(models.applyTo(input.request()), false).compute(AnalysisRequest.Part.FITS);
             return timeGrid == null ? b : b.timeGrid(timeGrid.seconds());
         });
         if (timeOut != null && timeGrid == null) {
@@ -74,6 +75,7 @@ final class FitCommand implements Callable<Integer> {
         List<TimeDomain.Point> timeRows = new ArrayList<>();
         for (SampleAnalysis sa : result.samples()) {
             printSample(out, sa);
+            printConcerns(out, result.quality().concerns(sa.sample().name()));
             if (timeGrid != null) {
                 printTimeDomain(out, sa);
                 timeRows.addAll(sa.timeDomain());
@@ -92,6 +94,19 @@ final class FitCommand implements Callable<Integer> {
 
     /** Terminal output fits in this many columns; every parameter of every model is in {@code -o FILE.csv}. */
     private static final int TERMINAL_WIDTH = 100;
+
+    /** The quality checks of a sample that did not pass, under its fits (the quality verb lists every check). */
+    static void printConcerns(PrintWriter out, List<org.viscarta.quality.SweepChecks.Check> concerns) {
+        java.util.Map<String, List<String>> replicates = new java.util.LinkedHashMap<>();
+        for (org.viscarta.quality.SweepChecks.Check c : concerns) {
+            replicates.computeIfAbsent(c.verdict() + " " + c.check() + "\u0000" + c.message(), k -> new ArrayList<>()).add(c.replicate());
+        }
+        replicates.forEach((k, reps) -> {
+            String[] parts = k.split("\u0000", 2);
+            out.println(Format.wrap("  quality " + parts[0] + " (replicate" + (reps.size() == 1 ? " " : "s ") + String.join(", ", reps)
+                    + "): " + parts[1], TERMINAL_WIDTH, "    "));
+        });
+    }
 
     private static void printSample(PrintWriter out, SampleAnalysis sa) {
         out.printf("%s (%d replicate(s), %s moduli)%n", sa.sample().name(), sa.sample().replicates().size(), sa.sample().kind());

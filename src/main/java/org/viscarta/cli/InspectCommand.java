@@ -34,8 +34,65 @@ final class InspectCommand implements Callable<Integer> {
     @Mixin
     OutputOptions output;
 
+    @Mixin
+    QualityOptions quality;
+
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
+
+    /** Inputs larger than this together are inspected without the quality checks, which read every point. */
+    static final long CHECKED_BYTES = 50L << 20;
+
+    /** The quality checks of the inputs, when they were run. */
+    private record Checked(org.viscarta.analysis.AnalysisResult result, String note) {
+        /** The checks column of a sweep: the display name is the sample's, with its temperature when it has several. */
+        String marker(SweepReader.SweepSummary w) {
+            if (result == null) {
+                return "";
+            }
+            for (org.viscarta.analysis.Sample s : result.inputs().samples()) {
+                for (org.viscarta.sweep.Sweep r : s.replicates()) {
+                    if (same(r, w)) {
+                        return result.quality().sweepMarker(s.name(), r.replicate());
+                    }
+                }
+            }
+            for (org.viscarta.sweep.Sweep a : result.inputs().amplitudeSweeps()) {
+                if (same(a, w)) {
+                    return result.quality().amplitudeMarker(a.sample(), a.replicate());
+                }
+            }
+            return "";
+        }
+
+        private static boolean same(org.viscarta.sweep.Sweep r, SweepReader.SweepSummary w) {
+            return r.sample().equals(w.sample()) && r.replicate().equals(w.replicate()) && r.points().size() == w.points()
+                    && Double.compare(r.temperatureC(), w.temperatureC()) == 0 && r.minFrequencyHz() == w.minFrequencyHz();
+        }
+    }
+
+    private Checked check(List<Path> files) {
+        long bytes = 0;
+        for (Path f : files) {
+            try {
+                bytes += java.nio.file.Files.size(f);
+            } catch (IOException e) {
+                return new Checked(null, "checks: not run (" + e.getMessage() + ")");
+            }
+        }
+        if (bytes > CHECKED_BYTES) {
+            return new Checked(null, "checks: not run on inputs over 50 MB, which inspect reads in one streaming pass; "
+                    + "run 'viscarta quality' for them");
+        }
+        try {
+            org.viscarta.analysis.AnalysisResult r = org.viscarta.analysis.Analysis.run(
+                    quality.applyTo(input.request(), false).badFiles(org.viscarta.analysis.ReadSettings.BadFiles.LEAVE_OUT).build());
+            return new Checked(r, "checks: the worst verdict of each sweep's quality checks and the checks concerned; "
+                    + "'viscarta quality' explains each");
+        } catch (InputException | org.viscarta.io.UsageException | IllegalArgumentException e) {
+            return new Checked(null, "checks: not run (" + InputException.oneLine(e.getMessage()) + ")");
+        }
+    }
 
     @Override
     public Integer call() throws IOException {
@@ -59,6 +116,7 @@ final class InspectCommand implements Callable<Integer> {
             throw new InputException(files.get(0), 0, 0, leftOut.get(0));
         }
         PrintWriter o = spec.commandLine().getOut();
+        Checked checked = check(files);
         for (String l : leftOut) {
             o.println("left out: " + l);
         }
@@ -75,11 +133,22 @@ final class InspectCommand implements Callable<Integer> {
             info.metadata().forEach((k, v) -> o.printf(k.startsWith("note_") ? "  preamble note %s: %s%n" : "  metadata %s: %s%n",
                     k.startsWith("note_") ? k.substring(5) : k, v));
             TextTable t = new TextTable("sample", "replicate", "group", "basis", "points", "frequency [Hz]", "temperature [°C]");
+            List<String> marks = new ArrayList<>();
             for (SweepReader.SweepSummary w : s.sweeps()) {
                 t.add(w.sample(), w.replicate(), w.group(), w.kind().toString(), Long.toString(w.points()),
                         Cells.g4(w.minFrequencyHz()) + "–" + Cells.g4(w.maxFrequencyHz()), Cells.g4(w.temperatureC()));
+                String m = checked.marker(w);
+                if (!m.isEmpty() && !m.equals("pass")) {
+                    marks.add("  checks of " + w.sample() + " replicate " + w.replicate() + ": " + m);
+                }
             }
             t.print(o);
+            if (checked.result() != null) {
+                if (marks.isEmpty()) {
+                    o.println("  checks: every sweep passes");
+                }
+                marks.forEach(m -> o.println(Format.wrap(m, 100, "    ")));
+            }
             for (ReadWarning w : s.warnings()) {
                 o.println("  warning: " + w);
             }
@@ -91,6 +160,7 @@ final class InspectCommand implements Callable<Integer> {
                 .distinct().count();
         o.printf("%d file(s), %d sample(s), %d sweep(s), %d warning(s)%s%n", summaries.size(), samples, sweeps, warnings,
                 leftOut.isEmpty() ? "" : ", " + leftOut.size() + " file(s) left out");
+        o.println(Format.wrap(checked.note(), 100, "  "));
         o.flush();
         if (output.out != null) {
             String json = Json.inspect(summaries, leftOut);

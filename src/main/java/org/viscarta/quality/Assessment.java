@@ -82,6 +82,38 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
         return sweepChecks.stream().filter(c -> c.sample().equals(sample) && c.verdict() != Verdict.PASS).toList();
     }
 
+    /** What the checks say of an amplitude sweep, in a few words: its linear limit. */
+    public String amplitudeMarker(String sample, String replicate) {
+        for (int i = 0; i < linearRanges.size(); i++) {
+            LinearRange.Result r = linearRanges.get(i);
+            if (r.sample().equals(sample) && r.replicate().equals(replicate)) {
+                SweepChecks.Check c = amplitudeChecks.get(i);
+                return !r.hasPlateau() ? "amplitude sweep, " + c.verdict() + ": no linear plateau"
+                        : r.linearThroughout() ? "amplitude sweep, linear throughout"
+                        : "amplitude sweep, linear up to " + LinearRange.amplitudeText(r.quantity(), r.limit());
+            }
+        }
+        return "";
+    }
+
+    /**
+     * What the checks say of one frequency sweep, in a few words: "pass", or the worst verdict and
+     * the checks concerned ("warn: replicate-outlier").
+     */
+    public String sweepMarker(String sample, String replicate) {
+        List<SweepChecks.Check> mine = sweepChecks.stream().filter(c -> c.sample().equals(sample) && c.replicate().equals(replicate))
+                .toList();
+        if (mine.isEmpty()) {
+            return "";
+        }
+        List<SweepChecks.Check> bad = mine.stream().filter(c -> c.verdict() != Verdict.PASS).toList();
+        if (bad.isEmpty()) {
+            return "pass";
+        }
+        Verdict worst = bad.stream().map(SweepChecks.Check::verdict).max(Enum::compareTo).orElseThrow();
+        return worst + ": " + String.join(", ", bad.stream().map(SweepChecks.Check::check).distinct().toList());
+    }
+
     /** The replicates flagged as outliers, as (sample display name, replicate). */
     public List<SweepChecks.Check> outliers() {
         return sweepChecks.stream().filter(c -> c.check().equals("replicate-outlier") && c.verdict() != Verdict.PASS).toList();
