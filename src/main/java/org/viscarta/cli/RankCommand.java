@@ -71,6 +71,9 @@ final class RankCommand implements Callable<Integer> {
             }
             set.result().rows().stream().filter(r -> !r.note().isEmpty())
                     .forEach(r -> out.println(Format.wrap("  note on " + r.name() + ": " + r.note(), TERMINAL_WIDTH, "    ")));
+            set.result().rows().stream().filter(r -> !result.quality().marker(r.subject().name()).isEmpty())
+                    .forEach(r -> out.println(Format.wrap("  quality of " + r.name() + ": " + result.quality().marker(r.subject().name())
+                            + " (viscarta quality explains)", TERMINAL_WIDTH, "    ")));
         }
         if (!ranking.unranked().isEmpty()) {
             out.println();

@@ -42,7 +42,7 @@ final class RankOptions {
 
     AnalysisRequest.Builder applyTo(AnalysisRequest.Builder b, CommandLine cl) {
         b.sets(new ComparableSets(temperatureTolerance, withinGroups)).alpha(alpha).outsideRange(modelOutsideRange ? DampingRanking.OutsideRange.BEST_MODEL : DampingRanking.OutsideRange.NOT_REPORTED)
-                .compute(AnalysisRequest.Part.RANKING);
+                .compute(AnalysisRequest.Part.RANKING, AnalysisRequest.Part.QUALITY);
         if (dropOutliers) {
             b.quality(new org.viscarta.analysis.QualitySettings(b.qualitySettings().linearDeparture(), true));
         }

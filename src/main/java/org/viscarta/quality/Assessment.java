@@ -17,17 +17,42 @@ import org.viscarta.sweep.Unit;
  * its amplitude against the linear limit of the same sample's amplitude sweep, the replicates of
  * each sample against each other, and the linear range of each amplitude sweep.
  *
- * @param sweepChecks    the checks of the frequency sweeps, sample by sample, in input order
- * @param amplitudeChecks one linear-range check per amplitude sweep
- * @param linearRanges   the amplitude sweeps' results
  */
-public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.Check> amplitudeChecks,
-                         List<LinearRange.Result> linearRanges) {
+public final class Assessment {
 
-    public Assessment {
-        sweepChecks = List.copyOf(sweepChecks);
-        amplitudeChecks = List.copyOf(amplitudeChecks);
-        linearRanges = List.copyOf(linearRanges);
+    private final List<SweepChecks.Check> sweepChecks;
+    private final List<SweepChecks.Check> amplitudeChecks;
+    private final List<LinearRange.Result> linearRanges;
+    /** The frequency sweeps' checks by sample (display name), for the markers of large tables. */
+    private final Map<String, List<SweepChecks.Check>> bySample = new java.util.HashMap<>();
+
+    public Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.Check> amplitudeChecks,
+                      List<LinearRange.Result> linearRanges) {
+        this.sweepChecks = List.copyOf(sweepChecks);
+        this.amplitudeChecks = List.copyOf(amplitudeChecks);
+        this.linearRanges = List.copyOf(linearRanges);
+        for (SweepChecks.Check c : this.sweepChecks) {
+            bySample.computeIfAbsent(c.sample(), k -> new ArrayList<>()).add(c);
+        }
+    }
+
+    /** The checks of the frequency sweeps, sample by sample, in input order. */
+    public List<SweepChecks.Check> sweepChecks() {
+        return sweepChecks;
+    }
+
+    /** One linear-range check per amplitude sweep. */
+    public List<SweepChecks.Check> amplitudeChecks() {
+        return amplitudeChecks;
+    }
+
+    /** The amplitude sweeps' results. */
+    public List<LinearRange.Result> linearRanges() {
+        return linearRanges;
+    }
+
+    private List<SweepChecks.Check> of(String sample) {
+        return bySample.getOrDefault(sample, List.of());
     }
 
     /** Nothing checked. */
@@ -55,31 +80,33 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
             ranges.add(r);
             amplitudeRows.add(rangeCheck(r));
         }
-        List<SweepChecks.Check> out = new ArrayList<>();
-        for (Map.Entry<String, List<Sweep>> e : samples.entrySet()) {
+        // samples in parallel (each sweep's Kramers–Kronig fit is the cost), rows kept in input order
+        List<SweepChecks.Check> out = new ArrayList<>(samples.entrySet().parallelStream().map(e -> {
             String name = e.getKey();
+            List<SweepChecks.Check> rows = new ArrayList<>();
             Map<String, SweepChecks.Check> outliers = new LinkedHashMap<>();
             for (SweepChecks.Check c : ReplicateOutliers.of(e.getValue())) {
                 outliers.put(c.replicate(), c.withSample(name));
             }
             for (Sweep s : e.getValue()) {
                 for (SweepChecks.Check c : SweepChecks.of(s)) {
-                    out.add(c.withSample(name));
+                    rows.add(c.withSample(name));
                 }
-                FilmThickness.of(s).ifPresent(c -> out.add(c.withSample(name)));
-                amplitudeCheck(s, ranges).ifPresent(c -> out.add(c.withSample(name)));
+                FilmThickness.of(s).ifPresent(c -> rows.add(c.withSample(name)));
+                amplitudeCheck(s, ranges).ifPresent(c -> rows.add(c.withSample(name)));
                 SweepChecks.Check o = outliers.get(s.replicate());
                 if (o != null) {
-                    out.add(o);
+                    rows.add(o);
                 }
             }
-        }
+            return rows;
+        }).flatMap(List::stream).toList());
         return new Assessment(out, amplitudeRows, ranges);
     }
 
     /** The checks of one sample (by display name) that did not pass. */
     public List<SweepChecks.Check> concerns(String sample) {
-        return sweepChecks.stream().filter(c -> c.sample().equals(sample) && c.verdict() != Verdict.PASS).toList();
+        return of(sample).stream().filter(c -> c.verdict() != Verdict.PASS).toList();
     }
 
     /** What the checks say of an amplitude sweep, in a few words: its linear limit. */
@@ -101,8 +128,7 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
      * the checks concerned ("warn: replicate-outlier").
      */
     public String sweepMarker(String sample, String replicate) {
-        List<SweepChecks.Check> mine = sweepChecks.stream().filter(c -> c.sample().equals(sample) && c.replicate().equals(replicate))
-                .toList();
+        List<SweepChecks.Check> mine = of(sample).stream().filter(c -> c.replicate().equals(replicate)).toList();
         if (mine.isEmpty()) {
             return "";
         }
@@ -133,8 +159,7 @@ public record Assessment(List<SweepChecks.Check> sweepChecks, List<SweepChecks.C
         for (SweepChecks.Check k : c) {
             byCheck.computeIfAbsent(k.check(), x -> new ArrayList<>()).add(k.replicate());
         }
-        long replicates = sweepChecks.stream().filter(k -> k.sample().equals(sample)).map(SweepChecks.Check::replicate).distinct()
-                .count();
+        long replicates = of(sample).stream().map(SweepChecks.Check::replicate).distinct().count();
         StringBuilder sb = new StringBuilder(worst.toString()).append(':');
         int[] n = {0};
         byCheck.forEach((k, reps) -> sb.append(n[0]++ == 0 ? " " : ", ").append(k).append(reps.size() == replicates && replicates > 1

@@ -664,6 +664,15 @@ public final class Figures {
      * The figure grows with the number of samples so that every one is named.
      */
     public static Figure ranking(org.viscarta.analysis.Ranking ranking, String at) {
+        return ranking(ranking, at, java.util.Set.of());
+    }
+
+    /**
+     * The same, with "(!)" after the samples whose quality checks did not all pass.
+     *
+     * @param flagged display names of the samples with a quality concern
+     */
+    public static Figure ranking(org.viscarta.analysis.Ranking ranking, String at, java.util.Set<String> flagged) {
         List<DampingRanking.Row<Sample>> ranked = new ArrayList<>();
         ranking.sets().forEach(set -> set.result().rows().stream().filter(r -> r.rank() > 0).forEach(ranked::add));
         XYIntervalSeriesCollection data = new XYIntervalSeriesCollection();
@@ -680,7 +689,8 @@ public final class Figures {
                 double lo = Double.isNaN(t.ci95Low()) ? t.mean() : t.ci95Low();
                 double hi = Double.isNaN(t.ci95High()) ? t.mean() : t.ci95High();
                 series.add(t.mean(), lo, hi, y, y, y);
-                labels[ranked.size() - 1 - i] = shortName(r.name()) + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
+                labels[ranked.size() - 1 - i] = shortName(r.name()) + (flagged.contains(r.subject().name()) ? " (!)" : "")
+                        + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
                 i++;
             }
             data.addSeries(series);
@@ -708,7 +718,8 @@ public final class Figures {
         int height = Math.max(Figure.HEIGHT_PT, 90 + ROW_PT * ranked.size());
         return new Figure("damping-ranking", "Mean tan δ at " + at + " of each ranked sample with its 95 % interval over "
                 + "replicates, highest damping at the top of each comparable set; the letters in brackets are the letter "
-                + "groups, comparable within a set only.", c, height);
+                + "groups, comparable within a set only." + (flagged.isEmpty() ? "" : " (!) marks a sample whose quality checks "
+                + "did not all pass (see Quality)."), c, height);
     }
 
     /** Height given to each sample's row in the ranking figure [points]: room for its label. */

@@ -92,7 +92,7 @@ public final class OutputTables {
                 .column("value_from", "value from", "", Style.TEXT, 30, r -> r.source().description(), SHEET)
                 .column("letters", "letters", "", Style.TEXT, 10, DampingRanking.Row::letters)
                 .column("quality", "quality checks", "", Style.TEXT, 30, r -> result.quality().marker(r.subject().name()),
-                        withQuality(result, Medium.allBut(Medium.CSV)))
+                        withQuality(result, java.util.EnumSet.of(Medium.SHEET, Medium.HTML)))
                 .column("set", "comparable set", "", Style.TEXT, 22, r -> result.setOf(r.subject()), NOT_TERMINAL)
                 .column("temperature_c", "temperature", "°C", Style.DECIMAL2, 12, r -> r.subject().temperatureC(), SHEET_CSV)
                 .column("note", "note", "", Style.TEXT, 60, DampingRanking.Row::note, java.util.EnumSet.of(Medium.SHEET, Medium.HTML))

@@ -60,7 +60,9 @@ public final class ReportFigures {
     private static List<Figure> figures(AnalysisResult r) {
         List<Figure> out = new ArrayList<>();
         r.ranking().filter(rk -> !rk.sets().isEmpty())
-                .ifPresent(rk -> out.add(Figures.ranking(rk, r.request().rankingPoint().describe())));
+                .ifPresent(rk -> out.add(Figures.ranking(rk, r.request().rankingPoint().describe(), r.samples().stream()
+                        .map(sa -> sa.sample().name()).filter(n -> !r.quality().marker(n).isEmpty())
+                        .collect(java.util.stream.Collectors.toSet()))));
         // the single temperatures of a series are its own data, shown in its figures; its master curve stays
         Set<Sweep> inSeries = java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>());
         r.series().forEach(ts -> inSeries.addAll(ts.sweeps()));

@@ -49,6 +49,8 @@ public final class WorkbookReport {
 
     /** Text columns at least this wide [characters] wrap, so that long notes stay within the printed page. */
     private static final int WRAPPED_WIDTH = 30;
+    /** Above this many quality checks the Quality sheet lists only those that did not pass (and the amplitude sweeps). */
+    static final int MAX_QUALITY_ROWS = 20_000;
 
     /** Said in a table's sheet when no library was given. */
     private static final String NO_LIBRARY = "(no reference library was given: pass --library DIR)";
@@ -76,9 +78,17 @@ public final class WorkbookReport {
             r.ranking().ifPresent(rk -> groupComparison(wb, st, rk));
             if (r.request().parts().contains(org.viscarta.analysis.AnalysisRequest.Part.QUALITY)) {
                 List<String> footer = new java.util.ArrayList<>(Statements.qualitySummary(r));
+                List<org.viscarta.quality.SweepChecks.Check> rows = r.quality().checks();
+                if (rows.size() > MAX_QUALITY_ROWS) {
+                    rows = new java.util.ArrayList<>(r.quality().sweepChecks().stream()
+                            .filter(k -> k.verdict() != org.viscarta.quality.Verdict.PASS).toList());
+                    rows.addAll(r.quality().amplitudeChecks());
+                    footer.add(String.format(java.util.Locale.ROOT, "More than %,d checks: only those that did not pass and the "
+                            + "amplitude sweeps are listed; 'viscarta quality -o FILE.csv' writes every one.", MAX_QUALITY_ROWS));
+                }
                 footer.add("Limits:");
                 footer.addAll(Statements.QUALITY_LIMITS);
-                table(wb, st, OutputTables.QUALITY, r.quality().checks(), r.quality().checks().isEmpty() ? "no sweep to check" : "", footer);
+                table(wb, st, OutputTables.QUALITY, rows, rows.isEmpty() ? "every check passed" : "", footer);
             }
             List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(MATCHES_SHOWN)).toList();
             table(wb, st, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());

@@ -493,7 +493,8 @@ public final class Benchmarks {
         };
         long t0 = System.nanoTime();
         AnalysisRequest request = AnalysisRequest.builder(List.of(file)).library(library)
-                .compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.RANKING, AnalysisRequest.Part.MATCHES).build();
+                .compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.RANKING, AnalysisRequest.Part.MATCHES,
+                        AnalysisRequest.Part.QUALITY).build();
         AnalysisResult c = Analysis.run(request, timing);
         long t2c = System.nanoTime();
         Provenance prov = new Provenance("bench", "benchmark", "2026-01-01T00:00:00Z");
@@ -502,12 +503,14 @@ public final class Benchmarks {
         }
         long t3 = System.nanoTime();
         long t1 = started.get(org.viscarta.analysis.Progress.Stage.FITTING);
+        long tc = started.getOrDefault(org.viscarta.analysis.Progress.Stage.CHECKING, t1);
         long t2 = started.get(org.viscarta.analysis.Progress.Stage.RANKING);
         long t2b = started.get(org.viscarta.analysis.Progress.Stage.MATCHING);
         long heap = peakHeap();
+        System.out.printf(Locale.ROOT, "campaign: quality checks %.2f s%n", (t1 - tc) / 1e9);
         System.out.printf(Locale.ROOT, "campaign: %d sweeps x %d models, matched against %d references: read %.2f s, fit %.2f s, "
                 + "rank and letters %.2f s, references fitted and matched %.2f s, workbook %.2f s, total %.2f s wall; "
                 + "peak heap (sum of pool peaks) %d MB%n", n, request.modelIds().size(), c.library().orElseThrow().entries().size(),
-                (t1 - t0) / 1e9, (t2 - t1) / 1e9, (t2b - t2) / 1e9, (t2c - t2b) / 1e9, (t3 - t2c) / 1e9, (t3 - t0) / 1e9, heap >> 20);
+                (tc - t0) / 1e9, (t2 - t1) / 1e9, (t2b - t2) / 1e9, (t2c - t2b) / 1e9, (t3 - t2c) / 1e9, (t3 - t0) / 1e9, heap >> 20);
     }
 }
