@@ -134,13 +134,16 @@ public final class DemoData {
     public static final Map<String, Double> SOFTENING_M = Map.of("agarose-1.0pct", 40e-6, "agarose-2.0pct", 25e-6,
             "gelatin-5pct", 60e-6, "gelatin-10pct", 45e-6, "polyacrylamide-8pct", 12e-6);
 
+    /** The hydrogel formulations and their nominal models (frequency and amplitude sweeps share them). */
+    private static final List<Spec> GELS = List.of(
+            new Spec("agarose-1.0pct", "agarose", "kelvin-voigt", new double[] {25e3, 150}),
+            new Spec("agarose-2.0pct", "agarose", "kelvin-voigt", new double[] {80e3, 300}),
+            new Spec("gelatin-5pct", "gelatin", "zener", new double[] {4e3, 1.5e3, 0.05}),
+            new Spec("gelatin-10pct", "gelatin", "zener", new double[] {12e3, 3e3, 0.08}),
+            new Spec("polyacrylamide-8pct", "polyacrylamide", "springpot", new double[] {9e3, 0.04}));
+
     private static void hydrogelScreen(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {
-        List<Spec> gels = List.of(
-                new Spec("agarose-1.0pct", "agarose", "kelvin-voigt", new double[] {25e3, 150}),
-                new Spec("agarose-2.0pct", "agarose", "kelvin-voigt", new double[] {80e3, 300}),
-                new Spec("gelatin-5pct", "gelatin", "zener", new double[] {4e3, 1.5e3, 0.05}),
-                new Spec("gelatin-10pct", "gelatin", "zener", new double[] {12e3, 3e3, 0.08}),
-                new Spec("polyacrylamide-8pct", "polyacrylamide", "springpot", new double[] {9e3, 0.04}));
+        List<Spec> gels = GELS;
         double[] f = frequencies(0.1, 10, 15);
         for (Spec s : gels) {
             for (int r = 1; r <= 3; r++) {
@@ -194,14 +197,8 @@ public final class DemoData {
      * random stream, so the other demo files do not change with it).
      */
     private static void amplitudeSweeps(SplittableRandom rng, List<DemoFile> files) {
-        Map<String, Spec> gels = new LinkedHashMap<>();
-        gels.put("agarose-1.0pct", new Spec("agarose-1.0pct", "agarose", "kelvin-voigt", new double[] {25e3, 150}));
-        gels.put("agarose-2.0pct", new Spec("agarose-2.0pct", "agarose", "kelvin-voigt", new double[] {80e3, 300}));
-        gels.put("gelatin-5pct", new Spec("gelatin-5pct", "gelatin", "zener", new double[] {4e3, 1.5e3, 0.05}));
-        gels.put("gelatin-10pct", new Spec("gelatin-10pct", "gelatin", "zener", new double[] {12e3, 3e3, 0.08}));
-        gels.put("polyacrylamide-8pct", new Spec("polyacrylamide-8pct", "polyacrylamide", "springpot", new double[] {9e3, 0.04}));
         double[] mod = new double[2];
-        for (Spec s : gels.values()) {
+        for (Spec s : GELS) {
             ModelCatalogue.byId(s.model()).orElseThrow().modulus(2 * Math.PI, s.nominal(), mod);
             double uc = SOFTENING_M.get(s.sample());
             StringBuilder sb = new StringBuilder();
