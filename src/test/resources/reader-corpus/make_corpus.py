@@ -20,6 +20,14 @@ def ok(name, text, samples, points, storage0, enc="utf-8", **expect):
     cases.append((name, text.encode(enc) if isinstance(text, str) else text, "ok", f"{samples};{points};{storage0!r}{extra}"))
 
 
+def ramp(name, text, ramps, points, storage0, **expect):
+    """A file of temperature ramps: how many (sample × replicate × frequency), their points, E' of
+    the coldest point of the first ramp; expect: frequency (Hz) of the first ramp, unsorted (points
+    sorted into place), heating (K/min), sweeps (frequency sweeps besides), warning."""
+    extra = "".join(f";{k}={v}" for k, v in expect.items())
+    cases.append((name, text.encode("utf-8"), "ramp", f"{ramps};{points};{storage0!r}{extra}"))
+
+
 def err(name, text, line, column, words, enc="utf-8"):
     cases.append((name, text.encode(enc) if isinstance(text, str) else text, "error", f"{line};{column};{words}"))
 
@@ -120,8 +128,8 @@ ok("redundant-tan-disagrees.csv", "frequency [Hz],E' [Pa],E'' [Pa],tan δ\n1,100
 ok("redundant-phase.csv", "frequency [Hz],G' [Pa],G'' [Pa],phase_angle [deg]\n1,100,100,45\n", 1, 1, 100.0, nowarning="disagrees")
 ok("measured-temperature.csv", "frequency [Hz],temperature [°C],storage_modulus [Pa],loss_modulus [Pa]\n"
    "0.1,22.9,90,8\n1,23.1,100,10\n10,23.0,110,12\n", 1, 3, 90.0, temperature="23.0")
-err("temperature-ramp.csv", "sample,temperature [°C],frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n"
-    + "".join(f"film,{t},1,{1e9 / (1 + t)},{1e7}\n" for t in range(20, 80, 5)), 2, 2, "temperature ramp")
+ramp("temperature-ramp.csv", "sample,temperature [°C],frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n"
+     + "".join(f"film,{t},1,{1e9 / (1 + t)},{1e7}\n" for t in range(20, 80, 5)), 1, 12, 1e9 / 21, frequency="1.0")
 ok("semicolon-preamble.csv", "Sample;gel C\nTemperature;25;°C\n\nFrequency;G';G''\nHz;Pa;Pa\n0,1;100,5;10\n1;120;12\n",
    1, 2, 100.5, sample="gel C", temperature="25.0")
 ok("hash-preamble-spellings.csv", "# Sample name: gel D\n# Temperature: 30 °C\n" + H + "1,100,10\n", 1, 1, 100.0,
@@ -142,6 +150,19 @@ ok("second-table-not-sweeps.csv", H + "1,100,10\n2,110,12\n\nStatistics\nMean,SD
    warning="not a sweep table")
 ok("storage-words.csv", "Freq. (Hz),Storage modulus (MPa),Loss modulus (MPa),Tan(delta),Normal force (N),Gap (mm)\n"
    "1,2,0.2,0.1,0.5,1.0\n", 1, 1, 2e6, warning="columns not used")
+# temperature ramps (added after the cases above, so that their numbers stay)
+RH = "sample,replicate,temperature [°C],frequency [Hz],E' [MPa],E'' [MPa]\n"
+ramp("ramp-three-frequencies.csv", RH + "".join(f"varnish,{r},{t},{f},{2000 / (3 + t / 10)},{50 + t}\n"
+     for r in (1, 2) for t in range(-20, 80, 10) for f in (0.3, 1, 10)), 6, 60, 2000 / (3 - 2) * 1e6, frequency="0.3")
+ramp("ramp-one-frequency-file.csv", "# sample: acrylic\n# frequency: 10 Hz\n# heating rate: 3 °C/min\n"
+     "temperature [°C],storage_modulus [Pa],loss_modulus [Pa]\n"
+     + "".join(f"{t},{1e9 - 1e6 * t},{1e7}\n" for t in range(0, 30, 2)), 1, 15, 1e9, frequency="10.0", heating="3.0")
+ramp("ramp-heating-then-cooling.csv", "sample,temperature [°C],frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n"
+     + "".join(f"film,{t},1,{1e9 - 1e6 * t},{1e7}\n" for t in list(range(20, 60, 4)) + [50, 40]), 1, 12, 1e9 - 2e7,
+     unsorted="2", warning="sorted by temperature")
+ramp("ramp-beside-frequency-sweeps.csv", "sample,temperature [°C],frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n"
+     + "".join(f"gel,23,{f},{100 + f},{10}\n" for f in (0.1, 0.3, 1, 3, 10, 30, 100))
+     + "".join(f"film,{t},1,{1e9 - 1e6 * t},{1e7}\n" for t in range(20, 60, 4)), 1, 10, 1e9 - 2e7, sweeps="1")
 
 for f in os.listdir(HERE):
     if f[:2].isdigit():

@@ -18,6 +18,7 @@ import org.viscarta.raw.RawConverter;
 import org.viscarta.raw.RawReader;
 import org.viscarta.raw.RawSweeps;
 import org.viscarta.sweep.BasisConversion;
+import org.viscarta.sweep.Ramp;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.Numbers;
 
@@ -30,11 +31,13 @@ import org.viscarta.sweep.Numbers;
  * @param warnings warnings from reading, including the files left out
  * @param notes    conversions that were applied
  * @param amplitudeSweeps amplitude sweeps (linearity tests at one frequency), kept apart from the samples
+ * @param ramps    temperature ramps (one per sample, replicate and fixed frequency), kept apart from the samples
  */
 public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarning> warnings, List<String> notes,
-                     List<Sweep> amplitudeSweeps) {
+                     List<Sweep> amplitudeSweeps, List<Ramp> ramps) {
 
     public Inputs {
+        ramps = List.copyOf(ramps);
         files = List.copyOf(files);
         samples = List.copyOf(samples);
         amplitudeSweeps = List.copyOf(amplitudeSweeps);
@@ -65,14 +68,14 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
                 kept.add(s);
             }
         }
-        return new Inputs(files, kept, warnings, more, amplitudeSweeps);
+        return new Inputs(files, kept, warnings, more, amplitudeSweeps, ramps);
     }
 
     /** The same inputs with more samples (master curves built from temperature series), analysed like the others. */
     Inputs withSamples(List<Sample> extra) {
         List<Sample> all = new ArrayList<>(samples);
         all.addAll(extra);
-        return new Inputs(files, all, warnings, notes, amplitudeSweeps);
+        return new Inputs(files, all, warnings, notes, amplitudeSweeps, ramps);
     }
 
     /**
@@ -91,6 +94,8 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         Map<String, List<Sweep>> bySample = new LinkedHashMap<>();
         Map<String, Path> replicateSeen = new LinkedHashMap<>();
         List<Sweep> amplitudeSweeps = new ArrayList<>();
+        List<Ramp> ramps = new ArrayList<>();
+        Map<String, Path> rampSeen = new LinkedHashMap<>();
         List<Path> all = InputCollector.collect(inputs);
         for (Path file : all) {
             SweepFile sf;
@@ -109,6 +114,26 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             }
             files.add(sf);
             warnings.addAll(sf.warnings());
+            for (Ramp r : sf.ramps()) {
+                Ramp ramp = r;
+                if (settings.groupBy().isPresent()) {
+                    throw new InputException(file, sf.info().headerLine(), 0, "--group-by does not apply to temperature ramps; "
+                            + "give the ramps a group column or a '# group:' line");
+                }
+                String key = r.sample() + "\u0000" + r.replicate() + "\u0000" + r.frequencyHz();
+                Path prev = rampSeen.put(key, file);
+                if (prev != null) {
+                    throw new InputException(file, r.points().get(0).line(), 0, "the ramp of sample '" + r.sample()
+                            + "' replicate '" + r.replicate() + "' at " + Numbers.plain(r.frequencyHz()) + " Hz is also in "
+                            + prev + "; give each replicate its own label (a '# replicate:' line or a replicate column)");
+                }
+                try {
+                    r.heatingRateKPerMin();
+                } catch (IllegalArgumentException e) {
+                    throw new InputException(file, 0, 0, e.getMessage());
+                }
+                ramps.add(ramp);
+            }
             for (Sweep s : sf.sweeps()) {
                 if (s.isAmplitudeSweep()) {
                     amplitudeSweeps.add(s);
@@ -154,7 +179,13 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             notes.add(amplitudeSweeps.size() + (amplitudeSweeps.size() == 1 ? " amplitude sweep" : " amplitude sweeps")
                     + " (amplitude varied at one frequency) read as linearity tests and kept apart from the frequency sweeps");
         }
-        return assemble(settings, files, bySample, warnings, notes, amplitudeSweeps);
+        if (!ramps.isEmpty()) {
+            long series = ramps.stream().map(r -> r.sample() + "\u0000" + r.replicate()).distinct().count();
+            notes.add(ramps.size() + (ramps.size() == 1 ? " temperature ramp" : " temperature ramps") + " (" + series
+                    + " sample replicate" + (series == 1 ? "" : "s") + " at fixed frequencies) read for the glass transition "
+                    + "and kept apart from the frequency sweeps");
+        }
+        return assemble(settings, files, bySample, warnings, notes, amplitudeSweeps, ramps);
     }
 
     /**
@@ -204,7 +235,8 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
     }
 
     private static Inputs assemble(ReadSettings settings, List<SweepFile> files, Map<String, List<Sweep>> bySample,
-                                   List<ReadWarning> warnings, List<String> notes, List<Sweep> amplitudeSweeps) {
+                                   List<ReadWarning> warnings, List<String> notes, List<Sweep> amplitudeSweeps,
+                                   List<Ramp> ramps) {
         Map<String, Long> temperaturesPerName = bySample.values().stream()
                 .collect(Collectors.groupingBy(l -> l.get(0).sample(), Collectors.counting()));
         List<Sample> samples = new ArrayList<>();
@@ -228,7 +260,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             warnings.add(new ReadWarning(Path.of("(inputs)"), 0, "the inputs mix tensile (E) and shear (G) moduli; "
                     + "tan δ compares fine, but moduli do not: pass --basis tensile or --basis shear (with --poisson) to convert"));
         }
-        return new Inputs(files, samples, warnings, notes, amplitudeSweeps);
+        return new Inputs(files, samples, warnings, notes, amplitudeSweeps, ramps);
     }
 
     /** True when an input says it is invented demo data. */

@@ -105,7 +105,8 @@ final class Preamble {
             Map.entry("replicate", "replicate"), Map.entry("repeat", "replicate"), Map.entry("group", "group"),
             Map.entry("geometry", "geometry"), Map.entry("measuring_system", "geometry"), Map.entry("probe", "geometry"),
             Map.entry("poisson_ratio", "poisson_ratio"), Map.entry("poisson's_ratio", "poisson_ratio"),
-            Map.entry("method", "method"), Map.entry("test_method", "method"), Map.entry("modulus", "modulus"));
+            Map.entry("method", "method"), Map.entry("test_method", "method"), Map.entry("modulus", "modulus"),
+            Map.entry("heating_rate", "heating_rate"), Map.entry("ramp_rate", "heating_rate"), Map.entry("rate", "heating_rate"));
 
     /** Parses "key: value" or "key: value; key: value" (geometry lines). Keys lower-case, spaces as underscores. */
     static List<String> parseMetadataLine(String body, Map<String, String> out) {

@@ -2,6 +2,7 @@ package org.viscarta.io;
 
 import java.nio.file.Path;
 import java.util.List;
+import org.viscarta.sweep.Ramp;
 import org.viscarta.sweep.Sweep;
 
 /**
@@ -11,12 +12,20 @@ import org.viscarta.sweep.Sweep;
  * @param sha256   hex SHA-256 of its bytes, for provenance
  * @param info     how it was understood
  * @param sweeps   the sweeps it holds (one per sample × replicate × temperature)
+ * @param ramps    the temperature ramps it holds (one per sample × replicate × fixed frequency)
  * @param warnings what was accepted but should be known
  */
-public record SweepFile(Path path, String sha256, TableInfo info, List<Sweep> sweeps, List<ReadWarning> warnings) {
+public record SweepFile(Path path, String sha256, TableInfo info, List<Sweep> sweeps, List<Ramp> ramps,
+                        List<ReadWarning> warnings) {
+
+    /** A file without ramps. */
+    public SweepFile(Path path, String sha256, TableInfo info, List<Sweep> sweeps, List<ReadWarning> warnings) {
+        this(path, sha256, info, sweeps, List.of(), warnings);
+    }
 
     public SweepFile {
         sweeps = List.copyOf(sweeps);
+        ramps = List.copyOf(ramps);
         warnings = List.copyOf(warnings);
     }
 }

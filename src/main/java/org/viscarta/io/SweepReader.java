@@ -289,7 +289,7 @@ public final class SweepReader {
         Map<String, String> infoMeta = new LinkedHashMap<>(firstMetadata);
         notes.forEach((k, v) -> infoMeta.putIfAbsent("note_" + k, v));
         TableInfo info = new TableInfo(layout, sep, dm, enc, headerRow.line(), firstHeader.columns(), infoMeta);
-        return sink.table(info, List.copyOf(rp.all), rp.attributes(), warnings);
+        return sink.table(info, List.copyOf(rp.all), rp.attributes(), rp.ramps, warnings);
     }
 
     /** Rows read before the decimal mark and the layout are decided. */
@@ -548,7 +548,8 @@ public final class SweepReader {
                     }
                 }
             }
-            b.add(p, warnings);
+            b.noteFrequency(p.frequencyHz());
+            b.add(p, temperature, warnings);
         }
 
         private B bucketFor(String sample, String replicate, String group, double temperature, int line, Map<Quantity, ColumnSpec> q) {
@@ -635,7 +636,41 @@ public final class SweepReader {
             return out;
         }
 
-        /** The file's summary warnings and the ramp check, once every row is read. */
+        /** The sample and replicate pairs read as temperature ramps (known once {@link #finish} ran). */
+        final java.util.Set<List<String>> ramps = new java.util.HashSet<>();
+
+        /**
+         * A sample and replicate is a temperature ramp when its rows fall into five or more
+         * temperatures but hold at most {@link SweepSinks#FEW_FREQUENCIES} distinct frequencies
+         * (a frequency sweep at each of several temperatures has more).
+         */
+        private boolean isRamp(List<B> list) {
+            if (list.size() < 5) {
+                return false;
+            }
+            double[] seen = new double[SweepSinks.FEW_FREQUENCIES + 1];
+            int n = 0;
+            for (B b : list) {
+                if (b.distinctFrequencies > SweepSinks.FEW_FREQUENCIES) {
+                    return false;
+                }
+                outer:
+                for (int i = 0; i < b.distinctFrequencies; i++) {
+                    for (int j = 0; j < n; j++) {
+                        if (SweepSinks.sameFrequency(seen[j], b.frequencies[i])) {
+                            continue outer;
+                        }
+                    }
+                    if (n == seen.length) {
+                        return false;
+                    }
+                    seen[n++] = b.frequencies[i];
+                }
+            }
+            return n <= SweepSinks.FEW_FREQUENCIES;
+        }
+
+        /** The file's summary warnings and which sample and replicate pairs are ramps, once every row is read. */
         void finish(Header first) {
             if (skipped > 0) {
                 StringBuilder where = new StringBuilder();
@@ -669,12 +704,8 @@ public final class SweepReader {
                         + disagreementText + "); the moduli were used"));
             }
             for (Map.Entry<List<String>, List<B>> e : buckets.entrySet()) {
-                List<B> list = e.getValue();
-                if (list.size() >= 5 && list.stream().allMatch(b -> b.count() <= 3)) {
-                    ColumnSpec tc = first.byQuantity().get(Quantity.TEMPERATURE);
-                    throw new InputException(path, list.get(0).firstLine, tc == null ? 0 : tc.index() + 1, "sample "
-                            + InputException.quote(e.getKey().get(0)) + " is a temperature ramp (the temperature varies at a few fixed "
-                            + "frequencies); Viscarta reads frequency sweeps, and does not analyse ramps yet");
+                if (isRamp(e.getValue())) {
+                    ramps.add(e.getKey());
                 }
             }
         }
@@ -781,11 +812,12 @@ public final class SweepReader {
         }
         boolean hasFrequency = byQuantity.containsKey(Quantity.FREQUENCY) || byQuantity.containsKey(Quantity.ANGULAR_FREQUENCY);
         ColumnSpec amplitude = amplitudeColumn(byQuantity);
-        if (!required && !hasFrequency && amplitude == null) {
+        boolean rampAtOneFrequency = byQuantity.containsKey(Quantity.TEMPERATURE) && metadata.containsKey("frequency");
+        if (!required && !hasFrequency && amplitude == null && !rampAtOneFrequency) {
             return null;
         }
         double fixedHz = Double.NaN;
-        if (!hasFrequency && amplitude != null && metadata.containsKey("frequency")) {
+        if (!hasFrequency && (amplitude != null || rampAtOneFrequency) && metadata.containsKey("frequency")) {
             int at = metadataLines.getOrDefault("frequency", headerLine);
             try {
                 Unit.Valued v = Unit.parse(metadata.get("frequency").strip(), Quantity.Dimension.FREQUENCY, Quantity.Dimension.ANGULAR_FREQUENCY);
@@ -795,7 +827,7 @@ public final class SweepReader {
                         + e.getMessage() + "); write e.g. 'frequency: 1 Hz'");
             }
             if (!(fixedHz > 0) || Double.isInfinite(fixedHz)) {
-                throw new InputException(path, at, 0, "the amplitude sweep's frequency must be greater than zero");
+                throw new InputException(path, at, 0, "the frequency must be greater than zero");
             }
         }
         try {

@@ -9,6 +9,7 @@ import java.util.Map;
 import org.viscarta.io.SweepReader.Summary;
 import org.viscarta.io.SweepReader.SweepSummary;
 import org.viscarta.sweep.ModulusKind;
+import org.viscarta.sweep.Ramp;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
 
@@ -53,9 +54,34 @@ final class SweepSinks {
             return temperatureCount == 0 ? Double.NaN : temperatureSum / temperatureCount;
         }
 
-        abstract void add(SweepPoint p, List<ReadWarning> warnings);
+        /** Up to {@link #FEW_FREQUENCIES} + 1 distinct frequencies seen (more are not counted). */
+        final double[] frequencies = new double[FEW_FREQUENCIES + 1];
+        int distinctFrequencies;
+
+        /** Counts the point's frequency among the few distinct ones a ramp has. */
+        final void noteFrequency(double hz) {
+            for (int i = 0; i < distinctFrequencies; i++) {
+                if (sameFrequency(frequencies[i], hz)) {
+                    return;
+                }
+            }
+            if (distinctFrequencies < frequencies.length) {
+                frequencies[distinctFrequencies++] = hz;
+            }
+        }
+
+        /** @param temperature the row's temperature [°C] (NaN when the table gives none) */
+        abstract void add(SweepPoint p, double temperature, List<ReadWarning> warnings);
 
         abstract int count();
+    }
+
+    /** A temperature ramp is measured at this many fixed frequencies at most. */
+    static final int FEW_FREQUENCIES = 5;
+
+    /** Frequencies within 0.1 % are one fixed frequency of a ramp (exports log the set value with rounding). */
+    static boolean sameFrequency(double a, double b) {
+        return Math.abs(a - b) <= 1e-3 * Math.max(Math.abs(a), Math.abs(b));
     }
 
     /** What a new sweep starts with. */
@@ -67,8 +93,12 @@ final class SweepSinks {
     interface Sink<T, B extends Bucket> {
         B bucket(Key key, int line);
 
-        /** @param attributes the descriptive columns constant over every sweep */
-        T table(TableInfo info, List<B> buckets, List<String> attributes, CappedWarnings warnings);
+        /**
+         * @param attributes the descriptive columns constant over every sweep
+         * @param ramps      the sample and replicate pairs whose buckets are temperature ramps
+         */
+        T table(TableInfo info, List<B> buckets, List<String> attributes, java.util.Set<List<String>> ramps,
+                CappedWarnings warnings);
 
         /** A wide table, read whole. */
         T wide(SweepFile whole);
@@ -84,14 +114,23 @@ final class SweepSinks {
     /** Every point of one sweep. */
     static final class Points extends Bucket {
         final List<SweepPoint> points = new ArrayList<>();
+        private double[] temperatures = new double[8];
 
         Points(Key key, int firstLine) {
             super(key, firstLine);
         }
 
         @Override
-        void add(SweepPoint p, List<ReadWarning> warnings) {
+        void add(SweepPoint p, double temperature, List<ReadWarning> warnings) {
+            if (points.size() == temperatures.length) {
+                temperatures = java.util.Arrays.copyOf(temperatures, temperatures.length * 2);
+            }
+            temperatures[points.size()] = temperature;
             points.add(p);
+        }
+
+        double temperatureOf(int i) {
+            return temperatures[i];
         }
 
         @Override
@@ -126,9 +165,15 @@ final class SweepSinks {
         }
 
         @Override
-        public SweepFile table(TableInfo info, List<Points> buckets, List<String> attributes, CappedWarnings warnings) {
+        public SweepFile table(TableInfo info, List<Points> buckets, List<String> attributes, java.util.Set<List<String>> ramps,
+                               CappedWarnings warnings) {
             List<Sweep> sweeps = new ArrayList<>();
+            Map<List<String>, List<Points>> rampBuckets = new LinkedHashMap<>();
             for (Points b : buckets) {
+                if (ramps.contains(List.of(b.sample, b.replicate))) {
+                    rampBuckets.computeIfAbsent(List.of(b.sample, b.replicate), k -> new ArrayList<>()).add(b);
+                    continue;
+                }
                 Map<String, String> attrs = new LinkedHashMap<>();
                 for (String a : attributes) {
                     attrs.put(a, b.attributes.getOrDefault(a, ""));
@@ -137,7 +182,66 @@ final class SweepSinks {
                 checkPoints(path, s, warnings);
                 sweeps.add(s);
             }
-            return new SweepFile(path, sha(), info, sweeps, warnings.closeOut());
+            List<Ramp> out = new ArrayList<>();
+            for (List<Points> list : rampBuckets.values()) {
+                out.addAll(ramps(path, list, warnings));
+            }
+            return new SweepFile(path, sha(), info, sweeps, out, warnings.closeOut());
+        }
+
+        /** The ramps of one sample and replicate, one per fixed frequency, points in file order before sorting. */
+        private static List<Ramp> ramps(Path path, List<Points> buckets, CappedWarnings warnings) {
+            record Row(int line, double hz, Ramp.Point point) {
+            }
+            List<Row> rows = new ArrayList<>();
+            for (Points b : buckets) {
+                for (int i = 0; i < b.points.size(); i++) {
+                    SweepPoint p = b.points.get(i);
+                    rows.add(new Row(p.line(), p.frequencyHz(), new Ramp.Point(b.temperatureOf(i), p.storage(), p.loss(), p.line())));
+                }
+            }
+            rows.sort(java.util.Comparator.comparingInt(Row::line));
+            List<Double> hz = new ArrayList<>();
+            List<List<Ramp.Point>> byHz = new ArrayList<>();
+            for (Row r : rows) {
+                int k = 0;
+                while (k < hz.size() && !sameFrequency(hz.get(k), r.hz())) {
+                    k++;
+                }
+                if (k == hz.size()) {
+                    hz.add(r.hz());
+                    byHz.add(new ArrayList<>());
+                }
+                byHz.get(k).add(r.point());
+            }
+            Points first = buckets.get(0);
+            List<Ramp> out = new ArrayList<>();
+            for (int k = 0; k < hz.size(); k++) {
+                List<Ramp.Point> pts = byHz.get(k);
+                int unsorted = 0;
+                double highest = Double.NEGATIVE_INFINITY;
+                for (Ramp.Point p : pts) {
+                    if (p.temperatureC() < highest) {
+                        unsorted++;
+                    }
+                    highest = Math.max(highest, p.temperatureC());
+                }
+                Ramp r = new Ramp(first.sample, first.replicate, first.group, first.kind, hz.get(k), path, first.metadata, pts,
+                        unsorted);
+                if (unsorted > 0 && !warnings.full()) {
+                    warnings.add(new ReadWarning(path, pts.get(0).line(), String.format(Locale.ROOT, "the ramp of sample '%s' "
+                            + "replicate '%s' at %s Hz has %d point(s) below a temperature already passed; they were sorted by "
+                            + "temperature", r.sample(), r.replicate(), org.viscarta.sweep.Numbers.plain(r.frequencyHz()), unsorted)));
+                }
+                for (Ramp.Point p : pts) {
+                    if (!(p.loss() > 0) && !warnings.full()) {
+                        warnings.add(new ReadWarning(path, p.line(), String.format(Locale.ROOT, "loss modulus %g Pa is not positive "
+                                + "(ramp of sample '%s'); the point is left out of the loss peaks", p.loss(), r.sample())));
+                    }
+                }
+                out.add(r);
+            }
+            return out;
         }
 
         @Override
@@ -173,7 +277,7 @@ final class SweepSinks {
         }
 
         @Override
-        void add(SweepPoint p, List<ReadWarning> warnings) {
+        void add(SweepPoint p, double temperature, List<ReadWarning> warnings) {
             points++;
             min = Math.min(min, p.frequencyHz());
             max = Math.max(max, p.frequencyHz());
@@ -203,11 +307,31 @@ final class SweepSinks {
         }
 
         @Override
-        public Summary table(TableInfo info, List<Extent> buckets, List<String> attributes, CappedWarnings warnings) {
+        public Summary table(TableInfo info, List<Extent> buckets, List<String> attributes, java.util.Set<List<String>> ramps,
+                             CappedWarnings warnings) {
             warnings.drop(buckets.stream().mapToLong(e -> e.warningsDropped).sum());
             List<SweepSummary> out = new ArrayList<>();
+            Map<List<String>, Extent> rampStart = new LinkedHashMap<>();
+            Map<List<String>, long[]> rampPoints = new LinkedHashMap<>();
+            Map<List<String>, double[]> rampRange = new LinkedHashMap<>();
             for (Extent e : buckets) {
+                List<String> key = List.of(e.sample, e.replicate);
+                if (ramps.contains(key)) {
+                    rampStart.putIfAbsent(key, e);
+                    rampPoints.computeIfAbsent(key, k -> new long[1])[0] += e.points;
+                    double[] r = rampRange.computeIfAbsent(key, k -> new double[] {Double.POSITIVE_INFINITY, 0});
+                    r[0] = Math.min(r[0], e.min);
+                    r[1] = Math.max(r[1], e.max);
+                    continue;
+                }
                 out.add(new SweepSummary(e.sample, e.replicate, e.group, e.kind, e.temperature(), e.points, e.min, e.max));
+            }
+            for (Map.Entry<List<String>, Extent> r : rampStart.entrySet()) {
+                Extent e = r.getValue();
+                double[] range = rampRange.get(r.getKey());
+                // a ramp: one line for all its temperatures (NaN), its fixed frequencies as the range
+                out.add(new SweepSummary(e.sample, e.replicate, e.group, e.kind, Double.NaN, rampPoints.get(r.getKey())[0],
+                        range[0], range[1]));
             }
             return new Summary(path, info, out, warnings.closeOut());
         }

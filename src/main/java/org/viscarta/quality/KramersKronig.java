@@ -63,9 +63,10 @@ public final class KramersKronig {
         double decades = n == 0 ? 0 : Math.log10(wMax / wMin);
         int m = (int) Math.ceil((decades + 2 * MARGIN) * PER_DECADE) + 1;
         int cols = m + 2;
-        if (n < 8 || 2 * n < cols + 4) { // also too few for the noise estimate
+        long distinct = pts.stream().mapToDouble(SweepPoint::frequencyHz).distinct().count();
+        if (distinct < 8 || 2 * distinct < cols + 4) { // also too few for the noise estimate
             return new Result(Verdict.WARN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
-                    "too few frequencies (" + n + ") to test E′ and E″ against each other", Double.NaN);
+                    "too few frequencies (" + distinct + ") to test E′ and E″ against each other", Double.NaN);
         }
         double[] tau = new double[m];
         for (int j = 0; j < m; j++) {
@@ -98,7 +99,13 @@ public final class KramersKronig {
                 row[j] /= norm[j];
             }
         }
-        RealVector x = new QRDecomposition(new Array2DRowRealMatrix(a, false), 1e-12).getSolver().solve(new ArrayRealVector(b, false));
+        RealVector x;
+        try {
+            x = new QRDecomposition(new Array2DRowRealMatrix(a, false), 1e-12).getSolver().solve(new ArrayRealVector(b, false));
+        } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
+            return new Result(Verdict.WARN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                    "the frequencies are too close together to test E′ and E″ against each other", Double.NaN);
+        }
         double noiseStorage = smoothNoise(pts, true);
         double noiseLoss = smoothNoise(pts, false);
         double limitStorage = Math.max(MIN_LIMIT, 3 * noiseStorage);

@@ -78,6 +78,34 @@ class ReaderCorpusTest {
                     default -> throw new IllegalArgumentException("unknown expectation " + key);
                 }
             }
+        } else if (outcome.equals("ramp")) {
+            String[] d = detail.split(";");
+            SweepFile f = new SweepReader(null).read(p);
+            assertEquals(Integer.parseInt(d[0]), f.ramps().size(), "ramps");
+            assertEquals(Integer.parseInt(d[1]), f.ramps().stream().mapToInt(r -> r.points().size()).sum(), "points");
+            double expected = Double.parseDouble(d[2]);
+            org.viscarta.sweep.Ramp first = f.ramps().get(0);
+            assertEquals(expected, first.points().get(0).storage(), 1e-9 * expected, "storage modulus at the coldest point [Pa]");
+            int sweeps = 0;
+            String warnings = f.warnings().toString();
+            for (int i = 3; i < d.length; i++) {
+                String key = d[i].substring(0, d[i].indexOf('='));
+                String value = d[i].substring(d[i].indexOf('=') + 1);
+                switch (key) {
+                    case "frequency" -> assertEquals(Double.parseDouble(value), first.frequencyHz(), 1e-12, "frequency");
+                    case "unsorted" -> assertEquals(Integer.parseInt(value), first.unsorted(), "points sorted into place");
+                    case "heating" -> assertEquals(Double.parseDouble(value), first.heatingRateKPerMin().orElseThrow(), 1e-12);
+                    case "sweeps" -> sweeps = Integer.parseInt(value);
+                    case "warning" -> assertTrue(warnings.contains(value), "a warning says '" + value + "': " + warnings);
+                    default -> throw new IllegalArgumentException("unknown expectation " + key);
+                }
+            }
+            assertEquals(sweeps, f.sweeps().size(), "frequency sweeps beside the ramps");
+            for (org.viscarta.sweep.Ramp r : f.ramps()) {
+                for (int i = 1; i < r.points().size(); i++) {
+                    assertTrue(r.points().get(i).temperatureC() >= r.points().get(i - 1).temperatureC(), "sorted by temperature");
+                }
+            }
         } else {
             String[] d = detail.split(";", 3);
             InputException e = assertThrows(InputException.class, () -> new SweepReader(null).read(p));
@@ -93,7 +121,15 @@ class ReaderCorpusTest {
     void theStreamingSummaryAgreesWithTheFullReading(String file, String outcome, String detail) throws URISyntaxException {
         Path p = corpus().resolve(file);
         SweepReader reader = new SweepReader(null);
-        if (outcome.equals("ok")) {
+        if (outcome.equals("ramp")) {
+            // a ramp is summarised as one line per sample and replicate, at no single temperature
+            SweepFile full = reader.read(p);
+            SweepReader.Summary sum = reader.summarize(p);
+            long series = full.ramps().stream().map(r -> r.sample() + "/" + r.replicate()).distinct().count();
+            assertEquals(full.sweeps().size() + series, sum.sweeps().size());
+            assertEquals(full.ramps().stream().mapToInt(r -> r.points().size()).sum() + full.sweeps().stream()
+                    .mapToInt(s -> s.points().size()).sum(), sum.sweeps().stream().mapToLong(SweepReader.SweepSummary::points).sum());
+        } else if (outcome.equals("ok")) {
             SweepFile full = reader.read(p);
             SweepReader.Summary sum = reader.summarize(p);
             assertEquals(full.sweeps().size(), sum.sweeps().size());
