@@ -60,6 +60,15 @@ public final class Analysis {
                 inputs = inputs.withoutReplicates(dropped);
             }
         }
+        if (inputs.samples().isEmpty() && !inputs.ramps().isEmpty() && !request.parts().contains(AnalysisRequest.Part.TRANSITIONS)) {
+            throw new UsageException("the inputs hold temperature ramps only (" + inputs.ramps().size() + " ramps, no frequency "
+                    + "sweep): 'viscarta transition' finds their glass transitions, and 'viscarta report' includes them");
+        }
+        org.viscarta.temperature.Transitions transitions = org.viscarta.temperature.Transitions.none();
+        if (request.parts().contains(AnalysisRequest.Part.TRANSITIONS) && !inputs.ramps().isEmpty()) {
+            progress.stage(Progress.Stage.TRANSITIONS, 0);
+            transitions = org.viscarta.temperature.Transitions.of(inputs.ramps(), request.alpha());
+        }
         List<TemperatureSeries> series = List.of();
         if (request.masterCurves().isPresent()) {
             progress.stage(Progress.Stage.MASTER_CURVES, 0);
@@ -109,7 +118,8 @@ public final class Analysis {
         }
         Optional<AnalysisResult.Mimic> mimic = mimic(request, samples, distance);
         progress.stage(Progress.Stage.DONE, 0);
-        return new AnalysisResult(request, inputs, series, samples, ranking, library, references, mimic, quality, dropped);
+        return new AnalysisResult(request, inputs, series, samples, ranking, library, references, mimic, quality, dropped,
+                transitions);
     }
 
     /** Every quality check of the samples as read (by display name) and of the amplitude sweeps. */

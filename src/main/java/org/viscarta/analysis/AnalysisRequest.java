@@ -52,7 +52,9 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         /** The relaxation spectrum H(τ) of every sample. */
         SPECTRA,
         /** The quality checks of every sweep, replicate set and amplitude sweep. */
-        QUALITY
+        QUALITY,
+        /** The glass transition of every temperature ramp, activation energies and their comparison. */
+        TRANSITIONS
     }
 
     public AnalysisRequest {

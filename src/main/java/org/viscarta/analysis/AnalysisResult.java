@@ -42,11 +42,13 @@ public final class AnalysisResult {
     private final Map<Sample, String> setOf;
     private final Assessment quality;
     private final List<SweepChecks.Check> dropped;
+    private final org.viscarta.temperature.Transitions transitions;
 
     AnalysisResult(AnalysisRequest request, Inputs inputs, List<TemperatureSeries> series, List<SampleAnalysis> samples,
                    Optional<Ranking> ranking, Optional<ReferenceLibrary> library,
                    List<Matcher.Candidate> references, Optional<Mimic> mimic, Assessment quality,
-                   List<SweepChecks.Check> dropped) {
+                   List<SweepChecks.Check> dropped, org.viscarta.temperature.Transitions transitions) {
+        this.transitions = transitions;
         this.quality = quality;
         this.dropped = List.copyOf(dropped);
         this.request = request;
@@ -59,6 +61,11 @@ public final class AnalysisResult {
         this.mimic = mimic;
         ranking.ifPresent(r -> r.rows().forEach(row -> rankOf.put(row.subject(), row)));
         this.setOf = ranking.map(Ranking::setLabels).orElse(Map.of());
+    }
+
+    /** The glass transitions of the temperature ramps (none unless asked for and ramps were read). */
+    public org.viscarta.temperature.Transitions transitions() {
+        return transitions;
     }
 
     /** The quality checks (none unless asked for, or needed to leave outliers out). */

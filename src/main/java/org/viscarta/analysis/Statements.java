@@ -96,6 +96,24 @@ public final class Statements {
         return m;
     }
 
+    /** How the glass transitions were located, each rule with its source. */
+    public static final List<String> TRANSITION_METHOD = List.of(
+            "Conventions of ASTM E1640 (Assignment of the Glass Transition Temperature by Dynamic Mechanical Analysis; the "
+                    + "2018 edition, from memory): onset of the E′ drop, E″ peak, tan δ peak.",
+            "Each peak is located on a cubic fitted by least squares to the logarithm of E″ (or tan δ) over the points within "
+                    + "20 % of the smoothed peak height (at least 7); its standard error follows from the fit by the delta method. "
+                    + "A peak at the edge of the range, or one that stays within 20 % of its height to the edge, is not reported.",
+            "The onset is the crossing of a straight line fitted to ln E′ on the glassy plateau (smoothed slope under 10 % of "
+                    + "the steepest, below the drop) with the tangent at the inflection of a cubic fitted around the steepest "
+                    + "stretch; its standard error comes from both fits.",
+            "The tan δ peak's width is read at half its fitted height against zero on a local-quadratic smooth; the glassy and "
+                    + "rubbery moduli are geometric means of E′ over the plateaus (slope under 10 % of the steepest) (conventions "
+                    + "of this product).",
+            "Activation energy: 1/T of the peaks regressed on ln f (Arrhenius), Ea = −R/slope; the 95 % interval is the "
+                    + "Student-t interval of the slope carried through.",
+            "Comparisons: at each frequency and convention, Welch t-tests between samples' replicates, Holm-adjusted; one-way "
+                    + "ANOVA and Kruskal–Wallis across groups.");
+
     /** The limits the quality checks hold the data to, each with its source. */
     public static final List<String> QUALITY_LIMITS = List.of(
             "kramers-kronig: E′ and E″ fitted together by a causal, linear material (Maxwell modes on a fixed grid of times, "

@@ -42,7 +42,8 @@ final class ReportCommand implements Callable<Integer> {
         }
         AnalysisRequest request = Requests.build(spec, () -> {
             AnalysisRequest.Builder b = quality.applyTo(report.applyTo(rankOptions.applyTo(models.applyTo(input.request()),
-                    spec.commandLine())), rankOptions.dropOutliers).compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.SPECTRA);
+                    spec.commandLine())), rankOptions.dropOutliers).compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.SPECTRA,
+                    AnalysisRequest.Part.TRANSITIONS);
             library.folderIfNamed().ifPresent(dir -> b.library(dir).compute(AnalysisRequest.Part.MATCHES));
             return b;
         });
@@ -57,6 +58,11 @@ final class ReportCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         out.printf("%d sample(s) from %d file(s); %d model(s) each; ranked at %s%n", result.samples().size(),
                 result.inputs().files().size(), request.modelIds().size(), request.rankingPoint().describe());
+        if (!result.transitions().isEmpty()) {
+            out.printf("%d temperature ramp(s) of %d sample(s): glass transitions in the Transitions sheet%n",
+                    result.transitions().results().size(), result.transitions().results().stream().map(t -> t.ramp().sample())
+                            .distinct().count());
+        }
         if (result.samples().size() > ReportFigures.MAX_SAMPLE_FIGURES) {
             out.printf("per-sample figures left out: more than %d samples%n", ReportFigures.MAX_SAMPLE_FIGURES);
         }

@@ -62,6 +62,20 @@ public final class DampingComparison {
         return p < SMALLEST_P_SHOWN ? "< 0.0001" : String.format(Locale.ROOT, "= %.3g", p);
     }
 
+    /**
+     * How the statements name what is compared.
+     *
+     * @param quantity  the quantity ("tan δ")
+     * @param higher    the verb phrase for a higher mean ("damps more than")
+     * @param allDiffer the sentence when every pair differs
+     */
+    public record Wording(String quantity, String higher, String allDiffer) {
+    }
+
+    /** The damping ranking's wording. */
+    public static final Wording DAMPING = new Wording("tan δ", "damps more than",
+            "Every sample damps differently from every other; the ranking order is supported throughout.");
+
     /** The letter of a sample that cannot be tested (a single replicate). */
     public static final String NOT_TESTED = "–";
 
@@ -72,6 +86,11 @@ public final class DampingComparison {
      * @param alpha  significance level, in (0, 1)
      */
     public static Result compare(List<String> names, List<String> groups, List<double[]> values, double alpha) {
+        return compare(names, groups, values, alpha, DAMPING);
+    }
+
+    /** The same comparison of another quantity, stated in its own words. */
+    public static Result compare(List<String> names, List<String> groups, List<double[]> values, double alpha, Wording wording) {
         if (!(alpha > 0 && alpha < 1)) {
             throw new IllegalArgumentException("the significance level must lie in (0, 1), got " + alpha);
         }
@@ -117,7 +136,7 @@ public final class DampingComparison {
         List<String> statements = new ArrayList<>();
         long untestable = values.stream().filter(v -> v.length < 2).count();
         long supported = pairs.stream().filter(Pair::significant).count();
-        statements.add(String.format(Locale.ROOT, "Samples that share a letter are not distinguishable in tan δ at α = %s "
+        statements.add(String.format(Locale.ROOT, "Samples that share a letter are not distinguishable in " + wording.quantity() + " at α = %s "
                 + "(Welch t-tests between replicates, Holm-adjusted over %d pairs); %d of the %d differences are supported.",
                 Numbers.plain(alpha), pairs.size(), supported, pairs.size()));
         if (untestable > 0) {
@@ -135,7 +154,7 @@ public final class DampingComparison {
         if (supported > 0 && supported <= pairs.size() - supported) {
             for (Pair p : pairs) {
                 if (p.significant()) {
-                    statements.add(String.format(Locale.ROOT, "%s damps more than %s (Holm-adjusted p %s).",
+                    statements.add(String.format(Locale.ROOT, "%s " + wording.higher() + " %s (Holm-adjusted p %s).",
                             p.first(), p.second(), pText(p.pHolm())));
                 }
             }
@@ -146,7 +165,7 @@ public final class DampingComparison {
                     alike.add(String.format(Locale.ROOT, "%s and %s (p %s)", p.first(), p.second(), pText(p.pHolm())));
                 }
             }
-            statements.add(alike.isEmpty() ? "Every sample damps differently from every other; the ranking order is supported throughout."
+            statements.add(alike.isEmpty() ? wording.allDiffer()
                     : "Every other pair differs in the order of the ranking; not distinguishable: " + String.join("; ", alike) + ".");
         }
         Map<String, List<Integer>> byGroup = new LinkedHashMap<>();
@@ -171,7 +190,7 @@ public final class DampingComparison {
                 kruskal = GroupStatistics.kruskalWallis(pooled);
                 boolean differ = anova.p() < alpha && kruskal.p() < alpha;
                 boolean disagree = (anova.p() < alpha) != (kruskal.p() < alpha);
-                statements.add(String.format(Locale.ROOT, "Across the %d groups, tan δ %s (one-way ANOVA F = %.3g, p %s; "
+                statements.add(String.format(Locale.ROOT, "Across the %d groups, " + wording.quantity() + " %s (one-way ANOVA F = %.3g, p %s; "
                         + "Kruskal–Wallis H = %.3g, p %s)%s", byGroup.size(),
                         differ ? "differs" : disagree ? "may differ" : "does not differ detectably",
                         anova.statistic(), pText(anova.p()), kruskal.statistic(), pText(kruskal.p()),

@@ -71,6 +71,7 @@ public final class DemoData {
         temperatureSeries(rng, files, truths);
         rawSignals(rng, files, truths);
         amplitudeSweeps(new SplittableRandom(SEED + 1), files);
+        temperatureRamps(new SplittableRandom(SEED + 2), files);
         return new Generated(files, truths);
     }
 
@@ -417,6 +418,81 @@ public final class DemoData {
         double u1 = 1.0 - rng.nextDouble();
         double u2 = rng.nextDouble();
         return Math.sqrt(-2.0 * Math.log(u1)) * Math.cos(2.0 * Math.PI * u2);
+    }
+
+    /**
+     * The invented materials of the temperature ramps (Cole–Cole relaxation, Arrhenius relaxation
+     * time; {@link RampModel}): light ageing raises the varnish's transition and broadens it.
+     */
+    public static final Map<String, RampModel> RAMPS = new java.util.LinkedHashMap<>();
+
+    static {
+        RAMPS.put("varnish-fresh", new RampModel(2.5e9, 8e6, 0.5, 42.0, 320e3, 0.02));
+        RAMPS.put("varnish-aged-500h", new RampModel(2.8e9, 15e6, 0.42, 50.0, 300e3, 0.025));
+        RAMPS.put("acrylic-film", new RampModel(1.8e9, 2e6, 0.6, 18.0, 380e3, 0.02));
+    }
+
+    /** The fixed frequencies of the demo ramps [Hz]. */
+    public static final double[] RAMP_FREQUENCIES_HZ = {0.1, 1, 10};
+
+    /** Replicate scatter of the demo ramps: loss-peak temperature SD [°C] and modulus SD [relative]. */
+    public static final double RAMP_TG_SD_C = 1.0;
+    private static final double RAMP_MODULUS_SD = 0.05;
+    private static final double RAMP_NOISE = 0.01;
+
+    /**
+     * Temperature ramps from −40 to 120 °C at 2 °C/min: the varnishes in one tidy table (three
+     * replicates, three frequencies interleaved at each temperature), the acrylic film as one file
+     * per frequency (a '# frequency:' line). Measured temperatures scatter by 0.1 °C about the set
+     * steps of 1 °C; each modulus carries 1 % noise.
+     */
+    private static void temperatureRamps(SplittableRandom rng, List<DemoFile> files) {
+        StringBuilder tidy = new StringBuilder();
+        tidy.append("# title: temperature ramps of a fresh and a light-aged varnish film, dynamic mechanical analysis in tension\n");
+        tidy.append("# note: ").append(DEMO_NOTE).append('\n');
+        tidy.append("# method: dynamic mechanical analysis, tension\n");
+        tidy.append("# modulus: tensile\n");
+        tidy.append("# heating rate: 2 °C/min\n");
+        tidy.append("sample,replicate,group,temperature [°C],frequency [Hz],storage_modulus [MPa],loss_modulus [MPa]\n");
+        Map<Double, StringBuilder> perFrequency = new java.util.LinkedHashMap<>();
+        for (Map.Entry<String, RampModel> e : RAMPS.entrySet()) {
+            boolean varnish = e.getKey().startsWith("varnish");
+            for (int r = 1; r <= 3; r++) {
+                RampModel base = e.getValue();
+                RampModel m = new RampModel(base.glassyPa() * (1 + RAMP_MODULUS_SD * gaussian(rng)),
+                        base.rubberyPa() * (1 + RAMP_MODULUS_SD * gaussian(rng)), base.alpha(),
+                        base.lossPeakC() + RAMP_TG_SD_C * gaussian(rng), base.eaJPerMol(), base.background());
+                for (int step = 0; step <= 160; step++) {
+                    for (double hz : RAMP_FREQUENCIES_HZ) {
+                        double t = -40 + step + 0.1 * gaussian(rng);
+                        double[] v = m.modulus(hz, t);
+                        double storage = v[0] * (1 + RAMP_NOISE * gaussian(rng));
+                        double loss = v[1] * (1 + RAMP_NOISE * gaussian(rng));
+                        if (varnish) {
+                            tidy.append(String.format(Locale.ROOT, "%s,%d,varnish,%.2f,%s,%s,%s%n", e.getKey(), r, t, num(hz),
+                                    num(storage / 1e6), num(loss / 1e6)));
+                        } else {
+                            StringBuilder sb = perFrequency.computeIfAbsent(hz, k -> new StringBuilder());
+                            if (sb.length() == 0) {
+                                sb.append("# title: temperature ramp of an acrylic film at one frequency, dynamic mechanical analysis\n");
+                                sb.append("# note: ").append(DEMO_NOTE).append('\n');
+                                sb.append("# sample: acrylic-film\n");
+                                sb.append("# group: acrylic\n");
+                                sb.append("# modulus: tensile\n");
+                                sb.append("# frequency: ").append(num(hz)).append(" Hz\n");
+                                sb.append("# heating rate: 2 °C/min\n");
+                                sb.append("replicate,temperature [°C],storage_modulus [MPa],loss_modulus [MPa]\n");
+                            }
+                            sb.append(String.format(Locale.ROOT, "%d,%.2f,%s,%s%n", r, t, num(storage / 1e6), num(loss / 1e6)));
+                        }
+                    }
+                }
+            }
+        }
+        files.add(new DemoFile("demo-data", "temperature-ramps/varnish-films.csv", tidy.toString()));
+        for (Map.Entry<Double, StringBuilder> e : perFrequency.entrySet()) {
+            files.add(new DemoFile("demo-data", "temperature-ramps/acrylic-film-" + num(e.getKey()) + "Hz.csv", e.getValue().toString()));
+        }
     }
 
     private static String num(double v) {

@@ -17,8 +17,16 @@ import org.viscarta.sweep.Ramp;
  * @param alpha      Cole–Cole exponent in (0, 1]; smaller is broader
  * @param lossPeakC  the loss-peak temperature at 1 Hz [°C] (fixes τ_ref with T_ref = this temperature)
  * @param eaJPerMol  E_a [J/mol]
+ * @param background a loss tangent added throughout (M″ += background·M′, standing for the secondary
+ *                   relaxations that keep real glassy and rubbery films lossy); with 0 the loss peak is
+ *                   exactly at x = 1, with more it moves slightly
  */
-public record RampModel(double glassyPa, double rubberyPa, double alpha, double lossPeakC, double eaJPerMol) {
+public record RampModel(double glassyPa, double rubberyPa, double alpha, double lossPeakC, double eaJPerMol, double background) {
+
+    /** A material without background loss: its loss peak lies exactly at x = 1. */
+    public RampModel(double glassyPa, double rubberyPa, double alpha, double lossPeakC, double eaJPerMol) {
+        this(glassyPa, rubberyPa, alpha, lossPeakC, eaJPerMol, 0);
+    }
 
     private static final double R = 8.314462618;
     private static final double K = 273.15;
@@ -43,10 +51,11 @@ public record RampModel(double glassyPa, double rubberyPa, double alpha, double 
         double zr = (wr * dr + wi * wi) / den;
         double zi = (wi * dr - wr * wi) / den;
         double delta = glassyPa - rubberyPa;
-        return new double[] {rubberyPa + delta * zr, delta * zi};
+        double storage = rubberyPa + delta * zr;
+        return new double[] {storage, delta * zi + background * storage};
     }
 
-    /** The loss-peak temperature at f [°C], exactly (x = 1). */
+    /** The loss-peak temperature at f [°C], exactly (x = 1) without background loss. */
     public double lossPeakC(double hz) {
         return 1 / (1 / (lossPeakC + K) - R * Math.log(hz) / eaJPerMol) - K;
     }

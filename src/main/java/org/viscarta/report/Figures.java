@@ -828,6 +828,106 @@ public final class Figures {
                 chart(shortName(ts.sample()) + ": master curve", plot, true));
     }
 
+    /**
+     * A sample's temperature ramps: E′ (filled) and E″ (open) on a logarithmic axis above, tan δ
+     * below, one colour per frequency (every replicate's points); vertical lines mark the three
+     * glass transition conventions at each frequency (mean of the replicates that gave one), labelled
+     * at the frequency nearest 1 Hz.
+     */
+    public static Figure transition(String sample, List<org.viscarta.temperature.GlassTransition.Result> ramps, String stem) {
+        List<Double> freqs = ramps.stream().map(r -> r.ramp().frequencyHz()).distinct().sorted().toList();
+        boolean shear = ramps.get(0).ramp().kind() == org.viscarta.sweep.ModulusKind.SHEAR;
+        String m = shear ? "G" : "E";
+        XYSeriesCollection moduli = new XYSeriesCollection();
+        XYSeriesCollection tan = new XYSeriesCollection();
+        for (double hz : freqs) {
+            XYSeries st = new XYSeries(Numbers.plain(hz) + " Hz", false, true);
+            XYSeries lo = new XYSeries(Numbers.plain(hz) + " Hz " + m + "″", false, true);
+            XYSeries td = new XYSeries(Numbers.plain(hz) + " Hz", false, true);
+            for (org.viscarta.temperature.GlassTransition.Result r : ramps) {
+                if (r.ramp().frequencyHz() != hz) {
+                    continue;
+                }
+                for (org.viscarta.sweep.Ramp.Point p : r.ramp().points()) {
+                    st.add(p.temperatureC(), p.storage());
+                    if (p.loss() > 0) {
+                        lo.add(p.temperatureC(), p.loss());
+                        td.add(p.temperatureC(), p.lossTangent());
+                    }
+                }
+            }
+            moduli.addSeries(st);
+            moduli.addSeries(lo);
+            tan.addSeries(td);
+        }
+        NumberAxis temperature = new NumberAxis("temperature [°C]");
+        temperature.setLabelFont(Palette.LABEL);
+        temperature.setTickLabelFont(Palette.TICK);
+        temperature.setAutoRangeIncludesZero(false);
+        CombinedDomainXYPlot combined = new CombinedDomainXYPlot(temperature);
+        combined.setGap(6);
+        LogAxis my = logAxis("moduli");
+        inModulusUnit(my, m + "′ (filled), " + m + "″ (open)", largest(moduli, true));
+        XYPlot top = new XYPlot(moduli, null, my, null);
+        java.awt.Shape dot = new java.awt.geom.Ellipse2D.Double(-1.6, -1.6, 3.2, 3.2);
+        XYLineAndShapeRenderer rm = new XYLineAndShapeRenderer(false, true);
+        for (int i = 0; i < moduli.getSeriesCount(); i++) {
+            rm.setSeriesPaint(i, Palette.colour(i / 2));
+            rm.setSeriesShape(i, dot);
+            rm.setSeriesShapesFilled(i, i % 2 == 0);
+            rm.setSeriesVisibleInLegend(i, i % 2 == 0);
+        }
+        rm.setUseFillPaint(false);
+        top.setRenderer(rm);
+        NumberAxis ty = new NumberAxis("tan δ [–]");
+        ty.setLabelFont(Palette.LABEL);
+        ty.setTickLabelFont(Palette.TICK);
+        XYPlot bottom = new XYPlot(tan, null, ty, null);
+        XYLineAndShapeRenderer rt = new XYLineAndShapeRenderer(false, true);
+        for (int i = 0; i < tan.getSeriesCount(); i++) {
+            rt.setSeriesPaint(i, Palette.colour(i));
+            rt.setSeriesShape(i, dot);
+            rt.setSeriesVisibleInLegend(i, false);
+        }
+        bottom.setRenderer(rt);
+        double labelled = freqs.stream().min(java.util.Comparator.comparingDouble(f -> Math.abs(Math.log(f)))).orElse(1.0);
+        float[][] dashes = {{2f, 3f}, {7f, 4f}, {10f, 3f, 2f, 3f}};
+        String[] styles = {"dotted", "dashed", "dash-dot"};
+        List<String> named = new ArrayList<>();
+        for (int k = 0; k < freqs.size(); k++) {
+            double hz = freqs.get(k);
+            for (org.viscarta.temperature.GlassTransition.Convention c : org.viscarta.temperature.GlassTransition.Convention.values()) {
+                double mean = ramps.stream().filter(r -> r.ramp().frequencyHz() == hz && r.estimate(c).found())
+                        .mapToDouble(r -> r.estimate(c).valueC()).average().orElse(Double.NaN);
+                if (Double.isNaN(mean)) {
+                    continue;
+                }
+                if (hz == labelled) {
+                    named.add(c.label(shear) + " " + String.format(Locale.ROOT, "%.1f °C", mean) + " (" + styles[c.ordinal()] + ")");
+                }
+                for (XYPlot panel : List.of(top, bottom)) {
+                    panel.addDomainMarker(new ValueMarker(mean, Palette.colour(k), new BasicStroke(1.2f, BasicStroke.CAP_BUTT,
+                            BasicStroke.JOIN_MITER, 10f, dashes[c.ordinal()], 0f)));
+                }
+            }
+        }
+        combined.add(top, 3);
+        combined.add(bottom, 2);
+        JFreeChart c = new JFreeChart(shortName(sample) + ": temperature ramps", Palette.TITLE, combined, true);
+        finish(c, top);
+        finish(c, bottom);
+        if (!named.isEmpty()) {
+            c.addSubtitle(new org.jfree.chart.title.TextTitle("Tg at " + Numbers.plain(labelled) + " Hz, replicate means:\n"
+                    + String.join(", ", named),
+                    Palette.TICK));
+        }
+        return new Figure(stem, "Temperature ramps of " + shortName(sample) + ": storage (filled) and loss moduli (open) above, "
+                + "tan δ below, one colour per frequency, every replicate. Vertical lines mark the glass transition by the "
+                + "three ASTM E1640 conventions at each frequency (dotted: onset of the " + m + "′ drop; dashed: " + m
+                + "″ peak; dash-dot: tan δ peak; replicate means); their values at " + Numbers.plain(labelled) + " Hz are under the title.",
+                c, 400);
+    }
+
     /** log10 a_T against temperature with its standard errors and the WLF and Arrhenius fits. */
     public static Figure shiftFactors(TemperatureSeries ts, String stem) {
         ShiftAnalysis.Result r = ts.result();

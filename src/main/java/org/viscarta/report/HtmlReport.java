@@ -43,7 +43,7 @@ public final class HtmlReport {
             h.append("<p class=\"demo\">").append(esc(Texts.DEMO)).append("</p>\n");
         }
         h.append("<h2>Read me</h2>\n<dl>\n");
-        for (String[] d : Texts.definitions(r.request())) {
+        for (String[] d : Texts.definitions(r)) {
             h.append("<dt>").append(esc(d[0])).append("</dt><dd>").append(esc(d[1])).append("</dd>\n");
         }
         h.append("</dl>\n<h3>Cautions</h3>\n<div class=\"caution\">\n");
@@ -77,6 +77,7 @@ public final class HtmlReport {
         }
         matches(h, r);
         series(h, r);
+        transitions(h, r);
         if (!figures.isEmpty()) {
             h.append("<h2>Figures</h2>\n");
             for (RenderedFigure f : figures) {
@@ -87,6 +88,38 @@ public final class HtmlReport {
         provenance(h, c);
         h.append("</body>\n</html>\n");
         return withContents(h.toString());
+    }
+
+    /** The glass transitions: each ramp, the activation energies, the comparisons (when ramps were read). */
+    private static void transitions(StringBuilder h, AnalysisResult r) {
+        org.viscarta.temperature.Transitions t = r.transitions();
+        if (t.isEmpty()) {
+            return;
+        }
+        table(h, OutputTables.transitions(t), t.results(), "The glass transition of every temperature ramp by the three "
+                + "conventions of ASTM E1640, with the standard error of each local fit (see 'Why three Tg values' and 'Which Tg "
+                + "to quote' in the Read me).");
+        h.append("<ul class=\"limits\">\n");
+        for (String line : Statements.TRANSITION_METHOD) {
+            h.append("<li>").append(esc(line)).append("</li>\n");
+        }
+        h.append("</ul>\n");
+        if (!t.activations().isEmpty()) {
+            table(h, OutputTables.ACTIVATION, t.activations(), "How strongly each sample's transition moves with frequency.");
+        }
+        if (!t.sets().isEmpty()) {
+            table(h, OutputTables.TRANSITION_RANKING, OutputTables.transitionRankRows(t), "Samples compared within one frequency "
+                    + "and one convention, highest first; samples sharing a letter are not distinguishable.");
+            for (org.viscarta.temperature.Transitions.RankedSet set : t.sets()) {
+                h.append("<h3>").append(esc(set.label())).append("</h3>\n");
+                for (String statement : set.statements()) {
+                    h.append("<p>").append(esc(statement)).append("</p>\n");
+                }
+                for (String missing : set.missing()) {
+                    h.append("<p>Not compared: ").append(esc(missing)).append("</p>\n");
+                }
+            }
+        }
     }
 
     private static final java.util.regex.Pattern SECTION = java.util.regex.Pattern.compile("<h2>(.*?)</h2>");

@@ -1,5 +1,9 @@
 package org.viscarta.report;
 
+import org.viscarta.temperature.ActivationEnergy;
+import org.viscarta.temperature.GlassTransition;
+import org.viscarta.temperature.Transitions;
+
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
@@ -271,6 +275,110 @@ public final class OutputTables {
             .column("limit", "limit", "", Style.SCIENTIFIC, 11, SweepChecks.Check::limit)
             .column("unit", "unit", "", Style.TEXT, 14, c -> " " + c.unit(), Medium.allBut(Medium.CSV))
             .column("message", "what it means", "", Style.TEXT, 90, SweepChecks.Check::message)
+            .build();
+
+    /**
+     * One row per temperature ramp: the glass transition by the three ASTM E1640 conventions with
+     * their standard errors, the tan δ peak's height and width, the plateau moduli, and the
+     * sample's activation energy from its tan δ peaks (sheet Transitions; {@code transition -o}).
+     */
+    public static Table<GlassTransition.Result> transitions(Transitions t) {
+        return Table.<GlassTransition.Result>named("Transitions")
+                .column("sample", "sample", "", Style.TEXT, 22, r -> r.ramp().sample())
+                .column("replicate", "replicate", "", Style.TEXT, 9, r -> r.ramp().replicate())
+                .column("group", "group", "", Style.TEXT, 12, r -> r.ramp().group(), SHEET_CSV)
+                .column("frequency_hz", "frequency", "Hz", Style.FREQUENCY, 10, r -> r.ramp().frequencyHz())
+                .column("tg_storage_onset_c", "Tg E′ onset", "°C", Style.DECIMAL2, 11, r -> r.onset().valueC())
+                .column("tg_storage_onset_std_error_c", "± std error", "°C", Style.DECIMAL2, 10, r -> r.onset().stdError())
+                .column("tg_loss_peak_c", "Tg E″ peak", "°C", Style.DECIMAL2, 11, r -> r.lossPeak().valueC())
+                .column("tg_loss_peak_std_error_c", "± std error", "°C", Style.DECIMAL2, 10, r -> r.lossPeak().stdError())
+                .column("tg_tan_delta_peak_c", "Tg tan δ peak", "°C", Style.DECIMAL2, 11, r -> r.tanDeltaPeak().valueC())
+                .column("tg_tan_delta_peak_std_error_c", "± std error", "°C", Style.DECIMAL2, 10, r -> r.tanDeltaPeak().stdError())
+                .column("tan_delta_peak_height", "tan δ peak height", "–", Style.DECIMAL4, 11, GlassTransition.Result::peakHeight)
+                .column("tan_delta_peak_height_std_error", "± std error", "–", Style.DECIMAL4, 10,
+                        GlassTransition.Result::peakHeightSe, SHEET_CSV)
+                .column("tan_delta_peak_fwhm_c", "tan δ peak width (FWHM)", "°C", Style.DECIMAL2, 12, GlassTransition.Result::fwhmC)
+                .column("glassy_storage_modulus_pa", "glassy E′", "Pa", Style.SCIENTIFIC, 12, GlassTransition.Result::glassyStorage)
+                .column("rubbery_storage_modulus_pa", "rubbery E′", "Pa", Style.SCIENTIFIC, 12, GlassTransition.Result::rubberyStorage)
+                .column("activation_energy_kj_mol", "Ea (tan δ peak)", "kJ/mol", Style.DECIMAL2, 11,
+                        r -> t.activation(r.ramp().sample(), GlassTransition.Convention.TAN_DELTA_PEAK)
+                                .map(ActivationEnergy::kjPerMol).orElse(null), SHEET_CSV)
+                .column("activation_energy_ci95_low_kj_mol", "Ea 95 % CI low", "kJ/mol", Style.DECIMAL2, 11,
+                        r -> t.activation(r.ramp().sample(), GlassTransition.Convention.TAN_DELTA_PEAK)
+                                .map(ActivationEnergy::ci95Low).orElse(null), SHEET_CSV)
+                .column("activation_energy_ci95_high_kj_mol", "Ea 95 % CI high", "kJ/mol", Style.DECIMAL2, 11,
+                        r -> t.activation(r.ramp().sample(), GlassTransition.Convention.TAN_DELTA_PEAK)
+                                .map(ActivationEnergy::ci95High).orElse(null), SHEET_CSV)
+                .column("heating_rate_k_min", "heating rate", "K/min", Style.DECIMAL2, 10,
+                        r -> r.ramp().heatingRateKPerMin().isPresent() ? r.ramp().heatingRateKPerMin().getAsDouble() : null, SHEET_CSV)
+                .column("notes", "windows and notes", "", Style.TEXT, 70, OutputTables::transitionNotes, Medium.allBut(Medium.TERMINAL))
+                .build();
+    }
+
+    /** Why a convention gave no number, and the windows of those that did. */
+    public static String transitionNotes(GlassTransition.Result r) {
+        List<String> out = new ArrayList<>();
+        for (GlassTransition.Convention c : GlassTransition.Convention.values()) {
+            GlassTransition.Estimate e = r.estimate(c);
+            out.add(c.label() + ": " + (e.found() ? e.window() : e.problem()));
+        }
+        if (!r.fwhmProblem().isEmpty() && r.tanDeltaPeak().found()) {
+            out.add("width: " + r.fwhmProblem());
+        }
+        if (!r.rubberyWindow().isEmpty()) {
+            out.add("rubbery E′ over " + r.rubberyWindow());
+        }
+        if (r.ramp().unsorted() > 0) {
+            out.add(r.ramp().unsorted() + " point(s) sorted into temperature order");
+        }
+        return String.join("; ", out);
+    }
+
+    /** One row per sample and peak convention with several frequencies (sheet Activation energy). */
+    public static final Table<Transitions.Activation> ACTIVATION = Table.<Transitions.Activation>named("Activation energy")
+            .column("sample", "sample", "", Style.TEXT, 22, Transitions.Activation::sample)
+            .column("convention", "from the", "", Style.TEXT, 14, a -> a.convention().label())
+            .column("activation_energy_kj_mol", "Ea", "kJ/mol", Style.DECIMAL2, 11,
+                    a -> a.energy() == null ? null : a.energy().kjPerMol())
+            .column("ci95_low_kj_mol", "95 % CI low", "kJ/mol", Style.DECIMAL2, 11, a -> a.energy() == null ? null : a.energy().ci95Low())
+            .column("ci95_high_kj_mol", "95 % CI high", "kJ/mol", Style.DECIMAL2, 11,
+                    a -> a.energy() == null ? null : a.energy().ci95High())
+            .column("n_temperatures", "temperatures", "", Style.INTEGER, 12, a -> a.energy() == null ? null : a.energy().points())
+            .column("n_frequencies", "frequencies", "", Style.INTEGER, 11, a -> a.energy() == null ? null : a.energy().frequencies())
+            .column("note", "note", "", Style.TEXT, 50, a -> a.energy() == null ? a.problem()
+                    : Double.isNaN(a.energy().ci95High()) ? "the upper end is unbounded (a flat trend is within the interval)" : "")
+            .build();
+
+    /** A row of {@link #TRANSITION_RANKING}: one sample in one comparable set. */
+    public record TransitionRankRow(Transitions.RankedSet set, Transitions.RankedRow row) {
+    }
+
+    /** The rows of {@link #TRANSITION_RANKING}, set by set. */
+    public static List<TransitionRankRow> transitionRankRows(Transitions t) {
+        List<TransitionRankRow> out = new ArrayList<>();
+        for (Transitions.RankedSet s : t.sets()) {
+            for (Transitions.RankedRow r : s.rows()) {
+                out.add(new TransitionRankRow(s, r));
+            }
+        }
+        return out;
+    }
+
+    /** Samples compared within one frequency and one convention (sheet Transition ranking). */
+    public static final Table<TransitionRankRow> TRANSITION_RANKING = Table.<TransitionRankRow>named("Transition ranking")
+            .column("compared", "compared", "", Style.TEXT, 26, r -> r.set().measure().label(), Medium.allBut(Medium.TERMINAL))
+            .column("frequency_hz", "frequency", "Hz", Style.FREQUENCY, 10, r -> r.set().frequencyHz(), Medium.allBut(Medium.TERMINAL))
+            .column("rank", "rank", "", Style.INTEGER, 6, r -> r.row().rank())
+            .column("sample", "sample", "", Style.TEXT, 22, r -> r.row().sample())
+            .column("group", "group", "", Style.TEXT, 12, r -> r.row().group(), SHEET_CSV)
+            .column("n_replicates", "replicates", "", Style.INTEGER, 10, r -> r.row().values().n())
+            .column("mean", "mean", "", Style.SCIENTIFIC, 11, r -> r.row().values().mean())
+            .column("sd", "standard deviation", "", Style.SCIENTIFIC, 11, r -> r.row().values().sd())
+            .column("ci95_low", "95 % CI low", "", Style.SCIENTIFIC, 11, r -> r.row().values().ci95Low(), SHEET_CSV)
+            .column("ci95_high", "95 % CI high", "", Style.SCIENTIFIC, 11, r -> r.row().values().ci95High(), SHEET_CSV)
+            .column("unit", "unit", "", Style.TEXT, 6, r -> r.set().measure().unit().isEmpty() ? "–" : r.set().measure().unit(),
+                    Medium.allBut(Medium.TERMINAL))
+            .column("letters", "letter group", "", Style.TEXT, 10, r -> r.row().letters())
             .build();
 
     /** The relaxation spectrum of every sample (sheet Spectra; {@code spectrum -o} writes the same columns). */

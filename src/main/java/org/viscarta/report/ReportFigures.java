@@ -68,7 +68,19 @@ public final class ReportFigures {
         r.series().forEach(ts -> inSeries.addAll(ts.sweeps()));
         List<Sample> shown = r.samples().stream().map(SampleAnalysis::sample)
                 .filter(s -> s.replicates().stream().noneMatch(inSeries::contains)).toList();
-        out.add(Figures.tanDelta(shown, r.samples().size() - shown.size()));
+        if (!shown.isEmpty()) {
+            out.add(Figures.tanDelta(shown, r.samples().size() - shown.size()));
+        }
+        Map<String, List<org.viscarta.temperature.GlassTransition.Result>> ramps = new java.util.LinkedHashMap<>();
+        r.transitions().results().forEach(t -> ramps.computeIfAbsent(t.ramp().sample(), k -> new ArrayList<>()).add(t));
+        Set<String> rampSlugs = new HashSet<>();
+        for (Map.Entry<String, List<org.viscarta.temperature.GlassTransition.Result>> e : ramps.entrySet()) {
+            String slug = slug(e.getKey());
+            for (int k = 2; !rampSlugs.add(slug); k++) {
+                slug = slug(e.getKey()) + "-" + k;
+            }
+            out.add(Figures.transition(e.getKey(), e.getValue(), "transition-" + slug));
+        }
         List<SampleAnalysis> withSpectra = r.samples().stream()
                 .filter(sa -> sa.spectrum().isPresent() && sa.sample().replicates().stream().noneMatch(inSeries::contains)).toList();
         if (!withSpectra.isEmpty()) {

@@ -25,6 +25,49 @@ public final class Texts {
         return out;
     }
 
+    /** The definitions, with the glass transition's when temperature ramps were analysed. */
+    public static List<String[]> definitions(org.viscarta.analysis.AnalysisResult r) {
+        List<String[]> out = definitions(r.request());
+        if (!r.transitions().isEmpty()) {
+            out.addAll(GLASS_TRANSITION);
+        }
+        return out;
+    }
+
+    /** The glass transition in plain words: why three temperatures, and which to quote. */
+    static final List<String[]> GLASS_TRANSITION = List.of(
+            new String[] {"Glass transition temperature Tg [°C]",
+                "The glass transition is not one temperature but a range over which a film or gel goes from glassy (hard, "
+                    + "stiff) to rubbery (soft): E′ falls by a factor of ten to a thousand, and E″ and tan δ pass through a "
+                    + "peak. A temperature ramp shows the whole range; a Tg is one agreed point in it."},
+            new String[] {"Why three Tg values",
+                "ASTM E1640 (Assignment of the Glass Transition Temperature by Dynamic Mechanical Analysis; the 2018 edition "
+                    + "as we recall it — check the edition you cite) names three points, and they always fall in this order: "
+                    + "the onset of the E′ drop (where the stiffness starts to fall: the glassy line crossed with the steepest "
+                    + "tangent, on a logarithmic scale), then the peak of E″ (where the molecular motion dissipates most energy), "
+                    + "then the peak of tan δ (where damping relative to stiffness is largest), often 10 to 25 °C above the "
+                    + "onset. None is more correct; they answer different questions."},
+            new String[] {"Which Tg to quote",
+                "Quote the convention your field, standard or earlier work uses, with the frequency and heating rate: e.g. "
+                    + "'Tg (E″ peak, 1 Hz, 2 °C/min) = 45 °C'. Without one, the onset is the cautious choice for the highest "
+                    + "temperature at which a film still behaves as glassy; the E″ peak is the usual figure for the transition "
+                    + "itself; the tan δ peak is the one most often printed for damping. Compare samples only within one "
+                    + "convention and one frequency, as the Transition ranking does. All three move to higher temperatures at "
+                    + "higher frequencies and faster heating."},
+            new String[] {"Apparent activation energy Ea [kJ/mol]",
+                "How strongly the transition moves with frequency: from the peak temperatures at several frequencies by the "
+                    + "Arrhenius law, ln f = const − Ea/(R T). Larger means a sharper dependence on rate; glass transitions of "
+                    + "polymers typically give a few hundred kJ/mol (common practice). The 95 % interval comes from the scatter "
+                    + "of the peak temperatures about the line."},
+            new String[] {"tan δ peak height and width",
+                "The height of the tan δ peak (how much the film damps at its transition) and its full width at half height "
+                    + "(how broad the transition is: a broader peak means a more heterogeneous material, as ageing or "
+                    + "crosslinking often makes it)."});
+
+    /** Said when temperature ramps were analysed. */
+    static final String TRANSITION_CAUTION = "A glass transition temperature holds for the frequency and heating rate of its "
+            + "test; it is not a safe temperature of use or display. Apply the margins your field or local rules set.";
+
     /** What each sheet holds, with the ranking point that ran. */
     public static List<String[]> sheets(AnalysisRequest request) {
         String at = Statements.rankedBy(request);
@@ -65,6 +108,9 @@ public final class Texts {
         }
         if (r.request().needsFits()) {
             out.add(FIT_INTERVALS);
+        }
+        if (!r.transitions().isEmpty()) {
+            out.add(TRANSITION_CAUTION);
         }
         return out;
     }
@@ -137,6 +183,14 @@ public final class Texts {
             new String[] {"Temperature series", "For a sample measured at several temperatures: the shift factors a_T that "
                     + "superpose its curves into one master curve at the reference temperature, WLF and Arrhenius fits to them, "
                     + "and whether superposition holds."},
+            new String[] {"Transitions", "For temperature ramps: the glass transition of each ramp (sample, replicate, "
+                    + "frequency) by the three ASTM E1640 conventions with standard errors, the tan δ peak's height and width, E′ "
+                    + "on the glassy and rubbery plateaus, the windows each number came from, and the sample's activation energy."},
+            new String[] {"Activation energy", "For each sample ramped at several frequencies: the apparent activation energy "
+                    + "of its transition from the E″ and from the tan δ peaks, with 95 % intervals."},
+            new String[] {"Transition ranking", "Samples compared at each frequency and convention (Tg by each convention, tan δ "
+                    + "peak height): means over replicates, letters from Welch t-tests with Holm's adjustment (samples sharing a "
+                    + "letter are not distinguishable), and the conclusions in words."},
             new String[] {"Model fits", "Every model fitted to every sample: parameters with units, standard errors, 95 % intervals, AICc and Akaike weights."},
             new String[] {"Derived quantities", "Quantities computed from each fit (relaxation and retardation times, crossover "
                     + "frequency, relaxed and unrelaxed moduli, viscosities), with standard errors."},
@@ -153,6 +207,6 @@ public final class Texts {
             new String[] {"Reference library", "The reference materials available for comparison (when a library was given)."},
             new String[] {"Figures", "The figures, also written as PNG (300 dpi) and SVG files under figures/: the damping ranking, tan δ "
                     + "of every sample, the relaxation spectra, each temperature series' master curve, shift factors and van "
-                    + "Gurp–Palmen plot, and for each sample its fit (with residuals) and its closest references."},
+                    + "Gurp–Palmen plot, each sample's temperature ramps with its three Tg marked, and for each sample its fit (with residuals) and its closest references."},
             new String[] {"Provenance", "Tool version, the full command line, each input file with its SHA-256 checksum, every setting, and every warning."});
 }

@@ -97,6 +97,20 @@ public final class WorkbookReport {
             if (!r.series().isEmpty()) {
                 temperatureSeries(wb, st, r);
             }
+            if (!r.transitions().isEmpty()) {
+                org.viscarta.temperature.Transitions t = r.transitions();
+                table(wb, st, OutputTables.transitions(t), t.results(), "", Statements.TRANSITION_METHOD);
+                table(wb, st, OutputTables.ACTIVATION, t.activations(), t.activations().isEmpty()
+                        ? "no sample was ramped at two or more frequencies" : "", List.of());
+                List<String> statements = new java.util.ArrayList<>();
+                for (org.viscarta.temperature.Transitions.RankedSet set : t.sets()) {
+                    statements.add(set.label() + ":");
+                    set.statements().forEach(x -> statements.add("  " + x));
+                    set.missing().forEach(x -> statements.add("  not compared: " + x));
+                }
+                table(wb, st, OutputTables.TRANSITION_RANKING, OutputTables.transitionRankRows(t), t.sets().isEmpty()
+                        ? "fewer than two samples at any one frequency, so nothing was compared" : "", statements);
+            }
             table(wb, st, OutputTables.modelFits(r.request()), OutputTables.fitRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.DERIVED, OutputTables.derivedRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.CORRELATIONS, OutputTables.correlationRows(r.samples()), "", List.of());
@@ -571,7 +585,7 @@ public final class WorkbookReport {
         }
         rows.blank();
         rows.styled(st.header, "Term", "Meaning");
-        for (String[] d : Texts.definitions(r.request())) {
+        for (String[] d : Texts.definitions(r)) {
             rows.paragraph(st.bold, st.wrap, d[0], d[1], LABEL_WIDTH, TEXT_WIDTH);
         }
         rows.blank();

@@ -48,6 +48,23 @@ class ReportOutputTest {
     }
 
     @Test
+    void theDemoReportShowsTheGlassTransitionsOfItsRamps() throws IOException {
+        Document doc = Jsoup.parse(first.resolve("report.html").toFile(), "UTF-8");
+        Element table = doc.select("h2:contains(Transitions) + p + table").first();
+        assertTrue(table != null, "a Transitions table");
+        assertEquals(27 + 1, table.select("tr").size(), "27 ramps and a header");
+        String text = doc.text();
+        assertTrue(text.contains("Why three Tg values") && text.contains("Which Tg to quote"), "the Read me explains the conventions");
+        assertTrue(text.contains("ASTM E1640"));
+        assertTrue(text.contains("not a safe temperature of use"), "the caution about Tg");
+        assertTrue(text.contains("Tg (tan δ peak) at 1 Hz"), "the comparison at 1 Hz");
+        for (String sample : org.viscarta.demo.DemoData.RAMPS.keySet()) {
+            assertTrue(Files.isRegularFile(first.resolve("figures/transition-" + sample + ".png")), sample);
+            assertTrue(doc.select("figure#transition-" + sample + " figcaption").text().contains("ASTM E1640"), sample);
+        }
+    }
+
+    @Test
     void htmlIsSelfContainedAndHoldsTheTables() throws IOException {
         Document doc = Jsoup.parse(first.resolve("report.html").toFile(), "UTF-8");
         assertTrue(doc.select("script, link, iframe, object, embed").isEmpty(), "no script or external resource");
@@ -58,7 +75,7 @@ class ReportOutputTest {
         assertTrue(doc.select("style").size() == 1);
         List<String> headings = doc.select("h2").eachText();
         assertEquals(List.of("Read me", "Summary", "Damping ranking", "Quality", "Closest reference materials", "Best mimic of target-soft-tissue",
-                "Temperature series: acrylic-film-ts", "Figures", "Provenance"), headings);
+                "Temperature series: acrylic-film-ts", "Transitions", "Activation energy", "Transition ranking", "Figures", "Provenance"), headings);
         Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
         assertEquals(1 + 23, ranking.select("tr").size(), "a row per sample, the master curve included");
         assertTrue(doc.text().contains("not clinical or structural verdicts"));
