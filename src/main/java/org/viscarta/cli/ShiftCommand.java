@@ -13,6 +13,7 @@ import org.viscarta.sweep.Numbers;
 import org.viscarta.io.AtomicOutput;
 import org.viscarta.io.SweepTableWriter;
 import org.viscarta.sweep.Sweep;
+import org.viscarta.temperature.Isotherms;
 import org.viscarta.temperature.ShiftAnalysis;
 import org.viscarta.temperature.ShiftFits;
 import org.viscarta.temperature.ShiftLaws;
@@ -28,7 +29,8 @@ import picocli.CommandLine.Option;
         description = "Shifts each sweep of one sample along the frequency axis onto its warmer neighbour (matching "
             + "log tan δ, which no vertical factor changes, and log |E*|), chains the shifts to the reference "
             + "temperature, fits WLF and Arrhenius laws to the shift factors, and builds the master curve at "
-            + "the reference temperature.")
+            + "the reference temperature. Temperature ramps at several fixed frequencies are cut into isotherms "
+            + "first (a cross-plot at every --isotherm-step °C) when the sample has no frequency sweeps.")
 final class ShiftCommand implements Callable<Integer> {
 
     @Mixin
@@ -52,6 +54,11 @@ final class ShiftCommand implements Callable<Integer> {
 
     @Option(names = "--wlf-at", paramLabel = "°C", description = "Also give the WLF constants referred to this temperature.")
     Double wlfAt;
+
+    @Option(names = "--isotherm-step", paramLabel = "°C", defaultValue = "5",
+            description = "With temperature ramps: the spacing of the isotherms cut across them (default: ${DEFAULT-VALUE} °C; "
+                    + "the reference temperature must be a multiple of it).")
+    double isothermStep;
 
     @Mixin
     OutputOptions output;
@@ -79,15 +86,39 @@ final class ShiftCommand implements Callable<Integer> {
                 }
             }
         }
+        List<org.viscarta.sweep.Ramp> ramps = new ArrayList<>();
+        for (org.viscarta.sweep.Ramp rp : c.ramps()) {
+            names.add(rp.sample());
+            if (sample == null || rp.sample().equals(sample)) {
+                ramps.add(rp);
+            }
+        }
         if (sample == null && names.size() > 1) {
             throw new UsageException("the inputs hold several samples (" + String.join(", ", names)
                     + "); choose one with --sample");
+        }
+        PrintWriter out = spec.commandLine().getOut();
+        if (sweeps.isEmpty() && !ramps.isEmpty()) {
+            sweeps = Isotherms.of(ramps, isothermStep);
+            if (sweeps.isEmpty()) {
+                throw new UsageException("the ramps of sample '" + ramps.get(0).sample() + "' are at one frequency only, or never "
+                        + "at two frequencies within " + Numbers.plain(isothermStep) + " °C of the same temperature; "
+                        + "isotherms need ramps at two or more frequencies");
+            }
+            java.util.TreeSet<Double> temps = new java.util.TreeSet<>();
+            java.util.TreeSet<Double> freqs = new java.util.TreeSet<>();
+            for (Sweep sw : sweeps) {
+                temps.add(sw.temperatureC());
+                sw.points().forEach(p -> freqs.add(p.frequencyHz()));
+            }
+            out.printf("Isotherms cut across the temperature ramps: %d temperatures, %s to %s °C every %s °C, at %d frequencies "
+                    + "(%s–%s Hz)%n", temps.size(), Numbers.plain(temps.first()), Numbers.plain(temps.last()),
+                    Numbers.plain(isothermStep), freqs.size(), Cells.g4(freqs.first()), Cells.g4(freqs.last()));
         }
         if (sweeps.isEmpty()) {
             throw new UsageException("no sweeps of sample '" + sample + "' in the inputs");
         }
         ShiftAnalysis.Result r = new ShiftAnalysis(minOverlap, ShiftAnalysis.Vertical.parse(vertical)).analyse(sweeps, reference);
-        PrintWriter out = spec.commandLine().getOut();
         out.printf("Shift factors of %s, reference %s °C (a_T > 1 below it)%n", sweeps.get(0).sample(), Numbers.plain(reference));
         TextTable t = new TextTable("temperature [°C]", "log10 a_T", "± SE", "a_T", "b_T", "placed");
         List<List<String>> factorRows = new ArrayList<>();

@@ -79,6 +79,22 @@ class TransitionCommandTest {
     }
 
     @Test
+    void shiftCutsIsothermsAcrossTheDemoRampsAndRecoversTheGeneratorsArrheniusLaw() {
+        // the demo acrylic film's relaxation times follow Arrhenius with the generator's Ea; its constant
+        // background loss tangent is not shifted, so agreement is asked to 3 %, not to the interval
+        CliRun r = CliRun.of("shift", "demo-data/temperature-ramps", "--sample", "acrylic-film", "--reference-temperature", "20");
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("Isotherms cut across the temperature ramps:"), r.out());
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("Arrhenius: Ea = ([0-9.]+)").matcher(r.out());
+        assertTrue(m.find(), r.out());
+        double ea = DemoData.RAMPS.get("acrylic-film").eaJPerMol() / 1000;
+        assertEquals(ea, Double.parseDouble(m.group(1)), 0.03 * ea, r.out());
+        CliRun one = CliRun.of("shift", "demo-data/temperature-ramps/acrylic-film-1Hz.csv", "--reference-temperature", "20");
+        assertEquals(2, one.exitCode());
+        assertTrue(one.err().contains("isotherms need ramps at two or more frequencies"), one.err());
+    }
+
+    @Test
     void inputsWithoutRampsAndRampsWithoutSweepsSaySo() {
         CliRun none = CliRun.of("transition", "demo-data/hydrogel-screen/agarose-1.0pct-r1.csv");
         assertEquals(2, none.exitCode());
