@@ -12,7 +12,7 @@ import picocli.CommandLine.Option;
 final class OutputOptions {
 
     @Option(names = {"-o", "--out"}, paramLabel = "PATH",
-            description = "Where to write: a CSV file (fit, rank, match, in SI units) or a folder (report, shift).")
+            description = "Where to write: a CSV file (fit, rank, match, spectrum, transition; moduli in Pa) or a folder (report, shift).")
     Path out;
 
     @Option(names = "--force", description = "Replace existing output files.")
