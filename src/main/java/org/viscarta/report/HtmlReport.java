@@ -99,6 +99,13 @@ public final class HtmlReport {
         table(h, OutputTables.transitions(t), t.results(), "The glass transition of every temperature ramp by the three "
                 + "conventions of ASTM E1640, with the standard error of each local fit (see 'Why three Tg values' and 'Which Tg "
                 + "to quote' in the Read me).");
+        h.append("<h3>The windows of the local fits, and why a convention gave no number</h3>\n<ul class=\"limits\">\n");
+        for (org.viscarta.temperature.GlassTransition.Result g : t.results()) {
+            h.append("<li><strong>").append(esc(g.ramp().sample() + ", replicate " + g.ramp().replicate() + ", "
+                    + org.viscarta.sweep.Numbers.plain(g.ramp().frequencyHz()) + " Hz")).append("</strong>: ")
+                    .append(esc(OutputTables.transitionNotes(g))).append("</li>\n");
+        }
+        h.append("</ul>\n");
         h.append("<ul class=\"limits\">\n");
         for (String line : Statements.TRANSITION_METHOD) {
             h.append("<li>").append(esc(line)).append("</li>\n");

@@ -311,7 +311,7 @@ public final class OutputTables {
                                 .map(ActivationEnergy::ci95High).orElse(null), SHEET_CSV)
                 .column("heating_rate_k_min", "heating rate", "K/min", Style.DECIMAL2, 10,
                         r -> r.ramp().heatingRateKPerMin().isPresent() ? r.ramp().heatingRateKPerMin().getAsDouble() : null, SHEET_CSV)
-                .column("notes", "windows and notes", "", Style.TEXT, 70, OutputTables::transitionNotes, Medium.allBut(Medium.TERMINAL))
+                .column("notes", "windows and notes", "", Style.TEXT, 70, OutputTables::transitionNotes, SHEET_CSV)
                 .build();
     }
 
