@@ -387,7 +387,7 @@ public final class Figures {
     }
 
     /** ln M′ and its SE, ln M″ and its SE, from the curve's covariance (delta method); SE 0 when unknown. */
-    private static double[] logBand(FittedCurve curve, double[] p, double f) {
+    static double[] logBand(FittedCurve curve, double[] p, double f) {
         double w = 2 * Math.PI * f;
         double[] base = new double[2];
         curve.model().modulus(w, p, base);
