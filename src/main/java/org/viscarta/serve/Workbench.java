@@ -135,6 +135,8 @@ public final class Workbench implements AutoCloseable {
             config.routes.get("/", ctx -> asset(ctx, "/org/viscarta/serve/web/index.html", "text/html; charset=utf-8"));
             config.routes.get("/assets/app.js", ctx -> asset(ctx, "/org/viscarta/serve/web/app.js", "text/javascript; charset=utf-8"));
             config.routes.get("/assets/app.css", ctx -> asset(ctx, "/org/viscarta/serve/web/app.css", "text/css; charset=utf-8"));
+            config.routes.get("/assets/icon.svg", ctx -> asset(ctx, "/org/viscarta/serve/web/icon.svg", "image/svg+xml"));
+            config.routes.get("/favicon.ico", ctx -> asset(ctx, "/org/viscarta/serve/web/icon.svg", "image/svg+xml"));
             config.routes.get("/assets/uplot.js", ctx -> asset(ctx, uplot("uPlot.iife.min.js"), "text/javascript; charset=utf-8"));
             config.routes.get("/assets/uplot.css", ctx -> asset(ctx, uplot("uPlot.min.css"), "text/css; charset=utf-8"));
             config.routes.get("/api/about", this::aboutJson);
@@ -704,6 +706,9 @@ public final class Workbench implements AutoCloseable {
 
     private void libraryRemove(Context ctx) throws IOException {
         String name = ctx.pathParam("name");
+        if (ReferenceLibrary.open(libraryFolder()).entries().stream().noneMatch(e -> e.name().equals(name))) {
+            throw ApiError.notFound("no reference named '" + name + "'");
+        }
         Path kept = new LibraryFolder(libraryFolder()).remove(name);
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("removed", name);

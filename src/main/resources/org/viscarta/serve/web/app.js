@@ -280,9 +280,9 @@
     const rt = tableById('ranking');
     if (rt) renderTable(rt, ranking);
     else ranking.append(el('p', { text: 'No damping ranking: no frequency sweeps among the inputs.' }));
-    const rankFigure = r.figures.find(f => f.name === 'ranking');
+    const rankFigure = r.figures.find(f => f.name === 'damping-ranking');
     if (rankFigure) {
-      ranking.append(el('figure', null, el('img', { src: '/api/analyses/' + r.id + '/figures/ranking.png', alt: rankFigure.caption,
+      ranking.append(el('figure', null, el('img', { src: '/api/analyses/' + r.id + '/figures/damping-ranking.png', alt: rankFigure.caption,
         className: 'figure', width: '900' }), el('figcaption', { text: rankFigure.caption })));
     }
     renderTable(tableById('summary'), ranking);
