@@ -122,6 +122,15 @@ class WorkbenchBrowserTest {
         }
     }
 
+    private static void shotOf(String name, WebElement e) throws IOException {
+        String dir = System.getProperty("viscarta.screenshots");
+        if (dir != null) {
+            ((JavascriptExecutor) driver).executeScript("arguments[0].scrollIntoView();", e);
+            Files.createDirectories(Path.of(dir));
+            Files.write(Path.of(dir, name + ".png"), e.getScreenshotAs(OutputType.BYTES));
+        }
+    }
+
     @Test
     void aPersonAnalysesTheDemoFilesReadsTheRankingAndAFitAndDownloadsTheWorkbook() throws Exception {
         WebDriverWait wait = new WebDriverWait(driver, Duration.ofSeconds(30));
@@ -131,10 +140,10 @@ class WorkbenchBrowserTest {
         assertTrue(driver.findElement(By.id("library-status")).getText().contains("reference(s)"));
         shot("1-opened");
 
-        // the demo hydrogel files and one broken file, chosen with the page's file picker
+        // every demo file and one broken file, chosen with the page's file picker
         List<String> files = new ArrayList<>();
-        try (Stream<Path> s = Files.list(Path.of("demo-data/hydrogel-screen"))) {
-            s.filter(p -> p.toString().endsWith(".csv")).sorted().forEach(p -> files.add(p.toAbsolutePath().toString()));
+        try (Stream<Path> s = Files.walk(Path.of("demo-data"))) {
+            s.filter(Files::isRegularFile).sorted().forEach(p -> files.add(p.toAbsolutePath().toString()));
         }
         Path broken = scratch.resolve("broken.csv");
         Files.writeString(broken, "# sample: broken\nfrequency [Hz],storage_modulus [kPa],loss_modulus [kPa]\n1,abc,2\n");
@@ -179,11 +188,24 @@ class WorkbenchBrowserTest {
         assertTrue(driver.findElement(By.id("plot-moduli")).getText().matches("(?s).*\\d (Pa|kPa|MPa|GPa).*"),
                 "values with units under the cursor: " + driver.findElement(By.id("plot-moduli")).getText());
         shot("4-fit");
+        shotOf("4-fit-plot", driver.findElement(By.id("view-samples")));
 
         // the tabs are reachable by keyboard
         driver.findElement(By.id("tab-samples")).sendKeys(Keys.ARROW_RIGHT);
         assertEquals("tab-matches", driver.switchTo().activeElement().getAttribute("id"));
         assertTrue(driver.findElement(By.id("view-matches")).getText().contains("Mimic ranking"));
+
+        // the ramps' glass transitions and the figures
+        driver.findElement(By.id("tab-temperature")).click();
+        wait.until(ExpectedConditions.presenceOfElementLocated(By.cssSelector("#plot-ramp canvas")));
+        assertTrue(driver.findElement(By.id("view-temperature")).getText().contains("Tg E″ peak"),
+                "the Transitions table is on the page");
+        shot("4b-temperature");
+        shotOf("4b-ramp-plot", driver.findElement(By.id("ramp-box")));
+        driver.findElement(By.id("tab-figures")).click();
+        wait.until(d -> (Boolean) ((JavascriptExecutor) d).executeScript("const i = document.querySelector('#view-figures img'); "
+                + "return i !== null && i.complete && i.naturalWidth > 0;"));
+        shot("4c-figures");
 
         driver.findElement(By.id("dl-xlsx")).click();
         Path workbook = downloads.resolve("report.xlsx");

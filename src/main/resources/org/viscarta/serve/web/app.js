@@ -53,7 +53,7 @@
   function fmt(v) {
     if (v === null || v === undefined || !isFinite(v)) return '–';
     const a = Math.abs(v);
-    if (a !== 0 && (a >= 1e5 || a < 1e-3)) return v.toExponential(3).replace('e+', 'e');
+    if (a !== 0 && (a >= 1e6 || a < 1e-4)) return v.toExponential(3).replace(/\.?0+e/, 'e').replace('e+', 'e');
     return String(Number(v.toPrecision(4)));
   }
 
@@ -323,7 +323,15 @@
 
     const quality = clear($('view-quality'));
     renderTable(tableById('quality'), quality);
-    const readme = clear($('view-readme'));
+    const gallery = clear($('view-figures'));
+    gallery.append(el('p', { className: 'hint', text: 'The report\'s figures (PNG at 300 dpi; the SVG of each is in the figures ZIP). '
+      + 'Open one in a new tab to see it at full size.' }));
+    for (const f of r.figures) {
+      const src = '/api/analyses/' + r.id + '/figures/' + encodeURIComponent(f.name) + '.png';
+      gallery.append(el('figure', null, el('a', { href: src, target: '_blank', rel: 'noopener' },
+        el('img', { src, alt: f.caption, className: 'figure', loading: 'lazy', width: '900' })), el('figcaption', { text: f.caption })));
+    }
+        const readme = clear($('view-readme'));
     readme.append(el('dl', null, r.definitions.map(d => [el('dt', { text: d.term }), el('dd', { text: d.text })])));
     selectTab('tab-ranking');
     $('results').scrollIntoView({ behavior: 'smooth' });

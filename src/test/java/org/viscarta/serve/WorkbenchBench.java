@@ -1,0 +1,87 @@
+package org.viscarta.serve;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.stream.Stream;
+
+import org.viscarta.analysis.Analysis;
+import org.viscarta.analysis.AnalysisRequest;
+import org.viscarta.analysis.AnalysisResult;
+import org.viscarta.report.Provenance;
+import org.viscarta.report.ReportContent;
+import org.viscarta.report.ReportFiles;
+
+/**
+ * The workbench's speed (run from {@code Benchmarks} with {@code -Dexec.args="N workbench-only"}):
+ * how long the page takes to arrive (its document, scripts, styles and first API answers over
+ * HTTP, not the browser's drawing), and the whole demo analysis through the API against the same
+ * analysis and report written the way {@code report} writes them.
+ */
+public final class WorkbenchBench {
+
+    private WorkbenchBench() {
+    }
+
+    public static void run(int rounds) throws Exception {
+        Path scratch = Files.createTempDirectory("viscarta-workbench-bench");
+        try (WorkbenchFixture wb = new WorkbenchFixture(scratch, null, 500L << 20)) {
+            double[] page = new double[20];
+            for (int i = 0; i < page.length; i++) {
+                long t0 = System.nanoTime();
+                for (String p : List.of("/", "/assets/app.css", "/assets/uplot.css", "/assets/uplot.js", "/assets/app.js", "/api/about",
+                        "/api/library")) {
+                    if (wb.get(p, wb.server.token()).statusCode() != 200) {
+                        throw new AssertionError(p);
+                    }
+                }
+                page[i] = (System.nanoTime() - t0) / 1e6;
+            }
+            System.out.printf(Locale.ROOT, "workbench page and its first answers over HTTP: median %.1f ms (of %d)%n", median(page),
+                    page.length);
+            Map<String, byte[]> files = new LinkedHashMap<>();
+            Path demo = Path.of("demo-data");
+            try (Stream<Path> s = Files.walk(demo)) {
+                for (Path p : s.filter(Files::isRegularFile).sorted().toList()) {
+                    files.put(demo.relativize(p).toString().replace('\\', '/'), Files.readAllBytes(p));
+                }
+            }
+            String settings = "{\"basis\": \"tensile\", \"target\": \"target-soft-tissue\"}";
+            double[] api = new double[rounds];
+            double[] direct = new double[rounds];
+            for (int i = 0; i < rounds; i++) {
+                long t0 = System.nanoTime();
+                String id = String.valueOf(wb.map(wb.upload("/api/uploads", files, Map.of()).body()).get("upload"));
+                Map<String, Object> s = wb.analyse("\"upload\": \"" + id + "\"", settings);
+                if (!"done".equals(s.get("state"))) {
+                    throw new AssertionError(s.toString());
+                }
+                wb.get("/api/analyses/" + s.get("id") + "/result", wb.server.token());
+                api[i] = (System.nanoTime() - t0) / 1e9;
+                long t1 = System.nanoTime();
+                AnalysisRequest request = new Settings(wb.map(settings)).report(List.of(demo), wb.library);
+                AnalysisResult r = Analysis.run(request);
+                new ReportFiles(scratch.resolve("direct-" + i)).write(new ReportContent(r,
+                        new Provenance("bench", "bench", Instant.now().toString())), true);
+                direct[i] = (System.nanoTime() - t1) / 1e9;
+                System.out.printf(Locale.ROOT, "round %d: through the workbench %.2f s (upload, analysis, report files, result JSON); "
+                        + "the same analysis and report in-process %.2f s%n", i + 1, api[i], direct[i]);
+            }
+            System.out.printf(Locale.ROOT, "demo analysis: workbench median %.2f s, in-process median %.2f s%n", median(api), median(direct));
+        } finally {
+            Uploads.deleteTree(scratch);
+        }
+    }
+
+    private static double median(double[] v) {
+        double[] c = v.clone();
+        Arrays.sort(c);
+        return c.length % 2 == 1 ? c[c.length / 2] : (c[c.length / 2 - 1] + c[c.length / 2]) / 2;
+    }
+}
