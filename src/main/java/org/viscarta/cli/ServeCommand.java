@@ -82,8 +82,8 @@ final class ServeCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         out.println("Viscarta workbench: open " + w.address());
         if (!host.equals("127.0.0.1") && !host.equals("localhost") && !host.equals("::1")) {
-            out.println("Serving " + host + ": anyone on that network who has the address above, with its token, can use the "
-                    + "workbench and its library. Share it only with your lab.");
+            out.println(Format.wrap("Serving " + host + ": anyone on that network who has the address above, with its token, "
+                    + "can use the workbench and its library. Share it only with your lab.", 100, ""));
         }
         out.println(lib == null ? "No reference library (start with --library DIR to match against one)."
                 : "Reference library: " + lib);

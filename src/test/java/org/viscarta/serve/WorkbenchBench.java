@@ -45,6 +45,7 @@ public final class WorkbenchBench {
             }
             System.out.printf(Locale.ROOT, "workbench page and its first answers over HTTP: median %.1f ms (of %d)%n", median(page),
                     page.length);
+            browserLoad(wb);
             Map<String, byte[]> files = new LinkedHashMap<>();
             Path demo = Path.of("demo-data");
             try (Stream<Path> s = Files.walk(demo)) {
@@ -76,6 +77,39 @@ public final class WorkbenchBench {
             System.out.printf(Locale.ROOT, "demo analysis: workbench median %.2f s, in-process median %.2f s%n", median(api), median(direct));
         } finally {
             Uploads.deleteTree(scratch);
+        }
+    }
+
+    /** Opening to a usable page in headless Chromium (navigation timing), where the browser and its driver are installed. */
+    private static void browserLoad(WorkbenchFixture wb) {
+        java.nio.file.Path chromium = WorkbenchBrowserTest.find("VISCARTA_CHROMIUM", "/usr/bin/chromium");
+        java.nio.file.Path driverExe = WorkbenchBrowserTest.find("VISCARTA_CHROMEDRIVER", "/usr/bin/chromedriver");
+        if (chromium == null || driverExe == null) {
+            System.out.println("browser timing skipped: chromium and chromium-driver are not installed");
+            return;
+        }
+        java.util.logging.Logger.getLogger("org.openqa.selenium").setLevel(java.util.logging.Level.SEVERE);
+        org.openqa.selenium.chrome.ChromeOptions options = new org.openqa.selenium.chrome.ChromeOptions();
+        options.setBinary(chromium.toFile());
+        options.addArguments("--headless=new", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage");
+        org.openqa.selenium.chrome.ChromeDriver driver = new org.openqa.selenium.chrome.ChromeDriver(
+                new org.openqa.selenium.chrome.ChromeDriverService.Builder().usingDriverExecutable(driverExe.toFile())
+                        .usingAnyFreePort().build(), options);
+        try {
+            double[] ready = new double[10];
+            for (int i = 0; i < ready.length; i++) {
+                long t0 = System.nanoTime();
+                driver.get(wb.server.address());
+                new org.openqa.selenium.support.ui.WebDriverWait(driver, java.time.Duration.ofSeconds(30)).until(
+                        org.openqa.selenium.support.ui.ExpectedConditions.presenceOfElementLocated(
+                                org.openqa.selenium.By.cssSelector("#table-library tbody tr")));
+                ready[i] = (System.nanoTime() - t0) / 1e6;
+            }
+            System.out.printf(Locale.ROOT, "workbench in headless Chromium, opening the address to the library listed (the last "
+                    + "element the page fills): median %.0f ms, slowest %.0f ms (of %d)%n", median(ready),
+                    Arrays.stream(ready).max().orElse(0), ready.length);
+        } finally {
+            driver.quit();
         }
     }
 
