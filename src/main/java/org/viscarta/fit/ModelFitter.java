@@ -11,6 +11,7 @@ import org.viscarta.model.ParameterSpec;
 import org.viscarta.model.Transform;
 import org.viscarta.model.ViscoelasticModel;
 import org.viscarta.sweep.SweepPoint;
+import org.viscarta.sweep.TimeTest;
 
 /**
  * Fits a viscoelastic model jointly to M′ and M″. By default on log residuals,
@@ -80,6 +81,38 @@ public final class ModelFitter {
         if (data.isEmpty()) {
             return notFitted(sample, model, 0, "no point has positive storage and loss moduli, so there is nothing to fit");
         }
+        return bestVariant(model, v -> {
+            String unsuitable = v.unsuitable(data);
+            if (!unsuitable.isEmpty()) {
+                return notFitted(sample, v, 2 * data.size(), unsuitable);
+            }
+            List<double[]> starts = 2 * data.size() <= v.parameterCount() ? List.of() : v.startValues(data);
+            return fitFrom(sample, v, data, starts);
+        });
+    }
+
+    /**
+     * Fits a model's relaxation modulus M(t) or creep compliance J(t) to a time-domain test (or, for a
+     * family, each of its variants, keeping the lowest AICc), with the residuals of this fitter's
+     * weighting (log or relative; replicate-sd is for frequency sweeps and falls back to log here) and
+     * the same uncertainties, AICc and flags as a sweep's fit. The starts are the model's own, derived
+     * from the sweep the test approximately corresponds to ({@link #equivalentSweep}).
+     *
+     * @param data the points of one test, or of a sample's replicates pooled
+     */
+    public FitResult fitTime(String sample, ViscoelasticModel model, TimeTest.Type type, List<TimeTest.Point> data) {
+        if (!model.hasTimeDomain()) {
+            return notFitted(sample, model, data.size(), "a descriptive model of frequency sweeps with no time-domain form");
+        }
+        if (data.size() < 3) {
+            return notFitted(sample, model, data.size(), "fewer than three times, so there is nothing to fit");
+        }
+        List<SweepPoint> approx = equivalentSweep(type, data);
+        return bestVariant(model, v -> fitTimeFrom(sample, v, type, data, data.size() <= v.parameterCount() ? List.of()
+                : v.startValues(approx)));
+    }
+
+    private FitResult bestVariant(ViscoelasticModel model, java.util.function.Function<ViscoelasticModel, FitResult> fitOne) {
         List<ViscoelasticModel> variants = model.variants();
         FitResult best = null;
         FitResult previous = null;
@@ -96,14 +129,7 @@ public final class ModelFitter {
             if (v.fallback() && previous != null && previous.converged() && !previous.undetermined()) {
                 continue; // the variant before determined all its parameters: no need for the fallback
             }
-            String unsuitable = v.unsuitable(data);
-            FitResult r;
-            if (!unsuitable.isEmpty()) {
-                r = notFitted(sample, v, 2 * data.size(), unsuitable);
-            } else {
-                List<double[]> starts = 2 * data.size() <= v.parameterCount() ? List.of() : v.startValues(data);
-                r = fitFrom(sample, v, data, starts);
-            }
+            FitResult r = fitOne.apply(v);
             previous = r;
             boolean wins = v.fallback()
                     // a fallback must fit better, not merely be regular: a gel is no liquid because its solid fit is singular
@@ -120,6 +146,113 @@ public final class ModelFitter {
                     best.aicc(), best.bic(), best.correlation(), true, "", chosen, best.derived(), best.fitted(), best.covariance());
         }
         return best;
+    }
+
+    /**
+     * The frequency sweep a time-domain test approximately corresponds to, for start values only: at
+     * ω = 1/t, M′ ≈ M(t) and M″ ≈ −(π/2) dM/d ln t for relaxation; J′ ≈ J(t), J″ ≈ (π/2) dJ/d ln t for
+     * creep, then M* = 1/J* (first-order interconversion, Schwarzl and Staverman; Ferry, Viscoelastic
+     * Properties of Polymers, 3rd ed., 1980, ch. 4 — from memory). M″ is kept at least 1 % of M′ so
+     * that a flat stretch still gives starts.
+     */
+    public static List<SweepPoint> equivalentSweep(TimeTest.Type type, List<TimeTest.Point> data) {
+        int n = data.size();
+        List<SweepPoint> out = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            int a = Math.max(0, i - 1);
+            int b = Math.min(n - 1, i + 1);
+            double dlnT = Math.log(data.get(b).timeS() / data.get(a).timeS());
+            double slope = dlnT > 0 ? (data.get(b).value() - data.get(a).value()) / dlnT : 0;
+            double v = data.get(i).value();
+            double storage;
+            double loss;
+            if (type == TimeTest.Type.RELAXATION) {
+                storage = v;
+                loss = Math.max(-Math.PI / 2 * slope, 0.01 * v);
+            } else {
+                double j1 = v;
+                double j2 = Math.max(Math.PI / 2 * slope, 0.01 * v);
+                double d = j1 * j1 + j2 * j2;
+                storage = j1 / d;
+                loss = j2 / d;
+            }
+            out.add(new SweepPoint(1 / (2 * Math.PI * data.get(i).timeS()), storage, loss, data.get(i).line()));
+        }
+        out.sort(java.util.Comparator.comparingDouble(SweepPoint::frequencyHz));
+        return out;
+    }
+
+    /** Fits a time-domain test from the given start values (natural parameters). */
+    public FitResult fitTimeFrom(String sample, ViscoelasticModel model, TimeTest.Type type, List<TimeTest.Point> data,
+                                 List<double[]> startValues) {
+        List<ParameterSpec> specs = model.parameters();
+        int p = specs.size();
+        int n = data.size();
+        if (n <= p) {
+            return notFitted(sample, model, n, String.format(Locale.ROOT, "%d times give %d values, too few for %d parameters", n, n, p));
+        }
+        double[] t = new double[n];
+        double[] y = new double[n];
+        double[] lnY = new double[n];
+        for (int i = 0; i < n; i++) {
+            t[i] = data.get(i).timeS();
+            y[i] = data.get(i).value();
+            lnY[i] = Math.log(y[i]);
+        }
+        boolean relative = weighting == Weighting.RELATIVE;
+        Transform[] transforms = specs.stream().map(ParameterSpec::transform).toArray(Transform[]::new);
+        double[] theta = new double[p];
+        double[] shifted = new double[p];
+        double[] plus = new double[n];
+        double[] minus = new double[n];
+        java.util.function.BiConsumer<double[], double[]> values = (u, r) -> {
+            for (int j = 0; j < p; j++) {
+                theta[j] = transforms[j].toNatural(u[j]);
+            }
+            for (int i = 0; i < n; i++) {
+                double v = type == TimeTest.Type.RELAXATION ? model.relaxationModulus(t[i], theta) : model.creepCompliance(t[i], theta);
+                if (!Double.isFinite(v)) {
+                    v = Double.MIN_NORMAL;
+                }
+                r[i] = relative ? v / y[i] - 1 : Math.log(Math.max(v, Double.MIN_NORMAL)) - lnY[i];
+            }
+        };
+        ResidualFunction f = (u, r, jac) -> {
+            // the time-domain forms have no analytic derivatives here: central differences in the fitting parameters
+            for (int j = 0; j < p; j++) {
+                System.arraycopy(u, 0, shifted, 0, p);
+                double h = 1e-6 * Math.max(1, Math.abs(u[j]));
+                shifted[j] = u[j] + h;
+                values.accept(shifted, plus);
+                shifted[j] = u[j] - h;
+                values.accept(shifted, minus);
+                for (int i = 0; i < n; i++) {
+                    jac[i][j] = (plus[i] - minus[i]) / (2 * h);
+                }
+            }
+            values.accept(u, r);
+        };
+        List<double[]> starts = new ArrayList<>();
+        for (double[] s : startValues) {
+            double[] u = new double[p];
+            boolean ok = true;
+            for (int j = 0; j < p; j++) {
+                u[j] = transforms[j].toInternal(s[j]);
+                ok &= Double.isFinite(u[j]);
+            }
+            if (ok) {
+                starts.add(u);
+            }
+        }
+        if (starts.isEmpty()) {
+            return notFitted(sample, model, n, "no usable start values could be derived from the data");
+        }
+        Solution sol = engine.solveMultiStart(n, f, starts);
+        if (!sol.converged() || !(sol.rss() >= 0) || !Double.isFinite(sol.rss())) {
+            return notFitted(sample, model, n, "could not be fitted: no stable best fit was reached from these data ("
+                    + (sol.message().isEmpty() ? "the fit did not converge" : sol.message()) + ")");
+        }
+        return describe(sample, model, sol, n, new double[] {1 / t[n - 1], 1 / t[0]});
     }
 
     /**
