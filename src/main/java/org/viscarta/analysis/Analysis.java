@@ -60,7 +60,8 @@ public final class Analysis {
                 inputs = inputs.withoutReplicates(dropped);
             }
         }
-        if (inputs.samples().isEmpty() && !inputs.ramps().isEmpty() && !request.parts().contains(AnalysisRequest.Part.TRANSITIONS)) {
+        if (inputs.samples().isEmpty() && inputs.timeTests().isEmpty() && !inputs.ramps().isEmpty()
+                && !request.parts().contains(AnalysisRequest.Part.TRANSITIONS)) {
             throw new UsageException("the inputs hold temperature ramps only (" + inputs.ramps().size() + " ramps, no frequency "
                     + "sweep): 'viscarta transition' finds their glass transitions, and 'viscarta report' includes them");
         }
@@ -83,6 +84,17 @@ public final class Analysis {
             inputs = inputs.withSamples(masters);
         }
         List<SampleAnalysis> samples = fitAll(inputs.samples(), request, progress);
+        List<TimeTests.Derived> timeTests = List.of();
+        if (!inputs.timeTests().isEmpty() && (request.needsFits() || request.parts().contains(AnalysisRequest.Part.RANKING))) {
+            progress.stage(Progress.Stage.FITTING, 0);
+            List<String> notes = java.util.Collections.synchronizedList(new ArrayList<>());
+            timeTests = TimeTests.of(inputs.timeTests(), models(request), new ModelFitter(request.weighting()), request.reading(),
+                    notes);
+            List<SampleAnalysis> all = new ArrayList<>(samples);
+            timeTests.forEach(d -> all.add(d.analysis()));
+            samples = all;
+            inputs = inputs.withSamples(timeTests.stream().map(TimeTests.Derived::sample).toList(), notes);
+        }
         if (request.parts().contains(AnalysisRequest.Part.SPECTRA)) {
             samples = samples.parallelStream().map(sa -> {
                 try {
@@ -119,7 +131,7 @@ public final class Analysis {
         Optional<AnalysisResult.Mimic> mimic = mimic(request, samples, distance);
         progress.stage(Progress.Stage.DONE, 0);
         return new AnalysisResult(request, inputs, series, samples, ranking, library, references, mimic, quality, dropped,
-                transitions);
+                transitions, timeTests);
     }
 
     /** Every quality check of the samples as read (by display name) and of the amplitude sweeps. */

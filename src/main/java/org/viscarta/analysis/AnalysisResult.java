@@ -43,12 +43,25 @@ public final class AnalysisResult {
     private final Assessment quality;
     private final List<SweepChecks.Check> dropped;
     private final org.viscarta.temperature.Transitions transitions;
+    private final List<TimeTests.Derived> timeTests;
+
+    /** The samples computed from stress-relaxation and creep tests, with their tests and fits (empty when none were read). */
+    public List<TimeTests.Derived> timeTests() {
+        return timeTests;
+    }
+
+    /** The time-domain origin of a sample computed from tests, or empty for a measured sample. */
+    public Optional<TimeTests.Derived> timeTestOf(Sample s) {
+        return timeTests.stream().filter(d -> d.sample() == s).findFirst();
+    }
 
     AnalysisResult(AnalysisRequest request, Inputs inputs, List<TemperatureSeries> series, List<SampleAnalysis> samples,
                    Optional<Ranking> ranking, Optional<ReferenceLibrary> library,
                    List<Matcher.Candidate> references, Optional<Mimic> mimic, Assessment quality,
-                   List<SweepChecks.Check> dropped, org.viscarta.temperature.Transitions transitions) {
+                   List<SweepChecks.Check> dropped, org.viscarta.temperature.Transitions transitions,
+                   List<TimeTests.Derived> timeTests) {
         this.transitions = transitions;
+        this.timeTests = List.copyOf(timeTests);
         this.quality = quality;
         this.dropped = List.copyOf(dropped);
         this.request = request;

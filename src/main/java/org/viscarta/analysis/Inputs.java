@@ -20,6 +20,7 @@ import org.viscarta.raw.RawSweeps;
 import org.viscarta.sweep.BasisConversion;
 import org.viscarta.sweep.Ramp;
 import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.TimeTest;
 import org.viscarta.sweep.Numbers;
 
 /**
@@ -32,12 +33,14 @@ import org.viscarta.sweep.Numbers;
  * @param notes    conversions that were applied
  * @param amplitudeSweeps amplitude sweeps (linearity tests at one frequency), kept apart from the samples
  * @param ramps    temperature ramps (one per sample, replicate and fixed frequency), kept apart from the samples
+ * @param timeTests stress-relaxation and creep tests, kept apart from the samples until the analysis fits them
  */
 public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarning> warnings, List<String> notes,
-                     List<Sweep> amplitudeSweeps, List<Ramp> ramps) {
+                     List<Sweep> amplitudeSweeps, List<Ramp> ramps, List<TimeTest> timeTests) {
 
     public Inputs {
         ramps = List.copyOf(ramps);
+        timeTests = List.copyOf(timeTests);
         files = List.copyOf(files);
         samples = List.copyOf(samples);
         amplitudeSweeps = List.copyOf(amplitudeSweeps);
@@ -68,14 +71,21 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
                 kept.add(s);
             }
         }
-        return new Inputs(files, kept, warnings, more, amplitudeSweeps, ramps);
+        return new Inputs(files, kept, warnings, more, amplitudeSweeps, ramps, timeTests);
     }
 
     /** The same inputs with more samples (master curves built from temperature series), analysed like the others. */
     Inputs withSamples(List<Sample> extra) {
+        return withSamples(extra, List.of());
+    }
+
+    /** The same inputs with more samples and notes (samples computed from time-domain tests). */
+    Inputs withSamples(List<Sample> extra, List<String> moreNotes) {
         List<Sample> all = new ArrayList<>(samples);
         all.addAll(extra);
-        return new Inputs(files, all, warnings, notes, amplitudeSweeps, ramps);
+        List<String> n = new ArrayList<>(notes);
+        n.addAll(moreNotes);
+        return new Inputs(files, all, warnings, n, amplitudeSweeps, ramps, timeTests);
     }
 
     /**
@@ -96,6 +106,8 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         List<Sweep> amplitudeSweeps = new ArrayList<>();
         List<Ramp> ramps = new ArrayList<>();
         Map<String, Path> rampSeen = new LinkedHashMap<>();
+        List<TimeTest> timeTests = new ArrayList<>();
+        Map<String, Path> timeTestSeen = new LinkedHashMap<>();
         List<Path> all = InputCollector.collect(inputs);
         for (Path file : all) {
             SweepFile sf;
@@ -114,6 +126,20 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             }
             files.add(sf);
             warnings.addAll(sf.warnings());
+            for (TimeTest t : sf.timeTests()) {
+                if (settings.groupBy().isPresent()) {
+                    throw new InputException(file, sf.info().headerLine(), 0, "--group-by does not apply to relaxation and creep "
+                            + "tests; give the tests a group column or a '# group:' line");
+                }
+                String key = t.sample() + "\u0000" + t.replicate() + "\u0000" + t.type() + "\u0000" + t.temperatureC();
+                Path prev = timeTestSeen.put(key, file);
+                if (prev != null) {
+                    throw new InputException(file, t.points().get(0).line(), 0, "the " + t.type().test() + " test of sample '"
+                            + t.sample() + "' replicate '" + t.replicate() + "' is also in " + prev + "; give each replicate its own "
+                            + "label (a '# replicate:' line or a replicate column)");
+                }
+                timeTests.add(t);
+            }
             for (Ramp r : sf.ramps()) {
                 Ramp ramp = r;
                 if (settings.groupBy().isPresent()) {
@@ -185,7 +211,13 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
                     + " sample replicate" + (series == 1 ? "" : "s") + " at fixed frequencies) read for the glass transition "
                     + "and kept apart from the frequency sweeps");
         }
-        return assemble(settings, files, bySample, warnings, notes, amplitudeSweeps, ramps);
+        if (!timeTests.isEmpty()) {
+            long relaxation = timeTests.stream().filter(t -> t.type() == TimeTest.Type.RELAXATION).count();
+            notes.add(String.format(Locale.ROOT, "%d time-domain test(s) read (%d stress relaxation, %d creep): each sample's tests "
+                    + "are fitted in the time domain and compared with the frequency sweeps through their fitted models",
+                    timeTests.size(), relaxation, timeTests.size() - relaxation));
+        }
+        return assemble(settings, files, bySample, warnings, notes, amplitudeSweeps, ramps, timeTests);
     }
 
     /**
@@ -236,7 +268,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
 
     private static Inputs assemble(ReadSettings settings, List<SweepFile> files, Map<String, List<Sweep>> bySample,
                                    List<ReadWarning> warnings, List<String> notes, List<Sweep> amplitudeSweeps,
-                                   List<Ramp> ramps) {
+                                   List<Ramp> ramps, List<TimeTest> timeTests) {
         Map<String, Long> temperaturesPerName = bySample.values().stream()
                 .collect(Collectors.groupingBy(l -> l.get(0).sample(), Collectors.counting()));
         List<Sample> samples = new ArrayList<>();
@@ -260,7 +292,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             warnings.add(new ReadWarning(Path.of("(inputs)"), 0, "the inputs mix tensile (E) and shear (G) moduli; "
                     + "tan δ compares fine, but moduli do not: pass --basis tensile or --basis shear (with --poisson) to convert"));
         }
-        return new Inputs(files, samples, warnings, notes, amplitudeSweeps, ramps);
+        return new Inputs(files, samples, warnings, notes, amplitudeSweeps, ramps, timeTests);
     }
 
     /** True when an input says it is invented demo data. */

@@ -134,7 +134,13 @@ final class InspectCommand implements Callable<Integer> {
                     k.startsWith("note_") ? k.substring(5) : k, v));
             TextTable t = new TextTable("sample", "replicate", "group", "basis", "points", "frequency [Hz]", "temperature [°C]");
             List<String> marks = new ArrayList<>();
+            List<String> tests = new ArrayList<>();
             for (SweepReader.SweepSummary w : s.sweeps()) {
+                if (!w.test().isEmpty()) {
+                    tests.add("  " + w.sample() + " replicate " + w.replicate() + ": " + w.test() + " (" + w.points() + " points, "
+                            + w.kind() + (Double.isNaN(w.temperatureC()) ? "" : ", " + Cells.g4(w.temperatureC()) + " °C") + ")");
+                    continue;
+                }
                 t.add(w.sample(), w.replicate(), w.group(), w.kind().toString(), Long.toString(w.points()),
                         Cells.g4(w.minFrequencyHz()) + "–" + Cells.g4(w.maxFrequencyHz()), Cells.g4(w.temperatureC()));
                 String m = checked.marker(w);
@@ -142,8 +148,11 @@ final class InspectCommand implements Callable<Integer> {
                     marks.add("  checks of " + w.sample() + " replicate " + w.replicate() + ": " + m);
                 }
             }
-            t.print(o);
-            if (checked.result() != null) {
+            if (tests.size() < s.sweeps().size()) {
+                t.print(o);
+            }
+            tests.forEach(x -> o.println(Format.wrap(x, 100, "    ")));
+            if (checked.result() != null && tests.size() < s.sweeps().size()) {
                 if (marks.isEmpty()) {
                     o.println("  checks: every sweep passes");
                 }

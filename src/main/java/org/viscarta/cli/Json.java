@@ -43,7 +43,8 @@ final class Json {
                         .append(str(s.replicate())).append(", \"group\": ").append(str(s.group())).append(", \"basis\": ")
                         .append(str(s.kind().toString())).append(", \"points\": ").append(s.points())
                         .append(", \"frequency_min_hz\": ").append(num(s.minFrequencyHz())).append(", \"frequency_max_hz\": ")
-                        .append(num(s.maxFrequencyHz())).append(", \"temperature_c\": ").append(num(s.temperatureC())).append('}');
+                        .append(num(s.maxFrequencyHz())).append(", \"temperature_c\": ").append(num(s.temperatureC()))
+                        .append(s.test().isEmpty() ? "" : ", \"test\": " + str(s.test())).append('}');
             }
             b.append("],\n     \"warnings\": [");
             k = 0;

@@ -106,6 +106,18 @@ final class HeaderRecognizer {
             Map.entry("shear_stress_amplitude", named(Quantity.STRESS_AMPLITUDE, ModulusKind.SHEAR)),
             Map.entry("force_amplitude", named(Quantity.FORCE_AMPLITUDE, null)),
             Map.entry("displacement_amplitude", named(Quantity.DISPLACEMENT_AMPLITUDE, null)),
+            Map.entry("time", named(Quantity.TIME, null)),
+            Map.entry("relaxation_modulus", named(Quantity.RELAXATION_MODULUS, null)),
+            Map.entry("stress_relaxation_modulus", named(Quantity.RELAXATION_MODULUS, null)),
+            Map.entry("shear_relaxation_modulus", named(Quantity.RELAXATION_MODULUS, ModulusKind.SHEAR)),
+            Map.entry("tensile_relaxation_modulus", named(Quantity.RELAXATION_MODULUS, ModulusKind.TENSILE)),
+            Map.entry("e(t)", named(Quantity.RELAXATION_MODULUS, ModulusKind.TENSILE)),
+            Map.entry("g(t)", named(Quantity.RELAXATION_MODULUS, ModulusKind.SHEAR)),
+            Map.entry("creep_compliance", named(Quantity.CREEP_COMPLIANCE, null)),
+            Map.entry("shear_creep_compliance", named(Quantity.CREEP_COMPLIANCE, ModulusKind.SHEAR)),
+            Map.entry("tensile_creep_compliance", named(Quantity.CREEP_COMPLIANCE, ModulusKind.TENSILE)),
+            Map.entry("j(t)", named(Quantity.CREEP_COMPLIANCE, null)),
+            Map.entry("d(t)", named(Quantity.CREEP_COMPLIANCE, ModulusKind.TENSILE)),
             Map.entry("x", named(Quantity.POSITION_X, null)),
             Map.entry("y", named(Quantity.POSITION_Y, null)));
 

@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.viscarta.sweep.Ramp;
 import org.viscarta.sweep.Sweep;
+import org.viscarta.sweep.TimeTest;
 
 /**
  * Everything read from one input file.
@@ -16,16 +17,22 @@ import org.viscarta.sweep.Sweep;
  * @param warnings what was accepted but should be known
  */
 public record SweepFile(Path path, String sha256, TableInfo info, List<Sweep> sweeps, List<Ramp> ramps,
-                        List<ReadWarning> warnings) {
+                        List<TimeTest> timeTests, List<ReadWarning> warnings) {
 
-    /** A file without ramps. */
+    /** A file without ramps or time-domain tests. */
     public SweepFile(Path path, String sha256, TableInfo info, List<Sweep> sweeps, List<ReadWarning> warnings) {
-        this(path, sha256, info, sweeps, List.of(), warnings);
+        this(path, sha256, info, sweeps, List.of(), List.of(), warnings);
+    }
+
+    /** A file without time-domain tests. */
+    public SweepFile(Path path, String sha256, TableInfo info, List<Sweep> sweeps, List<Ramp> ramps, List<ReadWarning> warnings) {
+        this(path, sha256, info, sweeps, ramps, List.of(), warnings);
     }
 
     public SweepFile {
         sweeps = List.copyOf(sweeps);
         ramps = List.copyOf(ramps);
+        timeTests = List.copyOf(timeTests);
         warnings = List.copyOf(warnings);
     }
 }

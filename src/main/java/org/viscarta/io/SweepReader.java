@@ -36,6 +36,7 @@ import org.viscarta.sweep.ModulusKind;
 import org.viscarta.sweep.Quantity;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
+import org.viscarta.sweep.TimeTest;
 import org.viscarta.sweep.Unit;
 
 /**
@@ -135,6 +136,8 @@ public final class SweepReader {
      */
     private SweepFile readWorkbook(Path path) {
         List<Sweep> sweeps = new ArrayList<>();
+        List<org.viscarta.sweep.Ramp> ramps = new ArrayList<>();
+        List<TimeTest> timeTests = new ArrayList<>();
         CappedWarnings warnings = new CappedWarnings(path);
         TableInfo[] first = new TableInfo[1];
         int[] sheets = new int[1];
@@ -146,6 +149,8 @@ public final class SweepReader {
                 SweepFile sf = scan(where, new java.io.BufferedReader(text, 1 << 16), "XLSX/XLS workbook, sheet '" + sheet + "'",
                         new SweepSink(where, ""));
                 sweeps.addAll(sf.sweeps());
+                ramps.addAll(sf.ramps());
+                timeTests.addAll(sf.timeTests());
                 warnings.addAll(sf.warnings());
                 if (first[0] == null) {
                     first[0] = sf.info();
@@ -164,7 +169,7 @@ public final class SweepReader {
         }
         TableInfo info = new TableInfo(new Layout.WorkbookSheets(sheets[0], first[0].kind()), '\t', '.', "XLSX/XLS",
                 first[0].headerLine(), first[0].columns(), first[0].metadata());
-        return new SweepFile(path, sha, info, sweeps, warnings.closeOut());
+        return new SweepFile(path, sha, info, sweeps, ramps, timeTests, warnings.closeOut());
     }
 
     /** The SHA-256 of a file's bytes, read in a stream. */
@@ -371,7 +376,13 @@ public final class SweepReader {
      * @param points number of points
      */
     public record SweepSummary(String sample, String replicate, String group, ModulusKind kind, double temperatureC, long points,
-                               double minFrequencyHz, double maxFrequencyHz) {
+                               double minFrequencyHz, double maxFrequencyHz, String test) {
+
+        /** A frequency sweep or ramp (no time-domain test). */
+        public SweepSummary(String sample, String replicate, String group, ModulusKind kind, double temperatureC, long points,
+                            double minFrequencyHz, double maxFrequencyHz) {
+            this(sample, replicate, group, kind, temperatureC, points, minFrequencyHz, maxFrequencyHz, "");
+        }
     }
 
     /** A file summarised: how it was understood, and each sweep's extent. */
@@ -457,7 +468,11 @@ public final class SweepReader {
         void block(Header header, Map<String, String> blockMetadata, Map<String, Integer> metadataLines) {
             hd = header;
             ColumnSpec amplitude = amplitudeColumn(header.byQuantity());
-            if (amplitude != null) {
+            if (header.timeType() != null) {
+                Map<String, String> m = new LinkedHashMap<>(blockMetadata);
+                m.put(TimeTest.TYPE_KEY, header.timeType().name());
+                metadata = Map.copyOf(m);
+            } else if (amplitude != null) {
                 Map<String, String> m = new LinkedHashMap<>(blockMetadata);
                 m.put(Sweep.AMPLITUDE_COLUMN, amplitude.quantity().canonical());
                 metadata = Map.copyOf(m);
@@ -704,7 +719,7 @@ public final class SweepReader {
                         + disagreementText + "); the moduli were used"));
             }
             for (Map.Entry<List<String>, List<B>> e : buckets.entrySet()) {
-                if (isRamp(e.getValue())) {
+                if (first.timeType() == null && isRamp(e.getValue())) {
                     ramps.add(e.getKey());
                 }
             }
@@ -746,7 +761,7 @@ public final class SweepReader {
      * @param redundantTangent a tan δ or phase column beside E′ and E″, checked against them (null for none)
      */
     private record Header(int line, List<ColumnSpec> columns, Map<Quantity, ColumnSpec> byQuantity, ModulusKind kind, int width,
-                          List<Integer> unnamed, ColumnSpec redundantTangent, double fixedFrequencyHz) {
+                          List<Integer> unnamed, ColumnSpec redundantTangent, double fixedFrequencyHz, TimeTest.Type timeType) {
         String redundantTangentHeader() {
             return redundantTangent == null ? "" : redundantTangent.header();
         }
@@ -782,7 +797,7 @@ public final class SweepReader {
                     throw new InputException(path, headerLine, c + 1, "--column \"" + InputException.oneLine(h) + "=" + mapped + "\": "
                             + r.problem());
                 }
-                if (r.nameKnown()) {
+                if (r.nameKnown() && !HeaderRecognizer.unneeded(h)) {
                     throw new InputException(path, headerLine, c + 1, r.problem() + ", or map it with --column \""
                             + InputException.oneLine(h) + "=quantity [unit]\"");
                 }
@@ -811,6 +826,18 @@ public final class SweepReader {
             columns.add(spec);
         }
         boolean hasFrequency = byQuantity.containsKey(Quantity.FREQUENCY) || byQuantity.containsKey(Quantity.ANGULAR_FREQUENCY);
+        TimeTest.Type timeType = byQuantity.containsKey(Quantity.RELAXATION_MODULUS) ? TimeTest.Type.RELAXATION
+                : byQuantity.containsKey(Quantity.CREEP_COMPLIANCE) ? TimeTest.Type.CREEP : null;
+        if (timeType == null) {
+            // a clock column beside a frequency sweep is read past, as before
+            ColumnSpec clock = byQuantity.remove(Quantity.TIME);
+            if (clock != null) {
+                columns.set(columns.indexOf(clock), new ColumnSpec(clock.index(), clock.header(), Quantity.UNUSED, clock.unit(), null));
+            }
+        } else {
+            return timeDomainHeader(path, headerRecord, cells, columns, byQuantity, unnamed, timeType, hasFrequency, metadata,
+                    metadataLines, warnings);
+        }
         ColumnSpec amplitude = amplitudeColumn(byQuantity);
         boolean rampAtOneFrequency = byQuantity.containsKey(Quantity.TEMPERATURE) && metadata.containsKey("frequency");
         if (!required && !hasFrequency && amplitude == null && !rampAtOneFrequency) {
@@ -867,7 +894,38 @@ public final class SweepReader {
             }
         }
         ModulusKind kind = resolveKind(path, headerLine, byQuantity, metadata, metadataLines, warnings);
-        return new Header(headerLine, columns, byQuantity, kind, cells.size(), unnamed, redundant, fixedHz);
+        return new Header(headerLine, columns, byQuantity, kind, cells.size(), unnamed, redundant, fixedHz, null);
+    }
+
+    /**
+     * The header of a time-domain test: a time column and one relaxation modulus or creep compliance
+     * column (labels and descriptive columns as in any table); moduli of a frequency sweep beside them
+     * are refused, a table holds one kind of test.
+     */
+    private Header timeDomainHeader(Path path, Row headerRecord, List<String> cells, List<ColumnSpec> columns,
+                                    EnumMap<Quantity, ColumnSpec> byQuantity, List<Integer> unnamed, TimeTest.Type type,
+                                    boolean hasFrequency, Map<String, String> metadata, Map<String, Integer> metadataLines,
+                                    List<ReadWarning> warnings) {
+        int headerLine = headerRecord.line();
+        ColumnSpec measured = byQuantity.get(type == TimeTest.Type.RELAXATION ? Quantity.RELAXATION_MODULUS : Quantity.CREEP_COMPLIANCE);
+        if (byQuantity.containsKey(Quantity.RELAXATION_MODULUS) && byQuantity.containsKey(Quantity.CREEP_COMPLIANCE)) {
+            throw new InputException(path, headerLine, byQuantity.get(Quantity.CREEP_COMPLIANCE).index() + 1, "the table holds both a "
+                    + "relaxation modulus and a creep compliance; a table holds one test, so split it in two");
+        }
+        for (Quantity sweepQuantity : List.of(Quantity.FREQUENCY, Quantity.ANGULAR_FREQUENCY, Quantity.STORAGE_MODULUS,
+                Quantity.LOSS_MODULUS, Quantity.COMPLEX_MODULUS_MAGNITUDE, Quantity.STORAGE_COMPLIANCE, Quantity.LOSS_COMPLIANCE)) {
+            if (byQuantity.containsKey(sweepQuantity)) {
+                throw new InputException(path, headerLine, byQuantity.get(sweepQuantity).index() + 1, "the table holds a "
+                        + type.test() + " test (column " + (measured.index() + 1) + ") and a frequency sweep's "
+                        + sweepQuantity.canonical() + "; a table holds one kind of test, so split it in two");
+            }
+        }
+        if (!byQuantity.containsKey(Quantity.TIME)) {
+            throw new InputException(path, headerLine, 0, "a " + type.test() + " table needs the time since the step, in a "
+                    + "column such as 'time [s]' (with its unit: s, ms, min or h)");
+        }
+        ModulusKind kind = resolveKind(path, headerLine, byQuantity, metadata, metadataLines, warnings);
+        return new Header(headerLine, columns, byQuantity, kind, cells.size(), unnamed, null, Double.NaN, type);
     }
 
     /** The --column mapping of a header, looked up as written and without a units row's unit. */
@@ -1145,6 +1203,23 @@ public final class SweepReader {
     }
 
     private static SweepPoint pointOrThrow(Row rec, Map<Quantity, ColumnSpec> q, char dm, Path path, int line, double fixedHz) {
+        ColumnSpec measured = q.containsKey(Quantity.RELAXATION_MODULUS) ? q.get(Quantity.RELAXATION_MODULUS)
+                : q.get(Quantity.CREEP_COMPLIANCE);
+        if (measured != null) {
+            // a time-domain point rides the sweep pipeline as (time, value, value); SweepSinks makes it a TimeTest.Point
+            ColumnSpec tc = q.get(Quantity.TIME);
+            double t = value(rec, tc, dm, path, line);
+            if (!(t > 0) || Double.isInfinite(t)) {
+                throw new InputException(path, line, tc.index() + 1, "time must be greater than zero (the step is at t = 0), found '"
+                        + InputException.oneLine(cell(rec, tc.index())) + "'; leave out the points up to the step");
+            }
+            double v = value(rec, measured, dm, path, line);
+            if (!(v > 0) || Double.isInfinite(v)) {
+                throw new InputException(path, line, measured.index() + 1, measured.quantity().canonical() + " must be greater than "
+                        + "zero, found '" + InputException.oneLine(cell(rec, measured.index())) + "'; remove or correct the row");
+            }
+            return new SweepPoint(t, v, v, line);
+        }
         double f;
         ColumnSpec fc = q.containsKey(Quantity.FREQUENCY) ? q.get(Quantity.FREQUENCY) : q.get(Quantity.ANGULAR_FREQUENCY);
         f = fc == null ? fixedHz : value(rec, fc, dm, path, line);

@@ -12,6 +12,7 @@ import org.viscarta.sweep.ModulusKind;
 import org.viscarta.sweep.Ramp;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
+import org.viscarta.sweep.TimeTest;
 
 /**
  * Where {@link SweepReader}'s validated rows go: each sweep's rows gather in a {@link Bucket}
@@ -168,8 +169,14 @@ final class SweepSinks {
         public SweepFile table(TableInfo info, List<Points> buckets, List<String> attributes, java.util.Set<List<String>> ramps,
                                CappedWarnings warnings) {
             List<Sweep> sweeps = new ArrayList<>();
+            List<TimeTest> timeTests = new ArrayList<>();
             Map<List<String>, List<Points>> rampBuckets = new LinkedHashMap<>();
             for (Points b : buckets) {
+                String test = b.metadata.get(TimeTest.TYPE_KEY);
+                if (test != null) {
+                    timeTests.add(timeTest(path, b, TimeTest.Type.valueOf(test), warnings));
+                    continue;
+                }
                 if (ramps.contains(List.of(b.sample, b.replicate))) {
                     rampBuckets.computeIfAbsent(List.of(b.sample, b.replicate), k -> new ArrayList<>()).add(b);
                     continue;
@@ -186,7 +193,38 @@ final class SweepSinks {
             for (List<Points> list : rampBuckets.values()) {
                 out.addAll(ramps(path, list, warnings));
             }
-            return new SweepFile(path, sha(), info, sweeps, out, warnings.closeOut());
+            return new SweepFile(path, sha(), info, sweeps, out, timeTests, warnings.closeOut());
+        }
+
+        /** A time-domain test from its bucket (points carried as time, value, value); out-of-order and repeated times reported. */
+        private static TimeTest timeTest(Path path, Points b, TimeTest.Type type, CappedWarnings warnings) {
+            List<TimeTest.Point> pts = new ArrayList<>();
+            int unsorted = 0;
+            for (int i = 0; i < b.points.size(); i++) {
+                SweepPoint p = b.points.get(i);
+                if (i > 0 && p.frequencyHz() < b.points.get(i - 1).frequencyHz()) {
+                    unsorted++;
+                }
+                pts.add(new TimeTest.Point(p.frequencyHz(), p.storage(), p.line()));
+            }
+            Map<String, String> meta = new LinkedHashMap<>(b.metadata);
+            meta.remove(TimeTest.TYPE_KEY);
+            TimeTest t = new TimeTest(b.sample, b.replicate, b.group, b.kind, type, b.temperature(), path, meta, pts);
+            if (unsorted > 0) {
+                warnings.add(new ReadWarning(path, b.firstLine, "the " + type.test() + " test of " + b.sample + " (replicate "
+                        + b.replicate + ") has " + unsorted + " time(s) out of order; sorted by time"));
+            }
+            int repeated = 0;
+            for (int i = 1; i < t.points().size(); i++) {
+                if (t.points().get(i).timeS() == t.points().get(i - 1).timeS()) {
+                    repeated++;
+                }
+            }
+            if (repeated > 0) {
+                warnings.add(new ReadWarning(path, b.firstLine, "the " + type.test() + " test of " + b.sample + " (replicate "
+                        + b.replicate + ") repeats " + repeated + " time(s); each point is kept"));
+            }
+            return t;
         }
 
         /** The ramps of one sample and replicate, one per fixed frequency, points in file order before sorting. */
@@ -316,6 +354,14 @@ final class SweepSinks {
             Map<List<String>, double[]> rampRange = new LinkedHashMap<>();
             for (Extent e : buckets) {
                 List<String> key = List.of(e.sample, e.replicate);
+                String test = e.metadata.get(TimeTest.TYPE_KEY);
+                if (test != null) {
+                    TimeTest.Type type = TimeTest.Type.valueOf(test);
+                    out.add(new SweepSummary(e.sample, e.replicate, e.group, e.kind, e.temperature(), e.points, Double.NaN, Double.NaN,
+                            String.format(java.util.Locale.ROOT, "%s test, %s from %.4g s to %.4g s", type.test(), type.quantity(),
+                                    e.min, e.max)));
+                    continue;
+                }
                 if (ramps.contains(key)) {
                     rampStart.putIfAbsent(key, e);
                     rampPoints.computeIfAbsent(key, k -> new long[1])[0] += e.points;

@@ -40,6 +40,9 @@ public final class RawReader {
     }
 
     /** True when the file's header row starts with a time column (a raw-signal table, not a sweep table). */
+    private static final java.util.regex.Pattern TIME_DOMAIN_TABLE =
+            java.util.regex.Pattern.compile("relaxation|creep|\\b[egjd]\\(t\\)");
+
     public static boolean isRaw(Path file) {
         String name = file.getFileName().toString().toLowerCase(Locale.ROOT);
         if (name.endsWith(".xlsx") || name.endsWith(".xls")) {
@@ -47,7 +50,9 @@ public final class RawReader {
         }
         try (java.util.stream.Stream<String> lines = Files.lines(file, StandardCharsets.UTF_8)) {
             return lines.map(String::strip).filter(l -> !l.isEmpty() && !l.startsWith("#")).findFirst()
-                    .map(l -> l.toLowerCase(Locale.ROOT).replace("\"", "").startsWith("time")).orElse(false);
+                    .map(l -> l.toLowerCase(Locale.ROOT).replace("\"", ""))
+                    // a time column first is a raw signal table, unless the table is a relaxation or creep test
+                    .map(l -> l.startsWith("time") && !TIME_DOMAIN_TABLE.matcher(l).find()).orElse(false);
         } catch (IOException | java.io.UncheckedIOException e) {
             return false;
         }

@@ -467,6 +467,7 @@ public final class Workbench implements AutoCloseable {
             x.put("frequency_min_hz", finite(w.minFrequencyHz()));
             x.put("frequency_max_hz", finite(w.maxFrequencyHz()));
             x.put("temperature_c", finite(w.temperatureC()));
+            x.put("test", w.test().isEmpty() ? null : w.test());
             sweeps.add(x);
         }
         m.put("sweeps", sweeps);

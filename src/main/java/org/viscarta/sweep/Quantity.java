@@ -33,6 +33,12 @@ public enum Quantity {
     PHASE_ANGLE("phase_angle", Dimension.ANGLE),
     /** Test temperature, stored in °C (a relative scale kept as users write it). */
     TEMPERATURE("temperature", Dimension.TEMPERATURE),
+    /** Time since the step of a relaxation or creep test [s]. */
+    TIME("time", Dimension.TIME),
+    /** Relaxation modulus M(t) [Pa]. */
+    RELAXATION_MODULUS("relaxation_modulus", Dimension.STRESS),
+    /** Creep compliance J(t) [1/Pa]. */
+    CREEP_COMPLIANCE("creep_compliance", Dimension.COMPLIANCE),
     /** Sample name in a tidy multi-sample table. */
     SAMPLE("sample", Dimension.LABEL),
     /** Replicate label in a tidy multi-sample table. */
@@ -59,7 +65,7 @@ public enum Quantity {
     UNUSED("not used", Dimension.LABEL);
 
     /** What kind of unit a quantity takes. */
-    public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH, COMPLIANCE, VISCOSITY, FORCE }
+    public enum Dimension { FREQUENCY, ANGULAR_FREQUENCY, STRESS, NONE, ANGLE, TEMPERATURE, LABEL, LENGTH, COMPLIANCE, VISCOSITY, FORCE, TIME }
 
     private final String canonical;
     private final Dimension dimension;

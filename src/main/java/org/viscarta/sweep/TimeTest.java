@@ -25,6 +25,9 @@ import java.util.Objects;
 public record TimeTest(String sample, String replicate, String group, ModulusKind kind, Type type, double temperatureC, Path source,
                        Map<String, String> metadata, List<Point> points) {
 
+    /** The metadata key with which the reader marks a block of a time-domain test (its {@link Type} name). */
+    public static final String TYPE_KEY = "time_domain_test";
+
     /** What a time-domain test measures. */
     public enum Type {
         /** M(t) [Pa] after a step in strain. */

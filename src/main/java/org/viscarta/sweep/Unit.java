@@ -35,7 +35,11 @@ public enum Unit {
     NANOMETRE(Quantity.Dimension.LENGTH, 1.0e-9, "nm"),
     NEWTON(Quantity.Dimension.FORCE, 1.0, "N"),
     MILLINEWTON(Quantity.Dimension.FORCE, 1.0e-3, "mN"),
-    MICRONEWTON(Quantity.Dimension.FORCE, 1.0e-6, "µN", "μN", "uN");
+    MICRONEWTON(Quantity.Dimension.FORCE, 1.0e-6, "µN", "μN", "uN"),
+    SECOND(Quantity.Dimension.TIME, 1.0, "s", "sec", "seconds"),
+    MILLISECOND(Quantity.Dimension.TIME, 1.0e-3, "ms"),
+    MINUTE(Quantity.Dimension.TIME, 60.0, "min"),
+    HOUR(Quantity.Dimension.TIME, 3600.0, "h");
 
     private final Quantity.Dimension dimension;
     private final double toSi;

@@ -168,14 +168,14 @@
       for (const s of f.sweeps) {
         samples.add(s.sample);
         const k = s.sample;
-        sweeps[k] = sweeps[k] || { n: 0, points: 0, lo: Infinity, hi: -Infinity, basis: s.basis, t: s.temperature_c };
+        sweeps[k] = sweeps[k] || { n: 0, points: 0, lo: Infinity, hi: -Infinity, basis: s.basis, t: s.temperature_c, test: s.test };
         sweeps[k].n++;
         sweeps[k].points += s.points;
         if (s.frequency_min_hz !== null) sweeps[k].lo = Math.min(sweeps[k].lo, s.frequency_min_hz);
         if (s.frequency_max_hz !== null) sweeps[k].hi = Math.max(sweeps[k].hi, s.frequency_max_hz);
       }
       const sw = el('ul', null, Object.entries(sweeps).map(([k, v]) => el('li', {
-        text: k + ': ' + v.n + ' sweep(s), ' + v.points + ' points, ' + (isFinite(v.lo) ? fmt(v.lo) + '–' + fmt(v.hi) + ' Hz, ' : '') +
+        text: k + ': ' + (v.test ? v.n + ' ' + v.test + ', ' : v.n + ' sweep(s), ') + v.points + ' points, ' + (isFinite(v.lo) ? fmt(v.lo) + '–' + fmt(v.hi) + ' Hz, ' : '') +
           v.basis + (v.t !== null && v.t !== undefined ? ', ' + fmt(v.t) + ' °C' : '') })));
       const warn = f.warnings.length ? el('ul', null, f.warnings.map(w => el('li', { text: w }))) : 'none';
       body.push(el('tr', null, el('td', { text: f.file }),
