@@ -127,6 +127,117 @@ public final class Figures {
     }
 
     /**
+     * A sample's stress-relaxation or creep tests: the measured M(t) or J(t) of each replicate against
+     * time (log–log), the best-supported model fitted to all of them, and the residuals below.
+     */
+    public static Figure timeTest(org.viscarta.analysis.TimeTests.Derived d, String stem) {
+        org.viscarta.sweep.TimeTest.Type type = d.type();
+        boolean relaxation = type == org.viscarta.sweep.TimeTest.Type.RELAXATION;
+        String m = d.sample().kind().letter();
+        String symbol = relaxation ? m + "(t)" : "J(t)";
+        XYSeriesCollection measured = new XYSeriesCollection();
+        XYSeriesCollection residuals = new XYSeriesCollection();
+        org.viscarta.fit.FitResult best = d.analysis().best().orElse(null);
+        double tLow = Double.POSITIVE_INFINITY;
+        double tHigh = 0;
+        double largest = 0;
+        for (org.viscarta.sweep.TimeTest t : d.tests()) {
+            XYSeries sr = new XYSeries("replicate " + t.replicate() + " (measured)");
+            XYSeries rr = new XYSeries("replicate " + t.replicate() + " residual");
+            for (org.viscarta.sweep.TimeTest.Point p : t.points()) {
+                sr.add(p.timeS(), p.value());
+                largest = Math.max(largest, p.value());
+                if (best != null && best.fitted() != null) {
+                    double v = relaxation ? best.fitted().relaxationModulus(p.timeS(), best.values())
+                            : best.fitted().creepCompliance(p.timeS(), best.values());
+                    rr.add(p.timeS(), Math.log(v / p.value()));
+                }
+            }
+            tLow = Math.min(tLow, t.minTimeS());
+            tHigh = Math.max(tHigh, t.maxTimeS());
+            measured.addSeries(sr);
+            residuals.addSeries(rr);
+        }
+        int reps = measured.getSeriesCount();
+        LogAxis y = logAxis(symbol);
+        if (relaxation) {
+            inModulusUnit(y, symbol, largest);
+        } else {
+            y.setLabel(symbol + " [1/Pa]");
+            y.setNumberFormatOverride(new DecimalFormat("0.##E0", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
+        }
+        XYPlot top = new XYPlot();
+        top.setRangeAxis(y);
+        top.setDataset(0, measured);
+        XYLineAndShapeRenderer points = new XYLineAndShapeRenderer(false, true);
+        for (int i = 0; i < reps; i++) {
+            points.setSeriesPaint(i, Palette.colour(i));
+            points.setSeriesShape(i, Palette.shape(i));
+        }
+        top.setRenderer(0, points);
+        String title = shortName(d.sample().name());
+        if (best != null && best.fitted() != null) {
+            XYSeriesCollection model = new XYSeriesCollection();
+            XYSeries cs = new XYSeries(best.model() + ", fitted to all replicates");
+            for (int k = 0; k < CURVE_POINTS; k++) {
+                double t = tLow * Math.pow(tHigh / tLow, k / (double) (CURVE_POINTS - 1));
+                cs.add(t, relaxation ? best.fitted().relaxationModulus(t, best.values()) : best.fitted().creepCompliance(t, best.values()));
+            }
+            model.addSeries(cs);
+            top.setDataset(1, model);
+            XYLineAndShapeRenderer line = new XYLineAndShapeRenderer(true, false);
+            line.setSeriesPaint(0, Color.BLACK);
+            line.setSeriesStroke(0, new BasicStroke(1.6f));
+            top.setRenderer(1, line);
+            title += ": " + best.model() + " (best supported)";
+        }
+        XYPlot bottom = new XYPlot();
+        NumberAxis ry = new NumberAxis("ln(model/data)");
+        ry.setLabelFont(Palette.LABEL);
+        ry.setTickLabelFont(Palette.TICK);
+        bottom.setRangeAxis(ry);
+        bottom.setDataset(residuals);
+        bottom.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(0.8f)));
+        XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
+        for (int i = 0; i < reps; i++) {
+            rr.setSeriesPaint(i, Palette.colour(i));
+            rr.setSeriesShape(i, Palette.shape(i));
+            rr.setSeriesVisibleInLegend(i, false);
+        }
+        bottom.setRenderer(rr);
+        // symmetric about zero with room for the largest residuals, as in the fit figure
+        double worst = 0;
+        for (int i = 0; i < residuals.getSeriesCount(); i++) {
+            XYSeries sr = residuals.getSeries(i);
+            if (sr.getItemCount() > 0) {
+                worst = Math.max(worst, Math.max(Math.abs(sr.getMinY()), Math.abs(sr.getMaxY())));
+            }
+        }
+        if (worst > 0 && Double.isFinite(worst)) {
+            ry.setRange(-1.3 * worst, 1.3 * worst);
+            ry.setTickUnit(new NumberTickUnit(niceStep(worst / 2)));
+        }
+        LogAxis x = new ReadableLogAxis("time since the step [s]");
+        x.setTickUnit(new NumberTickUnit(1.0));
+        x.setMinorTickMarksVisible(true);
+        x.setNumberFormatOverride(new DecimalFormat("0.####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
+        x.setLabelFont(Palette.LABEL);
+        x.setTickLabelFont(Palette.TICK);
+        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(x);
+        plot.setGap(6);
+        plot.add(top, 3);
+        plot.add(bottom, 1);
+        JFreeChart c = new JFreeChart(title, Palette.TITLE, plot, true);
+        finish(c, top);
+        finish(c, bottom);
+        c.setBackgroundPaint(Color.WHITE);
+        return new Figure(stem, "The " + type.test() + " test of " + shortName(d.sample().name()) + ": the measured " + type.quantity()
+                + " " + symbol + " of each replicate against time, " + (best == null ? "no model converged"
+                : "the best-supported model " + best.model() + " fitted to all of them") + ", and the residuals of that fit. The E′ and "
+                + "E″ that rank and match this sample are computed from each replicate's fitted model, not measured.", c);
+    }
+
+    /**
      * E′ and E″ (or G′, G″) against frequency with replicate means ± SD, the best-supported model
      * with its 95 % band, and a residual panel below.
      */

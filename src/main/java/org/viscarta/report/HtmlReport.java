@@ -78,6 +78,7 @@ public final class HtmlReport {
         matches(h, r);
         series(h, r);
         transitions(h, r);
+        timeTests(h, r);
         if (!figures.isEmpty()) {
             h.append("<h2>Figures</h2>\n");
             for (RenderedFigure f : figures) {
@@ -126,6 +127,25 @@ public final class HtmlReport {
                     h.append("<p>Not compared: ").append(esc(missing)).append("</p>\n");
                 }
             }
+        }
+    }
+
+    /** The samples measured by stress relaxation or creep: what was fitted and how their moduli were computed. */
+    private static void timeTests(StringBuilder h, AnalysisResult r) {
+        if (r.timeTests().isEmpty()) {
+            return;
+        }
+        h.append("<h2>Time-domain tests</h2>\n<p>").append(esc(Texts.TIME_TESTS.get(1)[1])).append("</p>\n");
+        for (org.viscarta.analysis.TimeTests.Derived d : r.timeTests()) {
+            h.append("<h3>").append(esc(d.sample().name())).append("</h3>\n<ul class=\"limits\">\n");
+            d.analysis().bestRanked().ifPresent(b -> h.append("<li>").append(esc("Best-supported model, fitted to all "
+                    + d.tests().size() + " replicate(s) in the time domain: " + b.fit().model() + " (Akaike weight "
+                    + org.viscarta.table.Cells.g4(b.weight()) + ")")).append("</li>\n"));
+            for (org.viscarta.sweep.Sweep sw : d.sample().replicates()) {
+                h.append("<li>").append(esc("replicate " + sw.replicate() + ": " + org.viscarta.analysis.TimeTests.origin(sw).orElse("")))
+                        .append("</li>\n");
+            }
+            h.append("</ul>\n");
         }
     }
 

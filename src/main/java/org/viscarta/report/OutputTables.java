@@ -182,6 +182,9 @@ public final class OutputTables {
         if (!dropped.isEmpty()) {
             notes.add("replicate" + (dropped.size() == 1 ? " " : "s ") + String.join(", ", dropped) + " left out as an outlier");
         }
+        result.timeTestOf(sa.sample()).ifPresent(d -> notes.add("computed from " + d.tests().size() + " " + d.type().test()
+                + " test(s): E′ and E″ of each replicate's fitted " + d.analysis().best().map(org.viscarta.fit.FitResult::model)
+                .orElse("model") + ", not measured (sheet Time-domain tests)"));
         result.rankOf(sa.sample()).filter(r -> !r.note().isEmpty()).ifPresent(r -> notes.add(r.note()));
         if (result.request().needsFits()) {
             sa.best().ifPresentOrElse(best -> best.parameters().stream().filter(ParameterEstimate::undetermined)
@@ -502,9 +505,50 @@ public final class OutputTables {
 
     /** The rows of {@link #data}: every point of every replicate of every sample. */
     public static Iterable<DataRow> dataRows(List<SampleAnalysis> samples) {
+        // only measured points: the moduli computed from time-domain tests are in the Time-domain tests sheet's fits
         return () -> samples.stream().flatMap(sa -> sa.sample().replicates().stream()
+                .filter(sw -> org.viscarta.analysis.TimeTests.origin(sw).isEmpty())
                 .flatMap(sw -> sw.points().stream().map(p -> new DataRow(sa.sample(), sw, p)))).iterator();
     }
+
+    /** One measured point of a time-domain test, with the best-supported model's value there. */
+    public record TimeTestRow(org.viscarta.analysis.TimeTests.Derived derived, org.viscarta.sweep.TimeTest test,
+                              org.viscarta.sweep.TimeTest.Point point) {
+
+        /** The best-supported model (fitted to all replicates) at this time, or null. */
+        public Double model() {
+            return derived.analysis().best().filter(b -> b.fitted() != null).map(b -> test.type() == org.viscarta.sweep.TimeTest.Type.RELAXATION
+                    ? b.fitted().relaxationModulus(point.timeS(), b.values()) : b.fitted().creepCompliance(point.timeS(), b.values()))
+                    .orElse(null);
+        }
+    }
+
+    /** Every measured point of the time-domain tests (sheet Time-domain tests). */
+    public static List<TimeTestRow> timeTestRows(AnalysisResult r) {
+        List<TimeTestRow> out = new ArrayList<>();
+        for (org.viscarta.analysis.TimeTests.Derived d : r.timeTests()) {
+            for (org.viscarta.sweep.TimeTest t : d.tests()) {
+                for (org.viscarta.sweep.TimeTest.Point p : t.points()) {
+                    out.add(new TimeTestRow(d, t, p));
+                }
+            }
+        }
+        return out;
+    }
+
+    /** The measured points of time-domain tests and the best model beside them. */
+    public static final Table<TimeTestRow> TIME_TESTS = Table.<TimeTestRow>named("Time-domain tests")
+            .column("sample", "sample", "", Style.TEXT, 28, x -> x.derived().sample().name())
+            .column("test", "test", "", Style.TEXT, 16, x -> x.test().type().test())
+            .column("replicate", "replicate", "", Style.TEXT, 10, x -> x.test().replicate())
+            .column("time_s", "time", "s", Style.SCIENTIFIC, 12, x -> x.point().timeS())
+            .column("measured", "measured M(t) [Pa] or J(t) [1/Pa]", "", Style.SCIENTIFIC, 18, x -> x.point().value())
+            .column("best_model", "best-supported model there", "", Style.SCIENTIFIC, 18, TimeTestRow::model)
+            .column("ln_model_over_data", "ln(model/data)", "", Style.DECIMAL4, 12,
+                    x -> x.model() == null ? null : Math.log(x.model() / x.point().value()))
+            .column("file", "file", "", Style.TEXT, 30, x -> x.test().source().getFileName().toString())
+            .column("line", "line", "", Style.INTEGER, 8, x -> x.point().line())
+            .build();
 
     /** E(t) and J(t) of fitted models on a time grid ({@code fit --time-domain}: terminal and CSV). */
     public static final Table<TimeDomain.Point> TIME_DOMAIN = Table.<TimeDomain.Point>named("Time domain")

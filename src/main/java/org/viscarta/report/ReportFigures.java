@@ -110,7 +110,9 @@ public final class ReportFigures {
             for (int k = 2; !used.add(slug); k++) {
                 slug = slug(sa.sample().name()) + "-" + k;
             }
-            out.add(Figures.fit(sa.sample(), sa.curve().orElse(null), "fit-" + slug, reduced));
+            java.util.Optional<org.viscarta.analysis.TimeTests.Derived> test = r.timeTestOf(sa.sample());
+            out.add(test.isPresent() ? Figures.timeTest(test.get(), "fit-" + slug)
+                    : Figures.fit(sa.sample(), sa.curve().orElse(null), "fit-" + slug, reduced));
             if (!sa.matches().isEmpty()) {
                 out.add(Figures.references(sa.sample(), sa.matches(), refCurves, REFERENCES_SHOWN, "references-" + slug, reduced));
             }

@@ -31,8 +31,28 @@ public final class Texts {
         if (!r.transitions().isEmpty()) {
             out.addAll(GLASS_TRANSITION);
         }
+        if (!r.timeTests().isEmpty()) {
+            out.addAll(TIME_TESTS);
+        }
         return out;
     }
+
+    /** Stress relaxation and creep in plain words, and how they join the frequency sweeps. */
+    static final List<String[]> TIME_TESTS = List.of(
+            new String[] {"Stress relaxation and creep tests",
+                "In a stress relaxation test the sample is deformed in one quick step and held; the force it takes to hold it "
+                    + "falls with time, and divided by the step it gives the relaxation modulus E(t) (or G(t) in shear) [Pa]. In "
+                    + "a creep test a constant force is applied instead, and the growing deformation gives the creep compliance "
+                    + "J(t) [1/Pa]. Both hold the same information as E′ and E″ over the frequencies 1/(2πt) of the times "
+                    + "measured."},
+            new String[] {"Samples computed from time-domain tests",
+                "A sample named with '(stress relaxation)' or '(creep)' was measured in time, not by oscillation. Its tests "
+                    + "are fitted with every candidate model in the time domain (the closed forms of the models, Mittag-Leffler "
+                    + "functions for the fractional ones), the best-supported model is fitted to each replicate alone, and each "
+                    + "replicate's E′, E″ and tan δ are computed from its fitted model at the frequencies its times cover. They "
+                    + "are ranked and matched beside the measured sweeps, but they rest on that model: a material the model "
+                    + "does not describe well (see the residuals in its figure) is compared less well. The Data sheet holds only "
+                    + "measured points; the Time-domain tests sheet holds the measured M(t) or J(t) with the model beside them."});
 
     /** The glass transition in plain words: why three temperatures, and which to quote. */
     static final List<String[]> GLASS_TRANSITION = List.of(
@@ -67,6 +87,11 @@ public final class Texts {
     /** Said when temperature ramps were analysed. */
     static final String TRANSITION_CAUTION = "A glass transition temperature holds for the frequency and heating rate of its "
             + "test; it is not a safe temperature of use or display. Apply the margins your field or local rules set.";
+
+    static final String TIME_TEST_CAUTION = "The E′, E″ and tan δ of a sample measured by stress relaxation or creep are "
+            + "computed from a fitted model, not measured: they are as good as the model's description of the test, and a "
+            + "step applied over a finite ramp time distorts the earliest times (leave out the points before about ten ramp "
+            + "times, common practice).";
 
     /** What each sheet holds, with the ranking point that ran. */
     public static List<String[]> sheets(AnalysisRequest request) {
@@ -111,6 +136,9 @@ public final class Texts {
         }
         if (!r.transitions().isEmpty()) {
             out.add(TRANSITION_CAUTION);
+        }
+        if (!r.timeTests().isEmpty()) {
+            out.add(TIME_TEST_CAUTION);
         }
         return out;
     }
@@ -191,6 +219,9 @@ public final class Texts {
             new String[] {"Transition ranking", "Samples compared at each frequency and convention (Tg by each convention, tan δ "
                     + "peak height): means over replicates, letters from Welch t-tests with Holm's adjustment (samples sharing a "
                     + "letter are not distinguishable), and the conclusions in words."},
+            new String[] {"Time-domain tests", "For stress relaxation and creep tests: every measured point (time, M(t) or "
+                    + "J(t), file and line) with the best-supported model beside it and the residual, and under the table how each "
+                    + "replicate's E′ and E″ were computed from its fitted model."},
             new String[] {"Model fits", "Every model fitted to every sample: parameters with units, standard errors, 95 % intervals, AICc and Akaike weights."},
             new String[] {"Derived quantities", "Quantities computed from each fit (relaxation and retardation times, crossover "
                     + "frequency, relaxed and unrelaxed moduli, viscosities), with standard errors."},

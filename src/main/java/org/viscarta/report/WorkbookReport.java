@@ -111,6 +111,17 @@ public final class WorkbookReport {
                 table(wb, st, OutputTables.TRANSITION_RANKING, OutputTables.transitionRankRows(t), t.sets().isEmpty()
                         ? "fewer than two samples at any one frequency, so nothing was compared" : "", statements);
             }
+            if (!r.timeTests().isEmpty()) {
+                List<String> origins = new java.util.ArrayList<>();
+                origins.add("Each sample computed from time-domain tests: its tests fitted together with every candidate model (Model "
+                        + "fits), then the best-supported model fitted to each replicate alone; that replicate's E′ and E″ at the "
+                        + "frequencies 1/(2πt) of its times are what the ranking and matching use.");
+                for (org.viscarta.analysis.TimeTests.Derived d : r.timeTests()) {
+                    d.sample().replicates().forEach(sw -> origins.add(d.sample().name() + ", replicate " + sw.replicate() + ": "
+                            + org.viscarta.analysis.TimeTests.origin(sw).orElse("")));
+                }
+                table(wb, st, OutputTables.TIME_TESTS, OutputTables.timeTestRows(r), "", origins);
+            }
             table(wb, st, OutputTables.modelFits(r.request()), OutputTables.fitRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.DERIVED, OutputTables.derivedRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.CORRELATIONS, OutputTables.correlationRows(r.samples()), "", List.of());
