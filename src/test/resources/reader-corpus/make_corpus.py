@@ -28,6 +28,14 @@ def ramp(name, text, ramps, points, storage0, **expect):
     cases.append((name, text.encode("utf-8"), "ramp", f"{ramps};{points};{storage0!r}{extra}"))
 
 
+def timetest(name, text, tests, points, value0, **expect):
+    """A file of time-domain tests: how many (sample × replicate), their points, M(t) or J(t) of the
+    earliest point of the first test in SI; expect: type (RELAXATION or CREEP), kind (tensile, shear),
+    time0 (the earliest time in s), sweeps (frequency sweeps besides), warning."""
+    extra = "".join(f";{k}={v}" for k, v in expect.items())
+    cases.append((name, text.encode("utf-8"), "timetest", f"{tests};{points};{value0!r}{extra}"))
+
+
 def err(name, text, line, column, words, enc="utf-8"):
     cases.append((name, text.encode(enc) if isinstance(text, str) else text, "error", f"{line};{column};{words}"))
 
@@ -163,6 +171,20 @@ ramp("ramp-heating-then-cooling.csv", "sample,temperature [°C],frequency [Hz],s
 ramp("ramp-beside-frequency-sweeps.csv", "sample,temperature [°C],frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n"
      + "".join(f"gel,23,{f},{100 + f},{10}\n" for f in (0.1, 0.3, 1, 3, 10, 30, 100))
      + "".join(f"film,{t},1,{1e9 - 1e6 * t},{1e7}\n" for t in range(20, 60, 4)), 1, 10, 1e9 - 2e7, sweeps="1")
+
+# time-domain tests (added after the cases above, so that their numbers stay)
+timetest("relaxation-one-test.csv", "# sample: gel\n# modulus: tensile\ntime [s],relaxation_modulus [kPa]\n"
+         "0.01,30\n0.1,25\n1,21\n10,20\n", 1, 4, 30e3, type="RELAXATION", kind="tensile", time0="0.01")
+timetest("creep-tidy-ms.csv", "sample,replicate,time [ms],J(t) [1/MPa]\nfilm,1,5,2\nfilm,1,50,2.5\nfilm,1,500,3\n"
+         "film,2,5,2.1\nfilm,2,50,2.6\nfilm,2,500,3.2\n", 2, 6, 2e-6, type="CREEP", time0="0.005",
+         warning="taken as tensile")
+timetest("relaxation-shear-unsorted-with-clock.csv", "Elapsed time (s),G(t) (Pa),Temperature (°C)\n"
+         "1,900,25\n0.1,1000,25\n10,800,25\n", 1, 3, 1000.0, type="RELAXATION", kind="shear", time0="0.1",
+         warning="out of order")
+err("relaxation-time-zero.csv", "time [s],E(t) [Pa]\n0,100\n1,90\n", 2, 1, "time must be greater than zero")
+err("relaxation-beside-sweep-moduli.csv", "time [s],relaxation_modulus [Pa],storage_modulus [Pa]\n1,100,90\n", 1, 3,
+    "a table holds one kind of test")
+err("relaxation-without-time-unit.csv", "time,relaxation_modulus [Pa]\n1,100\n", 1, 0, "needs the time since the step")
 
 for f in os.listdir(HERE):
     if f[:2].isdigit():

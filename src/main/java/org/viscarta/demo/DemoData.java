@@ -72,6 +72,7 @@ public final class DemoData {
         rawSignals(rng, files, truths);
         amplitudeSweeps(new SplittableRandom(SEED + 1), files);
         temperatureRamps(new SplittableRandom(SEED + 2), files);
+        stressRelaxation(new SplittableRandom(SEED + 3), files, truths);
         return new Generated(files, truths);
     }
 
@@ -222,6 +223,41 @@ public final class DemoData {
             }
             files.add(new DemoFile("demo-data", "hydrogel-screen/amplitude-sweeps/" + s.sample() + "-amplitude.csv", sb.toString()));
         }
+    }
+
+    /** The hydrogel measured by stress relaxation beside its frequency sweeps. */
+    public static final String RELAXATION_SAMPLE = "gelatin-5pct";
+
+    /**
+     * A stress-relaxation test by indentation of {@link #RELAXATION_SAMPLE}, three replicates (their
+     * own draws of the formulation's zener, as its sweeps' replicates are), E(t) at 30 times from
+     * 0.005 s to 50 s with 1 % noise, in one tidy table (its own random stream).
+     */
+    private static void stressRelaxation(SplittableRandom rng, List<DemoFile> files, List<Truth> truths) {
+        Spec s = GELS.stream().filter(g -> g.sample().equals(RELAXATION_SAMPLE)).findFirst().orElseThrow();
+        org.viscarta.model.ViscoelasticModel m = ModelCatalogue.byId(s.model()).orElseThrow();
+        StringBuilder sb = new StringBuilder();
+        sb.append("# sample: ").append(s.sample()).append('\n');
+        sb.append("# group: ").append(s.group()).append('\n');
+        sb.append("# note: ").append(DEMO_NOTE).append('\n');
+        sb.append("# test: stress relaxation, a 20 µm indentation step held for 50 s (step time 0.5 ms; times from the step)\n");
+        sb.append("# temperature: 23 °C\n");
+        sb.append("# method: dynamic indentation\n");
+        sb.append("# geometry: flat punch; punch_radius: 0.5 mm; poisson_ratio: 0.5\n");
+        sb.append("# modulus: tensile\n");
+        sb.append("replicate,time [s],relaxation_modulus [kPa]\n");
+        for (int r = 1; r <= 3; r++) {
+            double[] p = replicateParams(rng, s);
+            Truth base = truth(s, Integer.toString(r), p);
+            truths.add(new Truth(base.sample() + " (stress relaxation)", base.replicate(), base.temperatureC(), base.model(),
+                    base.params()));
+            for (int i = 0; i < 30; i++) {
+                double t = 0.005 * Math.pow(1e4, i / 29.0);
+                sb.append(r).append(',').append(num(t)).append(',')
+                        .append(num(m.relaxationModulus(t, p) * Math.exp(0.01 * gaussian(rng)) / 1e3)).append('\n');
+            }
+        }
+        files.add(new DemoFile("demo-data", "hydrogel-screen/stress-relaxation/" + s.sample() + "-relaxation.csv", sb.toString()));
     }
 
     /** WLF constants of the demo's temperature series, at its reference temperature. */

@@ -107,6 +107,9 @@ final class HeaderRecognizer {
             Map.entry("force_amplitude", named(Quantity.FORCE_AMPLITUDE, null)),
             Map.entry("displacement_amplitude", named(Quantity.DISPLACEMENT_AMPLITUDE, null)),
             Map.entry("time", named(Quantity.TIME, null)),
+            Map.entry("elapsed_time", named(Quantity.TIME, null)),
+            Map.entry("time_since_step", named(Quantity.TIME, null)),
+            Map.entry("test_time", named(Quantity.TIME, null)),
             Map.entry("relaxation_modulus", named(Quantity.RELAXATION_MODULUS, null)),
             Map.entry("stress_relaxation_modulus", named(Quantity.RELAXATION_MODULUS, null)),
             Map.entry("shear_relaxation_modulus", named(Quantity.RELAXATION_MODULUS, ModulusKind.SHEAR)),
@@ -129,6 +132,16 @@ final class HeaderRecognizer {
     }
 
     private HeaderRecognizer() {
+    }
+
+    /**
+     * Whether a header names a time (whatever its unit says): a clock column of an export with a unit
+     * Viscarta does not read (hh:mm:ss) is read past beside a sweep instead of stopping the reading.
+     */
+    static boolean isTime(String header) {
+        String name = header.replaceFirst("\\s*[\\[(].*$", "");
+        Result r = recognize(0, name + " [s]");
+        return r.column() != null && r.column().quantity() == Quantity.TIME;
     }
 
     /**

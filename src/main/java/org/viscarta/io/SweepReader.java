@@ -797,11 +797,11 @@ public final class SweepReader {
                     throw new InputException(path, headerLine, c + 1, "--column \"" + InputException.oneLine(h) + "=" + mapped + "\": "
                             + r.problem());
                 }
-                if (r.nameKnown() && !HeaderRecognizer.unneeded(h)) {
+                if (r.nameKnown() && !HeaderRecognizer.unneeded(h) && !HeaderRecognizer.isTime(h)) {
                     throw new InputException(path, headerLine, c + 1, r.problem() + ", or map it with --column \""
                             + InputException.oneLine(h) + "=quantity [unit]\"");
                 }
-                if (HeaderRecognizer.unneeded(h)) {
+                if (HeaderRecognizer.unneeded(h) || HeaderRecognizer.isTime(h)) {
                     columns.add(new ColumnSpec(c, h, Quantity.UNUSED, null, null));
                 } else {
                     unknown.add(c);

@@ -106,6 +106,29 @@ class ReaderCorpusTest {
                     assertTrue(r.points().get(i).temperatureC() >= r.points().get(i - 1).temperatureC(), "sorted by temperature");
                 }
             }
+        } else if (outcome.equals("timetest")) {
+            String[] d = detail.split(";");
+            SweepFile f = new SweepReader(null).read(p);
+            assertEquals(Integer.parseInt(d[0]), f.timeTests().size(), "time-domain tests");
+            assertEquals(Integer.parseInt(d[1]), f.timeTests().stream().mapToInt(t -> t.points().size()).sum(), "points");
+            org.viscarta.sweep.TimeTest first = f.timeTests().get(0);
+            double expected = Double.parseDouble(d[2]);
+            assertEquals(expected, first.points().get(0).value(), 1e-9 * expected, "M(t) or J(t) at the earliest time (SI)");
+            int sweeps = 0;
+            String warnings = f.warnings().toString();
+            for (int i = 3; i < d.length; i++) {
+                String key = d[i].substring(0, d[i].indexOf('='));
+                String value = d[i].substring(d[i].indexOf('=') + 1);
+                switch (key) {
+                    case "type" -> assertEquals(value, first.type().name(), "test type");
+                    case "kind" -> assertEquals(value, first.kind().toString(), "modulus kind");
+                    case "time0" -> assertEquals(Double.parseDouble(value), first.minTimeS(), 1e-12, "earliest time [s]");
+                    case "sweeps" -> sweeps = Integer.parseInt(value);
+                    case "warning" -> assertTrue(warnings.contains(value), "a warning says '" + value + "': " + warnings);
+                    default -> throw new IllegalArgumentException("unknown expectation " + key);
+                }
+            }
+            assertEquals(sweeps, f.sweeps().size(), "frequency sweeps beside the tests");
         } else {
             String[] d = detail.split(";", 3);
             InputException e = assertThrows(InputException.class, () -> new SweepReader(null).read(p));
@@ -121,7 +144,15 @@ class ReaderCorpusTest {
     void theStreamingSummaryAgreesWithTheFullReading(String file, String outcome, String detail) throws URISyntaxException {
         Path p = corpus().resolve(file);
         SweepReader reader = new SweepReader(null);
-        if (outcome.equals("ramp")) {
+        if (outcome.equals("timetest")) {
+            SweepFile full = reader.read(p);
+            SweepReader.Summary sum = reader.summarize(p);
+            assertEquals(full.timeTests().size(), sum.sweeps().size());
+            for (int i = 0; i < full.timeTests().size(); i++) {
+                assertEquals(full.timeTests().get(i).points().size(), sum.sweeps().get(i).points());
+                assertTrue(sum.sweeps().get(i).test().contains(full.timeTests().get(i).type().test()), sum.sweeps().get(i).test());
+            }
+        } else if (outcome.equals("ramp")) {
             // a ramp is summarised as one line per sample and replicate, at no single temperature
             SweepFile full = reader.read(p);
             SweepReader.Summary sum = reader.summarize(p);
