@@ -27,7 +27,7 @@ import org.viscarta.sweep.TimeTest;
  * temperature are fitted with every candidate model (replicates pooled) in the time domain; the
  * best-supported model is then fitted to each replicate alone, and each replicate's fitted model
  * gives E′ and E″ at the frequencies 1/(2πt) of its measured times. Those computed sweeps make a
- * sample of their own, named with its origin ("gel (stress relaxation)"), that is ranked and matched
+ * sample of their own, named with its origin ("gel (relaxation)", "gel (creep)"), that is ranked and matched
  * like any other, while its fits, figure and Time-domain sheet show the measured M(t) or J(t).
  */
 public final class TimeTests {
@@ -57,7 +57,7 @@ public final class TimeTests {
 
     /** The display name of the sample made from a sample's tests of this type. */
     public static String displayName(String sample, TimeTest.Type type) {
-        return sample + " (" + type.test() + ")";
+        return sample + " (" + type.label() + ")";
     }
 
     /** Where a computed sweep's moduli came from, or empty for a measured sweep. */
@@ -117,7 +117,7 @@ public final class TimeTests {
             for (int i = 0; i < n; i++) {
                 double f = fLow * Math.pow(fHigh / fLow, i / (double) (n - 1));
                 used.fitted().modulus(2 * Math.PI * f, used.values(), out);
-                if (out[0] > 0 && Double.isFinite(out[0]) && Double.isFinite(out[1])) {
+                if (f > 0 && Double.isFinite(f) && out[0] > 0 && Double.isFinite(out[0]) && Double.isFinite(out[1])) {
                     pts.add(new SweepPoint(f, out[0], out[1], 0));
                 }
             }

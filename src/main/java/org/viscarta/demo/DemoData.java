@@ -249,7 +249,7 @@ public final class DemoData {
         for (int r = 1; r <= 3; r++) {
             double[] p = replicateParams(rng, s);
             Truth base = truth(s, Integer.toString(r), p);
-            truths.add(new Truth(base.sample() + " (stress relaxation)", base.replicate(), base.temperatureC(), base.model(),
+            truths.add(new Truth(base.sample() + " (relaxation)", base.replicate(), base.temperatureC(), base.model(),
                     base.params()));
             for (int i = 0; i < 30; i++) {
                 double t = 0.005 * Math.pow(1e4, i / 29.0);

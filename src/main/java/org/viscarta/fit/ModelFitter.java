@@ -176,7 +176,10 @@ public final class ModelFitter {
                 storage = j1 / d;
                 loss = j2 / d;
             }
-            out.add(new SweepPoint(1 / (2 * Math.PI * data.get(i).timeS()), storage, loss, data.get(i).line()));
+            double f = 1 / (2 * Math.PI * data.get(i).timeS());
+            if (f > 0 && Double.isFinite(f) && storage > 0 && Double.isFinite(storage) && Double.isFinite(loss)) {
+                out.add(new SweepPoint(f, storage, loss, data.get(i).line()));
+            }
         }
         out.sort(java.util.Comparator.comparingDouble(SweepPoint::frequencyHz));
         return out;

@@ -797,7 +797,7 @@ public final class SweepReader {
                     throw new InputException(path, headerLine, c + 1, "--column \"" + InputException.oneLine(h) + "=" + mapped + "\": "
                             + r.problem());
                 }
-                if (r.nameKnown() && !HeaderRecognizer.unneeded(h) && !HeaderRecognizer.isTime(h)) {
+                if (r.nameKnown() && !HeaderRecognizer.isTime(h)) {
                     throw new InputException(path, headerLine, c + 1, r.problem() + ", or map it with --column \""
                             + InputException.oneLine(h) + "=quantity [unit]\"");
                 }

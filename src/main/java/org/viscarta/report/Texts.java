@@ -46,7 +46,7 @@ public final class Texts {
                     + "J(t) [1/Pa]. Both hold the same information as E′ and E″ over the frequencies 1/(2πt) of the times "
                     + "measured."},
             new String[] {"Samples computed from time-domain tests",
-                "A sample named with '(stress relaxation)' or '(creep)' was measured in time, not by oscillation. Its tests "
+                "A sample named with '(relaxation)' or '(creep)' was measured in time, not by oscillation. Its tests "
                     + "are fitted with every candidate model in the time domain (the closed forms of the models, Mittag-Leffler "
                     + "functions for the fractional ones), the best-supported model is fitted to each replicate alone, and each "
                     + "replicate's E′, E″ and tan δ are computed from its fitted model at the frequencies its times cover. They "

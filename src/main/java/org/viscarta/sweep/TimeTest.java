@@ -31,18 +31,25 @@ public record TimeTest(String sample, String replicate, String group, ModulusKin
     /** What a time-domain test measures. */
     public enum Type {
         /** M(t) [Pa] after a step in strain. */
-        RELAXATION("stress relaxation", "relaxation modulus", "Pa"),
+        RELAXATION("stress relaxation", "relaxation", "relaxation modulus", "Pa"),
         /** J(t) [1/Pa] after a step in stress. */
-        CREEP("creep", "creep compliance", "1/Pa");
+        CREEP("creep", "creep", "creep compliance", "1/Pa");
 
         private final String test;
+        private final String label;
         private final String quantity;
         private final String unit;
 
-        Type(String test, String quantity, String unit) {
+        Type(String test, String label, String quantity, String unit) {
             this.test = test;
+            this.label = label;
             this.quantity = quantity;
             this.unit = unit;
+        }
+
+        /** The short word a sample computed from such tests carries in its name ("relaxation", "creep"). */
+        public String label() {
+            return label;
         }
 
         /** The test's name ("stress relaxation", "creep"). */

@@ -396,7 +396,7 @@ class CliTest {
             List<String> names = new ArrayList<>();
             wb.forEach(s -> names.add(s.getSheetName()));
             assertEquals(List.of("Read me", "Summary", "Damping ranking", "Group comparison", "Quality", "Reference matches", "Mimic ranking", "Temperature series",
-                    "Transitions", "Activation energy", "Transition ranking", "Model fits", "Derived quantities", "Correlations", "Spectra", "Data", "Reference library", "Figures", "Provenance"), names);
+                    "Transitions", "Activation energy", "Transition ranking", "Time-domain tests", "Model fits", "Derived quantities", "Correlations", "Spectra", "Data", "Reference library", "Figures", "Provenance"), names);
             // both questions of the demo answered: the aged linseed film is closest to the aged reference film,
             // and a gel formulation (not a paint) is the best mimic of the target tissue
             Sheet matches = wb.getSheet("Reference matches");
@@ -411,7 +411,8 @@ class CliTest {
             Row bestMimic = wb.getSheet("Mimic ranking").getRow(1);
             assertTrue(List.of("gelatin", "agarose", "polyacrylamide").contains(bestMimic.getCell(3).getStringCellValue()));
             Sheet summary = wb.getSheet("Summary");
-            assertEquals(23, summary.getLastRowNum(), "23 samples: 15 at 23 °C, two from raw signals, one film at five temperatures, its master curve");
+            assertEquals(24, summary.getLastRowNum(), "24 samples: 15 at 23 °C, two from raw signals, one film at five temperatures, "
+                    + "its master curve, and a gel computed from its stress relaxation test");
             Sheet data = wb.getSheet("Data");
             Row first = data.getRow(1);
             assertEquals(CellType.NUMERIC, first.getCell(5).getCellType(), "frequency stored as a number");

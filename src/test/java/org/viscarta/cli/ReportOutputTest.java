@@ -65,6 +65,61 @@ class ReportOutputTest {
     }
 
     @Test
+    void theDemoReportComparesTheRelaxationTestWithItsSweeps() throws IOException {
+        String relaxed = org.viscarta.demo.DemoData.RELAXATION_SAMPLE + " (relaxation)";
+        try (InputStream in = Files.newInputStream(first.resolve("report.xlsx")); Workbook wb = WorkbookFactory.create(in)) {
+            org.apache.poi.ss.usermodel.Sheet tests = wb.getSheet("Time-domain tests");
+            assertTrue(tests != null, "a Time-domain tests sheet");
+            int points = 0;
+            for (org.apache.poi.ss.usermodel.Row row : tests) {
+                org.apache.poi.ss.usermodel.Cell c = row.getCell(0);
+                points += c != null && relaxed.equals(c.getStringCellValue()) ? 1 : 0;
+            }
+            assertEquals(90, points, "3 replicates × 30 measured times");
+            for (org.apache.poi.ss.usermodel.Row row : wb.getSheet("Data")) {
+                org.apache.poi.ss.usermodel.Cell c = row.getCell(0);
+                assertFalse(c != null && c.getCellType() == org.apache.poi.ss.usermodel.CellType.STRING
+                        && relaxed.equals(c.getStringCellValue()), "computed moduli are not listed as measured points");
+            }
+            // the relaxation test and the sweeps of the same (invented) material agree on tan δ at 1 Hz
+            double[][] ci = new double[2][];
+            org.apache.poi.ss.usermodel.Sheet ranking = wb.getSheet("Damping ranking");
+            org.apache.poi.ss.usermodel.Row header = null;
+            for (org.apache.poi.ss.usermodel.Row row : ranking) {
+                if (row.getCell(1) != null && "sample".equals(row.getCell(1).toString())) {
+                    header = row;
+                    continue;
+                }
+                if (header == null || row.getCell(1) == null) {
+                    continue;
+                }
+                String name = row.getCell(1).toString();
+                int k = name.equals(relaxed) ? 0 : name.equals(org.viscarta.demo.DemoData.RELAXATION_SAMPLE) ? 1 : -1;
+                if (k >= 0) {
+                    ci[k] = new double[] {cell(header, row, "tan δ 95 % CI low [–]"), cell(header, row, "tan δ 95 % CI high [–]")};
+                }
+            }
+            assertTrue(ci[0] != null && ci[1] != null, "both are ranked");
+            assertTrue(ci[0][0] <= ci[1][1] && ci[1][0] <= ci[0][1], "their intervals overlap: " + java.util.Arrays.toString(ci[0])
+                    + " and " + java.util.Arrays.toString(ci[1]));
+        }
+        assertTrue(Files.isRegularFile(first.resolve("figures/fit-gelatin-5pct-relaxation.png")), "its time-domain figure");
+        Document doc = Jsoup.parse(first.resolve("report.html").toFile(), "UTF-8");
+        assertTrue(doc.text().contains("Samples computed from time-domain tests"), "the Read me explains");
+        assertTrue(doc.select("h2:contains(Time-domain tests) ~ ul li").text().contains("computed from the stress relaxation test"),
+                "the origin of each replicate's moduli");
+    }
+
+    private static double cell(org.apache.poi.ss.usermodel.Row header, org.apache.poi.ss.usermodel.Row row, String label) {
+        for (org.apache.poi.ss.usermodel.Cell h : header) {
+            if (h.toString().equals(label)) {
+                return row.getCell(h.getColumnIndex()).getNumericCellValue();
+            }
+        }
+        throw new AssertionError("no column '" + label + "'");
+    }
+
+    @Test
     void htmlIsSelfContainedAndHoldsTheTables() throws IOException {
         Document doc = Jsoup.parse(first.resolve("report.html").toFile(), "UTF-8");
         assertTrue(doc.select("script, link, iframe, object, embed").isEmpty(), "no script or external resource");
@@ -75,9 +130,10 @@ class ReportOutputTest {
         assertTrue(doc.select("style").size() == 1);
         List<String> headings = doc.select("h2").eachText();
         assertEquals(List.of("Read me", "Summary", "Damping ranking", "Quality", "Closest reference materials", "Best mimic of target-soft-tissue",
-                "Temperature series: acrylic-film-ts", "Transitions", "Activation energy", "Transition ranking", "Figures", "Provenance"), headings);
+                "Temperature series: acrylic-film-ts", "Transitions", "Activation energy", "Transition ranking", "Time-domain tests", "Figures",
+                "Provenance"), headings);
         Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
-        assertEquals(1 + 23, ranking.select("tr").size(), "a row per sample, the master curve included");
+        assertEquals(1 + 24, ranking.select("tr").size(), "a row per sample, the master curve and the relaxation test included");
         assertTrue(doc.text().contains("not clinical or structural verdicts"));
         assertTrue(doc.text().contains("invented demo data"));
         assertEquals(doc.select("figure").size(), doc.select("figure svg").size(), "every figure is inline SVG");
