@@ -240,6 +240,16 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
                 return new SweepReader.Summary(file, new TableInfo(new Layout.RawSignals(": a calibration on a rigid reference"),
                         ',', '.', "UTF-8", 0, List.of(), m.metadata()), List.of(), List.of());
             }
+            if (m.stepTest().isPresent()) {
+                org.viscarta.raw.StepResponse.Converted c = org.viscarta.raw.StepResponse.convert(m);
+                TimeTest t = c.test();
+                return new SweepReader.Summary(file, new TableInfo(new Layout.RawSignals(Layout.RawSignals.STEP + " (" + c.geometry() + ")"), ',',
+                        '.', "UTF-8", 0, List.of(), m.metadata()), List.of(new SweepReader.SweepSummary(t.sample(), t.replicate(),
+                        t.group(), t.kind(), t.temperatureC(), t.points().size(), Double.NaN, Double.NaN, String.format(Locale.ROOT,
+                        "%s test from a raw record, %s from %.4g s to %.4g s (%d samples in %d log-spaced points; %s)",
+                        t.type().test(), t.type().quantity(), t.minTimeS(), t.maxTimeS(), c.samples(), t.points().size(),
+                        t.metadata().get("step")))), c.warnings());
+            }
             RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
             Sweep s = rs.sweep();
             return new SweepReader.Summary(file, new TableInfo(new Layout.RawSignals(" (" + rs.geometry().describe() + ")"), ',',
@@ -258,6 +268,14 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         if (m.isCalibration()) {
             notes.add(file + ": a calibration measurement, used by the raw files that name it, not analysed as a sample");
             return null;
+        }
+        if (m.stepTest().isPresent()) {
+            org.viscarta.raw.StepResponse.Converted c = org.viscarta.raw.StepResponse.convert(m);
+            notes.add(file + ": raw " + c.test().type().test() + " record converted to the " + c.test().type().quantity() + " ("
+                    + c.geometry() + "; " + c.test().metadata().get("step") + "; " + c.samples() + " samples averaged into "
+                    + c.test().points().size() + " log-spaced points)");
+            return new SweepFile(file, m.sha256(), new TableInfo(new Layout.RawSignals(""), ',', '.', "UTF-8", 0, List.of(),
+                    m.metadata()), List.of(), List.of(), List.of(c.test()), c.warnings());
         }
         RawSweeps rs = RawSweeps.convert(m, RawConverter.Settings.defaults(), null);
         notes.add(file + ": raw signals converted to moduli (" + rs.geometry().describe() + ", calibration: "

@@ -56,12 +56,18 @@ public sealed interface Layout permits Layout.OneSample, Layout.Tidy, Layout.Wid
      * @param detail the geometry, or that the file is a calibration ("" for none)
      */
     record RawSignals(String detail) implements Layout {
+        /** The detail that starts a step test's description. */
+        public static final String STEP = " of a step test";
+
         public RawSignals {
             Objects.requireNonNull(detail, "detail");
         }
 
         @Override
         public String describe() {
+            if (detail.startsWith(STEP)) {
+                return "raw force and displacement record" + detail;
+            }
             return detail.isEmpty() ? "raw oscillation signals" : "raw oscillation signals" + detail;
         }
     }

@@ -34,6 +34,16 @@ public final class RawReader {
         public boolean isCalibration() {
             return "calibration".equalsIgnoreCase(metadata.getOrDefault("role", ""));
         }
+
+        /**
+         * A step test's raw record (a '# test:' line naming stress relaxation or creep): one segment of
+         * time, force and displacement without a drive frequency, converted by {@link StepResponse}.
+         */
+        public java.util.Optional<org.viscarta.sweep.TimeTest.Type> stepTest() {
+            String t = metadata.getOrDefault("test", "").toLowerCase(Locale.ROOT);
+            return t.contains("relaxation") ? java.util.Optional.of(org.viscarta.sweep.TimeTest.Type.RELAXATION)
+                    : t.contains("creep") ? java.util.Optional.of(org.viscarta.sweep.TimeTest.Type.CREEP) : java.util.Optional.empty();
+        }
     }
 
     private RawReader() {
@@ -115,6 +125,11 @@ public final class RawReader {
             }
         }
         boolean cantilever = fCol < 0 && defCol >= 0 && posCol >= 0;
+        String test = meta.getOrDefault("test", "").toLowerCase(Locale.ROOT);
+        boolean step = test.contains("relaxation") || test.contains("creep");
+        if (step && freqCol < 0 && segCol < 0 && tCol >= 0 && (cantilever || (fCol >= 0 && dCol >= 0))) {
+            return stepRecord(file, bytes, lines, i, header, meta, tCol, fCol, dCol, defCol, posCol, scale, cantilever);
+        }
         if (tCol < 0 || (freqCol < 0 && segCol < 0) || (!cantilever && (fCol < 0 || dCol < 0))) {
             throw new InputException(file, headerLine, 0, "a raw table needs time, drive_frequency (or segment with a "
                     + "'# drive_frequencies:' line), and force with displacement (or deflection with position)");
@@ -186,6 +201,47 @@ public final class RawReader {
             throw new InputException(file, headerLine, 0, "the header is not followed by any samples");
         }
         return new Measurement(file, SweepReader.sha256(bytes), meta, segments);
+    }
+
+    /** A step test's record: every row one sample of one segment at no drive frequency. */
+    private static Measurement stepRecord(Path file, byte[] bytes, List<String> lines, int headerIndex, String[] header,
+                                          Map<String, String> meta, int tCol, int fCol, int dCol, int defCol, int posCol,
+                                          double[] scale, boolean cantilever) {
+        double k = 0;
+        if (cantilever) {
+            try {
+                k = Units.stiffness(meta, "cantilever_stiffness");
+            } catch (IllegalArgumentException e) {
+                throw new InputException(file, headerIndex + 1, 0, "deflection and position need '# cantilever_stiffness: 0.05 N/m' ("
+                        + e.getMessage() + ")");
+            }
+        }
+        List<double[]> rows = new ArrayList<>();
+        for (int r = headerIndex + 1; r < lines.size(); r++) {
+            String l = lines.get(r).strip();
+            if (l.isEmpty() || l.startsWith("#")) {
+                continue;
+            }
+            String[] cells = l.split(",");
+            if (cells.length != header.length) {
+                throw new InputException(file, r + 1, 0, "row has " + cells.length + " fields but the header has " + header.length);
+            }
+            double[] v = new double[header.length];
+            for (int c = 0; c < header.length; c++) {
+                String cell = cells[c].strip();
+                if (!SweepReader.isPlainNumber(cell)) {
+                    throw new InputException(file, r + 1, c + 1, "'" + cell + "' is not a number");
+                }
+                v[c] = Double.parseDouble(cell) * scale[c];
+            }
+            rows.add(v);
+        }
+        if (rows.size() < 3) {
+            throw new InputException(file, headerIndex + 1, 0, "a step test needs the record of the step and its hold; found "
+                    + rows.size() + " row(s)");
+        }
+        return new Measurement(file, SweepReader.sha256(bytes), meta, List.of(segment(Double.NaN, rows, tCol, fCol, dCol, defCol,
+                posCol, k, cantilever, headerIndex + 2)));
     }
 
     /** The frequencies of '# drive_frequencies: 0.1, 1, 10 Hz', in segment order. */
