@@ -187,8 +187,47 @@ final class ResultJson {
             m.put("curve", curve);
         }
         sa.bestRanked().ifPresent(b -> m.put("best", b.fit().model()));
+        r.timeTestOf(sa.sample()).ifPresent(d -> m.put("time_test", timeTest(d)));
         m.put("also_supported", sa.alsoSupported());
         sa.closest().ifPresent(c -> m.put("closest", c.reference()));
+        return m;
+    }
+
+    /** A sample computed from time-domain tests: its measured M(t) or J(t) per replicate and the best model. */
+    private static Map<String, Object> timeTest(org.viscarta.analysis.TimeTests.Derived d) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        boolean relaxation = d.type() == org.viscarta.sweep.TimeTest.Type.RELAXATION;
+        m.put("test", d.type().test());
+        m.put("quantity", d.type().quantity());
+        m.put("symbol", relaxation ? d.sample().kind().letter() + "(t)" : "J(t)");
+        m.put("unit", d.type().unit());
+        List<Map<String, Object>> reps = new ArrayList<>();
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = 0;
+        for (org.viscarta.sweep.TimeTest t : d.tests()) {
+            Map<String, Object> x = new LinkedHashMap<>();
+            x.put("replicate", t.replicate());
+            x.put("time_s", t.points().stream().mapToDouble(org.viscarta.sweep.TimeTest.Point::timeS).toArray());
+            x.put("value", t.points().stream().mapToDouble(org.viscarta.sweep.TimeTest.Point::value).toArray());
+            reps.add(x);
+            lo = Math.min(lo, t.minTimeS());
+            hi = Math.max(hi, t.maxTimeS());
+        }
+        m.put("replicates", reps);
+        org.viscarta.fit.FitResult best = d.analysis().best().orElse(null);
+        if (best != null && best.fitted() != null) {
+            double[] ts = new double[60];
+            double[] vs = new double[60];
+            for (int k = 0; k < 60; k++) {
+                ts[k] = lo * Math.pow(hi / lo, k / 59.0);
+                vs[k] = relaxation ? best.fitted().relaxationModulus(ts[k], best.values()) : best.fitted().creepCompliance(ts[k], best.values());
+            }
+            m.put("model", best.model());
+            m.put("model_time_s", ts);
+            m.put("model_value", vs);
+        }
+        m.put("origin", d.sample().replicates().stream().map(sw -> "replicate " + sw.replicate() + ": "
+                + org.viscarta.analysis.TimeTests.origin(sw).orElse("")).toList());
         return m;
     }
 

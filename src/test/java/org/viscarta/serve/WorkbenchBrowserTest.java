@@ -190,6 +190,14 @@ class WorkbenchBrowserTest {
         shot("4-fit");
         shotOf("4-fit-plot", driver.findElement(By.id("view-samples")));
 
+        // a sample measured by stress relaxation shows its measured E(t), not computed moduli as if measured
+        org.openqa.selenium.support.ui.Select pick = new org.openqa.selenium.support.ui.Select(driver.findElement(By.id("sample-pick")));
+        pick.getOptions().stream().filter(o -> o.getText().contains("(relaxation)")).findFirst().orElseThrow().click();
+        wait.until(d -> d.findElement(By.id("plot-moduli")).getText().contains("replicate 1 (measured)"));
+        assertTrue(driver.findElement(By.id("sample-about")).getText().contains("not by oscillation"));
+        shotOf("4a-relaxation", driver.findElement(By.id("view-samples")));
+        pick.selectByIndex(0);
+
         // the tabs are reachable by keyboard
         driver.findElement(By.id("tab-samples")).sendKeys(Keys.ARROW_RIGHT);
         assertEquals("tab-matches", driver.switchTo().activeElement().getAttribute("id"));

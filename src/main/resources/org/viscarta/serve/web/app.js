@@ -395,8 +395,40 @@
     };
   }
 
+  // a sample computed from stress relaxation or creep tests: its measured M(t) or J(t) and the model, log–log
+  function drawTimeTest(s) {
+    const tt = s.time_test;
+    const relaxation = tt.unit === 'Pa';
+    const sc = relaxation ? modulusUnit(Math.max(...tt.replicates.flatMap(r => r.value))) : { f: 1, u: '1/Pa' };
+    const series = tt.replicates.map(r => ({ x: r.time_s, y: r.value.map(v => v / sc.f) }));
+    const opts = tt.replicates.map((r, k) => ({ label: 'replicate ' + r.replicate + ' (measured)', stroke: COLOURS[k % 7], width: 0,
+      paths: () => null, points: { show: true, size: 6, fill: COLOURS[k % 7] } }));
+    if (tt.model) {
+      series.push({ x: tt.model_time_s, y: tt.model_value.map(v => v / sc.f) });
+      opts.push({ label: tt.model + ', fitted to all replicates', stroke: '#000', width: 2, spanGaps: true, points: { show: false } });
+    }
+    for (const o of opts) o.value = (u, v) => v === null || v === undefined ? '–' : fmt(v) + ' ' + sc.u;
+    const node = clear($('plot-moduli'));
+    const plot = new uPlot({
+      title: s.name + ': the measured ' + tt.quantity + (tt.model ? ' and ' + tt.model + ' (best supported)' : ''),
+      width: width(node), height: 380,
+      scales: { x: { time: false, distr: 3 }, y: { distr: 3 } },
+      axes: [{ label: 'time since the step [s]', values: logTicks() }, { label: tt.symbol + ' [' + sc.u + ']', values: logTicks(), size: 70 }],
+      series: [{ label: 'time [s]', value: (u, v) => v === null ? '–' : fmt(v) + ' s' }].concat(opts)
+    }, merge(series), node);
+    state.plots.push({ key: 'moduli', plot });
+    clear($('plot-residuals'));
+    const about = clear($('sample-about'));
+    about.append('Measured by ' + tt.test + ', not by oscillation: the E′ and E″ that rank and match it are computed from '
+      + 'each replicate\'s fitted model.', el('ul', null, tt.origin.map(o => el('li', { text: o }))));
+  }
+
   function drawSample(s) {
     destroyPlots(['moduli', 'residuals']);
+    if (s.time_test) {
+      drawTimeTest(s);
+      return;
+    }
     const m = s.measured;
     const L = s.letter;
     const sc = modulusUnit(Math.max(...m.storage_high_pa, ...m.loss_high_pa));
@@ -438,7 +470,7 @@
       hooks: { draw: [whiskers(pairs)] }
     }, data, node);
     state.plots.push({ key: 'moduli', plot });
-    $('sample-about').textContent = (s.best ? 'Best-supported model: ' + s.best + '. ' : '') +
+    clear($('sample-about')).textContent = (s.best ? 'Best-supported model: ' + s.best + '. ' : '') +
       (s.also_supported && s.also_supported.length ? 'Also supported (ΔAICc < 2): ' + s.also_supported.join(', ') + '. ' : '') +
       (s.closest ? 'Closest reference: ' + s.closest + '. ' : '') + (s.set ? 'Comparable set: ' + s.set + '. ' : '') +
       'Points are replicate means with bars at ± one SD.';
