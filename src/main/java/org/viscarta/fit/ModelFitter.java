@@ -235,18 +235,7 @@ public final class ModelFitter {
             }
             values.accept(u, r);
         };
-        List<double[]> starts = new ArrayList<>();
-        for (double[] s : startValues) {
-            double[] u = new double[p];
-            boolean ok = true;
-            for (int j = 0; j < p; j++) {
-                u[j] = transforms[j].toInternal(s[j]);
-                ok &= Double.isFinite(u[j]);
-            }
-            if (ok) {
-                starts.add(u);
-            }
-        }
+        List<double[]> starts = internalStarts(specs, startValues);
         if (starts.isEmpty()) {
             return notFitted(sample, model, n, "no usable start values could be derived from the data");
         }
@@ -307,18 +296,7 @@ public final class ModelFitter {
             java.util.Arrays.fill(scale[1], 1.0);
         }
         ResidualFunction f = residuals(model, specs, omega, storage, loss, scale);
-        List<double[]> starts = new ArrayList<>();
-        for (double[] s : startValues) {
-            double[] u = new double[p];
-            boolean ok = true;
-            for (int j = 0; j < p; j++) {
-                u[j] = specs.get(j).transform().toInternal(s[j]);
-                ok &= Double.isFinite(u[j]);
-            }
-            if (ok) {
-                starts.add(u);
-            }
-        }
+        List<double[]> starts = internalStarts(specs, startValues);
         if (starts.isEmpty()) {
             return notFitted(sample, model, n, "no usable start values could be derived from the data");
         }
@@ -328,6 +306,23 @@ public final class ModelFitter {
                     + (sol.message().isEmpty() ? "the fit did not converge" : sol.message()) + ")");
         }
         return describe(sample, model, sol, n, omegaRange(omega));
+    }
+
+    /** Start values moved into the fitting parameters (log or logit space); starts that do not map are dropped. */
+    private static List<double[]> internalStarts(List<ParameterSpec> specs, List<double[]> startValues) {
+        List<double[]> starts = new ArrayList<>();
+        for (double[] s : startValues) {
+            double[] u = new double[specs.size()];
+            boolean ok = true;
+            for (int j = 0; j < u.length; j++) {
+                u[j] = specs.get(j).transform().toInternal(s[j]);
+                ok &= Double.isFinite(u[j]);
+            }
+            if (ok) {
+                starts.add(u);
+            }
+        }
+        return starts;
     }
 
     private ResidualFunction residuals(ViscoelasticModel model, List<ParameterSpec> specs, double[] omega,

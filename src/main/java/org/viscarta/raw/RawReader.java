@@ -154,18 +154,7 @@ public final class RawReader {
             if (l.isEmpty() || l.startsWith("#")) {
                 continue;
             }
-            String[] cells = l.split(",");
-            if (cells.length != header.length) {
-                throw new InputException(file, r + 1, 0, "row has " + cells.length + " fields but the header has " + header.length);
-            }
-            double[] v = new double[header.length];
-            for (int c = 0; c < header.length; c++) {
-                String cell = cells[c].strip();
-                if (!SweepReader.isPlainNumber(cell)) {
-                    throw new InputException(file, r + 1, c + 1, "'" + cell + "' is not a number");
-                }
-                v[c] = Double.parseDouble(cell) * scale[c];
-            }
+            double[] v = row(file, l, r + 1, header.length, scale);
             double freq;
             if (freqCol >= 0) {
                 freq = v[freqCol];
@@ -222,18 +211,7 @@ public final class RawReader {
             if (l.isEmpty() || l.startsWith("#")) {
                 continue;
             }
-            String[] cells = l.split(",");
-            if (cells.length != header.length) {
-                throw new InputException(file, r + 1, 0, "row has " + cells.length + " fields but the header has " + header.length);
-            }
-            double[] v = new double[header.length];
-            for (int c = 0; c < header.length; c++) {
-                String cell = cells[c].strip();
-                if (!SweepReader.isPlainNumber(cell)) {
-                    throw new InputException(file, r + 1, c + 1, "'" + cell + "' is not a number");
-                }
-                v[c] = Double.parseDouble(cell) * scale[c];
-            }
+            double[] v = row(file, l, r + 1, header.length, scale);
             rows.add(v);
         }
         if (rows.size() < 3) {
@@ -242,6 +220,23 @@ public final class RawReader {
         }
         return new Measurement(file, SweepReader.sha256(bytes), meta, List.of(segment(Double.NaN, rows, tCol, fCol, dCol, defCol,
                 posCol, k, cantilever, headerIndex + 2)));
+    }
+
+    /** One data row in SI: every cell a plain number, as many as the header has. */
+    private static double[] row(Path file, String line, int lineNumber, int width, double[] scale) {
+        String[] cells = line.split(",");
+        if (cells.length != width) {
+            throw new InputException(file, lineNumber, 0, "row has " + cells.length + " fields but the header has " + width);
+        }
+        double[] v = new double[width];
+        for (int c = 0; c < width; c++) {
+            String cell = cells[c].strip();
+            if (!SweepReader.isPlainNumber(cell)) {
+                throw new InputException(file, lineNumber, c + 1, "'" + cell + "' is not a number");
+            }
+            v[c] = Double.parseDouble(cell) * scale[c];
+        }
+        return v;
     }
 
     /** The frequencies of '# drive_frequencies: 0.1, 1, 10 Hz', in segment order. */

@@ -127,6 +127,32 @@ public final class Figures {
     }
 
     /**
+     * A residual panel: the points of each series in its figure colour and shape (not repeated in the
+     * legend), on an axis symmetric about zero with room for the largest and ticks at ± half of it.
+     */
+    private static void showResiduals(XYPlot plot, NumberAxis ry, XYSeriesCollection res) {
+        plot.setDataset(res);
+        double largest = 0;
+        for (int i = 0; i < res.getSeriesCount(); i++) {
+            XYSeries sr = res.getSeries(i);
+            if (sr.getItemCount() > 0) {
+                largest = Math.max(largest, Math.max(Math.abs(sr.getMinY()), Math.abs(sr.getMaxY())));
+            }
+        }
+        if (largest > 0 && Double.isFinite(largest)) {
+            ry.setRange(-1.3 * largest, 1.3 * largest);
+            ry.setTickUnit(new NumberTickUnit(niceStep(largest / 2)));
+        }
+        XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
+        for (int i = 0; i < res.getSeriesCount(); i++) {
+            rr.setSeriesPaint(i, Palette.colour(i));
+            rr.setSeriesShape(i, Palette.shape(i));
+            rr.setSeriesVisibleInLegend(i, false);
+        }
+        plot.setRenderer(rr);
+    }
+
+    /**
      * A sample's stress-relaxation or creep tests: the measured M(t) or J(t) of each replicate against
      * time (log–log), the best-supported model fitted to all of them, and the residuals below.
      */
@@ -196,27 +222,8 @@ public final class Figures {
         ry.setLabelFont(Palette.LABEL);
         ry.setTickLabelFont(Palette.TICK);
         bottom.setRangeAxis(ry);
-        bottom.setDataset(residuals);
         bottom.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(0.8f)));
-        XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
-        for (int i = 0; i < reps; i++) {
-            rr.setSeriesPaint(i, Palette.colour(i));
-            rr.setSeriesShape(i, Palette.shape(i));
-            rr.setSeriesVisibleInLegend(i, false);
-        }
-        bottom.setRenderer(rr);
-        // symmetric about zero with room for the largest residuals, as in the fit figure
-        double worst = 0;
-        for (int i = 0; i < residuals.getSeriesCount(); i++) {
-            XYSeries sr = residuals.getSeries(i);
-            if (sr.getItemCount() > 0) {
-                worst = Math.max(worst, Math.max(Math.abs(sr.getMinY()), Math.abs(sr.getMaxY())));
-            }
-        }
-        if (worst > 0 && Double.isFinite(worst)) {
-            ry.setRange(-1.3 * worst, 1.3 * worst);
-            ry.setTickUnit(new NumberTickUnit(niceStep(worst / 2)));
-        }
+        showResiduals(bottom, ry, residuals);
         LogAxis x = new ReadableLogAxis("time since the step [s]");
         x.setTickUnit(new NumberTickUnit(1.0));
         x.setMinorTickMarksVisible(true);
@@ -317,21 +324,7 @@ public final class Figures {
             }
             res.addSeries(rs);
             res.addSeries(rl);
-            residuals.setDataset(res);
-            // symmetric about zero with room for the markers of the largest residuals, and ticks at ± half of it
-            double largest = Math.max(Math.max(Math.abs(rs.getMinY()), Math.abs(rs.getMaxY())),
-                    Math.max(Math.abs(rl.getMinY()), Math.abs(rl.getMaxY())));
-            if (largest > 0 && Double.isFinite(largest)) {
-                ry.setRange(-1.3 * largest, 1.3 * largest);
-                ry.setTickUnit(new NumberTickUnit(niceStep(largest / 2)));
-            }
-            XYLineAndShapeRenderer rr = new XYLineAndShapeRenderer(false, true);
-            for (int i = 0; i < 2; i++) {
-                rr.setSeriesPaint(i, Palette.colour(i));
-                rr.setSeriesShape(i, Palette.shape(i));
-                rr.setSeriesVisibleInLegend(i, false);
-            }
-            residuals.setRenderer(rr);
+            showResiduals(residuals, ry, res);
             title = shortName(s.name()) + ": " + curve.model().id() + (curve.covariance() == null
                     ? " (best supported; parameters not determined by the data)" : " (best supported)");
         }
