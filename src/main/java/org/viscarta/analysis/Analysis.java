@@ -60,7 +60,7 @@ public final class Analysis {
                 inputs = inputs.withoutReplicates(dropped);
             }
         }
-        if (inputs.samples().isEmpty() && inputs.timeTests().isEmpty() && !inputs.ramps().isEmpty()
+        if (inputs.samples().isEmpty() && inputs.timeTests().isEmpty() && !inputs.ramps().isEmpty() && inputs.positioned().isEmpty()
                 && !request.parts().contains(AnalysisRequest.Part.TRANSITIONS)) {
             throw new UsageException("the inputs hold temperature ramps only (" + inputs.ramps().size() + " ramps, no frequency "
                     + "sweep): 'viscarta transition' finds their glass transitions, and 'viscarta report' includes them");

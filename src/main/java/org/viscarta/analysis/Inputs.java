@@ -34,11 +34,13 @@ import org.viscarta.sweep.Numbers;
  * @param amplitudeSweeps amplitude sweeps (linearity tests at one frequency), kept apart from the samples
  * @param ramps    temperature ramps (one per sample, replicate and fixed frequency), kept apart from the samples
  * @param timeTests stress-relaxation and creep tests, kept apart from the samples until the analysis fits them
+ * @param positioned sweeps measured at positions over a specimen (x and y), kept apart for maps
  */
 public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarning> warnings, List<String> notes,
-                     List<Sweep> amplitudeSweeps, List<Ramp> ramps, List<TimeTest> timeTests) {
+                     List<Sweep> amplitudeSweeps, List<Ramp> ramps, List<TimeTest> timeTests, List<Sweep> positioned) {
 
     public Inputs {
+        positioned = List.copyOf(positioned);
         ramps = List.copyOf(ramps);
         timeTests = List.copyOf(timeTests);
         files = List.copyOf(files);
@@ -71,7 +73,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
                 kept.add(s);
             }
         }
-        return new Inputs(files, kept, warnings, more, amplitudeSweeps, ramps, timeTests);
+        return new Inputs(files, kept, warnings, more, amplitudeSweeps, ramps, timeTests, positioned);
     }
 
     /** The same inputs with more samples (master curves built from temperature series), analysed like the others. */
@@ -85,7 +87,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         all.addAll(extra);
         List<String> n = new ArrayList<>(notes);
         n.addAll(moreNotes);
-        return new Inputs(files, all, warnings, n, amplitudeSweeps, ramps, timeTests);
+        return new Inputs(files, all, warnings, n, amplitudeSweeps, ramps, timeTests, positioned);
     }
 
     /**
@@ -108,6 +110,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         Map<String, Path> rampSeen = new LinkedHashMap<>();
         List<TimeTest> timeTests = new ArrayList<>();
         Map<String, Path> timeTestSeen = new LinkedHashMap<>();
+        List<Sweep> positioned = new ArrayList<>();
         List<Path> all = InputCollector.collect(inputs);
         for (Path file : all) {
             SweepFile sf;
@@ -165,6 +168,10 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
                     amplitudeSweeps.add(s);
                     continue;
                 }
+                if (s.position() != null) {
+                    positioned.add(settings.basis().isPresent() ? basis(s, settings, file, sf, notes) : s);
+                    continue;
+                }
                 Sweep sweep = s;
                 if (settings.groupBy().isPresent()) {
                     String attribute = settings.groupBy().get();
@@ -217,7 +224,24 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
                     + "are fitted in the time domain and compared with the frequency sweeps through their fitted models",
                     timeTests.size(), relaxation, timeTests.size() - relaxation));
         }
-        return assemble(settings, files, bySample, warnings, notes, amplitudeSweeps, ramps, timeTests);
+        if (!positioned.isEmpty()) {
+            long specimens = positioned.stream().map(Sweep::sample).distinct().count();
+            notes.add(String.format(Locale.ROOT, "%d sweep(s) measured at positions over %d specimen(s) read for maps and kept apart "
+                    + "from the samples ('viscarta map', and the Maps part of 'viscarta report')", positioned.size(), specimens));
+        }
+        return assemble(settings, files, bySample, warnings, notes, amplitudeSweeps, ramps, timeTests, positioned);
+    }
+
+    private static Sweep basis(Sweep s, ReadSettings settings, Path file, SweepFile sf, List<String> notes) {
+        try {
+            BasisConversion.Converted c = BasisConversion.toBasis(s, settings.basis().get(), settings.poisson());
+            if (!c.note().isEmpty() && notes.stream().noneMatch(n -> n.startsWith(file + ": specimen '" + s.sample() + "'"))) {
+                notes.add(file + ": specimen '" + s.sample() + "': " + c.note());
+            }
+            return c.sweep();
+        } catch (IllegalArgumentException e) {
+            throw new InputException(file, sf.info().headerLine(), 0, e.getMessage());
+        }
     }
 
     /**
@@ -286,7 +310,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
 
     private static Inputs assemble(ReadSettings settings, List<SweepFile> files, Map<String, List<Sweep>> bySample,
                                    List<ReadWarning> warnings, List<String> notes, List<Sweep> amplitudeSweeps,
-                                   List<Ramp> ramps, List<TimeTest> timeTests) {
+                                   List<Ramp> ramps, List<TimeTest> timeTests, List<Sweep> positioned) {
         Map<String, Long> temperaturesPerName = bySample.values().stream()
                 .collect(Collectors.groupingBy(l -> l.get(0).sample(), Collectors.counting()));
         List<Sample> samples = new ArrayList<>();
@@ -310,7 +334,7 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
             warnings.add(new ReadWarning(Path.of("(inputs)"), 0, "the inputs mix tensile (E) and shear (G) moduli; "
                     + "tan δ compares fine, but moduli do not: pass --basis tensile or --basis shear (with --poisson) to convert"));
         }
-        return new Inputs(files, samples, warnings, notes, amplitudeSweeps, ramps, timeTests);
+        return new Inputs(files, samples, warnings, notes, amplitudeSweeps, ramps, timeTests, positioned);
     }
 
     /** True when an input says it is invented demo data. */

@@ -522,9 +522,14 @@ public final class SweepReader {
             Map<Quantity, ColumnSpec> q = hd.byQuantity();
             String sample = fill(rec, q.get(Quantity.SAMPLE), lastSample, defaultSample, line);
             String replicate = fill(rec, q.get(Quantity.REPLICATE), lastReplicate, defaultReplicate, line);
+            String[] position = position(rec, q, line);
             String group = fill(rec, q.get(Quantity.GROUP), lastGroup, defaultGroup, line);
             lastSample = sample;
             lastReplicate = replicate;
+            if (position != null) {
+                // a measured position is a sweep of its own: the replicate label carries it
+                replicate = replicate + Sweep.POSITION_SEPARATOR + position[0] + "," + position[1];
+            }
             lastGroup = group;
             double temperature = defaultTemperature;
             ColumnSpec tc = q.get(Quantity.TEMPERATURE);
@@ -552,6 +557,10 @@ public final class SweepReader {
                 b.temperatureSum += temperature;
                 b.temperatureCount++;
             }
+            if (position != null) {
+                b.attributes.putIfAbsent(Sweep.X_M, position[0]);
+                b.attributes.putIfAbsent(Sweep.Y_M, position[1]);
+            }
             for (ColumnSpec c : hd.columns()) {
                 if (c.quantity() == Quantity.ATTRIBUTE) {
                     String v = cell(rec, c.index());
@@ -567,8 +576,22 @@ public final class SweepReader {
             b.add(p, temperature, warnings);
         }
 
+        /** The row's position [m] as exact text (x, y), or null when the table has no position columns. */
+        private String[] position(Row rec, Map<Quantity, ColumnSpec> q, int line) {
+            ColumnSpec xc = q.get(Quantity.POSITION_X);
+            ColumnSpec yc = q.get(Quantity.POSITION_Y);
+            if (xc == null || yc == null) {
+                return null;
+            }
+            double x = number(cell(rec, xc.index()), xc, dm, path, line);
+            double y = number(cell(rec, yc.index()), yc, dm, path, line);
+            attributeNames.add(Sweep.X_M);
+            attributeNames.add(Sweep.Y_M);
+            return new String[] {Double.toString(x), Double.toString(y)};
+        }
+
         private B bucketFor(String sample, String replicate, String group, double temperature, int line, Map<Quantity, ColumnSpec> q) {
-            boolean ownReplicate = replicateGiven || q.containsKey(Quantity.REPLICATE);
+            boolean ownReplicate = replicateGiven || q.containsKey(Quantity.REPLICATE) || q.containsKey(Quantity.POSITION_X);
             String rep = replicate;
             for (int k = 2; ; k++) {
                 B b = find(sample, rep, temperature);

@@ -27,6 +27,32 @@ public record Sweep(String sample, String replicate, String group, ModulusKind k
                     Path source, Map<String, String> metadata, List<SweepPoint> points, Map<String, String> attributes) {
 
     /** A sweep without attributes. */
+    /** Attribute keys of a measured position [m] (x and y columns of a table, or '# x:' and '# y:' of a raw file). */
+    public static final String X_M = "x_m";
+    public static final String Y_M = "y_m";
+    /** Between a replicate label and the position in the label of a positioned sweep. */
+    public static final String POSITION_SEPARATOR = " @ ";
+
+    /** The measured position [m] {x, y}, or null when the sweep has none. */
+    public double[] position() {
+        String x = attributes.get(X_M);
+        String y = attributes.get(Y_M);
+        if (x == null || y == null) {
+            return null;
+        }
+        try {
+            return new double[] {Double.parseDouble(x), Double.parseDouble(y)};
+        } catch (NumberFormatException e) {
+            return null;
+        }
+    }
+
+    /** The replicate label without the position a positioned sweep carries in it. */
+    public String replicateAtPosition() {
+        int i = replicate.indexOf(POSITION_SEPARATOR);
+        return i < 0 ? replicate : replicate.substring(0, i);
+    }
+
     public Sweep(String sample, String replicate, String group, ModulusKind kind, double temperatureC,
                  Path source, Map<String, String> metadata, List<SweepPoint> points) {
         this(sample, replicate, group, kind, temperatureC, source, metadata, points, Map.of());
