@@ -202,10 +202,13 @@ public final class Analysis {
      * and fitted with the candidate models.
      */
     private static List<Matcher.Candidate> referenceCandidates(ReferenceLibrary library, AnalysisRequest request) {
-        ModelFitter fitter = new ModelFitter(request.weighting());
-        List<ViscoelasticModel> models = models(request);
-        Optional<String> clazz = request.matching().referenceClass();
-        ReadSettings reading = request.reading();
+        return candidates(library, models(request), new ModelFitter(request.weighting()), request.reading(),
+                request.matching().referenceClass());
+    }
+
+    /** The references of a library, each on the reading's basis and fitted with these models. */
+    static List<Matcher.Candidate> candidates(ReferenceLibrary library, List<ViscoelasticModel> models, ModelFitter fitter,
+                                              ReadSettings reading, Optional<String> clazz) {
         List<Matcher.Candidate> out = library.entries().parallelStream()
                 .filter(e -> clazz.isEmpty() || e.clazz().equalsIgnoreCase(clazz.get()))
                 .map(e -> {

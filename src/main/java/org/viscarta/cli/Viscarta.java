@@ -17,7 +17,7 @@ import picocli.CommandLine.Command;
         versionProvider = VersionProvider.class,
         description = "Fits viscoelastic models to oscillatory frequency sweeps (E′, E″ or G′, G″ against frequency), "
                 + "ranks samples by damping (tan δ) and writes a workbook a collaborator can read.",
-        subcommands = {InspectCommand.class, FitCommand.class, RankCommand.class, MatchCommand.class, ShiftCommand.class, SpectrumCommand.class, QualityCommand.class, TransitionCommand.class, ModuliCommand.class, LibraryCommand.class, ReportCommand.class, ServeCommand.class,
+        subcommands = {InspectCommand.class, FitCommand.class, RankCommand.class, MatchCommand.class, ShiftCommand.class, SpectrumCommand.class, QualityCommand.class, TransitionCommand.class, ModuliCommand.class, LibraryCommand.class, ReportCommand.class, MapCommand.class, ServeCommand.class,
             CommandLine.HelpCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {

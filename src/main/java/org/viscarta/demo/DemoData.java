@@ -51,7 +51,7 @@ public final class DemoData {
     }
 
     /** All demo files and the truth behind them. */
-    public record Generated(List<DemoFile> files, List<Truth> truths) {
+    public record Generated(List<DemoFile> files, List<Truth> truths, List<MapDemo.DemoImage> images) {
     }
 
     private record Spec(String sample, String group, String model, double[] nominal) {
@@ -73,7 +73,9 @@ public final class DemoData {
         amplitudeSweeps(new SplittableRandom(SEED + 1), files);
         temperatureRamps(new SplittableRandom(SEED + 2), files);
         stressRelaxation(new SplittableRandom(SEED + 3), files, truths);
-        return new Generated(files, truths);
+        List<MapDemo.DemoImage> images = new ArrayList<>();
+        MapDemo.generate(new SplittableRandom(SEED + 4), files, images, DEMO_NOTE);
+        return new Generated(files, truths, images);
     }
 
     private static double[] frequencies(double lo, double hi, int n) {
@@ -450,7 +452,7 @@ public final class DemoData {
     }
 
     /** Standard normal deviate by the Box–Muller transform (Box &amp; Muller 1958), portable across JDKs. */
-    private static double gaussian(SplittableRandom rng) {
+    static double gaussian(SplittableRandom rng) {
         double u1 = 1.0 - rng.nextDouble();
         double u2 = rng.nextDouble();
         return Math.sqrt(-2.0 * Math.log(u1)) * Math.cos(2.0 * Math.PI * u2);
@@ -542,10 +544,16 @@ public final class DemoData {
             System.exit(2);
         }
         Map<String, Path> dirs = Map.of("demo-data", Path.of(args[0]), "reference-materials", Path.of(args[1]));
-        for (DemoFile f : generate().files()) {
+        Generated g = generate();
+        for (DemoFile f : g.files()) {
             Path target = dirs.get(f.folder()).resolve(f.relativePath());
             Files.createDirectories(target.getParent());
             Files.writeString(target, f.content(), StandardCharsets.UTF_8);
+        }
+        for (MapDemo.DemoImage f : g.images()) {
+            Path target = dirs.get(f.folder()).resolve(f.relativePath());
+            Files.createDirectories(target.getParent());
+            Files.write(target, f.png());
         }
     }
 }

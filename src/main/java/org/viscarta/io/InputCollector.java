@@ -82,7 +82,10 @@ public final class InputCollector {
      * {@code -o} (their column ids; InputCollectorTest writes each and checks that it is skipped).
      */
     private static final List<String> OUTPUT_HEADERS = List.of("rank,sample,group,n_replicates,", "sample,reference,rank,distance,",
-            "sample,model,parameter,value,", "sample,model,time_s,");
+            "sample,model,parameter,value,", "sample,model,time_s,", "sample,x_m,y_m,", "sample,region,n_positions,");
+
+    /** The headers of the small tables a map names beside its positions: regions, a legend, landmarks. */
+    private static final List<String> MAP_HEADERS = List.of("region,", "colour,", "color,");
 
     /** True for a CSV table Viscarta wrote with -o (not a sweep table). */
     static boolean ownOutputTable(Path p) {
@@ -101,6 +104,26 @@ public final class InputCollector {
             if (first.startsWith(h)) {
                 return true;
             }
+        }
+        return mapTable(p);
+    }
+
+    /** True for a map's regions, legend or landmarks table (read by the map, not a sweep table). */
+    static boolean mapTable(Path p) {
+        try (java.io.BufferedReader r = Files.newBufferedReader(p, java.nio.charset.StandardCharsets.UTF_8)) {
+            for (int k = 0; k < 20; k++) {
+                String line = r.readLine();
+                if (line == null) {
+                    return false;
+                }
+                String l = line.strip().toLowerCase(Locale.ROOT);
+                if (l.isEmpty() || l.startsWith("#")) {
+                    continue;
+                }
+                return MAP_HEADERS.stream().anyMatch(l::startsWith) || l.contains("image_x");
+            }
+        } catch (IOException | java.io.UncheckedIOException e) {
+            return false;
         }
         return false;
     }

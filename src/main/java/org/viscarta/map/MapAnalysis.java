@@ -157,7 +157,8 @@ public final class MapAnalysis {
             List<String> names = byRegion.entrySet().stream().filter(x -> x.getValue().size() >= 1).map(Map.Entry::getKey).toList();
             Comparison ce = letters(names, byRegion, p -> Math.log10(p.storage()), s.alpha(),
                     new DampingComparison.Wording("log10 E′", "is stiffer than", "Every region differs in stiffness from every other."));
-            Comparison ct = letters(names, byRegion, Point::tanDelta, s.alpha(), DampingComparison.DAMPING);
+            Comparison ct = letters(names, byRegion, Point::tanDelta, s.alpha(), new DampingComparison.Wording("tan δ", "damps more than",
+                    "Every region damps differently from every other."));
             Map<String, String> lettersE = ce.letters();
             Map<String, String> lettersT = ct.letters();
             testE = ce.result();

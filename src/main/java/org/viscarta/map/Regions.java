@@ -131,12 +131,28 @@ public interface Regions {
     static Regions labelImage(Path image, Path legend, Registration registration) {
         BufferedImage img = MapImage.read(image);
         Map<Integer, String> names = new LinkedHashMap<>();
-        try (Reader in = Files.newBufferedReader(legend, StandardCharsets.UTF_8);
-             CSVParser p = CSVParser.parse(in, CSVFormat.DEFAULT.builder().setCommentMarker('#').setHeader()
+        // a colour row starts with '#' too: only lines that are not "#RRGGBB," are comments here
+        List<String> kept = new ArrayList<>();
+        List<Integer> lineOf = new ArrayList<>();
+        try {
+            List<String> lines = Files.readAllLines(legend, StandardCharsets.UTF_8);
+            for (int i = 0; i < lines.size(); i++) {
+                String l = lines.get(i).strip();
+                if (l.isEmpty() || (l.startsWith("#") && !l.matches("#[0-9A-Fa-f]{6}\\s*,.*"))) {
+                    continue;
+                }
+                kept.add(lines.get(i));
+                lineOf.add(i + 1);
+            }
+        } catch (IOException | java.io.UncheckedIOException e) {
+            throw new InputException(legend, 0, 0, "cannot read the legend (" + e.getMessage() + ")");
+        }
+        try (Reader in = new java.io.StringReader(String.join("\n", kept));
+             CSVParser p = CSVParser.parse(in, CSVFormat.DEFAULT.builder().setHeader()
                      .setSkipHeaderRecord(true).setIgnoreSurroundingSpaces(true).get())) {
             Columns cols = Columns.of(legend, p.getHeaderNames(), "colour", "region");
             for (CSVRecord r : p) {
-                int line = (int) r.getParser().getCurrentLineNumber();
+                int line = lineOf.get((int) r.getRecordNumber());
                 String c = cols.text(r, 0, line);
                 if (!c.matches("#?[0-9A-Fa-f]{6}")) {
                     throw new InputException(legend, line, 1, "'" + c + "' is not a colour; write it as #RRGGBB, e.g. #E69F00");

@@ -167,8 +167,8 @@ public record Registration(double a, double b, double c, double d, double e, dou
             throw new InputException(file, 1, 0, "the landmarks give a degenerate map (no area)");
         }
         return new Registration(r0.a(), r0.b(), r0.c(), r0.d(), r0.e(), r0.f(), rms, String.format(Locale.ROOT,
-                "%d landmarks in %s (affine, least squares; RMS residual %.2f px = %s µm)", n, file.getFileName(), rms,
-                Numbers.plain(rms * r0.pixelSizeM() * 1e6)));
+                "%d landmarks in %s (affine, least squares; RMS residual %.2g px = %.2g µm)", n, file.getFileName(), rms,
+                rms * r0.pixelSizeM() * 1e6));
     }
 
     /** Reads landmarks: columns {@code x}, {@code y} with a length unit, {@code image_x}, {@code image_y} in px. */

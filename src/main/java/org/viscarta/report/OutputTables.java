@@ -550,6 +550,62 @@ public final class OutputTables {
             .column("line", "line", "", Style.INTEGER, 8, x -> x.point().line())
             .build();
 
+    /** Every mapped position (sheet Positions, {@code map -o}'s positions.csv). */
+    public static final Table<org.viscarta.map.MapAnalysis.Point> POSITIONS = Table.<org.viscarta.map.MapAnalysis.Point>named("Positions")
+            .column("sample", "specimen", "", Style.TEXT, 20, org.viscarta.map.MapAnalysis.Point::specimen)
+            .column("x_m", "x", "m", Style.SCIENTIFIC, 12, org.viscarta.map.MapAnalysis.Point::xM)
+            .column("y_m", "y", "m", Style.SCIENTIFIC, 12, org.viscarta.map.MapAnalysis.Point::yM)
+            .column("image_x_px", "image column", "px", Style.DECIMAL2, 10, p -> Double.isNaN(p.imageX()) ? null : p.imageX())
+            .column("image_y_px", "image row", "px", Style.DECIMAL2, 10, p -> Double.isNaN(p.imageY()) ? null : p.imageY())
+            .column("region", "region", "", Style.TEXT, 16, org.viscarta.map.MapAnalysis.Point::region)
+            .column("storage_modulus_pa", "E′", "Pa", Style.SCIENTIFIC, 12, p -> Double.isNaN(p.storage()) ? null : p.storage())
+            .column("loss_modulus_pa", "E″", "Pa", Style.SCIENTIFIC, 12, p -> Double.isNaN(p.loss()) ? null : p.loss())
+            .column("tan_delta", "tan δ", "–", Style.DECIMAL4, 9, p -> Double.isNaN(p.tanDelta()) ? null : p.tanDelta())
+            .column("sweeps", "sweeps", "", Style.INTEGER, 7, org.viscarta.map.MapAnalysis.Point::sweeps)
+            .column("best_model", "best model", "", Style.TEXT, 16, org.viscarta.map.MapAnalysis.Point::bestModel)
+            .column("nearest_reference", "nearest reference", "", Style.TEXT, 20, org.viscarta.map.MapAnalysis.Point::nearest)
+            .column("nearest_class", "its class", "", Style.TEXT, 12, org.viscarta.map.MapAnalysis.Point::nearestClass)
+            .column("note", "note", "", Style.TEXT, 24, org.viscarta.map.MapAnalysis.Point::note)
+            .build();
+
+    /** A region of a mapped specimen. */
+    public record RegionRow(String specimen, org.viscarta.map.MapAnalysis.RegionStat stat) {
+    }
+
+    /** Every region of every mapped specimen. */
+    public static List<RegionRow> regionRows(List<org.viscarta.map.MapAnalysis.Specimen> specimens) {
+        List<RegionRow> out = new ArrayList<>();
+        for (org.viscarta.map.MapAnalysis.Specimen sp : specimens) {
+            sp.regions().forEach(r -> out.add(new RegionRow(sp.name(), r)));
+        }
+        return out;
+    }
+
+    private static Double finite(double v) {
+        return Double.isNaN(v) ? null : v;
+    }
+
+    /** The regions' statistics (sheet Regions, {@code map -o}'s regions.csv). */
+    public static final Table<RegionRow> REGIONS = Table.<RegionRow>named("Regions")
+            .column("sample", "specimen", "", Style.TEXT, 20, RegionRow::specimen)
+            .column("region", "region", "", Style.TEXT, 16, r -> r.stat().region())
+            .column("n_positions", "positions", "", Style.INTEGER, 9, r -> r.stat().n())
+            .column("storage_modulus_median_pa", "E′ median", "Pa", Style.SCIENTIFIC, 12, r -> finite(r.stat().storage()[0]))
+            .column("storage_modulus_q1_pa", "E′ Q1", "Pa", Style.SCIENTIFIC, 12, r -> finite(r.stat().storage()[1]))
+            .column("storage_modulus_q3_pa", "E′ Q3", "Pa", Style.SCIENTIFIC, 12, r -> finite(r.stat().storage()[2]))
+            .column("storage_modulus_geometric_mean_pa", "E′ geometric mean", "Pa", Style.SCIENTIFIC, 12, r -> finite(r.stat().storage()[3]))
+            .column("storage_modulus_ci95_low_pa", "E′ 95 % CI low", "Pa", Style.SCIENTIFIC, 12, r -> finite(r.stat().storage()[4]))
+            .column("storage_modulus_ci95_high_pa", "E′ 95 % CI high", "Pa", Style.SCIENTIFIC, 12, r -> finite(r.stat().storage()[5]))
+            .column("letters_storage", "E′ letters", "", Style.TEXT, 8, r -> r.stat().lettersStorage())
+            .column("tan_delta_median", "tan δ median", "–", Style.DECIMAL4, 10, r -> finite(r.stat().tanDelta()[0]))
+            .column("tan_delta_q1", "tan δ Q1", "–", Style.DECIMAL4, 9, r -> finite(r.stat().tanDelta()[1]))
+            .column("tan_delta_q3", "tan δ Q3", "–", Style.DECIMAL4, 9, r -> finite(r.stat().tanDelta()[2]))
+            .column("tan_delta_mean", "tan δ mean", "–", Style.DECIMAL4, 9, r -> finite(r.stat().tanDelta()[3]))
+            .column("tan_delta_ci95_low", "tan δ 95 % CI low", "–", Style.DECIMAL4, 9, r -> finite(r.stat().tanDelta()[4]))
+            .column("tan_delta_ci95_high", "tan δ 95 % CI high", "–", Style.DECIMAL4, 9, r -> finite(r.stat().tanDelta()[5]))
+            .column("letters_tan_delta", "tan δ letters", "", Style.TEXT, 8, r -> r.stat().lettersTanDelta())
+            .build();
+
     /** E(t) and J(t) of fitted models on a time grid ({@code fit --time-domain}: terminal and CSV). */
     public static final Table<TimeDomain.Point> TIME_DOMAIN = Table.<TimeDomain.Point>named("Time domain")
             .column("sample", "sample", "", Style.TEXT, 28, TimeDomain.Point::sample, SHEET_CSV)

@@ -123,7 +123,7 @@ public final class ReportFigures {
     /** Longest file-name stem made from a name (file systems allow 255 bytes; the prefix and a counter need room). */
     private static final int SLUG_LENGTH = 80;
 
-    static String slug(String name) {
+    public static String slug(String name) {
         String s = name.toLowerCase(Locale.ROOT).replaceAll("[^a-z0-9._-]+", "-").replaceAll("^[.-]+|-+$", "");
         if (s.length() > SLUG_LENGTH) {
             s = s.substring(0, SLUG_LENGTH).replaceAll("-+$", "");
