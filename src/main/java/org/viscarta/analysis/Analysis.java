@@ -129,9 +129,15 @@ public final class Analysis {
             }).toList();
         }
         Optional<AnalysisResult.Mimic> mimic = mimic(request, samples, distance);
+        Maps maps = Maps.none();
+        if (request.parts().contains(AnalysisRequest.Part.MAPS) && !inputs.positioned().isEmpty()) {
+            double hz = request.rankingPoint() instanceof org.viscarta.compare.RankingPoint.At at ? at.hz() : 1.0;
+            maps = Maps.of(inputs.positioned(), org.viscarta.map.MapSetup.Given.none(), hz, request.alpha(), List.of(),
+                    request.library().orElse(null), request.reading());
+        }
         progress.stage(Progress.Stage.DONE, 0);
         return new AnalysisResult(request, inputs, series, samples, ranking, library, references, mimic, quality, dropped,
-                transitions, timeTests);
+                transitions, timeTests, maps);
     }
 
     /** Every quality check of the samples as read (by display name) and of the amplitude sweeps. */

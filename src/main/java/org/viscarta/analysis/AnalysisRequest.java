@@ -54,7 +54,9 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         /** The quality checks of every sweep, replicate set and amplitude sweep. */
         QUALITY,
         /** The glass transition of every temperature ramp, activation energies and their comparison. */
-        TRANSITIONS
+        TRANSITIONS,
+        /** Maps of the specimens measured at positions, with the images, registrations and regions their tables name. */
+        MAPS
     }
 
     public AnalysisRequest {

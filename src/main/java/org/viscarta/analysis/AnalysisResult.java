@@ -44,6 +44,12 @@ public final class AnalysisResult {
     private final List<SweepChecks.Check> dropped;
     private final org.viscarta.temperature.Transitions transitions;
     private final List<TimeTests.Derived> timeTests;
+    private final Maps maps;
+
+    /** The maps of the specimens measured at positions (none unless asked for and such sweeps were read). */
+    public Maps maps() {
+        return maps;
+    }
 
     /** The samples computed from stress-relaxation and creep tests, with their tests and fits (empty when none were read). */
     public List<TimeTests.Derived> timeTests() {
@@ -59,7 +65,8 @@ public final class AnalysisResult {
                    Optional<Ranking> ranking, Optional<ReferenceLibrary> library,
                    List<Matcher.Candidate> references, Optional<Mimic> mimic, Assessment quality,
                    List<SweepChecks.Check> dropped, org.viscarta.temperature.Transitions transitions,
-                   List<TimeTests.Derived> timeTests) {
+                   List<TimeTests.Derived> timeTests, Maps maps) {
+        this.maps = maps;
         this.transitions = transitions;
         this.timeTests = List.copyOf(timeTests);
         this.quality = quality;

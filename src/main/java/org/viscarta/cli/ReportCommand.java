@@ -43,7 +43,7 @@ final class ReportCommand implements Callable<Integer> {
         AnalysisRequest request = Requests.build(spec, () -> {
             AnalysisRequest.Builder b = quality.applyTo(report.applyTo(rankOptions.applyTo(models.applyTo(input.request()),
                     spec.commandLine())), rankOptions.dropOutliers).compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.SPECTRA,
-                    AnalysisRequest.Part.TRANSITIONS);
+                    AnalysisRequest.Part.TRANSITIONS, AnalysisRequest.Part.MAPS);
             library.folderIfNamed().ifPresent(dir -> b.library(dir).compute(AnalysisRequest.Part.MATCHES));
             return b;
         });
@@ -62,6 +62,10 @@ final class ReportCommand implements Callable<Integer> {
             out.printf("%d temperature ramp(s) of %d sample(s): glass transitions in the Transitions sheet%n",
                     result.transitions().results().size(), result.transitions().results().stream().map(t -> t.ramp().sample())
                             .distinct().count());
+        }
+        if (!result.maps().specimens().isEmpty()) {
+            out.printf("%d specimen(s) mapped at %d position(s): the Positions and Regions sheets and the map figures%n",
+                    result.maps().specimens().size(), result.maps().specimens().stream().mapToInt(m -> m.specimen().points().size()).sum());
         }
         if (result.samples().size() > ReportFigures.MAX_SAMPLE_FIGURES) {
             out.printf("per-sample figures left out: more than %d samples%n", ReportFigures.MAX_SAMPLE_FIGURES);

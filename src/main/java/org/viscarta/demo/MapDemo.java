@@ -51,8 +51,8 @@ public final class MapDemo {
         PHANTOM.put("inclusion", new double[] {40e3, 6e3, 0.03});
     }
 
-    /** Layer boundaries y = b + 0.05 x [µm], from the top: varnish | paint-2 | paint-1 | ground. */
-    private static final double[] BOUNDARIES_UM = {40, 110, 190};
+    /** Layer boundaries y = b + 0.05 x [µm], from the top: varnish | paint-2 | paint-1 | ground (no grid position lies on one). */
+    private static final double[] BOUNDARIES_UM = {45.5, 115.5, 195.5};
     private static final double SLOPE = 0.05;
     /** The cross-section image: 2 µm pixels, the stage origin at pixel (20, 15), no rotation. */
     public static final Registration CROSS_SECTION = Registration.byPixelSize(2e-6, 20, 15, 0);
@@ -78,6 +78,15 @@ public final class MapDemo {
             }
         }
         return "matrix";
+    }
+
+    /** How far a position of the phantom lies from the nearest inclusion's edge [µm] (a label image resolves regions to a pixel). */
+    public static double phantomEdgeDistanceUm(double xUm, double yUm) {
+        double d = Double.POSITIVE_INFINITY;
+        for (double[] c : INCLUSIONS) {
+            d = Math.min(d, Math.abs(Math.hypot(xUm - c[0], yUm - c[1]) - c[2]));
+        }
+        return d;
     }
 
     /** Writes both scenarios' files into the lists. */

@@ -104,7 +104,8 @@ public record MoranI(double i, double expected, double variance, double z, doubl
         return new MoranI(i, e, var, z, p, n, pairs, distanceM);
     }
 
+    /** A cell's key: its two indices packed into one long (indices beyond 32 bits are not reached by real maps). */
     private static long key(long cx, long cy) {
-        return cx * 0x9E3779B97F4A7C15L ^ cy;
+        return (cx << 32) ^ (cy & 0xFFFFFFFFL);
     }
 }

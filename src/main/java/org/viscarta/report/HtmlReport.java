@@ -79,6 +79,7 @@ public final class HtmlReport {
         series(h, r);
         transitions(h, r);
         timeTests(h, r);
+        maps(h, r);
         if (!figures.isEmpty()) {
             h.append("<h2>Figures</h2>\n");
             for (RenderedFigure f : figures) {
@@ -128,6 +129,32 @@ public final class HtmlReport {
                 }
             }
         }
+    }
+
+    /** The mapped specimens: how the positions were placed, and the regions compared. */
+    private static void maps(StringBuilder h, AnalysisResult r) {
+        if (r.maps().specimens().isEmpty()) {
+            return;
+        }
+        h.append("<h2>Maps</h2>\n<p>").append(esc("Specimens measured at many positions: E′, E″ and tan δ at each position "
+                + "(figures below: one tile per position, no interpolation), the region each lies in, and the regions compared. "
+                + "Neighbouring positions are not independent measurements (Moran's I below); the letters describe this specimen."))
+                .append("</p>\n");
+        for (org.viscarta.analysis.Maps.Mapped m : r.maps().specimens()) {
+            h.append("<h3>").append(esc(m.specimen().name())).append("</h3>\n<p>").append(esc(m.specimen().points().size()
+                    + " positions; " + WorkbookReport.mapSetup(m))).append("</p>\n");
+        }
+        table(h, OutputTables.REGIONS, OutputTables.regionRows(r.maps().specimens().stream()
+                .map(org.viscarta.analysis.Maps.Mapped::specimen).toList()), "Each region's positions: medians with quartiles, means "
+                + "with 95 % intervals, and letters (regions sharing one are not distinguishable; E′ compared on a log scale).");
+        h.append("<ul class=\"limits\">\n");
+        for (org.viscarta.analysis.Maps.Mapped m : r.maps().specimens()) {
+            for (String line : WorkbookReport.regionStatements(m.specimen())) {
+                h.append("<li>").append(esc(line.strip())).append("</li>\n");
+            }
+            m.specimen().notes().forEach(n -> h.append("<li>").append(esc(n)).append("</li>\n"));
+        }
+        h.append("</ul>\n");
     }
 
     /** The samples measured by stress relaxation or creep: what was fitted and how their moduli were computed. */

@@ -42,6 +42,9 @@ public final class ReportFigures {
      * The figures of a result: the ranking, tan δ of all samples, each temperature series, each
      * sample's fit and references. Figures of demo data say so, so that they travel alone into slides.
      */
+    /** The tiles' opacity over a registered image in the report. */
+    static final double MAP_OPACITY = 0.6;
+
     public static List<Figure> build(AnalysisResult r) {
         List<Figure> out = figures(r);
         if (r.inputs().isDemo()) {
@@ -80,6 +83,11 @@ public final class ReportFigures {
                 slug = slug(e.getKey()) + "-" + k;
             }
             out.add(Figures.transition(e.getKey(), e.getValue(), "transition-" + slug));
+        }
+        double mapHz = r.request().rankingPoint() instanceof org.viscarta.compare.RankingPoint.At at ? at.hz() : 1.0;
+        for (org.viscarta.analysis.Maps.Mapped m : r.maps().specimens()) {
+            out.addAll(MapFigures.of(m.specimen(), m.setup().image(), m.setup().registration(), MAP_OPACITY, mapHz,
+                    slug(m.specimen().name())));
         }
         List<SampleAnalysis> withSpectra = r.samples().stream()
                 .filter(sa -> sa.spectrum().isPresent() && sa.sample().replicates().stream().noneMatch(inSeries::contains)).toList();

@@ -34,8 +34,27 @@ public final class Texts {
         if (!r.timeTests().isEmpty()) {
             out.addAll(TIME_TESTS);
         }
+        if (!r.maps().specimens().isEmpty()) {
+            out.addAll(MAPS);
+        }
         return out;
     }
+
+    /** Maps in plain words: tiles, registration, regions, and why neighbouring positions are not independent. */
+    static final List<String[]> MAPS = List.of(
+            new String[] {"Maps",
+                "A specimen measured at many positions (a grid of indentations over a cross-section or a tissue slice) is drawn "
+                    + "as one coloured tile per position — E′ on a logarithmic colour scale, tan δ on a linear one, both in viridis, "
+                    + "which stays readable for colour-blind readers and in greyscale. Nothing is interpolated between positions. "
+                    + "Over the lab's image, the tiles are placed by the registration stated (a pixel size, or landmarks found "
+                    + "both on the stage and in the image, with the residual of that fit)."},
+            new String[] {"Regions and why neighbours are not independent",
+                "Each position takes the region its place on the specimen falls in (a drawn polygon, or a colour of a label "
+                    + "image). Regions are compared like samples (Welch t-tests with Holm's adjustment, letters; E′ on a log "
+                    + "scale). But positions next to each other resemble each other — Moran's I measures how much (0: not at all, "
+                    + "1: entirely; its z-score says whether that is more than chance) — so they are not independent "
+                    + "measurements, and the tests, which treat them as if they were, overstate how sure a difference is. The "
+                    + "letters describe this specimen; a claim about the material needs several specimens."});
 
     /** Stress relaxation and creep in plain words, and how they join the frequency sweeps. */
     static final List<String[]> TIME_TESTS = List.of(
@@ -219,6 +238,11 @@ public final class Texts {
             new String[] {"Transition ranking", "Samples compared at each frequency and convention (Tg by each convention, tan δ "
                     + "peak height): means over replicates, letters from Welch t-tests with Holm's adjustment (samples sharing a "
                     + "letter are not distinguishable), and the conclusions in words."},
+            new String[] {"Positions", "For specimens measured at many positions: each position's place (m, and in the image's "
+                    + "pixels when one is registered), region, E′, E″ and tan δ at the ranking frequency, and under the table how "
+                    + "the positions were placed."},
+            new String[] {"Regions", "Per region of a mapped specimen: the positions, E′ and tan δ medians with quartiles and "
+                    + "means with 95 % intervals, letters, and under the table the comparisons and Moran's I in words."},
             new String[] {"Time-domain tests", "For stress relaxation and creep tests: every measured point (time, M(t) or "
                     + "J(t), file and line) with the best-supported model beside it and the residual, and under the table how each "
                     + "replicate's E′ and E″ were computed from its fitted model."},

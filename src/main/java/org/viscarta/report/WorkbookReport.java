@@ -111,6 +111,21 @@ public final class WorkbookReport {
                 table(wb, st, OutputTables.TRANSITION_RANKING, OutputTables.transitionRankRows(t), t.sets().isEmpty()
                         ? "fewer than two samples at any one frequency, so nothing was compared" : "", statements);
             }
+            if (!r.maps().specimens().isEmpty()) {
+                List<String> setup = new java.util.ArrayList<>();
+                for (org.viscarta.analysis.Maps.Mapped m : r.maps().specimens()) {
+                    setup.add(m.specimen().name() + ": " + mapSetup(m));
+                    m.specimen().notes().forEach(n -> setup.add("  " + n));
+                }
+                table(wb, st, OutputTables.POSITIONS, r.maps().specimens().stream().flatMap(m -> m.specimen().points().stream()).toList(),
+                        "", setup);
+                List<String> statements = new java.util.ArrayList<>();
+                for (org.viscarta.analysis.Maps.Mapped m : r.maps().specimens()) {
+                    statements.addAll(regionStatements(m.specimen()));
+                }
+                table(wb, st, OutputTables.REGIONS, OutputTables.regionRows(r.maps().specimens().stream()
+                        .map(org.viscarta.analysis.Maps.Mapped::specimen).toList()), "no specimen has regions", statements);
+            }
             if (!r.timeTests().isEmpty()) {
                 List<String> origins = new java.util.ArrayList<>();
                 origins.add("Each sample computed from time-domain tests: its tests fitted together with every candidate model (Model "
@@ -734,5 +749,32 @@ public final class WorkbookReport {
             rows.row(w);
         }
         widths(s, 30, 60, 24, 12, 12, 14, 66);
+    }
+
+    /** How a map's positions were placed, in words. */
+    static String mapSetup(org.viscarta.analysis.Maps.Mapped m) {
+        org.viscarta.map.MapSetup su = m.setup();
+        return (su.imageFile() == null ? "no image" : "image " + su.imageFile().getFileName() + ", registered by "
+                + su.registration().describe()) + "; " + (su.regions() == null ? "no regions" : su.regions().describe());
+    }
+
+    /** The comparison between a specimen's regions and its spatial autocorrelation, in words. */
+    static List<String> regionStatements(org.viscarta.map.MapAnalysis.Specimen s) {
+        List<String> out = new java.util.ArrayList<>();
+        out.add(s.name() + ":");
+        for (org.viscarta.compare.DampingComparison.Result t : new org.viscarta.compare.DampingComparison.Result[] {s.storageTest(),
+            s.tanDeltaTest()}) {
+            if (t != null) {
+                t.statements().forEach(x -> out.add("  " + x));
+            }
+        }
+        if (s.moranStorage() != null) {
+            out.add(String.format(java.util.Locale.ROOT, "  Moran's I of log E′ = %.3f (expected %.3f, z = %.1f, p %s) with neighbours "
+                    + "within %s µm%s.", s.moranStorage().i(), s.moranStorage().expected(), s.moranStorage().z(),
+                    org.viscarta.compare.DampingComparison.pText(s.moranStorage().p()),
+                    org.viscarta.sweep.Numbers.plain(s.moranStorage().distanceM() * 1e6), s.moranTanDelta() == null ? ""
+                    : String.format(java.util.Locale.ROOT, "; of tan δ = %.3f (z = %.1f)", s.moranTanDelta().i(), s.moranTanDelta().z())));
+        }
+        return out;
     }
 }

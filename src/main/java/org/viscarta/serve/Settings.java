@@ -77,7 +77,7 @@ final class Settings {
             b.target(new Target.AmongInputs(target));
         }
         b.compute(AnalysisRequest.Part.RANKING, AnalysisRequest.Part.QUALITY, AnalysisRequest.Part.FITS,
-                AnalysisRequest.Part.SPECTRA, AnalysisRequest.Part.TRANSITIONS);
+                AnalysisRequest.Part.SPECTRA, AnalysisRequest.Part.TRANSITIONS, AnalysisRequest.Part.MAPS);
         if (library != null && flag("use_library", true)) {
             b.library(library).compute(AnalysisRequest.Part.MATCHES);
         }
