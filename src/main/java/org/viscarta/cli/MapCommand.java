@@ -151,8 +151,8 @@ final class MapCommand implements Callable<Integer> {
                 AtomicOutput.write(dir.resolve(r.stem() + ".svg"), force || true,
                         w -> w.write(r.svg().getBytes(java.nio.charset.StandardCharsets.UTF_8)));
             }
-            o.printf("wrote positions.csv (%d positions), regions.csv (%d regions) and %d figure(s) as PNG and SVG in %s%n", points.size(),
-                    rows.size(), figures.size(), out);
+            o.printf("wrote positions.csv (%d positions), regions.csv (%d regions) and %d figure(s) as PNG and SVG%nin %s%n",
+                    points.size(), rows.size(), figures.size(), out);
         }
         o.flush();
         return CommandLine.ExitCode.OK;

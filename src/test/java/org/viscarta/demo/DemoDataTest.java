@@ -40,8 +40,22 @@ class DemoDataTest {
 
     @Test
     void everyDemoFileSaysItIsInventedDemoData() {
-        for (DemoData.DemoFile f : DemoData.generate().files()) {
+        DemoData.Generated g = DemoData.generate();
+        for (DemoData.DemoFile f : g.files()) {
             assertTrue(f.content().contains("invented demo data"), f.relativePath());
+        }
+        for (MapDemo.DemoImage f : g.images()) {
+            // in the PNG's text chunk
+            assertTrue(new String(f.png(), StandardCharsets.ISO_8859_1).contains("invented demo data"), f.relativePath());
+        }
+    }
+
+    @Test
+    void committedDemoImagesAreExactlyTheGeneratorsOutput() throws IOException {
+        for (MapDemo.DemoImage f : DemoData.generate().images()) {
+            Path p = Path.of(f.folder()).resolve(f.relativePath());
+            assertTrue(Files.exists(p), p + " is missing: regenerate with org.viscarta.demo.DemoData");
+            org.junit.jupiter.api.Assertions.assertArrayEquals(f.png(), Files.readAllBytes(p), p + " differs from the generator");
         }
     }
 
