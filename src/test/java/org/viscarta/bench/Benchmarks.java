@@ -49,6 +49,14 @@ public final class Benchmarks {
         System.out.printf(Locale.ROOT, "machine: %d cores available to the JVM, max heap %d MB, Java %s, %s %s%n",
                 Runtime.getRuntime().availableProcessors(), Runtime.getRuntime().maxMemory() >> 20,
                 System.getProperty("java.version"), System.getProperty("os.name"), System.getProperty("os.arch"));
+        if (args.length >= 2 && args[1].equals("map-only")) {
+            try {
+                org.viscarta.map.MapBench.run(Integer.parseInt(args[0]));
+            } catch (Exception e) {
+                throw new IOException(e);
+            }
+            return;
+        }
         if (args.length >= 2 && args[1].equals("workbench-only")) {
             try {
                 org.viscarta.serve.WorkbenchBench.run(Integer.parseInt(args[0]));

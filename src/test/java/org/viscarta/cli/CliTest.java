@@ -396,7 +396,7 @@ class CliTest {
             List<String> names = new ArrayList<>();
             wb.forEach(s -> names.add(s.getSheetName()));
             assertEquals(List.of("Read me", "Summary", "Damping ranking", "Group comparison", "Quality", "Reference matches", "Mimic ranking", "Temperature series",
-                    "Transitions", "Activation energy", "Transition ranking", "Time-domain tests", "Model fits", "Derived quantities", "Correlations", "Spectra", "Data", "Reference library", "Figures", "Provenance"), names);
+                    "Transitions", "Activation energy", "Transition ranking", "Positions", "Regions", "Time-domain tests", "Model fits", "Derived quantities", "Correlations", "Spectra", "Data", "Reference library", "Figures", "Provenance"), names);
             // both questions of the demo answered: the aged linseed film is closest to the aged reference film,
             // and a gel formulation (not a paint) is the best mimic of the target tissue
             Sheet matches = wb.getSheet("Reference matches");

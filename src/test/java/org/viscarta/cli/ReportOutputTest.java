@@ -130,8 +130,8 @@ class ReportOutputTest {
         assertTrue(doc.select("style").size() == 1);
         List<String> headings = doc.select("h2").eachText();
         assertEquals(List.of("Read me", "Summary", "Damping ranking", "Quality", "Closest reference materials", "Best mimic of target-soft-tissue",
-                "Temperature series: acrylic-film-ts", "Transitions", "Activation energy", "Transition ranking", "Time-domain tests", "Figures",
-                "Provenance"), headings);
+                "Temperature series: acrylic-film-ts", "Transitions", "Activation energy", "Transition ranking", "Time-domain tests", "Maps", "Regions",
+                "Figures", "Provenance"), headings);
         Element ranking = doc.select("h2:contains(Damping ranking) + p + table").first();
         assertEquals(1 + 24, ranking.select("tr").size(), "a row per sample, the master curve and the relaxation test included");
         assertTrue(doc.text().contains("not clinical or structural verdicts"));

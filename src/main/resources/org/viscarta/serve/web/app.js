@@ -118,9 +118,17 @@
     list = list.filter(x => !x.path.split('/').some(p => p.startsWith('.')));
     if (!list.length) return;
     const form = new FormData();
+    const seen = new Set();
     for (const x of list) {
+      // files picked from several folders may share a name: keep each, the later ones renamed
+      let path = x.path;
+      for (let k = 2; seen.has(path); k++) {
+        const dot = x.path.lastIndexOf('.');
+        path = dot > 0 ? x.path.slice(0, dot) + '-' + k + x.path.slice(dot) : x.path + '-' + k;
+      }
+      seen.add(path);
       form.append('files', x.file, x.file.name);
-      form.append('paths', x.path);
+      form.append('paths', path);
     }
     status($('files-status'), 'Sending ' + list.length + ' file(s) to the server on this computer…');
     try {
