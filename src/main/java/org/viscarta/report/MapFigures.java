@@ -313,11 +313,26 @@ public final class MapFigures {
         }
         val.setLabelFont(Palette.LABEL);
         val.setTickLabelFont(Palette.TICK);
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (MapAnalysis.Point p : s.points()) {
+            if (!p.region().isEmpty() && !Double.isNaN(p.tanDelta())) {
+                double v = storage ? p.storage() : p.tanDelta();
+                lo = Math.min(lo, v);
+                hi = Math.max(hi, v);
+            }
+        }
+        if (hi > lo) {
+            // every position in view, outliers included
+            val.setRange(storage ? lo / 1.15 : lo - 0.08 * (hi - lo), storage ? hi * 1.15 : hi + 0.08 * (hi - lo));
+        }
         BoxAndWhiskerRenderer r = new BoxAndWhiskerRenderer();
+        r.setMaximumBarWidth(0.12);
         r.setSeriesPaint(0, Palette.colour(storage ? 0 : 1));
         r.setMeanVisible(false);
-        r.setMaxOutlierVisible(true);
-        r.setMinOutlierVisible(true);
+        // JFreeChart draws outliers as large circles far from their values: left out, and said so in the caption
+        r.setMaxOutlierVisible(false);
+        r.setMinOutlierVisible(false);
         CategoryPlot plot = new CategoryPlot(ds, cat, val, r);
         plot.setBackgroundPaint(Color.WHITE);
         plot.setRangeGridlinePaint(new Color(0xDDDDDD));
@@ -325,7 +340,8 @@ public final class MapFigures {
         c.setBackgroundPaint(Color.WHITE);
         return new Figure((storage ? "regions-storage-" : "regions-tan-delta-") + slug, "Box plots of " + (storage ? "E′" : "tan δ")
                 + " at " + f + " over the positions of each region of specimen " + s.name() + " (box: quartiles, line: median, "
-                + "whiskers: 1.5 × the interquartile range), with each region's letters from Welch t-tests between regions with Holm's "
+                + "whiskers: the furthest positions within 1.5 × the interquartile range; positions beyond them are not drawn, the "
+                + "Positions sheet lists every one), with each region's letters from Welch t-tests between regions with Holm's "
                 + "adjustment" + (storage ? " on log E′" : "") + "; neighbouring positions are not independent (see Moran's I).", c, 300);
     }
 
