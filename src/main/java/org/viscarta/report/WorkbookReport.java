@@ -752,7 +752,7 @@ public final class WorkbookReport {
     }
 
     /** How a map's positions were placed, in words. */
-    static String mapSetup(org.viscarta.analysis.Maps.Mapped m) {
+    public static String mapSetup(org.viscarta.analysis.Maps.Mapped m) {
         org.viscarta.map.MapSetup su = m.setup();
         return (su.imageFile() == null ? "no image" : "image " + su.imageFile().getFileName() + ", registered by "
                 + su.registration().describe()) + "; " + (su.regions() == null ? "no regions" : su.regions().describe());

@@ -107,6 +107,17 @@ final class ResultJson {
                         statements));
             }
         }
+        if (!r.maps().specimens().isEmpty()) {
+            List<String> statements = new ArrayList<>();
+            for (org.viscarta.analysis.Maps.Mapped mp : r.maps().specimens()) {
+                statements.add(mp.specimen().name() + ": " + mp.specimen().points().size() + " positions; "
+                        + org.viscarta.report.WorkbookReport.mapSetup(mp));
+                mp.specimen().notes().forEach(n -> statements.add("  " + n));
+            }
+            tables.add(table(OutputTables.REGIONS, OutputTables.regionRows(r.maps().specimens().stream()
+                    .map(org.viscarta.analysis.Maps.Mapped::specimen).toList()), "The regions of each mapped specimen (its maps are "
+                    + "in Figures).", statements));
+        }
         m.put("tables", tables);
         m.put("series", series(r));
         List<Map<String, Object>> samples = new ArrayList<>();

@@ -332,6 +332,7 @@
     const quality = clear($('view-quality'));
     renderTable(tableById('quality'), quality);
     const gallery = clear($('view-figures'));
+    renderTable(tableById('regions'), gallery);
     gallery.append(el('p', { className: 'hint', text: 'The report\'s figures (PNG at 300 dpi; the SVG of each is in the figures ZIP). '
       + 'Open one in a new tab to see it at full size.' }));
     for (const f of r.figures) {
