@@ -305,7 +305,32 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         notes.add(file + ": raw signals converted to moduli (" + rs.geometry().describe() + ", calibration: "
                 + rs.sweep().metadata().get("calibration_used") + ")");
         return new SweepFile(file, m.sha256(), new TableInfo(new Layout.RawSignals(""), ',', '.', "UTF-8", 0, List.of(),
-                m.metadata()), List.of(rs.sweep()), rs.warnings());
+                m.metadata()), List.of(positioned(file, m.metadata(), rs.sweep())), rs.warnings());
+    }
+
+    /**
+     * A raw file's sweep at the position its '# x:' and '# y:' lines give (one raw file per position of
+     * a map), or the sweep as it is without them.
+     */
+    private static Sweep positioned(Path file, Map<String, String> meta, Sweep s) {
+        if (!meta.containsKey("x") || !meta.containsKey("y")) {
+            return s;
+        }
+        double[] xy = new double[2];
+        String[] keys = {"x", "y"};
+        for (int k = 0; k < 2; k++) {
+            try {
+                xy[k] = org.viscarta.sweep.Unit.parse(meta.get(keys[k]).strip(), org.viscarta.sweep.Quantity.Dimension.LENGTH).si();
+            } catch (IllegalArgumentException e) {
+                throw new InputException(file, 0, 0, "'" + keys[k] + ": " + meta.get(keys[k]) + "' is not understood; write a position "
+                        + "with its unit, e.g. '" + keys[k] + ": 120 µm'");
+            }
+        }
+        Map<String, String> attrs = new LinkedHashMap<>(s.attributes());
+        attrs.put(Sweep.X_M, Double.toString(xy[0]));
+        attrs.put(Sweep.Y_M, Double.toString(xy[1]));
+        return new Sweep(s.sample(), s.replicate() + Sweep.POSITION_SEPARATOR + xy[0] + "," + xy[1], s.group(), s.kind(), s.temperatureC(),
+                s.source(), s.metadata(), s.points(), attrs);
     }
 
     private static Inputs assemble(ReadSettings settings, List<SweepFile> files, Map<String, List<Sweep>> bySample,

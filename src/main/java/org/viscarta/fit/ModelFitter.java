@@ -235,16 +235,7 @@ public final class ModelFitter {
             }
             values.accept(u, r);
         };
-        List<double[]> starts = internalStarts(specs, startValues);
-        if (starts.isEmpty()) {
-            return notFitted(sample, model, n, "no usable start values could be derived from the data");
-        }
-        Solution sol = engine.solveMultiStart(n, f, starts);
-        if (!sol.converged() || !(sol.rss() >= 0) || !Double.isFinite(sol.rss())) {
-            return notFitted(sample, model, n, "could not be fitted: no stable best fit was reached from these data ("
-                    + (sol.message().isEmpty() ? "the fit did not converge" : sol.message()) + ")");
-        }
-        return describe(sample, model, sol, n, new double[] {1 / t[n - 1], 1 / t[0]});
+        return solve(sample, model, n, f, startValues, new double[] {1 / t[n - 1], 1 / t[0]});
     }
 
     /**
@@ -296,7 +287,13 @@ public final class ModelFitter {
             java.util.Arrays.fill(scale[1], 1.0);
         }
         ResidualFunction f = residuals(model, specs, omega, storage, loss, scale);
-        List<double[]> starts = internalStarts(specs, startValues);
+        return solve(sample, model, n, f, startValues, omegaRange(omega));
+    }
+
+    /** Solves from the start values and describes the fit, or says why there is none; window = the ω range the data show. */
+    private FitResult solve(String sample, ViscoelasticModel model, int n, ResidualFunction f, List<double[]> startValues,
+                            double[] window) {
+        List<double[]> starts = internalStarts(model.parameters(), startValues);
         if (starts.isEmpty()) {
             return notFitted(sample, model, n, "no usable start values could be derived from the data");
         }
@@ -305,7 +302,7 @@ public final class ModelFitter {
             return notFitted(sample, model, n, "could not be fitted: no stable best fit was reached from these data ("
                     + (sol.message().isEmpty() ? "the fit did not converge" : sol.message()) + ")");
         }
-        return describe(sample, model, sol, n, omegaRange(omega));
+        return describe(sample, model, sol, n, window);
     }
 
     /** Start values moved into the fitting parameters (log or logit space); starts that do not map are dropped. */

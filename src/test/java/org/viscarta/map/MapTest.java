@@ -211,6 +211,23 @@ class MapTest {
     }
 
     @Test
+    void rawSignalFilesWithPositionsAreMappedOnePerPosition() throws IOException {
+        String raw = Files.readString(Path.of("demo-data/raw-signals/alkyd-unaged-raw.csv"));
+        Files.copy(Path.of("demo-data/raw-signals/calibration-sapphire.csv"), dir.resolve("calibration-sapphire.csv"));
+        for (int k = 0; k < 3; k++) {
+            Files.writeString(dir.resolve("p" + k + ".csv"), "# x: " + (20 * k) + " µm\n# y: 0 µm\n" + raw);
+        }
+        Inputs in = Inputs.read(List.of(dir), ReadSettings.defaults());
+        assertEquals(3, in.positioned().size(), "three positions, none a sample");
+        assertTrue(in.samples().isEmpty());
+        Maps maps = Maps.of(in.positioned(), MapSetup.Given.none(), 1.0, 0.05, List.of(), null, ReadSettings.defaults());
+        MapAnalysis.Specimen s = maps.specimens().get(0).specimen();
+        assertEquals(3, s.points().size());
+        assertEquals(20e-6, s.spacingM(), 1e-12);
+        assertEquals(40e-6, s.points().get(2).xM(), 1e-12);
+    }
+
+    @Test
     void everyDemoPositionLandsInTheRegionTheGeneratorGaveIt() {
         Inputs in = Inputs.read(List.of(Path.of("demo-data/maps")), ReadSettings.defaults());
         Maps maps = Maps.of(in.positioned(), MapSetup.Given.none(), 1.0, 0.05, List.of(), null, ReadSettings.defaults());
