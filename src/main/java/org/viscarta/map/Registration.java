@@ -167,7 +167,7 @@ public record Registration(double a, double b, double c, double d, double e, dou
             throw new InputException(file, 1, 0, "the landmarks give a degenerate map (no area)");
         }
         return new Registration(r0.a(), r0.b(), r0.c(), r0.d(), r0.e(), r0.f(), rms, String.format(Locale.ROOT,
-                "%d landmarks in %s (affine, least squares; RMS residual %.2g px = %.2g µm)", n, file.getFileName(), rms,
+                "%d landmarks in %s (affine, least squares; RMS residual %.2f px = %.2f µm)", n, file.getFileName(), rms,
                 rms * r0.pixelSizeM() * 1e6));
     }
 
