@@ -68,8 +68,16 @@ public final class DampingComparison {
      * @param quantity  the quantity ("tan δ")
      * @param higher    the verb phrase for a higher mean ("damps more than")
      * @param allDiffer the sentence when every pair differs
+     * @param items     what is compared, plural and capitalised ("Samples", "Regions")
+     * @param units     what each one's values are ("replicates", "positions")
+     * @param groupsWord what the group tests run across ("groups", "regions")
      */
-    public record Wording(String quantity, String higher, String allDiffer) {
+    public record Wording(String quantity, String higher, String allDiffer, String items, String units, String groupsWord) {
+
+        /** Samples with replicates, in groups. */
+        public Wording(String quantity, String higher, String allDiffer) {
+            this(quantity, higher, allDiffer, "Samples", "replicates", "groups");
+        }
     }
 
     /** The damping ranking's wording. */
@@ -136,8 +144,9 @@ public final class DampingComparison {
         List<String> statements = new ArrayList<>();
         long untestable = values.stream().filter(v -> v.length < 2).count();
         long supported = pairs.stream().filter(Pair::significant).count();
-        statements.add(String.format(Locale.ROOT, "Samples that share a letter are not distinguishable in " + wording.quantity() + " at α = %s "
-                + "(Welch t-tests between replicates, Holm-adjusted over %d pairs); %d of the %d differences are supported.",
+        statements.add(String.format(Locale.ROOT, wording.items() + " that share a letter are not distinguishable in " + wording.quantity()
+                + " at α = %s (Welch t-tests between " + wording.units() + ", Holm-adjusted over %d pairs); %d of the %d differences are "
+                + "supported.",
                 Numbers.plain(alpha), pairs.size(), supported, pairs.size()));
         if (untestable > 0) {
             statements.add(untestable + " sample(s) with a single replicate cannot be tested (a difference needs the scatter "
@@ -190,7 +199,7 @@ public final class DampingComparison {
                 kruskal = GroupStatistics.kruskalWallis(pooled);
                 boolean differ = anova.p() < alpha && kruskal.p() < alpha;
                 boolean disagree = (anova.p() < alpha) != (kruskal.p() < alpha);
-                statements.add(String.format(Locale.ROOT, "Across the %d groups, " + wording.quantity() + " %s (one-way ANOVA F = %.3g, p %s; "
+                statements.add(String.format(Locale.ROOT, "Across the %d " + wording.groupsWord() + ", " + wording.quantity() + " %s (one-way ANOVA F = %.3g, p %s; "
                         + "Kruskal–Wallis H = %.3g, p %s)%s", byGroup.size(),
                         differ ? "differs" : disagree ? "may differ" : "does not differ detectably",
                         anova.statistic(), pText(anova.p()), kruskal.statistic(), pText(kruskal.p()),

@@ -156,9 +156,10 @@ public final class MapAnalysis {
             }
             List<String> names = byRegion.entrySet().stream().filter(x -> x.getValue().size() >= 1).map(Map.Entry::getKey).toList();
             Comparison ce = letters(names, byRegion, p -> Math.log10(p.storage()), s.alpha(),
-                    new DampingComparison.Wording("log10 E′", "is stiffer than", "Every region differs in stiffness from every other."));
+                    new DampingComparison.Wording("log10 E′", "is stiffer than", "Every region differs in stiffness from every other.",
+                            "Regions", "the regions' positions", "regions"));
             Comparison ct = letters(names, byRegion, Point::tanDelta, s.alpha(), new DampingComparison.Wording("tan δ", "damps more than",
-                    "Every region damps differently from every other."));
+                    "Every region damps differently from every other.", "Regions", "the regions' positions", "regions"));
             Map<String, String> lettersE = ce.letters();
             Map<String, String> lettersT = ct.letters();
             testE = ce.result();
