@@ -250,6 +250,24 @@ public final class MapFigures {
             a.setAutoRangeIncludesZero(false);
         }
         XYPlot plot = new XYPlot(ds, x, y, r);
+        if (image != null && (Math.abs(reg.b()) > 1e-9 * Math.abs(reg.a()) || Math.abs(reg.d()) > 1e-9 * Math.abs(reg.e()))) {
+            // the stage is rotated (or sheared) against the image: each tile drawn as the quadrilateral it covers there
+            XYBlockRenderer none = new XYBlockRenderer();
+            none.setPaintScale(new Classes(1, 0));
+            plot.setRenderer(none);
+            double half = s.spacingM() / 2;
+            double[][] corners = {{-half, -half}, {half, -half}, {half, half}, {-half, half}};
+            for (int i = 0; i < pts.size(); i++) {
+                MapAnalysis.Point p = pts.get(i);
+                double[] c = new double[8];
+                for (int k = 0; k < 4; k++) {
+                    double[] uv = reg.toImage(p.xM() + corners[k][0], p.yM() + corners[k][1]);
+                    c[2 * k] = uv[0];
+                    c[2 * k + 1] = uv[1];
+                }
+                plot.addAnnotation(new org.jfree.chart.annotations.XYPolygonAnnotation(c, null, null, scale.getPaint(data[2][i])), false);
+            }
+        }
         plot.setBackgroundPaint(Color.WHITE);
         plot.setDomainGridlinesVisible(false);
         plot.setRangeGridlinesVisible(false);
