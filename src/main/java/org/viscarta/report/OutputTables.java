@@ -553,8 +553,10 @@ public final class OutputTables {
     /** Every mapped position (sheet Positions, {@code map -o}'s positions.csv). */
     public static final Table<org.viscarta.map.MapAnalysis.Point> POSITIONS = Table.<org.viscarta.map.MapAnalysis.Point>named("Positions")
             .column("sample", "specimen", "", Style.TEXT, 20, org.viscarta.map.MapAnalysis.Point::specimen)
-            .column("x_m", "x", "m", Style.SCIENTIFIC, 12, org.viscarta.map.MapAnalysis.Point::xM)
-            .column("y_m", "y", "m", Style.SCIENTIFIC, 12, org.viscarta.map.MapAnalysis.Point::yM)
+            .column("x_m", "x", "m", Style.SCIENTIFIC, 12, org.viscarta.map.MapAnalysis.Point::xM, java.util.Set.of(Medium.CSV))
+            .column("y_m", "y", "m", Style.SCIENTIFIC, 12, org.viscarta.map.MapAnalysis.Point::yM, java.util.Set.of(Medium.CSV))
+            .column("x_um", "x", "µm", Style.DECIMAL2, 10, p -> p.xM() * 1e6, NOT_CSV)
+            .column("y_um", "y", "µm", Style.DECIMAL2, 10, p -> p.yM() * 1e6, NOT_CSV)
             .column("image_x_px", "image column", "px", Style.DECIMAL2, 10, p -> Double.isNaN(p.imageX()) ? null : p.imageX())
             .column("image_y_px", "image row", "px", Style.DECIMAL2, 10, p -> Double.isNaN(p.imageY()) ? null : p.imageY())
             .column("region", "region", "", Style.TEXT, 16, org.viscarta.map.MapAnalysis.Point::region)

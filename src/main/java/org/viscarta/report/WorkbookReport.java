@@ -123,8 +123,9 @@ public final class WorkbookReport {
                 for (org.viscarta.analysis.Maps.Mapped m : r.maps().specimens()) {
                     statements.addAll(regionStatements(m.specimen()));
                 }
-                table(wb, st, OutputTables.REGIONS, OutputTables.regionRows(r.maps().specimens().stream()
-                        .map(org.viscarta.analysis.Maps.Mapped::specimen).toList()), "no specimen has regions", statements);
+                List<OutputTables.RegionRow> regionRows = OutputTables.regionRows(r.maps().specimens().stream()
+                        .map(org.viscarta.analysis.Maps.Mapped::specimen).toList());
+                table(wb, st, OutputTables.REGIONS, regionRows, regionRows.isEmpty() ? "no specimen has regions" : "", statements);
             }
             if (!r.timeTests().isEmpty()) {
                 List<String> origins = new java.util.ArrayList<>();

@@ -158,6 +158,33 @@ class MapTest {
         assertEquals(89, m.pairs(), "closer than 15 µm on a 6 × 5 grid of 10 µm: 49 side by side and 40 diagonal (14.1 µm)");
     }
 
+    @Test
+    void moransIRejectsIndependentFieldsAtItsNominalRate() {
+        // known truth: values drawn independently, so "no autocorrelation" holds and p < 0.05 should occur in about 5 % of
+        // fields (the z-score's normal approximation, Cliff and Ord 1981)
+        SplittableRandom rng = new SplittableRandom(8);
+        double[] xs = new double[100];
+        double[] ys = new double[100];
+        for (int k = 0; k < 100; k++) {
+            xs[k] = (k % 10) * 10e-6;
+            ys[k] = (k / 10) * 10e-6;
+        }
+        int rejected = 0;
+        int fields = 1000;
+        double zSum = 0;
+        for (int f = 0; f < fields; f++) {
+            double[] v = new double[100];
+            for (int k = 0; k < 100; k++) {
+                v[k] = Math.sqrt(-2 * Math.log(1 - rng.nextDouble())) * Math.cos(2 * Math.PI * rng.nextDouble());
+            }
+            MoranI m = MoranI.of(v, xs, ys, 15e-6);
+            rejected += m.p() < 0.05 ? 1 : 0;
+            zSum += m.z();
+        }
+        assertTrue(rejected >= 30 && rejected <= 75, rejected + " of " + fields + " rejected at the 5 % level");
+        assertEquals(0, zSum / fields, 0.1, "z centred on zero");
+    }
+
     /** A sweep at one position: five frequencies (1 Hz among them, so no interpolation) of an exact zener. */
     private static Sweep at(String specimen, double x, double y, double[] p) {
         ViscoelasticModel z = ModelCatalogue.byId("zener").orElseThrow();
