@@ -31,9 +31,8 @@ final class ServeCommand implements Callable<Integer> {
                     + "0.0.0.0, serves the lab network: anyone there with the token can use the workbench.")
     String host;
 
-    @Option(names = "--library", paramLabel = "DIR",
-            description = "The lab's reference library, shared with the command line (default: $" + LibraryOption.LIBRARY_ENV + ").")
-    Path library;
+    @CommandLine.Mixin
+    LibraryOption library;
 
     @Option(names = "--data", paramLabel = "DIR",
             description = "A folder whose contents (and sub-folders) the page may read; without it, only uploaded files.")
@@ -55,11 +54,7 @@ final class ServeCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        Path lib = library;
-        if (lib == null) {
-            String env = System.getenv(LibraryOption.LIBRARY_ENV);
-            lib = env == null || env.isBlank() ? null : Path.of(env);
-        }
+        Path lib = library.folderIfNamed().orElse(null);
         if (lib != null && !Files.isDirectory(lib)) {
             throw new UsageException("--library: '" + lib + "' is not a folder");
         }

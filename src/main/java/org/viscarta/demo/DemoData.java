@@ -533,7 +533,7 @@ public final class DemoData {
         }
     }
 
-    private static String num(double v) {
+    static String num(double v) {
         return String.format(Locale.ROOT, "%.6g", v).replaceFirst("\\.?0+(e|$)", "$1");
     }
 

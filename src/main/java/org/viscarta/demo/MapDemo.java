@@ -245,6 +245,6 @@ public final class MapDemo {
     }
 
     private static String n(double v) {
-        return String.format(Locale.ROOT, "%.6g", v).replaceFirst("\\.?0+(e|$)", "$1");
+        return DemoData.num(v);
     }
 }

@@ -17,6 +17,10 @@ import org.viscarta.sweep.Unit;
  */
 final class Columns {
 
+    /** Comma separated, a header row, '#' lines comments, spaces around cells ignored. */
+    static final org.apache.commons.csv.CSVFormat FORMAT = org.apache.commons.csv.CSVFormat.DEFAULT.builder().setCommentMarker('#')
+            .setHeader().setSkipHeaderRecord(true).setIgnoreSurroundingSpaces(true).get();
+
     private static final Pattern HEADER = Pattern.compile("^\\s*([^\\[(]+?)\\s*(?:[\\[(]\\s*(.*?)\\s*[\\])])?\\s*$");
 
     private final Path file;

@@ -12,7 +12,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 
-import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.viscarta.io.InputException;
@@ -37,8 +36,7 @@ public interface Regions {
     static Regions polygons(Path file) {
         Map<String, Map<String, List<double[]>>> byRegion = new LinkedHashMap<>();
         try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8);
-             CSVParser p = CSVParser.parse(in, CSVFormat.DEFAULT.builder().setCommentMarker('#').setHeader()
-                     .setSkipHeaderRecord(true).setIgnoreSurroundingSpaces(true).get())) {
+             CSVParser p = CSVParser.parse(in, Columns.FORMAT)) {
             Columns cols = Columns.of(file, p.getHeaderNames(), "region", "x", "y", "polygon?");
             for (CSVRecord r : p) {
                 int line = (int) r.getParser().getCurrentLineNumber();
@@ -148,8 +146,7 @@ public interface Regions {
             throw new InputException(legend, 0, 0, "cannot read the legend (" + e.getMessage() + ")");
         }
         try (Reader in = new java.io.StringReader(String.join("\n", kept));
-             CSVParser p = CSVParser.parse(in, CSVFormat.DEFAULT.builder().setHeader()
-                     .setSkipHeaderRecord(true).setIgnoreSurroundingSpaces(true).get())) {
+             CSVParser p = CSVParser.parse(in, Columns.FORMAT.builder().setCommentMarker(null).get())) {
             Columns cols = Columns.of(legend, p.getHeaderNames(), "colour", "region");
             for (CSVRecord r : p) {
                 int line = lineOf.get((int) r.getRecordNumber());

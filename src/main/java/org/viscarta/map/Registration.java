@@ -9,7 +9,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 
-import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
@@ -175,8 +174,7 @@ public record Registration(double a, double b, double c, double d, double e, dou
     public static List<Landmark> readLandmarks(Path file) {
         List<Landmark> out = new ArrayList<>();
         try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8);
-             CSVParser p = CSVParser.parse(in, CSVFormat.DEFAULT.builder().setCommentMarker('#').setHeader()
-                     .setSkipHeaderRecord(true).setIgnoreSurroundingSpaces(true).get())) {
+             CSVParser p = CSVParser.parse(in, Columns.FORMAT)) {
             Columns cols = Columns.of(file, p.getHeaderNames(), "x", "y", "image_x", "image_y");
             for (CSVRecord r : p) {
                 int line = (int) r.getParser().getCurrentLineNumber();

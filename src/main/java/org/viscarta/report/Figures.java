@@ -49,9 +49,7 @@ import org.viscarta.sweep.SweepPoint;
 public final class Figures {
 
     /** Points of a model curve across a measured range. */
-    private static final int CURVE_POINTS = 60;
-    /** Normal quantile of a two-sided 95 % band (the band is on log moduli, by the delta method). */
-    private static final double Z95 = 1.959963984540054;
+    static final int CURVE_POINTS = 60;
 
     private Figures() {
     }
@@ -90,7 +88,25 @@ public final class Figures {
 
     /** @param reduced the data are a master curve: the axis is the reduced frequency a_T·f */
     private static LogAxis frequencyAxis(boolean reduced) {
-        LogAxis x = new ReadableLogAxis(reduced ? "reduced frequency a_T·f [Hz]" : "frequency [Hz]");
+        return domainLogAxis(reduced ? "reduced frequency a_T·f [Hz]" : "frequency [Hz]");
+    }
+
+    /** A figure of a main panel over a residual panel, sharing the x axis. */
+    private static JFreeChart withResiduals(String title, LogAxis x, XYPlot top, XYPlot residuals) {
+        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(x);
+        plot.setGap(6);
+        plot.add(top, 3);
+        plot.add(residuals, 1);
+        JFreeChart c = new JFreeChart(title, Palette.TITLE, plot, true);
+        finish(c, top);
+        finish(c, residuals);
+        c.setBackgroundPaint(Color.WHITE);
+        return c;
+    }
+
+    /** A logarithmic x axis with plain-number ticks. */
+    private static LogAxis domainLogAxis(String label) {
+        LogAxis x = new ReadableLogAxis(label);
         x.setTickUnit(new NumberTickUnit(1.0));
         x.setMinorTickMarksVisible(true);
         x.setNumberFormatOverride(new DecimalFormat("0.####"));
@@ -224,20 +240,7 @@ public final class Figures {
         bottom.setRangeAxis(ry);
         bottom.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(0.8f)));
         showResiduals(bottom, ry, residuals);
-        LogAxis x = new ReadableLogAxis("time since the step [s]");
-        x.setTickUnit(new NumberTickUnit(1.0));
-        x.setMinorTickMarksVisible(true);
-        x.setNumberFormatOverride(new DecimalFormat("0.####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
-        x.setLabelFont(Palette.LABEL);
-        x.setTickLabelFont(Palette.TICK);
-        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(x);
-        plot.setGap(6);
-        plot.add(top, 3);
-        plot.add(bottom, 1);
-        JFreeChart c = new JFreeChart(title, Palette.TITLE, plot, true);
-        finish(c, top);
-        finish(c, bottom);
-        c.setBackgroundPaint(Color.WHITE);
+        JFreeChart c = withResiduals(title, domainLogAxis("time since the step [s]"), top, bottom);
         return new Figure(stem, "The " + type.test() + " test of " + shortName(d.sample().name()) + ": the measured " + type.quantity()
                 + " " + symbol + " of each replicate against time, " + (best == null ? "no model converged"
                 : "the best-supported model " + best.model() + " fitted to all of them") + ", and the residuals of that fit. The E′ and "
@@ -259,13 +262,13 @@ public final class Figures {
      */
     public static Figure fit(Sample s, FittedCurve curve, String stem, boolean reduced) {
         String m = s.kind().letter();
-        List<Aggregate> agg = aggregate(s);
+        PlotData pd = PlotData.of(s, curve);
         YIntervalSeriesCollection measured = new YIntervalSeriesCollection();
         YIntervalSeries ms = new YIntervalSeries(m + "′ measured (mean ± SD of replicates)");
         YIntervalSeries ml = new YIntervalSeries(m + "″ measured");
-        for (Aggregate a : agg) {
-            ms.add(a.f(), a.storage(), a.storageLo(), a.storageHi());
-            ml.add(a.f(), a.loss(), a.lossLo(), a.lossHi());
+        for (int i = 0; i < pd.frequencyHz().length; i++) {
+            ms.add(pd.frequencyHz()[i], pd.storage()[i], pd.storageLow()[i], pd.storageHigh()[i]);
+            ml.add(pd.frequencyHz()[i], pd.loss()[i], pd.lossLow()[i], pd.lossHigh()[i]);
         }
         measured.addSeries(ms);
         measured.addSeries(ml);
@@ -291,15 +294,12 @@ public final class Figures {
         residuals.addRangeMarker(new ValueMarker(0, Color.GRAY, new BasicStroke(0.8f)));
         String title = shortName(s.name());
         if (curve != null) {
-            double[] p = curve.params();
             YIntervalSeriesCollection model = new YIntervalSeriesCollection();
             YIntervalSeries cs = new YIntervalSeries(curve.model().id() + " " + m + "′ (95 % band)");
             YIntervalSeries cl = new YIntervalSeries(curve.model().id() + " " + m + "″");
-            for (int k = 0; k < CURVE_POINTS; k++) {
-                double f = s.minFrequencyHz() * Math.pow(s.maxFrequencyHz() / s.minFrequencyHz(), k / (double) (CURVE_POINTS - 1));
-                double[] band = logBand(curve, p, f);
-                cs.add(f, band[0], band[0] * Math.exp(-Z95 * band[1]), band[0] * Math.exp(Z95 * band[1]));
-                cl.add(f, band[2], band[2] * Math.exp(-Z95 * band[3]), band[2] * Math.exp(Z95 * band[3]));
+            for (int k = 0; k < pd.curveHz().length; k++) {
+                cs.add(pd.curveHz()[k], pd.curveStorage()[k], pd.curveStorageLow()[k], pd.curveStorageHigh()[k]);
+                cl.add(pd.curveHz()[k], pd.curveLoss()[k], pd.curveLossLow()[k], pd.curveLossHigh()[k]);
             }
             model.addSeries(cs);
             model.addSeries(cl);
@@ -316,11 +316,9 @@ public final class Figures {
             XYSeriesCollection res = new XYSeriesCollection();
             XYSeries rs = new XYSeries(m + "′ residual");
             XYSeries rl = new XYSeries(m + "″ residual");
-            double[] out = new double[2];
-            for (Aggregate a : agg) {
-                curve.model().modulus(2 * Math.PI * a.f(), p, out);
-                rs.add(a.f(), Math.log(out[0] / a.storage()));
-                rl.add(a.f(), Math.log(out[1] / a.loss()));
+            for (int i = 0; i < pd.frequencyHz().length; i++) {
+                rs.add(pd.frequencyHz()[i], pd.residualStorage()[i]);
+                rl.add(pd.frequencyHz()[i], pd.residualLoss()[i]);
             }
             res.addSeries(rs);
             res.addSeries(rl);
@@ -328,14 +326,7 @@ public final class Figures {
             title = shortName(s.name()) + ": " + curve.model().id() + (curve.covariance() == null
                     ? " (best supported; parameters not determined by the data)" : " (best supported)");
         }
-        CombinedDomainXYPlot plot = new CombinedDomainXYPlot(frequencyAxis(reduced));
-        plot.setGap(6);
-        plot.add(top, 3);
-        plot.add(residuals, 1);
-        JFreeChart c = new JFreeChart(title, Palette.TITLE, plot, true);
-        finish(c, top);
-        finish(c, residuals);
-        c.setBackgroundPaint(Color.WHITE);
+        JFreeChart c = withResiduals(title, frequencyAxis(reduced), top, residuals);
         return new Figure(stem, "Storage and loss moduli of " + shortName(s.name()) + " against frequency (replicate mean ± SD), the "
                 + (curve == null ? "no model converged" : "best-supported model " + curve.model().id() + " with its 95 % band")
                 + ", and the residuals of the fit on a log scale.", c);

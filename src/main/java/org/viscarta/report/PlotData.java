@@ -25,7 +25,8 @@ public record PlotData(double[] frequencyHz, double[] storage, double[] storageL
                        double[] curveStorageLow, double[] curveStorageHigh, double[] curveLoss, double[] curveLossLow,
                        double[] curveLossHigh, double[] residualStorage, double[] residualLoss) {
 
-    private static final int CURVE_POINTS = 60;
+    private static final int CURVE_POINTS = Figures.CURVE_POINTS;
+    /** Normal quantile of a two-sided 95 % band (the band is on log moduli, by the delta method). */
     private static final double Z95 = 1.959963984540054;
 
     /** The plot of a sample and (when one converged) its best model's curve. */

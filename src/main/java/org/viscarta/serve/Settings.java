@@ -18,7 +18,6 @@ import org.viscarta.compare.DampingRanking;
 import org.viscarta.compare.RankingPoint;
 import org.viscarta.fit.Weighting;
 import org.viscarta.sweep.ModulusKind;
-import org.viscarta.sweep.Quantity;
 import org.viscarta.sweep.Unit;
 import org.viscarta.temperature.ShiftAnalysis;
 
@@ -174,17 +173,11 @@ final class Settings {
     }
 
     private static double frequency(String field, String value) {
-        Unit.Valued v;
         try {
-            v = Unit.parse(value, Quantity.Dimension.FREQUENCY, Quantity.Dimension.ANGULAR_FREQUENCY);
+            return Unit.frequencyHz(value);
         } catch (IllegalArgumentException e) {
-            throw ApiError.badRequest(field + ": " + e.getMessage() + " (a frequency: e.g. 1, 1Hz, 0.5 Hz or 6.28rad/s)");
+            throw ApiError.badRequest(field + ": " + e.getMessage());
         }
-        double hz = v.dimension() == Quantity.Dimension.ANGULAR_FREQUENCY ? v.si() / (2 * Math.PI) : v.si();
-        if (!(hz > 0) || Double.isInfinite(hz)) {
-            throw ApiError.badRequest(field + ": frequency must be greater than zero, got '" + value + "'");
-        }
-        return hz;
     }
 
     private String text(String field, String fallback) {

@@ -106,6 +106,26 @@ public enum Unit {
     }
 
     /**
+     * A frequency with or without unit — {@code 1}, {@code 1Hz}, {@code 0.5 Hz}, {@code 2 kHz},
+     * {@code 6.28rad/s} — in Hz (a bare number is in Hz), as options and settings give it.
+     *
+     * @throws IllegalArgumentException saying what a frequency looks like, or that it must be positive
+     */
+    public static double frequencyHz(String value) {
+        Valued v;
+        try {
+            v = parse(value, Quantity.Dimension.FREQUENCY, Quantity.Dimension.ANGULAR_FREQUENCY);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException(e.getMessage() + " (a frequency: e.g. 1, 1Hz, 0.5 Hz or 6.28rad/s)");
+        }
+        double hz = v.dimension() == Quantity.Dimension.ANGULAR_FREQUENCY ? v.si() / (2 * Math.PI) : v.si();
+        if (!(hz > 0) || Double.isInfinite(hz)) {
+            throw new IllegalArgumentException("frequency must be greater than zero, got '" + value + "'");
+        }
+        return hz;
+    }
+
+    /**
      * A value with its unit, such as {@code 0.5 Hz}, {@code 2kHz} or {@code 6.28 rad/sec}, in SI units of
      * its dimension — the one parser behind column headers and option values. The unit must be of
      * one of the given dimensions (an empty unit is the first dimension's SI unit).
