@@ -96,6 +96,7 @@ public final class Analysis {
             inputs = inputs.withSamples(timeTests.stream().map(TimeTests.Derived::sample).toList(), notes);
         }
         if (request.parts().contains(AnalysisRequest.Part.SPECTRA)) {
+            progress.stage(Progress.Stage.SPECTRA, 0);
             samples = samples.parallelStream().map(sa -> {
                 try {
                     return sa.withSpectrum(Optional.of(org.viscarta.spectrum.RelaxationSpectrum.of(sa.sample().pooledFittablePoints(),
@@ -131,6 +132,7 @@ public final class Analysis {
         Optional<AnalysisResult.Mimic> mimic = mimic(request, samples, distance);
         Maps maps = Maps.none();
         if (request.parts().contains(AnalysisRequest.Part.MAPS) && !inputs.positioned().isEmpty()) {
+            progress.stage(Progress.Stage.MAPS, 0);
             double hz = request.rankingPoint() instanceof org.viscarta.compare.RankingPoint.At at ? at.hz() : 1.0;
             maps = Maps.of(inputs.positioned(), org.viscarta.map.MapSetup.Given.none(), hz, request.alpha(), List.of(),
                     request.library().orElse(null), request.reading());

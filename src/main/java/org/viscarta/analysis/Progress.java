@@ -5,7 +5,7 @@ public interface Progress {
 
     /** The stages of an analysis, in the order they run. */
     enum Stage {
-        READING, CHECKING, TRANSITIONS, MASTER_CURVES, FITTING, RANKING, MATCHING, DONE
+        READING, CHECKING, TRANSITIONS, MASTER_CURVES, FITTING, SPECTRA, RANKING, MATCHING, MAPS, DONE
     }
 
     /** Says nothing. */

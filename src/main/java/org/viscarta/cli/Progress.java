@@ -4,8 +4,14 @@ import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.concurrent.atomic.AtomicInteger;
 
-/** "fitting 120/10000 samples" on stderr, only when stderr is a terminal and not --quiet. */
+/**
+ * "fitting 120/10000 samples" on stderr, only when stderr is a terminal and not --quiet. With the
+ * system property {@code viscarta.timings} set (a developer's switch the benchmarks use), each
+ * stage's wall time is printed on stderr when the next begins.
+ */
 final class Progress implements org.viscarta.analysis.Progress {
+
+    private static final boolean TIMINGS = Boolean.getBoolean("viscarta.timings");
 
     private final PrintWriter err;
     private final boolean active;
@@ -14,6 +20,7 @@ final class Progress implements org.viscarta.analysis.Progress {
     private final AtomicInteger done = new AtomicInteger();
     private volatile long last;
     private volatile boolean printed;
+    private volatile long stageStarted = System.nanoTime();
 
     Progress(PrintWriter err, boolean quiet) {
         this.err = err;
@@ -23,6 +30,7 @@ final class Progress implements org.viscarta.analysis.Progress {
     @Override
     public void stage(Stage stage, int items) {
         endLine();
+        lap(what.isEmpty() ? "start" : what);
         what = stage.name().toLowerCase(Locale.ROOT);
         total = items;
         done.set(0);
@@ -40,6 +48,18 @@ final class Progress implements org.viscarta.analysis.Progress {
                 printed = true;
             }
         }
+    }
+
+    /** With {@code viscarta.timings}: the wall time since the last lap, on stderr. */
+    void lap(String name) {
+        long now = System.nanoTime();
+        if (TIMINGS) {
+            synchronized (err) {
+                err.printf(Locale.ROOT, "timing: %s %.2f s%n", name, (now - stageStarted) / 1e9);
+                err.flush();
+            }
+        }
+        stageStarted = now;
     }
 
     private void endLine() {

@@ -50,11 +50,12 @@ final class ReportCommand implements Callable<Integer> {
         ReportFiles files = new ReportFiles(output.out);
         files.checkWritable(output.force);
         Instant stated = report.stated(spec.commandLine());
-        AnalysisResult result = Analysis.run(request, new Progress(spec.commandLine().getErr(), output.quiet));
+        Progress progress = new Progress(spec.commandLine().getErr(), output.quiet);
+        AnalysisResult result = Analysis.run(request, progress);
         Warnings.print(spec, result.inputs());
         Provenance provenance = new Provenance(VersionProvider.version(),
                 Provenance.quote("viscarta", spec.commandLine().getParseResult().originalArgs()), stated.toString());
-        List<RenderedFigure> figures = files.write(new ReportContent(result, provenance), output.force);
+        List<RenderedFigure> figures = files.write(new ReportContent(result, provenance), output.force, progress::lap);
         PrintWriter out = spec.commandLine().getOut();
         out.printf("%d sample(s) from %d file(s); %d model(s) each; ranked at %s%n", result.samples().size(),
                 result.inputs().files().size(), request.modelIds().size(), request.rankingPoint().describe());

@@ -76,12 +76,20 @@ public record ReportFiles(Path folder) {
      * @return the figures written
      */
     public List<RenderedFigure> write(ReportContent content, boolean force) throws IOException {
+        return write(content, force, step -> {
+        });
+    }
+
+    /** As {@link #write(ReportContent, boolean)}, telling {@code done} the name of each step as it ends (for timings). */
+    public List<RenderedFigure> write(ReportContent content, boolean force, java.util.function.Consumer<String> done)
+            throws IOException {
         Path target = folder.toAbsolutePath().normalize();
         Path parent = target.getParent();
         Files.createDirectories(parent);
         String prefix = "." + target.getFileName() + ".";
         recoverStopped(parent, prefix, target);
         List<RenderedFigure> figures = ReportFigures.render(ReportFigures.build(content.result()));
+        done.accept("figures");
         Path stage = Files.createTempDirectory(parent, prefix + "staging-");
         try (FileChannel ch = FileChannel.open(stage.resolve(LOCK), StandardOpenOption.CREATE, StandardOpenOption.WRITE);
              FileLock held = ch.lock()) {
@@ -95,10 +103,12 @@ public record ReportFiles(Path folder) {
                     new org.apache.poi.util.DefaultTempFileCreationStrategy(Files.createDirectory(stage.resolve("poi")).toFile()));
             try (OutputStream o = Files.newOutputStream(stage.resolve(WORKBOOK))) {
                 WorkbookReport.write(content, figures, o);
+                done.accept("workbook");
             } finally {
                 org.apache.poi.util.TempFile.setTempFileCreationStrategy(new org.apache.poi.util.DefaultTempFileCreationStrategy());
             }
             Files.writeString(stage.resolve(PAGE), HtmlReport.write(content, figures), StandardCharsets.UTF_8);
+            done.accept("page");
             checkWritable(force);
             moveIntoPlace(stage, target, parent, prefix);
         } finally {

@@ -15,8 +15,21 @@ final class Job implements Progress {
 
     enum State { QUEUED, RUNNING, DONE, FAILED }
 
-    private static final String[] STAGE_LABELS = {"reading the files", "checking quality", "locating glass transitions",
-        "building master curves", "fitting models", "ranking by damping", "matching against the library", "analysis done"};
+    /** What the page says of a stage (a switch, so that a new stage cannot go without its words). */
+    private static String label(Stage s) {
+        return switch (s) {
+            case READING -> "reading the files";
+            case CHECKING -> "checking quality";
+            case TRANSITIONS -> "locating glass transitions";
+            case MASTER_CURVES -> "building master curves";
+            case FITTING -> "fitting models";
+            case SPECTRA -> "computing relaxation spectra";
+            case RANKING -> "ranking by damping";
+            case MATCHING -> "matching against the library";
+            case MAPS -> "analysing the maps";
+            case DONE -> "analysis done";
+        };
+    }
 
     final String id;
     final Path folder;
@@ -102,7 +115,7 @@ final class Job implements Progress {
             case RUNNING -> writing ? 0.95 : 0.9 * (stage.ordinal() + within) / stages;
         };
         m.put("fraction", fraction);
-        m.put("stage", writing ? "writing the workbook, page and figures" : STAGE_LABELS[stage.ordinal()]);
+        m.put("stage", writing ? "writing the workbook, page and figures" : label(stage));
         m.put("steps_done", done.get());
         m.put("steps", items);
         long end = finishedNanos != 0 ? finishedNanos : System.nanoTime();

@@ -78,6 +78,146 @@ public final class Nnls {
         return x;
     }
 
+    /**
+     * The same problem given by its normal equations, G = AᵀA and c = Aᵀb: the same active-set
+     * algorithm with each unconstrained sub-problem solved by a Cholesky factorisation of G on the
+     * passive set (k³/3 operations against QR's 2·m·k² on A, and no copy of A). Squaring A's
+     * condition number makes this the fast path for well-posed (regularised) problems only: where a
+     * sub-problem is not numerically positive definite it gives up and returns null, and the caller
+     * uses {@link #solve(double[][], double[])}.
+     *
+     * @param g   AᵀA, n × n (not changed)
+     * @param c   Aᵀb
+     * @param tol the gradient tolerance below which a variable stays at zero (as {@link #solve} computes it)
+     * @return x ≥ 0 minimising ‖A x − b‖, or null when a sub-problem is not positive definite
+     */
+    public static double[] solveNormal(double[][] g, double[] c, double tol) {
+        int n = c.length;
+        double[] x = new double[n];
+        boolean[] passive = new boolean[n];
+        double[] w = new double[n];
+        int maxIter = 3 * n + 50;
+        for (int iter = 0; iter < maxIter; iter++) {
+            for (int j = 0; j < n; j++) {
+                double s = c[j];
+                double[] gj = g[j];
+                for (int i = 0; i < n; i++) {
+                    s -= gj[i] * x[i];
+                }
+                w[j] = s;
+            }
+            int best = -1;
+            double wMax = tol;
+            for (int j = 0; j < n; j++) {
+                if (!passive[j] && w[j] > wMax) {
+                    wMax = w[j];
+                    best = j;
+                }
+            }
+            if (best < 0) {
+                return x;
+            }
+            passive[best] = true;
+            while (true) {
+                double[] z = choleskyOn(g, c, passive);
+                if (z == null) {
+                    return null;
+                }
+                boolean feasible = true;
+                for (int j = 0; j < n; j++) {
+                    if (passive[j] && z[j] <= 0) {
+                        feasible = false;
+                        break;
+                    }
+                }
+                if (feasible) {
+                    x = z;
+                    break;
+                }
+                double alpha = Double.POSITIVE_INFINITY;
+                for (int j = 0; j < n; j++) {
+                    if (passive[j] && z[j] <= 0) {
+                        alpha = Math.min(alpha, x[j] / (x[j] - z[j]));
+                    }
+                }
+                for (int j = 0; j < n; j++) {
+                    x[j] += alpha * (z[j] - x[j]);
+                    if (passive[j] && Math.abs(x[j]) <= tol) {
+                        passive[j] = false;
+                        x[j] = 0;
+                    }
+                }
+                if (!anyPassive(passive)) {
+                    break;
+                }
+            }
+        }
+        return x;
+    }
+
+    /** G_PP z_P = c_P by Cholesky; the other entries 0; null when G_PP is not numerically positive definite. */
+    private static double[] choleskyOn(double[][] g, double[] c, boolean[] passive) {
+        int n = passive.length;
+        int k = 0;
+        int[] index = new int[n];
+        for (int j = 0; j < n; j++) {
+            if (passive[j]) {
+                index[k++] = j;
+            }
+        }
+        double[][] l = new double[k][k];
+        if (!cholesky(g, index, k, l)) {
+            return null;
+        }
+        double[] y = new double[k];
+        for (int i = 0; i < k; i++) {
+            double s = c[index[i]];
+            for (int j = 0; j < i; j++) {
+                s -= l[i][j] * y[j];
+            }
+            y[i] = s / l[i][i];
+        }
+        for (int i = k - 1; i >= 0; i--) {
+            double s = y[i];
+            for (int j = i + 1; j < k; j++) {
+                s -= l[j][i] * y[j];
+            }
+            y[i] = s / l[i][i];
+        }
+        double[] z = new double[n];
+        for (int i = 0; i < k; i++) {
+            z[index[i]] = y[i];
+        }
+        return z;
+    }
+
+    /**
+     * The lower Cholesky factor of G restricted to the first k of {@code index}, into l; false when
+     * a pivot is not clearly positive (relative to its diagonal entry: 1e-13, well above rounding).
+     */
+    static boolean cholesky(double[][] g, int[] index, int k, double[][] l) {
+        for (int i = 0; i < k; i++) {
+            double[] gi = g[index[i]];
+            for (int j = 0; j <= i; j++) {
+                double s = gi[index[j]];
+                double[] li = l[i];
+                double[] lj = l[j];
+                for (int p = 0; p < j; p++) {
+                    s -= li[p] * lj[p];
+                }
+                if (i == j) {
+                    if (!(s > 1e-13 * gi[index[i]])) {
+                        return false;
+                    }
+                    li[i] = Math.sqrt(s);
+                } else {
+                    li[j] = s / lj[j];
+                }
+            }
+        }
+        return true;
+    }
+
     private static boolean anyPassive(boolean[] p) {
         for (boolean v : p) {
             if (v) {

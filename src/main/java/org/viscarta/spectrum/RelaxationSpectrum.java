@@ -140,17 +140,122 @@ public final class RelaxationSpectrum {
     private RelaxationSpectrum() {
     }
 
-    /** The spectrum with λ chosen by GCV. */
+    /**
+     * The spectrum with λ chosen by GCV. The scan over λ solves each problem through its normal
+     * equations ({@link Nnls#solveNormal}: KᵀK and LᵀL formed once, λ changing only their sum),
+     * and the spectrum at the λ chosen is then solved as {@link #at} solves it, by QR on the
+     * stacked matrix, with its band. Where a normal-equation solve is not positive definite, that λ
+     * is scored through {@link #at} instead.
+     */
     public static Result of(List<SweepPoint> points, Kind kind) {
-        Result best = null;
-        for (int k = 0; k < LAMBDA_STEPS; k++) {
-            double lambda = Math.pow(10, LAMBDA_LOW + (LAMBDA_HIGH - LAMBDA_LOW) * k / (LAMBDA_STEPS - 1));
-            Result r = at(points, kind, lambda);
-            if (best == null || r.gcv() < best.gcv()) {
-                best = r;
+        Problem pr = problem(points, kind);
+        int m = pr.tau.length;
+        int n = pr.k.length;
+        int cols = pr.k[0].length;
+        double[][] ktk = new double[cols][cols];
+        double[] ktb = new double[cols];
+        double[] colK = new double[cols];
+        for (int p = 0; p < cols; p++) {
+            for (int i = 0; i < n; i++) {
+                ktb[p] += pr.k[i][p];
+                colK[p] += Math.abs(pr.k[i][p]);
+            }
+            for (int q = 0; q <= p; q++) {
+                double s = 0;
+                for (int i = 0; i < n; i++) {
+                    s += pr.k[i][p] * pr.k[i][q];
+                }
+                ktk[p][q] = s;
+                ktk[q][p] = s;
             }
         }
-        return best;
+        // LᵀL of the second differences (1, −2, 1) on the spectrum's m entries, and L's column sums of |·|
+        double[][] ltl = new double[cols][cols];
+        double[] colL = new double[cols];
+        double[] stencil = {1, -2, 1};
+        for (int i = 0; i < m - 2; i++) {
+            for (int a = 0; a < 3; a++) {
+                colL[i + a] += Math.abs(stencil[a]);
+                for (int b = 0; b < 3; b++) {
+                    ltl[i + a][i + b] += stencil[a] * stencil[b];
+                }
+            }
+        }
+        double bestLambda = Double.NaN;
+        double bestGcv = Double.POSITIVE_INFINITY;
+        double[][] g = new double[cols][cols];
+        for (int step = 0; step < LAMBDA_STEPS; step++) {
+            double lambda = Math.pow(10, LAMBDA_LOW + (LAMBDA_HIGH - LAMBDA_LOW) * step / (LAMBDA_STEPS - 1));
+            double norm1 = 0;
+            for (int p = 0; p < cols; p++) {
+                for (int q = 0; q < cols; q++) {
+                    g[p][q] = ktk[p][q] + lambda * lambda * ltl[p][q];
+                }
+                norm1 = Math.max(norm1, colK[p] + lambda * colL[p]);
+            }
+            double tol = 10 * Math.ulp(1.0) * norm1 * Math.max(n + m - 2, cols);
+            double[] x = Nnls.solveNormal(g, ktb, tol);
+            double gcv = x == null ? Double.NaN : gcv(pr, x, ktk, g);
+            if (Double.isNaN(gcv)) {
+                gcv = at(points, kind, lambda).gcv();
+            }
+            if (gcv < bestGcv) {
+                bestGcv = gcv;
+                bestLambda = lambda;
+            }
+        }
+        return at(points, kind, Double.isNaN(bestLambda) ? Math.pow(10, LAMBDA_LOW) : bestLambda);
+    }
+
+    /**
+     * GCV = n·RSS/(n − tr A)² of a solution x, tr A = tr(M_ff⁻¹ (KᵀK)_ff) on its non-zero entries
+     * f (M = KᵀK + λ²LᵀL, given as g); NaN when M_ff is not positive definite.
+     */
+    private static double gcv(Problem pr, double[] x, double[][] ktk, double[][] g) {
+        int n = pr.k.length;
+        int cols = x.length;
+        double rss = 0;
+        for (int i = 0; i < n; i++) {
+            double s = -1;
+            for (int j = 0; j < cols; j++) {
+                s += pr.k[i][j] * x[j];
+            }
+            rss += s * s;
+        }
+        int[] free = new int[cols];
+        int f = 0;
+        for (int j = 0; j < cols; j++) {
+            if (x[j] > 0) {
+                free[f++] = j;
+            }
+        }
+        double trace = 0;
+        if (f > 0) {
+            double[][] l = new double[f][f];
+            if (!Nnls.cholesky(g, free, f, l)) {
+                return Double.NaN;
+            }
+            // tr(M⁻¹ K) = Σ_q (M⁻¹ K_q)_q over the columns q of K = (KᵀK)_ff
+            double[] y = new double[f];
+            for (int q = 0; q < f; q++) {
+                for (int i = 0; i < f; i++) {
+                    double s = ktk[free[i]][free[q]];
+                    for (int j = 0; j < i; j++) {
+                        s -= l[i][j] * y[j];
+                    }
+                    y[i] = s / l[i][i];
+                }
+                for (int i = f - 1; i >= 0; i--) {
+                    double s = y[i];
+                    for (int j = i + 1; j < f; j++) {
+                        s -= l[j][i] * y[j];
+                    }
+                    y[i] = s / l[i][i];
+                }
+                trace += y[q];
+            }
+        }
+        return n * rss / Math.pow(Math.max(1e-9, n - trace), 2);
     }
 
     /** The spectrum at a given λ. */

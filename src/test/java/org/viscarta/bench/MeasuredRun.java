@@ -1,0 +1,47 @@
+package org.viscarta.bench;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.lang.management.ManagementFactory;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+import org.viscarta.cli.Viscarta;
+
+/**
+ * Runs one command line of {@code viscarta} exactly as a user would (same entry point, same
+ * options) and prints its wall time and peak resident memory, so that benchmarks measure the
+ * command and not a subset of it. Started in a JVM of its own by {@link Benchmarks} with the heap
+ * and core count under test.
+ */
+public final class MeasuredRun {
+
+    private MeasuredRun() {
+    }
+
+    public static void main(String[] args) throws IOException {
+        long jvmStart = ManagementFactory.getRuntimeMXBean().getStartTime();
+        long t0 = System.nanoTime();
+        int code = Viscarta.execute(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true));
+        double seconds = (System.nanoTime() - t0) / 1e9;
+        double sinceJvm = (System.currentTimeMillis() - jvmStart) / 1e3;
+        System.out.printf(Locale.ROOT, "measured: exit %d, %.2f s in the command, %.2f s since the JVM started, peak resident %s%n",
+                code, seconds, sinceJvm, peakResident());
+        System.exit(code);
+    }
+
+    /** VmHWM of /proc/self/status (Linux), else "unknown". */
+    static String peakResident() throws IOException {
+        Path status = Path.of("/proc/self/status");
+        if (!Files.isReadable(status)) {
+            return "unknown";
+        }
+        for (String line : Files.readAllLines(status)) {
+            if (line.startsWith("VmHWM:")) {
+                long kb = Long.parseLong(line.replaceAll("[^0-9]", ""));
+                return String.format(Locale.ROOT, "%d MB", kb >> 10);
+            }
+        }
+        return "unknown";
+    }
+}
