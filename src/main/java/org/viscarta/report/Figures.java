@@ -563,6 +563,154 @@ public final class Figures {
         return new Figure("tan-delta", caption + " One panel per group.", c, height);
     }
 
+    /** Width of the bins in which many samples' curves are summarised [decades]. */
+    static final double BIN_DECADES = 0.2;
+    /** Fewest samples a bin needs before its quantiles are drawn. */
+    static final int BIN_MIN_SAMPLES = 5;
+
+    /** One curve of a sample: x and y values, both positive (drawn on log axes). */
+    record Curve(String group, double[] x, double[] y) {
+    }
+
+    /**
+     * The distribution of many samples' curves: for each group (all samples pooled when there are
+     * more groups than colours), in bins of {@value #BIN_DECADES} decade of x, each sample's
+     * geometric mean in the bin (its arithmetic mean where it has zeros), and across the samples
+     * the median or, with {@code mean}, the mean (a line), the quartiles (a band) and the 10th and 90th percentiles (thin dashed
+     * lines). A bin is drawn where at least {@value #BIN_MIN_SAMPLES} samples have points in it.
+     *
+     * @param floor values below it are drawn at it (a log axis cannot show zero); 0 for none
+     * @return the plot: one band and two dashed lines per group
+     */
+    private static XYPlot distributionPlot(List<Curve> curves, LogAxis x, LogAxis y, double floor, boolean mean) {
+        Map<String, List<Curve>> byGroup = new java.util.LinkedHashMap<>();
+        for (Curve c : curves) {
+            byGroup.computeIfAbsent(c.group().isEmpty() ? "no group" : c.group(), g -> new ArrayList<>()).add(c);
+        }
+        if (byGroup.size() > Palette.colours()) {
+            byGroup = Map.of("all samples", curves);
+        }
+        YIntervalSeriesCollection bands = new YIntervalSeriesCollection();
+        XYSeriesCollection tails = new XYSeriesCollection();
+        for (Map.Entry<String, List<Curve>> e : byGroup.entrySet()) {
+            Map<Long, List<double[]>> bins = new TreeMap<>();
+            for (Curve c : e.getValue()) {
+                Map<Long, double[]> own = new java.util.HashMap<>(); // bin → {Σ ln x, Σ y, Σ ln y, n, zeros}
+                for (int i = 0; i < c.x().length; i++) {
+                    if (!(c.x()[i] > 0) || !(c.y()[i] >= 0) || !Double.isFinite(c.y()[i])) {
+                        continue;
+                    }
+                    long bin = (long) Math.floor(Math.log10(c.x()[i]) / BIN_DECADES);
+                    double[] acc = own.computeIfAbsent(bin, b -> new double[5]);
+                    acc[0] += Math.log(c.x()[i]);
+                    acc[1] += c.y()[i];
+                    acc[2] += c.y()[i] > 0 ? Math.log(c.y()[i]) : 0;
+                    acc[3]++;
+                    acc[4] += c.y()[i] > 0 ? 0 : 1;
+                }
+                own.forEach((bin, acc) -> bins.computeIfAbsent(bin, b -> new ArrayList<>())
+                        .add(new double[] {acc[0] / acc[3], acc[4] > 0 ? acc[1] / acc[3] : Math.exp(acc[2] / acc[3])}));
+            }
+            String key = shortName(e.getKey()) + String.format(Locale.ROOT, " (%,d): ", e.getValue().size())
+                    + (mean ? "mean, quartiles" : "median, quartiles");
+            YIntervalSeries band = new YIntervalSeries(key);
+            XYSeries p10 = new XYSeries(e.getKey() + " p10");
+            XYSeries p90 = new XYSeries(e.getKey() + " p90");
+            for (List<double[]> bin : bins.values()) {
+                if (bin.size() < BIN_MIN_SAMPLES) {
+                    continue;
+                }
+                double xm = Math.exp(bin.stream().mapToDouble(v -> v[0]).average().orElseThrow());
+                double[] v = bin.stream().mapToDouble(b -> Math.max(b[1], floor)).sorted().toArray();
+                double centre = mean ? java.util.Arrays.stream(v).average().orElseThrow() : quantile(v, 0.5);
+                band.add(xm, centre, quantile(v, 0.25), quantile(v, 0.75));
+                p10.add(xm, quantile(v, 0.10));
+                p90.add(xm, quantile(v, 0.90));
+            }
+            bands.addSeries(band);
+            tails.addSeries(p10);
+            tails.addSeries(p90);
+        }
+        XYPlot plot = new XYPlot(bands, x, y, null);
+        DeviationRenderer lines = new DeviationRenderer(true, false);
+        lines.setDrawSeriesLineAsPath(true);
+        XYLineAndShapeRenderer dashed = new XYLineAndShapeRenderer(true, false);
+        for (int i = 0; i < bands.getSeriesCount(); i++) {
+            lines.setSeriesPaint(i, Palette.colour(i));
+            lines.setSeriesFillPaint(i, Palette.band(i));
+            lines.setSeriesStroke(i, Palette.line(i));
+            for (int t = 0; t < 2; t++) {
+                dashed.setSeriesPaint(2 * i + t, Palette.colour(i));
+                dashed.setSeriesStroke(2 * i + t, new java.awt.BasicStroke(0.6f, java.awt.BasicStroke.CAP_BUTT,
+                        java.awt.BasicStroke.JOIN_MITER, 10f, new float[] {2f, 2f}, 0f));
+                dashed.setSeriesVisibleInLegend(2 * i + t, false);
+            }
+        }
+        lines.setAlpha(0.25f);
+        plot.setRenderer(0, lines);
+        plot.setDataset(1, tails);
+        plot.setRenderer(1, dashed);
+        return plot;
+    }
+
+    /** The q-quantile of sorted values, linear between order statistics (the common "type 7" definition). */
+    static double quantile(double[] sorted, double q) {
+        double h = (sorted.length - 1) * q;
+        int lo = (int) Math.floor(h);
+        int hi = Math.min(sorted.length - 1, lo + 1);
+        return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+    }
+
+    /** Words for a distribution figure's caption. */
+    private static String distributionWords(int samples, boolean mean) {
+        return " With " + String.format(Locale.ROOT, "%,d", samples) + " samples, the figure shows their distribution instead of one "
+                + "curve each: in bins of " + BIN_DECADES + " decade, the " + (mean ? "mean" : "median") + " across samples (line"
+                + (mean ? "; the spectrum of the samples' mean modulus, as E* is linear in H" : "") + "), the quartiles (band) and "
+                + "the 10th and 90th percentiles (dashed), where at least " + BIN_MIN_SAMPLES + " samples have points; every "
+                + "sample's values are in the workbook.";
+    }
+
+    /** tan δ against frequency of many samples as a distribution (see {@link #distributionPlot}). */
+    public static Figure tanDeltaDistribution(List<Sample> samples, int seriesLeftOut) {
+        List<Curve> curves = new ArrayList<>();
+        for (Sample s : samples) {
+            List<Aggregate> agg = aggregate(s);
+            curves.add(new Curve(s.group(), agg.stream().mapToDouble(Aggregate::f).toArray(),
+                    agg.stream().mapToDouble(Aggregate::tanDelta).toArray()));
+        }
+        XYPlot plot = distributionPlot(curves, frequencyAxis(), logAxis("loss tangent tan δ [–]"), 0, false);
+        String caption = "Loss tangent tan δ = E″/E′ against frequency (geometric mean of each sample's replicates); higher means "
+                + "more damping." + distributionWords(samples.size(), false)
+                + (seriesLeftOut > 0 ? " The " + seriesLeftOut + " single temperatures of temperature series are left out; their "
+                + "master curves are in." : "");
+        return new Figure("tan-delta", caption, chart("Loss tangent of " + String.format(Locale.ROOT, "%,d", samples.size())
+                + " samples: distribution", plot, true));
+    }
+
+    /** Relaxation spectra of many samples as a distribution (see {@link #distributionPlot}). */
+    public static Figure spectraDistribution(List<SampleAnalysis> samples) {
+        List<Curve> curves = new ArrayList<>();
+        double top = 0;
+        for (SampleAnalysis sa : samples) {
+            var r = sa.spectrum().orElseThrow();
+            curves.add(new Curve(sa.sample().group(), r.tau(), r.h()));
+            top = Math.max(top, java.util.Arrays.stream(r.h()).max().orElse(0));
+        }
+        LogAxis tauAxis = logAxis("relaxation time τ [s]");
+        tauAxis.setNumberFormatOverride(new DecimalFormat("0.####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
+        LogAxis y = logAxis("H(τ)");
+        inModulusUnit(y, "H(τ)", top);
+        XYPlot plot = distributionPlot(curves, tauAxis, y, FLOOR * top, true);
+        y.setLowerBound(FLOOR * top * 0.8);
+        y.setAutoRange(false);
+        y.setUpperBound(top * 1.5);
+        return new Figure("spectra", "Relaxation spectra H(τ): how much modulus relaxes near each relaxation time τ, from E′ and "
+                + "E″ by regularised non-negative least squares over the measured window and half a decade beyond; peaks are "
+                + "relaxation processes; the bottom of the panel stands for zero." + distributionWords(samples.size(), true),
+                chart("Relaxation spectra of " + String.format(Locale.ROOT, "%,d", samples.size()) + " samples: distribution", plot,
+                        true));
+    }
+
     /** A panel's own legend, one entry a line, on a half-transparent white ground (placed by a {@link CornerTitle}). */
     private static org.jfree.chart.title.LegendTitle panelLegend(XYPlot panel) {
         org.jfree.chart.title.LegendTitle legend = new org.jfree.chart.title.LegendTitle(panel,
@@ -768,28 +916,58 @@ public final class Figures {
      * @param flagged display names of the samples with a quality concern
      */
     public static Figure ranking(org.viscarta.analysis.Ranking ranking, String at, java.util.Set<String> flagged) {
-        List<DampingRanking.Row<Sample>> ranked = new ArrayList<>();
-        ranking.sets().forEach(set -> set.result().rows().stream().filter(r -> r.rank() > 0).forEach(ranked::add));
+        int total = 0;
+        for (org.viscarta.analysis.Ranking.RankedSet set : ranking.sets()) {
+            total += (int) set.result().rows().stream().filter(r -> r.rank() > 0).count();
+        }
+        // a long ranking is drawn as the top and bottom of each set, with a row saying how many lie between
+        int perEnd = total <= RANKING_ROWS_DRAWN ? Integer.MAX_VALUE
+                : Math.max(3, RANKING_ROWS_DRAWN / 2 / Math.max(1, ranking.sets().size()));
+        List<List<DampingRanking.Row<Sample>>> drawn = new ArrayList<>();
+        int rows = 0;
+        int between = 0;
+        for (org.viscarta.analysis.Ranking.RankedSet set : ranking.sets()) {
+            List<DampingRanking.Row<Sample>> ranked = set.result().rows().stream().filter(r -> r.rank() > 0).toList();
+            List<DampingRanking.Row<Sample>> kept = new ArrayList<>();
+            for (int k = 0; k < ranked.size(); k++) {
+                if (k < perEnd || k >= ranked.size() - perEnd) {
+                    kept.add(ranked.get(k));
+                } else if (k == perEnd) {
+                    kept.add(null); // the gap
+                }
+            }
+            between += ranked.size() - (kept.contains(null) ? kept.size() - 1 : kept.size());
+            rows += kept.size();
+            drawn.add(kept);
+        }
         XYIntervalSeriesCollection data = new XYIntervalSeriesCollection();
-        String[] labels = new String[ranked.size()];
+        String[] labels = new String[rows];
         int i = 0;
+        int s = 0;
         for (org.viscarta.analysis.Ranking.RankedSet set : ranking.sets()) {
             XYIntervalSeries series = new XYIntervalSeries(set.label());
-            for (DampingRanking.Row<Sample> r : set.result().rows()) {
-                if (r.rank() == 0) {
+            List<DampingRanking.Row<Sample>> kept = drawn.get(s++);
+            int inSet = (int) set.result().rows().stream().filter(r -> r.rank() > 0).count();
+            for (DampingRanking.Row<Sample> r : kept) {
+                double y = rows - 1 - i;
+                if (r == null) {
+                    labels[rows - 1 - i] = "⋮ " + String.format(Locale.ROOT, "%,d", inSet - (kept.size() - 1))
+                            + " more, see the Damping ranking sheet";
+                    i++;
                     continue;
                 }
                 ReplicateSummary t = r.tanDelta();
-                double y = ranked.size() - 1 - i;
                 double lo = Double.isNaN(t.ci95Low()) ? t.mean() : t.ci95Low();
                 double hi = Double.isNaN(t.ci95High()) ? t.mean() : t.ci95High();
                 series.add(t.mean(), lo, hi, y, y, y);
-                labels[ranked.size() - 1 - i] = shortName(r.name()) + (flagged.contains(r.subject().name()) ? " (!)" : "")
-                        + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
+                labels[rows - 1 - i] = (perEnd < Integer.MAX_VALUE ? r.rank() + ". " : "") + shortName(r.name())
+                        + (flagged.contains(r.subject().name()) ? " (!)" : "") + (r.letters().isEmpty() ? "" : "  [" + r.letters() + "]");
                 i++;
             }
             data.addSeries(series);
         }
+        final int drawnRows = rows;
+        final int leftBetween = between;
         NumberAxis x = new NumberAxis("loss tangent tan δ at " + at + " [–]");
         x.setLabelFont(Palette.LABEL);
         x.setTickLabelFont(Palette.TICK);
@@ -810,12 +988,17 @@ public final class Figures {
         XYPlot plot = new XYPlot(data, x, y, r);
         JFreeChart c = chart("Damping ranking (within a set, samples sharing a letter are not distinguishable)", plot,
                 data.getSeriesCount() > 1);
-        int height = Math.max(Figure.HEIGHT_PT, 90 + ROW_PT * ranked.size());
+        int height = Math.max(Figure.HEIGHT_PT, 90 + ROW_PT * drawnRows);
         return new Figure("damping-ranking", "Mean tan δ at " + at + " of each ranked sample with its 95 % interval over "
                 + "replicates, highest damping at the top of each comparable set; the letters in brackets are the letter "
                 + "groups, comparable within a set only." + (flagged.isEmpty() ? "" : " (!) marks a sample whose quality checks "
-                + "did not all pass (see Quality)."), c, height);
+                + "did not all pass (see Quality).") + (leftBetween == 0 ? "" : " With " + String.format(Locale.ROOT, "%,d", total)
+                + " ranked samples, the figure shows the top and bottom " + perEnd + " of each comparable set, numbered by rank; the "
+                + String.format(Locale.ROOT, "%,d", leftBetween) + " between are in the Damping ranking sheet."), c, height);
     }
+
+    /** Most rows the ranking figure draws; a longer ranking shows the top and bottom of each set. */
+    static final int RANKING_ROWS_DRAWN = 60;
 
     /** Height given to each sample's row in the ranking figure [points]: room for its label. */
     static final int ROW_PT = 18;

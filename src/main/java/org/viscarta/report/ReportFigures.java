@@ -18,7 +18,11 @@ import org.viscarta.temperature.TemperatureSeries;
 /** Chooses and builds the figures of a report. */
 public final class ReportFigures {
 
-    /** Above this many samples, per-sample figures are left out (the overview figures remain). */
+    /**
+     * Above this many samples, per-sample figures are left out, the overview figures of tan δ and
+     * spectra show distributions across samples, and the ranking figure the top and bottom of
+     * each comparable set.
+     */
     public static final int MAX_SAMPLE_FIGURES = 60;
     /** References drawn against each sample. */
     private static final int REFERENCES_SHOWN = 3;
@@ -72,7 +76,8 @@ public final class ReportFigures {
         List<Sample> shown = r.samples().stream().map(SampleAnalysis::sample)
                 .filter(s -> s.replicates().stream().noneMatch(inSeries::contains)).toList();
         if (!shown.isEmpty()) {
-            out.add(Figures.tanDelta(shown, r.samples().size() - shown.size()));
+            out.add(shown.size() > MAX_SAMPLE_FIGURES ? Figures.tanDeltaDistribution(shown, r.samples().size() - shown.size())
+                    : Figures.tanDelta(shown, r.samples().size() - shown.size()));
         }
         Map<String, List<org.viscarta.temperature.GlassTransition.Result>> ramps = new java.util.LinkedHashMap<>();
         r.transitions().results().forEach(t -> ramps.computeIfAbsent(t.ramp().sample(), k -> new ArrayList<>()).add(t));
@@ -92,7 +97,7 @@ public final class ReportFigures {
         List<SampleAnalysis> withSpectra = r.samples().stream()
                 .filter(sa -> sa.spectrum().isPresent() && sa.sample().replicates().stream().noneMatch(inSeries::contains)).toList();
         if (!withSpectra.isEmpty()) {
-            out.add(Figures.spectra(withSpectra));
+            out.add(withSpectra.size() > MAX_SAMPLE_FIGURES ? Figures.spectraDistribution(withSpectra) : Figures.spectra(withSpectra));
         }
         for (TemperatureSeries ts : r.series()) {
             String slug = slug(ts.sample());

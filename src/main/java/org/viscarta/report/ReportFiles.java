@@ -101,8 +101,8 @@ public record ReportFiles(Path folder) {
             // POI's own temporary files (streamed sheets) go into the staging folder too, so that a stopped run's are cleared with it
             org.apache.poi.util.TempFile.setTempFileCreationStrategy(
                     new org.apache.poi.util.DefaultTempFileCreationStrategy(Files.createDirectory(stage.resolve("poi")).toFile()));
-            try (OutputStream o = Files.newOutputStream(stage.resolve(WORKBOOK))) {
-                WorkbookReport.write(content, figures, o);
+            try {
+                WorkbookReport.write(content, figures, stage.resolve(WORKBOOK));
                 done.accept("workbook");
             } finally {
                 org.apache.poi.util.TempFile.setTempFileCreationStrategy(new org.apache.poi.util.DefaultTempFileCreationStrategy());

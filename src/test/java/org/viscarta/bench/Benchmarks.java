@@ -514,9 +514,7 @@ public final class Benchmarks {
         AnalysisResult c = Analysis.run(request, timing);
         long t2c = System.nanoTime();
         Provenance prov = new Provenance("bench", "benchmark", "2026-01-01T00:00:00Z");
-        try (OutputStream os = Files.newOutputStream(dir.resolve("report.xlsx"))) {
-            WorkbookReport.write(new ReportContent(c, prov), List.of(), os);
-        }
+        WorkbookReport.write(new ReportContent(c, prov), List.of(), dir.resolve("report.xlsx"));
         long t3 = System.nanoTime();
         long t1 = started.get(org.viscarta.analysis.Progress.Stage.FITTING);
         long tc = started.getOrDefault(org.viscarta.analysis.Progress.Stage.CHECKING, t1);
