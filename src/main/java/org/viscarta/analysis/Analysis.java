@@ -124,7 +124,8 @@ public final class Analysis {
             List<SampleAnalysis> fitted = samples;
             samples = IntStream.range(0, fitted.size()).parallel().mapToObj(i -> {
                 SampleAnalysis sa = fitted.get(i);
-                List<Matcher.Match> m = Matcher.rank(sa.sample().name(), sa.curve().orElse(null), refs, distance);
+                List<Matcher.Match> m = Matcher.rank(sa.sample().name(), sa.curve().orElse(null), refs, distance,
+                        request.uncertainMatches());
                 progress.step();
                 return sa.withMatches(m);
             }).toList();

@@ -35,11 +35,14 @@ import org.viscarta.sweep.ModulusKind;
  * @param timeGrid     times [s] at which every fitted model's E(t) and J(t) are evaluated (empty: none)
  * @param parts        what to compute beyond reading
  * @param quality      how the quality checks run (and whether outlying replicates are left out)
+ * @param uncertainMatches how many of each sample's closest references get the standard error of
+ *                     their distance (the delta method costs a dozen distance evaluations each);
+ *                     the others carry NaN. All by default; a report computes those it shows.
  */
 public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<String> modelIds, Weighting weighting,
                               RankingPoint rankingPoint, DampingRanking.OutsideRange outsideRange, double alpha, ComparableSets sets,
                               Optional<Path> library, MatchSettings matching, Target target, Optional<MasterCurves> masterCurves,
-                              List<Double> timeGrid, Set<Part> parts, QualitySettings quality) {
+                              List<Double> timeGrid, Set<Part> parts, QualitySettings quality, int uncertainMatches) {
 
     /** What an analysis computes beyond reading. */
     public enum Part {
@@ -128,6 +131,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
         private List<Double> timeGrid = List.of();
         private final Set<Part> parts = EnumSet.noneOf(Part.class);
         private QualitySettings quality = QualitySettings.defaults();
+        private int uncertainMatches = Integer.MAX_VALUE;
 
         private Builder(List<Path> inputs) {
             this.inputs = new ArrayList<>(inputs);
@@ -213,6 +217,15 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
             return quality;
         }
 
+        /** Standard errors of the distance for each sample's closest {@code n} references only (n ≥ 1). */
+        public Builder uncertainMatches(int n) {
+            if (n < 1) {
+                throw new IllegalArgumentException("uncertainMatches must be ≥ 1, got " + n);
+            }
+            this.uncertainMatches = n;
+            return this;
+        }
+
         public Builder quality(QualitySettings q) {
             this.quality = q;
             return this;
@@ -243,7 +256,7 @@ public record AnalysisRequest(List<Path> inputs, ReadSettings reading, List<Stri
 
         public AnalysisRequest build() {
             return new AnalysisRequest(inputs, new ReadSettings(declaredKind, basis, poisson, columns, badFiles, groupBy), modelIds, weighting,
-                    rankingPoint, outsideRange, alpha, sets, library, matching, target, masterCurves, timeGrid, parts, quality);
+                    rankingPoint, outsideRange, alpha, sets, library, matching, target, masterCurves, timeGrid, parts, quality, uncertainMatches);
         }
     }
 }

@@ -44,7 +44,8 @@ final class ReportCommand implements Callable<Integer> {
             AnalysisRequest.Builder b = quality.applyTo(report.applyTo(rankOptions.applyTo(models.applyTo(input.request()),
                     spec.commandLine())), rankOptions.dropOutliers).compute(AnalysisRequest.Part.FITS, AnalysisRequest.Part.SPECTRA,
                     AnalysisRequest.Part.TRANSITIONS, AnalysisRequest.Part.MAPS);
-            library.folderIfNamed().ifPresent(dir -> b.library(dir).compute(AnalysisRequest.Part.MATCHES));
+            library.folderIfNamed().ifPresent(dir -> b.library(dir).compute(AnalysisRequest.Part.MATCHES)
+                    .uncertainMatches(org.viscarta.compare.Matcher.SHOWN)); // standard errors where the report shows matches
             return b;
         });
         ReportFiles files = new ReportFiles(output.out);

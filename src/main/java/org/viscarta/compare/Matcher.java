@@ -30,6 +30,9 @@ public final class Matcher {
     public record Match(String sample, String reference, String clazz, int rank, ReferenceDistance.Result result) {
     }
 
+    /** References listed per sample in a report's tables and the workbench (the closest ones). */
+    public static final int SHOWN = 5;
+
     private Matcher() {
     }
 
@@ -37,7 +40,17 @@ public final class Matcher {
      * @return comparable candidates by increasing distance, then the others (rank 0) with the reason
      */
     public static List<Match> rank(String sampleName, FittedCurve sample, List<Candidate> candidates, ReferenceDistance rd) {
-        List<Match> comparable = new ArrayList<>();
+        return rank(sampleName, sample, candidates, rd, Integer.MAX_VALUE);
+    }
+
+    /**
+     * As {@link #rank(String, FittedCurve, List, ReferenceDistance)}, with the distance's standard
+     * error computed for the {@code uncertain} closest candidates only (NaN for the others): the
+     * ranking is by distance alone, so it does not change.
+     */
+    public static List<Match> rank(String sampleName, FittedCurve sample, List<Candidate> candidates, ReferenceDistance rd,
+                                   int uncertain) {
+        List<Pending> comparable = new ArrayList<>();
         List<Match> others = new ArrayList<>();
         for (Candidate c : candidates) {
             if (sample == null) {
@@ -45,18 +58,27 @@ public final class Matcher {
             } else if (c.curve() == null) {
                 others.add(new Match(sampleName, c.name(), c.clazz(), 0, missing("no model converged for the reference")));
             } else {
-                ReferenceDistance.Result r = rd.between(sample, c.curve());
-                (r.comparable() ? comparable : others).add(new Match(sampleName, c.name(), c.clazz(), 0, r));
+                ReferenceDistance.Result r = rd.between(sample, c.curve(), false);
+                if (r.comparable()) {
+                    comparable.add(new Pending(c, r));
+                } else {
+                    others.add(new Match(sampleName, c.name(), c.clazz(), 0, r));
+                }
             }
         }
-        comparable.sort(Comparator.comparingDouble(m -> m.result().distance()));
+        comparable.sort(Comparator.comparingDouble(p -> p.result().distance()));
         List<Match> out = new ArrayList<>();
         for (int i = 0; i < comparable.size(); i++) {
-            Match m = comparable.get(i);
-            out.add(new Match(m.sample(), m.reference(), m.clazz(), i + 1, m.result()));
+            Pending p = comparable.get(i);
+            ReferenceDistance.Result r = i < uncertain ? rd.withUncertainty(sample, p.candidate().curve(), p.result()) : p.result();
+            out.add(new Match(sampleName, p.candidate().name(), p.candidate().clazz(), i + 1, r));
         }
         out.addAll(others);
         return out;
+    }
+
+    /** A comparable candidate before ranking. */
+    private record Pending(Candidate candidate, ReferenceDistance.Result result) {
     }
 
     /**

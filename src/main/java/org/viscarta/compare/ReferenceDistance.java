@@ -90,7 +90,16 @@ public final class ReferenceDistance {
         this.maxTemperatureDifferenceC = maxTemperatureDifferenceC;
     }
 
+    /** The comparison with the distance's standard error. */
     public Result between(FittedCurve a, FittedCurve b) {
+        return between(a, b, true);
+    }
+
+    /**
+     * The comparison; with {@code uncertainty} false the standard error is left NaN (it costs a
+     * dozen distance evaluations; {@link #withUncertainty} adds it later to the matches shown).
+     */
+    public Result between(FittedCurve a, FittedCurve b, boolean uncertainty) {
         double lo = Math.max(a.lowHz(), b.lowHz());
         double hi = Math.min(a.highHz(), b.highHz());
         if (a.kind() != b.kind()) {
@@ -101,39 +110,19 @@ public final class ReferenceDistance {
             return notComparable(lo, hi, String.format(Locale.ROOT, "the measured bands overlap over %.2f decades, less than %s",
                     decades, Numbers.plain(minOverlapDecades)));
         }
-        double[] grid = new double[GRID_POINTS];
-        for (int k = 0; k < GRID_POINTS; k++) {
-            grid[k] = k == GRID_POINTS - 1 ? hi : lo * Math.pow(hi / lo, k / (double) (GRID_POINTS - 1));
-        }
-        double[] pa = a.params();
-        double[] pb = b.params();
-        double d = distance(a, pa, b, pb, grid);
-        double var = 0;
-        boolean known = true;
-        for (int side = 0; side < 2; side++) {
-            FittedCurve c = side == 0 ? a : b;
-            double[] p = side == 0 ? pa : pb;
-            double[][] cov = c.covariance();
-            if (cov == null) {
-                known = false;
-                continue;
-            }
-            boolean first = side == 0;
-            double[] grad = DeltaMethod.gradient(x -> first ? distance(a, x, b, pb, grid) : distance(a, pa, b, x, grid), p,
-                    GRADIENT_STEP, GRADIENT_FLOOR);
-            var += DeltaMethod.variance(grad, cov);
-        }
+        double[] grid = grid(lo, hi);
+        double[] ma = onGrid(a, lo, hi, grid);
+        double[] mb = onGrid(b, lo, hi, grid);
+        double d = distance(ma, mb);
         double worstF = grid[0];
         double worst = 0;
-        for (double f : grid) {
-            double[] ma = a.modulus(pa, f);
-            double[] mb = b.modulus(pb, f);
-            double ds = Math.log10(ma[0] / mb[0]);
-            double dl = Math.log10(ma[1] / mb[1]);
+        for (int k = 0; k < GRID_POINTS; k++) {
+            double ds = Math.log10(ma[2 * k] / mb[2 * k]);
+            double dl = Math.log10(ma[2 * k + 1] / mb[2 * k + 1]);
             double larger = Math.abs(ds) >= Math.abs(dl) ? ds : dl;
             if (Math.abs(larger) > Math.abs(worst)) {
                 worst = larger;
-                worstF = f;
+                worstF = grid[k];
             }
         }
         String note = "";
@@ -141,23 +130,121 @@ public final class ReferenceDistance {
                 && Math.abs(a.temperatureC() - b.temperatureC()) > maxTemperatureDifferenceC) {
             note = String.format(Locale.ROOT, "measured at temperatures %s °C apart", Numbers.plain(Math.abs(a.temperatureC() - b.temperatureC())));
         }
-        return new Result(d, known && var >= 0 ? Math.sqrt(var) : Double.NaN, lo, hi, true, worstF, worst, note);
+        Result r = new Result(d, Double.NaN, lo, hi, true, worstF, worst, note);
+        return uncertainty ? withUncertainty(a, b, r) : r;
     }
 
-    private double distance(FittedCurve a, double[] pa, FittedCurve b, double[] pb, double[] grid) {
+    /**
+     * The result with the distance's standard error: both fits' parameter covariances propagated by
+     * the delta method (central differences), each side's curve moved while the other stays on its
+     * grid values; NaN when a covariance is missing.
+     */
+    public Result withUncertainty(FittedCurve a, FittedCurve b, Result r) {
+        if (!r.comparable()) {
+            return r;
+        }
+        double lo = r.bandLowHz();
+        double hi = r.bandHighHz();
+        double[] grid = grid(lo, hi);
+        double[] ma = onGrid(a, lo, hi, grid);
+        double[] mb = onGrid(b, lo, hi, grid);
+        double var = 0;
+        boolean known = true;
+        for (int side = 0; side < 2; side++) {
+            FittedCurve c = side == 0 ? a : b;
+            double[][] cov = c.covariance();
+            if (cov == null) {
+                known = false;
+                continue;
+            }
+            double[] fixed = side == 0 ? mb : ma;
+            boolean first = side == 0;
+            double[] grad = DeltaMethod.gradient(x -> {
+                double[] moved = evaluate(c, x, grid);
+                return first ? distance(moved, fixed) : distance(fixed, moved);
+            }, c.params(), GRADIENT_STEP, GRADIENT_FLOOR);
+            var += DeltaMethod.variance(grad, cov);
+        }
+        return new Result(r.distance(), known && var >= 0 ? Math.sqrt(var) : Double.NaN, lo, hi, true, r.departureHz(),
+                r.departure(), r.note());
+    }
+
+    /** GRID_POINTS log-spaced frequencies from lo to hi, both included. */
+    private static double[] grid(double lo, double hi) {
+        double[] grid = new double[GRID_POINTS];
+        for (int k = 0; k < GRID_POINTS; k++) {
+            grid[k] = k == GRID_POINTS - 1 ? hi : lo * Math.pow(hi / lo, k / (double) (GRID_POINTS - 1));
+        }
+        return grid;
+    }
+
+    /** M′, M″ of a curve at its own parameters on the grid of a band: {M′0, M″0, M′1, …}, computed once per curve and band. */
+    private double[] onGrid(FittedCurve c, double lo, double hi, double[] grid) {
+        GridKey key = new GridKey(c, lo, hi);
+        double[] cached = grids.get(key);
+        if (cached != null) {
+            return cached;
+        }
+        double[] m = evaluate(c, c.params(), grid);
+        if (grids.size() < MAX_GRIDS) {
+            grids.putIfAbsent(key, m);
+        }
+        return m;
+    }
+
+    private static double[] evaluate(FittedCurve c, double[] p, double[] grid) {
+        double[] out = new double[2 * grid.length];
+        for (int k = 0; k < grid.length; k++) {
+            double[] m = c.modulus(p, grid[k]);
+            out[2 * k] = m[0];
+            out[2 * k + 1] = m[1];
+        }
+        return out;
+    }
+
+    /** Curves kept on their grids (2 × 25 numbers each: 10,000 sample-and-band pairs are 4 MB). */
+    private static final int MAX_GRIDS = 50_000;
+    private final java.util.concurrent.ConcurrentHashMap<GridKey, double[]> grids = new java.util.concurrent.ConcurrentHashMap<>();
+
+    /** A curve (by identity) and a band. */
+    private static final class GridKey {
+        private final FittedCurve curve;
+        private final double lo;
+        private final double hi;
+
+        GridKey(FittedCurve curve, double lo, double hi) {
+            this.curve = curve;
+            this.lo = lo;
+            this.hi = hi;
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof GridKey k && k.curve == curve && Double.compare(k.lo, lo) == 0 && Double.compare(k.hi, hi) == 0;
+        }
+
+        @Override
+        public int hashCode() {
+            return 31 * (31 * System.identityHashCode(curve) + Double.hashCode(lo)) + Double.hashCode(hi);
+        }
+    }
+
+    private double distance(double[] ma, double[] mb) {
         double sum = 0;
         int terms = 0;
-        for (double f : grid) {
-            double[] ma = a.modulus(pa, f);
-            double[] mb = b.modulus(pb, f);
+        for (int k = 0; k < GRID_POINTS; k++) {
+            double sa = ma[2 * k];
+            double la = ma[2 * k + 1];
+            double sb = mb[2 * k];
+            double lb = mb[2 * k + 1];
             if (metric != Metric.TAN_DELTA) {
-                double ds = Math.log10(ma[0] / mb[0]);
-                double dl = Math.log10(ma[1] / mb[1]);
+                double ds = Math.log10(sa / sb);
+                double dl = Math.log10(la / lb);
                 sum += ds * ds + dl * dl;
                 terms += 2;
             }
             if (metric != Metric.MODULI) {
-                double dt = Math.log10((ma[1] / ma[0]) / (mb[1] / mb[0]));
+                double dt = Math.log10((la / sa) / (lb / sb));
                 sum += dt * dt;
                 terms++;
             }

@@ -26,7 +26,8 @@ public final class HtmlReport {
             + "padding:.2rem .45rem;text-align:left;vertical-align:top}th{background:#eee}td.n{text-align:right;"
             + "font-variant-numeric:tabular-nums}dt{font-weight:bold;margin-top:.5rem}.caution{border-left:4px solid #D55E00;"
             + "padding-left:.8rem}.demo{background:#fff3d6;padding:.5rem .8rem}figure{margin:1.5rem 0;page-break-inside:avoid}"
-            + "figure svg{width:100%;height:auto}table.wide{display:block;overflow-x:auto}td.long{min-width:16rem}@page{size:A4 landscape;margin:12mm}@media print{table.wide{display:table;font-size:.62rem}}figcaption{font-size:.9rem;color:#333}@media print{body{max-width:none}}";
+            + "figure svg{width:100%;height:auto}table.wide{display:block;overflow-x:auto}td.long{min-width:16rem}@page{size:A4 landscape;margin:12mm}@media print{table.wide{display:table;font-size:.62rem}}figcaption{font-size:.9rem;color:#333}@media print{body{max-width:none}}"
+            + "td.gap,p.gap{text-align:center;font-style:italic;color:#555}";
 
     private HtmlReport() {
     }
@@ -58,8 +59,11 @@ public final class HtmlReport {
                     + "); mean over replicates with its 95 % interval.");
             for (org.viscarta.analysis.Ranking.RankedSet set : rk.sets()) {
                 h.append("<h3>").append(esc(set.label())).append("</h3>\n");
-                for (String statement : set.result().comparison().statements()) {
-                    h.append("<p>").append(esc(statement)).append("</p>\n");
+                List<String> statements = set.result().comparison().statements();
+                for (String statement : shownRows(statements)) {
+                    h.append(statement == null ? "<p class=\"gap\">" + esc(String.format(java.util.Locale.ROOT, "⋮ %,d statements "
+                            + "between (%,d in all): every one is in the workbook's Group comparison sheet",
+                            statements.size() - MAX_PAGE_ROWS, statements.size())) + "</p>\n" : "<p>" + esc(statement) + "</p>\n");
                 }
             }
         });
@@ -202,8 +206,33 @@ public final class HtmlReport {
         return body.insert(insertAt, nav).toString();
     }
 
+    /**
+     * Most rows a table of the page shows; a longer table shows its first and last half of this
+     * many, with a row saying how many lie between and where they are (the workbook holds every row),
+     * so that the page stays readable and small for campaigns of thousands of samples.
+     */
+    static final int MAX_PAGE_ROWS = 200;
+
+    /** The rows a page table shows: all, or the first and last {@link #MAX_PAGE_ROWS}/2 with null for the gap between. */
+    static <R> List<R> shownRows(List<R> rows) {
+        if (rows.size() <= MAX_PAGE_ROWS) {
+            return rows;
+        }
+        List<R> out = new java.util.ArrayList<>(rows.subList(0, MAX_PAGE_ROWS / 2));
+        out.add(null);
+        out.addAll(rows.subList(rows.size() - MAX_PAGE_ROWS / 2, rows.size()));
+        return out;
+    }
+
+    /** The row standing for the rows a long table leaves out. */
+    private static void gapRow(StringBuilder h, int columns, int total, String sheet) {
+        h.append("<tr><td class=\"gap\" colspan=\"").append(columns).append("\">").append(esc(String.format(java.util.Locale.ROOT,
+                "⋮ %,d rows between (%,d in all): every row is in the workbook's %s sheet", total - MAX_PAGE_ROWS, total, sheet)))
+                .append("</td></tr>\n");
+    }
+
     /** Draws a declared table: a heading, an optional sentence, a header row with units, numbers right-aligned. */
-    private static <R> void table(StringBuilder h, Table<R> table, Iterable<R> items, String intro) {
+    private static <R> void table(StringBuilder h, Table<R> table, List<R> items, String intro) {
         List<Column<R>> cols = table.columnsFor(Medium.HTML);
         h.append("<h2>").append(esc(table.name())).append("</h2>\n");
         if (!intro.isEmpty()) {
@@ -214,7 +243,11 @@ public final class HtmlReport {
             h.append("<th>").append(esc(col.header())).append("</th>");
         }
         h.append("</tr>\n");
-        for (R item : items) {
+        for (R item : shownRows(items)) {
+            if (item == null) {
+                gapRow(h, cols.size(), items.size(), table.name());
+                continue;
+            }
             h.append("<tr>");
             for (Column<R> col : cols) {
                 Object v = col.value().apply(item);
@@ -232,7 +265,11 @@ public final class HtmlReport {
                     + "logarithmic scale over the frequencies both were measured at, in decades (0.1 ≈ 26 % apart).</p>\n<table>\n"
                     + "<tr><th>sample</th><th>closest</th><th>distance [decades]</th><th>second</th><th>distance [decades]</th>"
                     + "<th>first and second distinguishable</th></tr>\n");
-            for (SampleAnalysis sa : r.samples()) {
+            for (SampleAnalysis sa : shownRows(r.samples())) {
+                if (sa == null) {
+                    gapRow(h, 6, r.samples().size(), "Reference matches");
+                    continue;
+                }
                 List<Matcher.Match> m = sa.matches();
                 Matcher.Match a = m.size() > 0 && m.get(0).rank() == 1 ? m.get(0) : null;
                 Matcher.Match b = m.size() > 1 && m.get(1).rank() == 2 ? m.get(1) : null;

@@ -40,8 +40,6 @@ public final class WorkbookReport {
     /** The most rows a figure may span and still print on one landscape page. */
     private static final int FIGURE_ROWS_PER_PAGE = 34;
 
-    /** References listed per sample in Reference matches. */
-    private static final int MATCHES_SHOWN = 5;
 
     /** Column widths of the Read me sheet, in characters. */
     private static final int LABEL_WIDTH = 34;
@@ -106,7 +104,7 @@ public final class WorkbookReport {
                 footer.addAll(Statements.QUALITY_LIMITS);
                 table(wb, st, OutputTables.QUALITY, rows, rows.isEmpty() ? "every check passed" : "", footer);
             }
-            List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(MATCHES_SHOWN)).toList();
+            List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(Matcher.SHOWN)).toList();
             table(wb, st, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());
             r.mimic().ifPresent(m -> table(wb, st, OutputTables.matches(true), m.matches(), "",
                     List.of("first and second distinguishable: " + Matcher.distinguishable(m.matches()))));

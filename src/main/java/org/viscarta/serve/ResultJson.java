@@ -34,7 +34,6 @@ import org.viscarta.temperature.Transitions;
  */
 final class ResultJson {
 
-    private static final int MATCHES_SHOWN = 5;
 
     private ResultJson() {
     }
@@ -81,7 +80,7 @@ final class ResultJson {
                     + "Quality sheet lists every check.", limits));
         }
         if (r.library().isPresent()) {
-            List<Matcher.Match> matches = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(MATCHES_SHOWN)).toList();
+            List<Matcher.Match> matches = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(Matcher.SHOWN)).toList();
             tables.add(table(OutputTables.matches(false), matches, "Each sample's five closest reference materials; distance in "
                     + "decades of the E′ and E″ curves (0.1 ≈ 26 % apart).", List.of()));
         }

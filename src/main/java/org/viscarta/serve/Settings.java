@@ -78,7 +78,7 @@ final class Settings {
         b.compute(AnalysisRequest.Part.RANKING, AnalysisRequest.Part.QUALITY, AnalysisRequest.Part.FITS,
                 AnalysisRequest.Part.SPECTRA, AnalysisRequest.Part.TRANSITIONS, AnalysisRequest.Part.MAPS);
         if (library != null && flag("use_library", true)) {
-            b.library(library).compute(AnalysisRequest.Part.MATCHES);
+            b.library(library).compute(AnalysisRequest.Part.MATCHES).uncertainMatches(org.viscarta.compare.Matcher.SHOWN);
         }
         return buildOrRefuse(b);
     }

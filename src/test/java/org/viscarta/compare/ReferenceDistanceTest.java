@@ -94,4 +94,39 @@ class ReferenceDistanceTest {
             assertEquals(1, ranked.get(0).rank());
         }
     }
+
+    /**
+     * Standard errors computed for the closest few only: the ranking, distances, bands and
+     * departures are those of the full computation, the few closest carry the same standard errors
+     * (bit for bit: the same arithmetic), the rest none. And a second comparison reusing the curves'
+     * grids gives the same numbers as the first.
+     */
+    @Test
+    void uncertaintiesForTheClosestFewChangeNothingElse() {
+        FittedCurve sample = curve("s", new Zener(), new double[] {1e4, 3e4, 0.05}, 0.1, 10, 0.02, 1);
+        List<Matcher.Candidate> refs = new ArrayList<>();
+        for (int k = 0; k < 8; k++) {
+            refs.add(new Matcher.Candidate("r" + k, "", curve("r" + k, new Zener(), new double[] {1e4 * (1 + 0.2 * k), 3e4, 0.05 * (1 + k)},
+                    0.05, 20, 0.02, 10 + k)));
+        }
+        List<Matcher.Match> all = Matcher.rank("s", sample, refs, new ReferenceDistance(ReferenceDistance.Metric.ALL, 1, 2));
+        ReferenceDistance shared = new ReferenceDistance(ReferenceDistance.Metric.ALL, 1, 2);
+        Matcher.rank("s", sample, refs, shared, 3); // fills the grids
+        List<Matcher.Match> few = Matcher.rank("s", sample, refs, shared, 3);
+        assertEquals(all.size(), few.size());
+        for (int i = 0; i < all.size(); i++) {
+            ReferenceDistance.Result a = all.get(i).result();
+            ReferenceDistance.Result f = few.get(i).result();
+            assertEquals(all.get(i).reference(), few.get(i).reference(), "rank " + (i + 1));
+            assertEquals(a.distance(), f.distance(), 0.0);
+            assertEquals(a.departure(), f.departure(), 0.0);
+            assertEquals(a.departureHz(), f.departureHz(), 0.0);
+            assertTrue(Double.isFinite(a.uncertainty()));
+            if (i < 3) {
+                assertEquals(a.uncertainty(), f.uncertainty(), 0.0);
+            } else {
+                assertTrue(Double.isNaN(f.uncertainty()), "not computed beyond the closest 3");
+            }
+        }
+    }
 }
