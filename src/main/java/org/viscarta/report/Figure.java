@@ -3,9 +3,7 @@ package org.viscarta.report;
 import java.awt.Graphics2D;
 import java.awt.geom.Rectangle2D;
 import java.awt.image.BufferedImage;
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import javax.imageio.ImageIO;
 import org.jfree.chart.JFreeChart;
 import org.jfree.svg.SVGGraphics2D;
 
@@ -43,9 +41,7 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
         } finally {
             g.dispose();
         }
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ImageIO.write(img, "png", out);
-        return out.toByteArray();
+        return PngEncoder.encode(img, DPI);
     }
 
     /** SVG, with definition keys fixed so that two runs write the same text. */
