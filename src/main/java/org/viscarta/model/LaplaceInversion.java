@@ -26,6 +26,62 @@ public final class LaplaceInversion {
 
     private static final int M = 24;
 
+    /** The contour's angles θ_k = kπ/M and, per angle, cot θ_k and σ(θ_k): the same for every t. */
+    private static final double[] THETA = new double[M];
+    private static final double[] COT = new double[M];
+    private static final double[] SIGMA = new double[M];
+
+    static {
+        for (int k = 1; k < M; k++) {
+            THETA[k] = k * Math.PI / M;
+            COT[k] = Math.cos(THETA[k]) / Math.sin(THETA[k]);
+            SIGMA[k] = THETA[k] + (THETA[k] * COT[k] - 1.0) * COT[k];
+        }
+    }
+
+    /**
+     * The nodes s_k and weights w_k = (r/M)·e^{t s_k}(1 + iσ_k) of one t, so that
+     * f(t) ≈ (r/M)·½F(r)e^{rt} + Re Σ w_k F(s_k); they depend on t alone, and a fit evaluates the
+     * same times again and again, so the last few are kept (per thread: fits run in parallel).
+     */
+    private record Nodes(double t, Complex[] s, double[] wRe, double[] wIm, double w0) {
+    }
+
+    private static final int KEPT = 64;
+    private static final ThreadLocal<java.util.LinkedHashMap<Double, Nodes>> NODES = ThreadLocal.withInitial(
+            () -> new java.util.LinkedHashMap<>(KEPT * 2, 0.75f, true) {
+                @Override
+                protected boolean removeEldestEntry(java.util.Map.Entry<Double, Nodes> eldest) {
+                    return size() > KEPT;
+                }
+            });
+
+    private static Nodes nodes(double t) {
+        java.util.LinkedHashMap<Double, Nodes> kept = NODES.get();
+        Nodes n = kept.get(t);
+        if (n == null) {
+            double r = 2.0 * M / (5.0 * t);
+            Complex[] s = new Complex[M];
+            double[] wRe = new double[M];
+            double[] wIm = new double[M];
+            s[0] = new Complex(r, 0);
+            for (int k = 1; k < M; k++) {
+                double re = r * THETA[k] * COT[k];
+                double im = r * THETA[k];
+                s[k] = new Complex(re, im);
+                // e^{t s}(1 + iσ) = e^{t·re}(cos(t·im) + i sin(t·im))(1 + iσ)
+                double mag = Math.exp(t * re);
+                double c = mag * Math.cos(t * im);
+                double d = mag * Math.sin(t * im);
+                wRe[k] = r / M * (c - d * SIGMA[k]);
+                wIm[k] = r / M * (d + c * SIGMA[k]);
+            }
+            n = new Nodes(t, s, wRe, wIm, r / M * 0.5 * Math.exp(r * t));
+            kept.put(t, n);
+        }
+        return n;
+    }
+
     private LaplaceInversion() {
     }
 
@@ -34,16 +90,12 @@ public final class LaplaceInversion {
         if (!(t > 0) || Double.isInfinite(t)) {
             throw new IllegalArgumentException("time must be finite and > 0 s, got " + t);
         }
-        double r = 2.0 * M / (5.0 * t);
-        double sum = 0.5 * transform.apply(new Complex(r, 0)).getReal() * Math.exp(r * t);
+        Nodes n = nodes(t);
+        double sum = n.w0() * transform.apply(n.s()[0]).getReal();
         for (int k = 1; k < M; k++) {
-            double theta = k * Math.PI / M;
-            double cot = Math.cos(theta) / Math.sin(theta);
-            Complex s = new Complex(r * theta * cot, r * theta);
-            double sigma = theta + (theta * cot - 1.0) * cot;
-            Complex term = s.multiply(t).exp().multiply(transform.apply(s)).multiply(new Complex(1.0, sigma));
-            sum += term.getReal();
+            Complex f = transform.apply(n.s()[k]);
+            sum += n.wRe()[k] * f.getReal() - n.wIm()[k] * f.getImaginary(); // Re(w·F)
         }
-        return r / M * sum;
+        return sum;
     }
 }
