@@ -22,7 +22,7 @@ import picocli.CommandLine.Mixin;
         header = "The main job: fits, ranking, matches and figures into a workbook and an HTML page.",
         description = "The main job: read every input, fit every candidate model to every sample, rank the samples by "
             + "damping, match them against the reference library, and write report.xlsx, report.html (one "
-            + "self-contained page) and figures/ (PNG at 300 dpi and SVG) into the folder given with --out.")
+            + "self-contained page) and figures/ (PNG at 200 dpi and SVG) into the folder given with --out.")
 final class ReportCommand implements Callable<Integer> {
 
     @Mixin InputOptions input;

@@ -5,7 +5,7 @@ package org.viscarta.report;
  *
  * @param stem    file name without extension
  * @param caption what it shows
- * @param png     PNG bytes at 300 dpi
+ * @param png     PNG bytes at 200 dpi
  * @param svg     SVG text
  * @param aspect  height over width, so that the figure keeps its shape where it is placed
  */

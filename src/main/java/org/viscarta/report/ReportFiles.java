@@ -88,33 +88,53 @@ public record ReportFiles(Path folder) {
         Files.createDirectories(parent);
         String prefix = "." + target.getFileName() + ".";
         recoverStopped(parent, prefix, target);
-        List<RenderedFigure> figures = ReportFigures.render(ReportFigures.build(content.result()));
-        done.accept("figures");
+        List<Figure> charts = ReportFigures.build(content.result());
+        // the figures are drawn on a pool of their own, one thread a core, while this thread writes the workbook's tables
+        java.util.concurrent.ForkJoinPool pool = new java.util.concurrent.ForkJoinPool(Runtime.getRuntime().availableProcessors());
+        java.util.concurrent.CompletableFuture<List<RenderedFigure>> drawing = java.util.concurrent.CompletableFuture.supplyAsync(() -> {
+            try {
+                return ReportFigures.render(charts);
+            } catch (IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+        }, pool);
+        WorkbookReport.FigureSource figures = () -> {
+            try {
+                return drawing.join();
+            } catch (java.util.concurrent.CompletionException e) {
+                if (e.getCause() instanceof java.io.UncheckedIOException io) {
+                    throw io.getCause();
+                }
+                throw e.getCause() instanceof RuntimeException r ? r : e;
+            }
+        };
         Path stage = Files.createTempDirectory(parent, prefix + "staging-");
         try (FileChannel ch = FileChannel.open(stage.resolve(LOCK), StandardOpenOption.CREATE, StandardOpenOption.WRITE);
              FileLock held = ch.lock()) {
             Path stagedFigures = Files.createDirectory(stage.resolve(FIGURES));
-            for (RenderedFigure f : figures) {
-                Files.write(stagedFigures.resolve(f.stem() + ".png"), f.png());
-                Files.writeString(stagedFigures.resolve(f.stem() + ".svg"), f.svg(), StandardCharsets.UTF_8);
-            }
             // POI's own temporary files (streamed sheets) go into the staging folder too, so that a stopped run's are cleared with it
             org.apache.poi.util.TempFile.setTempFileCreationStrategy(
                     new org.apache.poi.util.DefaultTempFileCreationStrategy(Files.createDirectory(stage.resolve("poi")).toFile()));
             try {
                 WorkbookReport.write(content, figures, stage.resolve(WORKBOOK));
-                done.accept("workbook");
+                done.accept("workbook and figures");
             } finally {
                 org.apache.poi.util.TempFile.setTempFileCreationStrategy(new org.apache.poi.util.DefaultTempFileCreationStrategy());
             }
-            Files.writeString(stage.resolve(PAGE), HtmlReport.write(content, figures), StandardCharsets.UTF_8);
+            for (RenderedFigure f : figures.get()) {
+                Files.write(stagedFigures.resolve(f.stem() + ".png"), f.png());
+                Files.writeString(stagedFigures.resolve(f.stem() + ".svg"), f.svg(), StandardCharsets.UTF_8);
+            }
+            Files.writeString(stage.resolve(PAGE), HtmlReport.write(content, figures.get()), StandardCharsets.UTF_8);
             done.accept("page");
             checkWritable(force);
             moveIntoPlace(stage, target, parent, prefix);
         } finally {
+            drawing.cancel(false);
+            pool.shutdown();
             delete(stage);
         }
-        return figures;
+        return figures.get();
     }
 
     /** Sets the old set aside, moves the new one in, then drops the old; on failure puts the old one back. */

@@ -260,7 +260,7 @@ public final class Texts {
                     + "and does not show its own bias."},
             new String[] {"Data", "Every measured point as read, in SI units, with its file and line."},
             new String[] {"Reference library", "The reference materials available for comparison (when a library was given)."},
-            new String[] {"Figures", "The figures, also written as PNG (300 dpi) and SVG files under figures/: the damping ranking, tan δ "
+            new String[] {"Figures", "The figures, also written as PNG (200 dpi) and SVG files under figures/: the damping ranking, tan δ "
                     + "of every sample, the relaxation spectra, each temperature series' master curve, shift factors and van "
                     + "Gurp–Palmen plot, each sample's temperature ramps with its three Tg marked, and for each sample its fit (with residuals) and its closest references."},
             new String[] {"Provenance", "Tool version, the full command line, each input file with its SHA-256 checksum, every setting, and every warning."});

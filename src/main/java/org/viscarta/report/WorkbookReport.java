@@ -78,6 +78,14 @@ public final class WorkbookReport {
      * (stamped in place after writing, without compressing again).
      */
     public static void write(ReportContent c, List<RenderedFigure> figures, java.nio.file.Path file) throws IOException {
+        write(c, () -> figures, file);
+    }
+
+    /**
+     * As {@link #write(ReportContent, List, java.nio.file.Path)}, with the figures asked for only
+     * when their sheet is written, near the end: they may still be drawing while the tables are written.
+     */
+    public static void write(ReportContent c, FigureSource figureSource, java.nio.file.Path file) throws IOException {
         java.time.Instant stated = java.time.Instant.parse(c.provenance().runAtUtc());
         AnalysisResult r = c.result();
         try (SXSSFWorkbook wb = fastCompressing(); OutputStream buffer = new java.io.BufferedOutputStream(
@@ -162,6 +170,7 @@ public final class WorkbookReport {
             table(wb, st, OutputTables.data(r.samples()), OutputTables.dataRows(r.samples()), "", List.of());
             table(wb, st, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
                     r.library().isEmpty() ? NO_LIBRARY : "", List.of());
+            List<RenderedFigure> figures = figureSource.get();
             if (!figures.isEmpty()) {
                 figures(wb, st, figures);
             }
@@ -250,10 +259,16 @@ public final class WorkbookReport {
         return lines;
     }
 
+    /** The figures, when they are needed (waiting for them to be drawn). */
+    @FunctionalInterface
+    public interface FigureSource {
+        List<RenderedFigure> get() throws IOException;
+    }
+
     private static void figures(SXSSFWorkbook wb, Styles st, List<RenderedFigure> figures) {
         Sheet s = wb.createSheet("Figures");
         Rows rows = new Rows(st, s);
-        rows.styled(st.title, "Figures (also written as PNG at 300 dpi and SVG under figures/)");
+        rows.styled(st.title, "Figures (also written as PNG at 200 dpi and SVG under figures/)");
         org.apache.poi.ss.usermodel.Drawing<?> drawing = s.createDrawingPatriarch();
         org.apache.poi.ss.usermodel.CreationHelper helper = wb.getCreationHelper();
         int row = 2;

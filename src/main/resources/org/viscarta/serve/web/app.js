@@ -333,7 +333,7 @@
     renderTable(tableById('quality'), quality);
     const gallery = clear($('view-figures'));
     renderTable(tableById('regions'), gallery);
-    gallery.append(el('p', { className: 'hint', text: 'The report\'s figures (PNG at 300 dpi; the SVG of each is in the figures ZIP). '
+    gallery.append(el('p', { className: 'hint', text: 'The report\'s figures (PNG at 200 dpi; the SVG of each is in the figures ZIP). '
       + 'Open one in a new tab to see it at full size.' }));
     for (const f of r.figures) {
       const src = '/api/analyses/' + r.id + '/figures/' + encodeURIComponent(f.name) + '.png';
