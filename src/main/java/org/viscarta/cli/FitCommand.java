@@ -54,6 +54,15 @@ final class FitCommand implements Callable<Integer> {
             description = "Write the --time-domain values as CSV (sample, model, time_s, relaxation_modulus_pa, creep_compliance_per_pa).")
     Path timeOut;
 
+    @Option(names = "--every-sample", description = "Print every sample's fits on the terminal even when there are more than "
+            + SUMMARY_ABOVE + " samples (above that, the terminal shows a summary and the full table goes to -o).")
+    boolean everySample;
+
+    /** Above this many samples the terminal shows a summary of the fits, not every sample. */
+    static final int SUMMARY_ABOVE = 20;
+    /** Samples named in the summary's list of fits that need a look. */
+    private static final int NAMED_IN_SUMMARY = 20;
+
     @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
     @Override
@@ -73,14 +82,23 @@ final class FitCommand implements Callable<Integer> {
         Warnings.print(spec, result.inputs());
         PrintWriter out = spec.commandLine().getOut();
         List<TimeDomain.Point> timeRows = new ArrayList<>();
+        boolean summary = result.samples().size() > SUMMARY_ABOVE && !everySample;
         for (SampleAnalysis sa : result.samples()) {
+            if (timeGrid != null) {
+                timeRows.addAll(sa.timeDomain());
+            }
+            if (summary) {
+                continue;
+            }
             printSample(out, sa);
             printConcerns(out, result.quality().concerns(sa.sample().name()));
             if (timeGrid != null) {
                 printTimeDomain(out, sa);
-                timeRows.addAll(sa.timeDomain());
             }
             out.println();
+        }
+        if (summary) {
+            printSummary(out, result, output.out, timeOut);
         }
         out.flush();
         if (output.out != null) {
@@ -156,6 +174,78 @@ final class FitCommand implements Callable<Integer> {
                     }
                 }
             }
+        }
+    }
+
+    /**
+     * A campaign's fits in a screenful: how often each model is best supported or failed, the
+     * best-supported parameters across samples (median and quartiles), the samples whose fits need a
+     * look (no model converged, or the best one's parameters not all determined), the quality
+     * concerns, and where the full table is.
+     */
+    static void printSummary(PrintWriter out, AnalysisResult result, Path csv, Path timeCsv) {
+        List<SampleAnalysis> samples = result.samples();
+        out.printf(java.util.Locale.ROOT, "%,d samples fitted; a summary (more than %d samples: --every-sample prints each)%n%n",
+                samples.size(), SUMMARY_ABOVE);
+        java.util.Map<String, int[]> byModel = new java.util.LinkedHashMap<>(); // model → {best, fitted, not fitted}
+        java.util.Map<String, List<double[]>> values = new java.util.LinkedHashMap<>();
+        java.util.Map<String, String> units = new java.util.HashMap<>();
+        List<String> look = new ArrayList<>();
+        int lookCount = 0;
+        for (SampleAnalysis sa : samples) {
+            for (ModelSelection.Ranked rk : sa.fits()) {
+                int[] c = byModel.computeIfAbsent(rk.fit().model(), k -> new int[3]);
+                if (rk.best()) {
+                    c[0]++;
+                }
+                c[rk.fit().converged() ? 1 : 2]++;
+            }
+            java.util.Optional<FitResult> best = sa.best();
+            if (best.isEmpty() || best.get().undetermined()) {
+                lookCount++;
+                if (look.size() < NAMED_IN_SUMMARY) {
+                    look.add(sa.sample().name() + (best.isEmpty() ? " (no model converged)" : " (" + best.get().model()
+                            + ": parameters not all determined)"));
+                }
+                continue;
+            }
+            for (ParameterEstimate e : best.get().parameters()) {
+                String key = best.get().model() + " " + e.name();
+                values.computeIfAbsent(key, k -> new ArrayList<>()).add(new double[] {e.value()});
+                units.put(key, e.unit().equals("-") ? "" : e.unit());
+            }
+        }
+        TextTable models = new TextTable("model", "best supported", "fitted", "not fitted");
+        byModel.forEach((m, c) -> models.add(m, String.format(java.util.Locale.ROOT, "%,d", c[0]),
+                String.format(java.util.Locale.ROOT, "%,d", c[1]), String.format(java.util.Locale.ROOT, "%,d", c[2])));
+        models.print(out);
+        out.println();
+        if (!values.isEmpty()) {
+            out.println("best-supported parameters across the samples where that model is best:");
+            TextTable p = new TextTable("  model and parameter", "samples", "median", "quartiles", "unit");
+            values.forEach((k, v) -> {
+                double[] x = v.stream().mapToDouble(a -> a[0]).sorted().toArray();
+                p.add("  " + k, String.format(java.util.Locale.ROOT, "%,d", x.length), Cells.g4(org.viscarta.sweep.Numbers.quantile(x, 0.5)),
+                        "[" + Cells.g4(org.viscarta.sweep.Numbers.quantile(x, 0.25)) + ", "
+                                + Cells.g4(org.viscarta.sweep.Numbers.quantile(x, 0.75)) + "]", units.get(k));
+            });
+            p.print(out);
+            out.println();
+        }
+        if (lookCount == 0) {
+            out.println("fits that need a look: none (every sample's best-supported model converged with determined parameters)");
+        } else {
+            out.println(Format.wrap(String.format(java.util.Locale.ROOT, "fits that need a look: %,d sample(s)%s: ", lookCount,
+                    lookCount > look.size() ? ", the first " + look.size() : "") + String.join("; ", look), TERMINAL_WIDTH, "    "));
+        }
+        long concerned = samples.stream().filter(sa -> !result.quality().concerns(sa.sample().name()).isEmpty()).count();
+        if (concerned > 0) {
+            out.println(String.format(java.util.Locale.ROOT, "quality: %,d sample(s) with checks that did not pass ('viscarta "
+                    + "quality' lists every check)", concerned));
+        }
+        out.println(csv != null ? "every model, parameter and sample: " + csv : "every model, parameter and sample: pass -o FILE.csv");
+        if (timeCsv != null) {
+            out.println("time-domain values: " + timeCsv);
         }
     }
 

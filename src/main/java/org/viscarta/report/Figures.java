@@ -622,10 +622,10 @@ public final class Figures {
                 }
                 double xm = Math.exp(bin.stream().mapToDouble(v -> v[0]).average().orElseThrow());
                 double[] v = bin.stream().mapToDouble(b -> Math.max(b[1], floor)).sorted().toArray();
-                double centre = mean ? java.util.Arrays.stream(v).average().orElseThrow() : quantile(v, 0.5);
-                band.add(xm, centre, quantile(v, 0.25), quantile(v, 0.75));
-                p10.add(xm, quantile(v, 0.10));
-                p90.add(xm, quantile(v, 0.90));
+                double centre = mean ? java.util.Arrays.stream(v).average().orElseThrow() : org.viscarta.sweep.Numbers.quantile(v, 0.5);
+                band.add(xm, centre, org.viscarta.sweep.Numbers.quantile(v, 0.25), org.viscarta.sweep.Numbers.quantile(v, 0.75));
+                p10.add(xm, org.viscarta.sweep.Numbers.quantile(v, 0.10));
+                p90.add(xm, org.viscarta.sweep.Numbers.quantile(v, 0.90));
             }
             bands.addSeries(band);
             tails.addSeries(p10);
@@ -651,14 +651,6 @@ public final class Figures {
         plot.setDataset(1, tails);
         plot.setRenderer(1, dashed);
         return plot;
-    }
-
-    /** The q-quantile of sorted values, linear between order statistics (the common "type 7" definition). */
-    static double quantile(double[] sorted, double q) {
-        double h = (sorted.length - 1) * q;
-        int lo = (int) Math.floor(h);
-        int hi = Math.min(sorted.length - 1, lo + 1);
-        return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
     }
 
     /** Words for a distribution figure's caption. */

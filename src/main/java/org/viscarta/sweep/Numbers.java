@@ -52,4 +52,15 @@ public final class Numbers {
         }
         return String.format(java.util.Locale.ROOT, "%.3g Pa", pa);
     }
+
+    /**
+     * The q-quantile (0 ≤ q ≤ 1) of sorted values, linear between order statistics: Hyndman &amp;
+     * Fan (1996), Am. Stat. 50:361, definition 7, numpy's default.
+     */
+    public static double quantile(double[] sorted, double q) {
+        double h = (sorted.length - 1) * q;
+        int lo = (int) Math.floor(h);
+        int hi = Math.min(sorted.length - 1, lo + 1);
+        return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+    }
 }
