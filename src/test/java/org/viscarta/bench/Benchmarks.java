@@ -49,6 +49,14 @@ public final class Benchmarks {
         System.out.printf(Locale.ROOT, "machine: %d cores available to the JVM, max heap %d MB, Java %s, %s %s%n",
                 Runtime.getRuntime().availableProcessors(), Runtime.getRuntime().maxMemory() >> 20,
                 System.getProperty("java.version"), System.getProperty("os.name"), System.getProperty("os.arch"));
+        if (args.length >= 2 && List.of("report-only", "demo-only", "fit-only").contains(args[1])) {
+            try {
+                WholeProcess.run(args[1].replace("-only", ""), Integer.parseInt(args[0]));
+            } catch (InterruptedException e) {
+                throw new IOException(e);
+            }
+            return;
+        }
         if (args.length >= 2 && args[1].equals("map-only")) {
             try {
                 org.viscarta.map.MapBench.run(Integer.parseInt(args[0]));
