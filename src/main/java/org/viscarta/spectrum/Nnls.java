@@ -25,12 +25,22 @@ public final class Nnls {
     public static double[] solve(double[][] a, double[] b) {
         int m = a.length;
         int n = a[0].length;
+        double tol = 10 * Math.ulp(1.0) * norm1(a) * Math.max(m, n);
+        return activeSet(n, tol, x -> gradient(a, b, x), passive -> leastSquaresOn(a, b, passive));
+    }
+
+    /**
+     * Lawson &amp; Hanson's active-set loop (algorithm NNLS, ch. 23) over a problem given by its
+     * gradient Aᵀ(b − A x) and its unconstrained solution on the passive set (null when that
+     * solver gives up, and then the loop returns null).
+     */
+    private static double[] activeSet(int n, double tol, java.util.function.Function<double[], double[]> gradient,
+                                      java.util.function.Function<boolean[], double[]> onPassive) {
         double[] x = new double[n];
         boolean[] passive = new boolean[n];
-        double tol = 10 * Math.ulp(1.0) * norm1(a) * Math.max(m, n);
         int maxIter = 3 * n + 50;
         for (int iter = 0; iter < maxIter; iter++) {
-            double[] w = gradient(a, b, x); // w = Aᵀ(b − A x)
+            double[] w = gradient.apply(x); // w = Aᵀ(b − A x)
             int best = -1;
             double wMax = tol;
             for (int j = 0; j < n; j++) {
@@ -44,7 +54,10 @@ public final class Nnls {
             }
             passive[best] = true;
             while (true) {
-                double[] z = leastSquaresOn(a, b, passive);
+                double[] z = onPassive.apply(passive);
+                if (z == null) {
+                    return null;
+                }
                 boolean feasible = true;
                 for (int j = 0; j < n; j++) {
                     if (passive[j] && z[j] <= 0) {
@@ -93,66 +106,17 @@ public final class Nnls {
      */
     public static double[] solveNormal(double[][] g, double[] c, double tol) {
         int n = c.length;
-        double[] x = new double[n];
-        boolean[] passive = new boolean[n];
-        double[] w = new double[n];
-        int maxIter = 3 * n + 50;
-        for (int iter = 0; iter < maxIter; iter++) {
+        return activeSet(n, tol, x -> {
+            double[] w = new double[n];
             for (int j = 0; j < n; j++) {
-                double s = c[j];
-                double[] gj = g[j];
+                double sum = c[j];
                 for (int i = 0; i < n; i++) {
-                    s -= gj[i] * x[i];
+                    sum -= g[j][i] * x[i];
                 }
-                w[j] = s;
+                w[j] = sum;
             }
-            int best = -1;
-            double wMax = tol;
-            for (int j = 0; j < n; j++) {
-                if (!passive[j] && w[j] > wMax) {
-                    wMax = w[j];
-                    best = j;
-                }
-            }
-            if (best < 0) {
-                return x;
-            }
-            passive[best] = true;
-            while (true) {
-                double[] z = choleskyOn(g, c, passive);
-                if (z == null) {
-                    return null;
-                }
-                boolean feasible = true;
-                for (int j = 0; j < n; j++) {
-                    if (passive[j] && z[j] <= 0) {
-                        feasible = false;
-                        break;
-                    }
-                }
-                if (feasible) {
-                    x = z;
-                    break;
-                }
-                double alpha = Double.POSITIVE_INFINITY;
-                for (int j = 0; j < n; j++) {
-                    if (passive[j] && z[j] <= 0) {
-                        alpha = Math.min(alpha, x[j] / (x[j] - z[j]));
-                    }
-                }
-                for (int j = 0; j < n; j++) {
-                    x[j] += alpha * (z[j] - x[j]);
-                    if (passive[j] && Math.abs(x[j]) <= tol) {
-                        passive[j] = false;
-                        x[j] = 0;
-                    }
-                }
-                if (!anyPassive(passive)) {
-                    break;
-                }
-            }
-        }
-        return x;
+            return w;
+        }, passive -> choleskyOn(g, c, passive));
     }
 
     /** G_PP z_P = c_P by Cholesky; the other entries 0; null when G_PP is not numerically positive definite. */
@@ -171,19 +135,9 @@ public final class Nnls {
         }
         double[] y = new double[k];
         for (int i = 0; i < k; i++) {
-            double s = c[index[i]];
-            for (int j = 0; j < i; j++) {
-                s -= l[i][j] * y[j];
-            }
-            y[i] = s / l[i][i];
+            y[i] = c[index[i]];
         }
-        for (int i = k - 1; i >= 0; i--) {
-            double s = y[i];
-            for (int j = i + 1; j < k; j++) {
-                s -= l[j][i] * y[j];
-            }
-            y[i] = s / l[i][i];
-        }
+        choleskySolve(l, k, y);
         double[] z = new double[n];
         for (int i = 0; i < k; i++) {
             z[index[i]] = y[i];
@@ -216,6 +170,24 @@ public final class Nnls {
             }
         }
         return true;
+    }
+
+    /** Solves L Lᵀ y = b in place (b becomes y) with the lower factor of {@link #cholesky}, k × k. */
+    static void choleskySolve(double[][] l, int k, double[] y) {
+        for (int i = 0; i < k; i++) {
+            double s = y[i];
+            for (int j = 0; j < i; j++) {
+                s -= l[i][j] * y[j];
+            }
+            y[i] = s / l[i][i];
+        }
+        for (int i = k - 1; i >= 0; i--) {
+            double s = y[i];
+            for (int j = i + 1; j < k; j++) {
+                s -= l[j][i] * y[j];
+            }
+            y[i] = s / l[i][i];
+        }
     }
 
     private static boolean anyPassive(boolean[] p) {

@@ -214,14 +214,7 @@ public final class RelaxationSpectrum {
     private static double gcv(Problem pr, double[] x, double[][] ktk, double[][] g) {
         int n = pr.k.length;
         int cols = x.length;
-        double rss = 0;
-        for (int i = 0; i < n; i++) {
-            double s = -1;
-            for (int j = 0; j < cols; j++) {
-                s += pr.k[i][j] * x[j];
-            }
-            rss += s * s;
-        }
+        double rss = rss(pr, x);
         int[] free = new int[cols];
         int f = 0;
         for (int j = 0; j < cols; j++) {
@@ -239,19 +232,9 @@ public final class RelaxationSpectrum {
             double[] y = new double[f];
             for (int q = 0; q < f; q++) {
                 for (int i = 0; i < f; i++) {
-                    double s = ktk[free[i]][free[q]];
-                    for (int j = 0; j < i; j++) {
-                        s -= l[i][j] * y[j];
-                    }
-                    y[i] = s / l[i][i];
+                    y[i] = ktk[free[i]][free[q]];
                 }
-                for (int i = f - 1; i >= 0; i--) {
-                    double s = y[i];
-                    for (int j = i + 1; j < f; j++) {
-                        s -= l[j][i] * y[j];
-                    }
-                    y[i] = s / l[i][i];
-                }
+                Nnls.choleskySolve(l, f, y);
                 trace += y[q];
             }
         }
@@ -276,14 +259,7 @@ public final class RelaxationSpectrum {
             a[n + i][i + 2] = lambda;
         }
         double[] x = Nnls.solve(a, b);
-        double rss = 0;
-        for (int i = 0; i < n; i++) {
-            double s = -1;
-            for (int j = 0; j < cols; j++) {
-                s += pr.k[i][j] * x[j];
-            }
-            rss += s * s;
-        }
+        double rss = rss(pr, x);
         // influence of the unconstrained problem on the non-zero unknowns
         List<Integer> free = new ArrayList<>();
         for (int j = 0; j < cols; j++) {
@@ -348,6 +324,19 @@ public final class RelaxationSpectrum {
         double fluidity = kind == Kind.RETARDATION ? x[m + 1] * pr.scale : Double.NaN;
         return new Result(kind, pr.tau, h, lo, hi, constant, constantSe, fluidity, lambda, gcv, Math.sqrt(rss / n), n, hcov,
                 pr.scale);
+    }
+
+    /** Σ (K x − 1)², the relative residuals' sum of squares of a solution. */
+    private static double rss(Problem pr, double[] x) {
+        double rss = 0;
+        for (double[] row : pr.k) {
+            double s = -1;
+            for (int j = 0; j < x.length; j++) {
+                s += row[j] * x[j];
+            }
+            rss += s * s;
+        }
+        return rss;
     }
 
     /** The weighted kernel: rows E′ then E″ (or J′, J″) divided by their measured values; unknowns in units of {@code scale}. */
