@@ -38,7 +38,7 @@ public final class WorkbookReport {
     private static final int FIGURE_COLUMNS = 9;
     private static final int FIGURE_ROWS = 21;
     /** The most rows a figure may span and still print on one landscape page. */
-    private static final int FIGURE_ROWS_PER_PAGE = 34;
+    private static final int FIGURE_ROWS_PER_PAGE = 30;
 
 
     /** Column widths of the Read me sheet, in characters. */
@@ -276,8 +276,14 @@ public final class WorkbookReport {
             if (row > 2) {
                 s.setRowBreak(row - 1);
             }
+            // the caption wrapped across the figure's width, so that the printed page is not widened to a one-line caption
             Row caption = s.createRow(row);
-            caption.createCell(0).setCellValue(f.stem() + ": " + f.caption());
+            org.apache.poi.ss.usermodel.Cell text = caption.createCell(0);
+            text.setCellValue(f.stem() + ": " + f.caption());
+            text.setCellStyle(st.wrap);
+            s.addMergedRegionUnsafe(new org.apache.poi.ss.util.CellRangeAddress(row, row, 0, FIGURE_COLUMNS - 1));
+            caption.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, Rows.linesOf(text.getStringCellValue(),
+                    FIGURE_COLUMNS * 12)) * 15f));
             int picture = wb.addPicture(f.png(), Workbook.PICTURE_TYPE_PNG);
             org.apache.poi.ss.usermodel.ClientAnchor a = helper.createClientAnchor();
             a.setCol1(0);
