@@ -188,7 +188,7 @@ final class FitCommand implements Callable<Integer> {
         out.printf(java.util.Locale.ROOT, "%,d samples fitted; a summary (more than %d samples: --every-sample prints each)%n%n",
                 samples.size(), SUMMARY_ABOVE);
         java.util.Map<String, int[]> byModel = new java.util.LinkedHashMap<>(); // model → {best, fitted, not fitted}
-        java.util.Map<String, List<double[]>> values = new java.util.LinkedHashMap<>();
+        java.util.Map<String, List<Double>> values = new java.util.LinkedHashMap<>();
         java.util.Map<String, String> units = new java.util.HashMap<>();
         List<String> look = new ArrayList<>();
         int lookCount = 0;
@@ -211,7 +211,7 @@ final class FitCommand implements Callable<Integer> {
             }
             for (ParameterEstimate e : best.get().parameters()) {
                 String key = best.get().model() + " " + e.name();
-                values.computeIfAbsent(key, k -> new ArrayList<>()).add(new double[] {e.value()});
+                values.computeIfAbsent(key, k -> new ArrayList<>()).add(e.value());
                 units.put(key, e.unit().equals("-") ? "" : e.unit());
             }
         }
@@ -224,7 +224,7 @@ final class FitCommand implements Callable<Integer> {
             out.println("best-supported parameters across the samples where that model is best:");
             TextTable p = new TextTable("  model and parameter", "samples", "median", "quartiles", "unit");
             values.forEach((k, v) -> {
-                double[] x = v.stream().mapToDouble(a -> a[0]).sorted().toArray();
+                double[] x = v.stream().mapToDouble(Double::doubleValue).sorted().toArray();
                 p.add("  " + k, String.format(java.util.Locale.ROOT, "%,d", x.length), Cells.g4(org.viscarta.sweep.Numbers.quantile(x, 0.5)),
                         "[" + Cells.g4(org.viscarta.sweep.Numbers.quantile(x, 0.25)) + ", "
                                 + Cells.g4(org.viscarta.sweep.Numbers.quantile(x, 0.75)) + "]", units.get(k));

@@ -44,7 +44,7 @@ public final class LaplaceInversion {
      * f(t) ≈ (r/M)·½F(r)e^{rt} + Re Σ w_k F(s_k); they depend on t alone, and a fit evaluates the
      * same times again and again, so the last few are kept (per thread: fits run in parallel).
      */
-    private record Nodes(double t, Complex[] s, double[] wRe, double[] wIm, double w0) {
+    private record Nodes(Complex[] s, double[] wRe, double[] wIm, double w0) {
     }
 
     private static final int KEPT = 64;
@@ -76,7 +76,7 @@ public final class LaplaceInversion {
                 wRe[k] = r / M * (c - d * SIGMA[k]);
                 wIm[k] = r / M * (d + c * SIGMA[k]);
             }
-            n = new Nodes(t, s, wRe, wIm, r / M * 0.5 * Math.exp(r * t));
+            n = new Nodes(s, wRe, wIm, r / M * 0.5 * Math.exp(r * t));
             kept.put(t, n);
         }
         return n;
