@@ -4,10 +4,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.QRDecomposition;
-import org.apache.commons.math3.linear.RealVector;
+import org.viscarta.fit.HouseholderSolve;
 import org.viscarta.sweep.Numbers;
 import org.viscarta.sweep.SweepPoint;
 
@@ -72,36 +69,12 @@ public final class KramersKronig {
         for (int j = 0; j < m; j++) {
             tau[j] = Math.pow(10, Math.log10(1 / wMax) - MARGIN + (decades + 2 * MARGIN) * j / Math.max(1, m - 1));
         }
-        double[][] a = new double[2 * n][cols];
+        double[][] a = design(pts, tau, wMax);
         double[] b = new double[2 * n];
-        for (int i = 0; i < n; i++) {
-            SweepPoint p = pts.get(i);
-            double w = p.omega();
-            for (int j = 0; j < m; j++) {
-                double x = w * tau[j];
-                a[2 * i][j] = x * x / (1 + x * x) / p.storage();
-                a[2 * i + 1][j] = x / (1 + x * x) / p.loss();
-            }
-            a[2 * i][m] = 1 / p.storage(); // equilibrium modulus
-            a[2 * i + 1][m + 1] = w / wMax / p.loss(); // high-frequency viscosity, scaled to order one
-            b[2 * i] = 1;
-            b[2 * i + 1] = 1;
-        }
-        // columns scaled to unit norm for a well-conditioned QR
-        double[] norm = new double[cols];
-        for (int j = 0; j < cols; j++) {
-            double s = 0;
-            for (double[] row : a) {
-                s += row[j] * row[j];
-            }
-            norm[j] = Math.sqrt(s) > 0 ? Math.sqrt(s) : 1;
-            for (double[] row : a) {
-                row[j] /= norm[j];
-            }
-        }
-        RealVector x;
+        java.util.Arrays.fill(b, 1);
+        double[] x;
         try {
-            x = new QRDecomposition(new Array2DRowRealMatrix(a, false), 1e-12).getSolver().solve(new ArrayRealVector(b, false));
+            x = HouseholderSolve.solve(a, b, 1e-12);
         } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
             return new Result(Verdict.WARN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
                     "the frequencies are too close together to test E′ and E″ against each other", Double.NaN);
@@ -122,8 +95,8 @@ public final class KramersKronig {
             double fs = 0;
             double fl = 0;
             for (int j = 0; j < cols; j++) {
-                fs += a[2 * i][j] * x.getEntry(j);
-                fl += a[2 * i + 1][j] * x.getEntry(j);
+                fs += a[2 * i][j] * x[j];
+                fl += a[2 * i + 1][j] * x[j];
             }
             ss += (fs - 1) * (fs - 1) + (fl - 1) * (fl - 1);
             // fitted/measured, as a ratio; a non-positive fit is as far off as it gets
@@ -149,9 +122,9 @@ public final class KramersKronig {
         // one point beyond three times the noise happens by chance in a sweep of dozens
         Verdict v = longestRun >= 2 ? Verdict.FAIL : beyond >= 2 ? Verdict.WARN : Verdict.PASS;
         String msg = v == Verdict.PASS
-                ? String.format(Locale.ROOT, "E′ and E″ are a consistent pair: a causal, linear material describes both within their "
-                        + "noise (limits %.0f %% and %.0f %%: three times the noise, at least %.0f %%)", 100 * (Math.exp(limitStorage) - 1),
-                        100 * (Math.exp(limitLoss) - 1), 100 * MIN_LIMIT)
+                ? "E′ and E″ are a consistent pair: a causal, linear material describes both within their noise (limits "
+                        + Numbers.fixed(100 * (Math.exp(limitStorage) - 1), 0) + " % and " + Numbers.fixed(100 * (Math.exp(limitLoss) - 1), 0)
+                        + " %: three times the noise, at least " + Numbers.fixed(100 * MIN_LIMIT, 0) + " %)"
                 : String.format(Locale.ROOT, "E′ and E″ %s each other at %d frequenc%s between %s and %s Hz: no causal, linear "
                         + "material describes both there, off by up to %.0f %% (limit %.0f %%, three times the noise); check the "
                         + "instrument's phase calibration, inertia or resonance, and linearity", v == Verdict.FAIL ? "contradict"
@@ -159,6 +132,50 @@ public final class KramersKronig {
                         100 * (Math.exp(worst) - 1), 100 * (Math.exp(worstLimit) - 1));
         double residualNoise = Math.sqrt(ss / Math.max(1, 2 * n - cols)); // the scatter about the causal fit
         return new Result(v, worst, worstLimit, from, to, msg, residualNoise);
+    }
+
+    /**
+     * The design matrix of the causal fit, each row divided by its measured modulus (so that residuals
+     * are relative) and each column scaled to unit norm for a well-conditioned QR: Maxwell elements
+     * of relaxation times tau, then the equilibrium modulus and a high-frequency viscosity (scaled to
+     * order one by wMax). Kept apart from {@link #check} so that the compiler optimises this loop early.
+     */
+    private static double[][] design(List<SweepPoint> pts, double[] tau, double wMax) {
+        int n = pts.size();
+        int m = tau.length;
+        int cols = m + 2;
+        double[][] a = new double[2 * n][cols];
+        for (int i = 0; i < n; i++) {
+            SweepPoint p = pts.get(i);
+            double w = p.omega();
+            double[] st = a[2 * i];
+            double[] lo = a[2 * i + 1];
+            double invStorage = 1 / p.storage();
+            double invLoss = 1 / p.loss();
+            for (int j = 0; j < m; j++) {
+                double x = w * tau[j];
+                double d = 1 / (1 + x * x);
+                st[j] = x * x * d * invStorage;
+                lo[j] = x * d * invLoss;
+            }
+            st[m] = invStorage; // equilibrium modulus
+            lo[m + 1] = w / wMax * invLoss; // high-frequency viscosity, scaled to order one
+        }
+        double[] norm = new double[cols];
+        for (double[] row : a) {
+            for (int j = 0; j < cols; j++) {
+                norm[j] += row[j] * row[j];
+            }
+        }
+        for (int j = 0; j < cols; j++) {
+            norm[j] = norm[j] > 0 ? 1 / Math.sqrt(norm[j]) : 1;
+        }
+        for (double[] row : a) {
+            for (int j = 0; j < cols; j++) {
+                row[j] *= norm[j];
+            }
+        }
+        return a;
     }
 
     /**

@@ -3,6 +3,7 @@ package org.viscarta.quality;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.viscarta.sweep.Numbers;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
 
@@ -68,11 +69,11 @@ public final class SweepChecks {
         long distinct = pts.stream().mapToLong(p -> Math.round(Math.log10(p.frequencyHz()) * 1e4)).distinct().count();
         double perDecade = span > 0 ? (distinct - 1) / span : 0;
         out.add(check(s, "frequency-span", span >= MIN_SPAN_DECADES ? Verdict.PASS : Verdict.WARN, span,
-                MIN_SPAN_DECADES, String.format(Locale.ROOT, "the sweep spans %.2f decades of frequency%s", span,
-                        span >= MIN_SPAN_DECADES ? "" : "; less than one decade tells little about how the material changes with rate")));
+                MIN_SPAN_DECADES, "the sweep spans " + Numbers.fixed(span, 2) + " decades of frequency"
+                        + (span >= MIN_SPAN_DECADES ? "" : "; less than one decade tells little about how the material changes with rate")));
         out.add(check(s, "points-per-decade", perDecade >= MIN_POINTS_PER_DECADE ? Verdict.PASS : Verdict.WARN,
-                perDecade, MIN_POINTS_PER_DECADE, String.format(Locale.ROOT, "%.1f frequencies a decade%s", perDecade,
-                        perDecade >= MIN_POINTS_PER_DECADE ? "" : "; fewer than three leave a model's shape poorly pinned down")));
+                perDecade, MIN_POINTS_PER_DECADE, Numbers.fixed(perDecade, 1) + " frequencies a decade"
+                        + (perDecade >= MIN_POINTS_PER_DECADE ? "" : "; fewer than three leave a model's shape poorly pinned down")));
         long nonPositive = pts.stream().filter(p -> !(p.loss() > 0)).count();
         out.add(check(s, "loss-modulus-sign", nonPositive == 0 ? Verdict.PASS : Verdict.FAIL, nonPositive, 0,
                 nonPositive == 0 ? "every loss modulus is positive" : nonPositive + " point(s) with a loss modulus of zero or below: "
@@ -86,8 +87,8 @@ public final class SweepChecks {
         if (Double.isFinite(kk.residualNoise())) {
             double noise = kk.residualNoise();
             out.add(check(s, "noise", noise <= NOISE_WARN ? Verdict.PASS : Verdict.WARN, 100 * noise, 100 * NOISE_WARN,
-                    String.format(Locale.ROOT, "scatter of the moduli about a smooth, causal curve: about %.1f %%%s", 100 * noise,
-                            noise <= NOISE_WARN ? "" : ", more than 5 %: replicates or a longer measurement would help")));
+                    "scatter of the moduli about a smooth, causal curve: about " + Numbers.fixed(100 * noise, 1) + " %"
+                            + (noise <= NOISE_WARN ? "" : ", more than 5 %: replicates or a longer measurement would help")));
         }
         out.add(check(s, "kramers-kronig", kk.verdict(), 100 * Math.expm1(kk.departure()), 100 * Math.expm1(kk.limit()), kk.message()));
         out.add(monotonic(s, Double.isFinite(kk.residualNoise()) ? kk.residualNoise() : 0));
@@ -120,8 +121,8 @@ public final class SweepChecks {
             }
         }
         if (falls == 0) {
-            return check(s, "storage-monotonic", Verdict.PASS, 0, 100 * allowed, String.format(Locale.ROOT,
-                    "E′ does not fall with frequency beyond the noise (%.1f %% allowed between neighbours)", 100 * allowed));
+            return check(s, "storage-monotonic", Verdict.PASS, 0, 100 * allowed, "E′ does not fall with frequency beyond the noise ("
+                    + Numbers.fixed(100 * allowed, 1) + " % allowed between neighbours)");
         }
         SweepPoint p = pts.get(at);
         return check(s, "storage-monotonic", Verdict.WARN, 100 * (1 - Math.exp(-worst)), 100 * allowed, String.format(Locale.ROOT,

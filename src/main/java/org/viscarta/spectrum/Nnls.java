@@ -1,10 +1,6 @@
 package org.viscarta.spectrum;
 
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.ArrayRealVector;
-import org.apache.commons.math3.linear.QRDecomposition;
-import org.apache.commons.math3.linear.RealMatrix;
-import org.apache.commons.math3.linear.RealVector;
+import org.viscarta.fit.HouseholderSolve;
 
 /**
  * Non-negative least squares, min ‖A x − b‖ subject to x ≥ 0, by the active-set algorithm of
@@ -241,11 +237,10 @@ public final class Nnls {
                 c++;
             }
         }
-        RealMatrix am = new Array2DRowRealMatrix(sub, false);
-        RealVector sol = new QRDecomposition(am, 1e-300).getSolver().solve(new ArrayRealVector(b, false));
+        double[] sol = HouseholderSolve.solve(sub, b, 1e-300);
         double[] z = new double[n];
         for (int j = 0; j < k; j++) {
-            z[index[j]] = sol.getEntry(j);
+            z[index[j]] = sol[j];
         }
         return z;
     }

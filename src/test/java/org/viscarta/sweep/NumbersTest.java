@@ -20,4 +20,25 @@ class NumbersTest {
         assertEquals("-0.0123", Numbers.readable(-0.012345));
         assertEquals("0", Numbers.readable(0));
     }
+
+    @Test
+    void fixedDecimalsReadAsTheJdkFormatterWrites() {
+        // the JDK's Formatter is the reference: %.Nf on the same doubles, including halves, negatives,
+        // negative zero, huge and tiny values and the non-finite ones
+        java.util.Random r = new java.util.Random(3);
+        double[] edge = {0, -0.0, 0.05, 0.15, 0.25, 2.5, -2.5, 0.045, 1e-9, -1e-9, 123456789.125, 1e20, -0.04,
+                Double.NaN, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, Double.MIN_VALUE, 99.95, 9.995};
+        for (int d = 0; d <= 3; d++) {
+            for (double v : edge) {
+                assertEquals(String.format(java.util.Locale.ROOT, "%." + d + "f", v), Numbers.fixed(v, d), v + " to " + d);
+            }
+            for (int k = 0; k < 20_000; k++) {
+                double v = (r.nextBoolean() ? -1 : 1) * Math.pow(10, -4 + 10 * r.nextDouble());
+                if (k % 4 == 0) {
+                    v = Math.round(v * 1000) / 1000.0; // short decimals, where half-way cases live
+                }
+                assertEquals(String.format(java.util.Locale.ROOT, "%." + d + "f", v), Numbers.fixed(v, d), v + " to " + d);
+            }
+        }
+    }
 }
