@@ -85,6 +85,24 @@ public final class LaplaceInversion {
     private LaplaceInversion() {
     }
 
+    /** The contour's nodes s_0 … s_{M−1} for t (shared: do not change them). */
+    static Complex[] nodesAt(double t) {
+        return nodes(t).s();
+    }
+
+    /**
+     * f(t) from the transform's values F(s_k) = fRe[k] + i·fIm[k] at the nodes of {@link #nodesAt}(t),
+     * for callers that compute F at the nodes more cheaply than one call at a time.
+     */
+    static double invertValues(double t, double[] fRe, double[] fIm) {
+        Nodes n = nodes(t);
+        double sum = n.w0() * fRe[0];
+        for (int k = 1; k < M; k++) {
+            sum += n.wRe()[k] * fRe[k] - n.wIm()[k] * fIm[k]; // Re(w·F)
+        }
+        return sum;
+    }
+
     /** f(t) for t &gt; 0. */
     public static double invert(Function<Complex, Complex> transform, double t) {
         if (!(t > 0) || Double.isInfinite(t)) {

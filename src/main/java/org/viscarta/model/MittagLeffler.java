@@ -51,8 +51,64 @@ public final class MittagLeffler {
         if (-z <= SERIES_RADIUS) {
             return series(alpha, beta, z);
         }
-        double lambda = -z;
-        return LaplaceInversion.invert(s -> s.pow(alpha - beta).divide(s.pow(alpha).add(lambda)), 1.0);
+        return inverted(powers(alpha, beta), -z);
+    }
+
+    /**
+     * s_k^α and s_k^{α−β} at the contour's nodes for t = 1: they depend on α and β alone, and a fit
+     * evaluates one (α, β) at every time of a test (only λ = −z changes), so the last few pairs are
+     * kept per thread. Powers on the principal branch, |s|^a·e^{i a arg s}, as Complex.pow takes them.
+     */
+    private record Powers(double alpha, double beta, double[] aRe, double[] aIm, double[] bRe, double[] bIm) {
+    }
+
+    private static final int KEPT = 4;
+    private static final ThreadLocal<Powers[]> RECENT = ThreadLocal.withInitial(() -> new Powers[KEPT]);
+    private static final ThreadLocal<int[]> NEXT = ThreadLocal.withInitial(() -> new int[1]);
+
+    private static Powers powers(double alpha, double beta) {
+        Powers[] recent = RECENT.get();
+        for (Powers p : recent) {
+            if (p != null && p.alpha() == alpha && p.beta() == beta) {
+                return p;
+            }
+        }
+        org.apache.commons.math3.complex.Complex[] s = LaplaceInversion.nodesAt(1.0);
+        int m = s.length;
+        double[] aRe = new double[m];
+        double[] aIm = new double[m];
+        double[] bRe = new double[m];
+        double[] bIm = new double[m];
+        for (int k = 0; k < m; k++) {
+            double logAbs = Math.log(Math.hypot(s[k].getReal(), s[k].getImaginary()));
+            double arg = Math.atan2(s[k].getImaginary(), s[k].getReal());
+            double ma = Math.exp(alpha * logAbs);
+            aRe[k] = ma * Math.cos(alpha * arg);
+            aIm[k] = ma * Math.sin(alpha * arg);
+            double mb = Math.exp((alpha - beta) * logAbs);
+            bRe[k] = mb * Math.cos((alpha - beta) * arg);
+            bIm[k] = mb * Math.sin((alpha - beta) * arg);
+        }
+        Powers p = new Powers(alpha, beta, aRe, aIm, bRe, bIm);
+        int[] next = NEXT.get();
+        recent[next[0]] = p;
+        next[0] = (next[0] + 1) % KEPT;
+        return p;
+    }
+
+    /** The inverse transform of s^{α−β}/(s^α + λ) at t = 1. */
+    private static double inverted(Powers p, double lambda) {
+        int m = p.aRe().length;
+        double[] fRe = new double[m];
+        double[] fIm = new double[m];
+        for (int k = 0; k < m; k++) {
+            double c = p.aRe()[k] + lambda;
+            double d = p.aIm()[k];
+            double den = c * c + d * d;
+            fRe[k] = (p.bRe()[k] * c + p.bIm()[k] * d) / den;
+            fIm[k] = (p.bIm()[k] * c - p.bRe()[k] * d) / den;
+        }
+        return LaplaceInversion.invertValues(1.0, fRe, fIm);
     }
 
     private static double series(double alpha, double beta, double z) {
