@@ -48,7 +48,37 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
     public String svg() {
         SVGGraphics2D g = new SVGGraphics2D(WIDTH_PT, heightPt);
         g.setDefsKeyPrefix(stem.replaceAll("[^A-Za-z0-9]", "_") + "_");
+        g.setGeomDoubleConverter(Figure::hundredths);
         chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
         return g.getSVGElement();
+    }
+
+    /**
+     * A coordinate of the SVG in points, to the hundredth (3.5 µm on paper, below any printer's dot):
+     * the shortest exact decimal of every double, which SVG writers give by default, made the demo's
+     * SVG files 2.5 times the size of their PNG files and slower to write and to open.
+     */
+    static String hundredths(double v) {
+        if (!Double.isFinite(v) || Math.abs(v) >= 1e13) {
+            return Double.toString(v);
+        }
+        long c = Math.round(v * 100);
+        if (c == 0) {
+            return "0";
+        }
+        StringBuilder b = new StringBuilder(16);
+        if (c < 0) {
+            b.append('-');
+            c = -c;
+        }
+        b.append(c / 100);
+        long f = c % 100;
+        if (f != 0) {
+            b.append('.').append(f / 10);
+            if (f % 10 != 0) {
+                b.append(f % 10);
+            }
+        }
+        return b.toString();
     }
 }

@@ -117,4 +117,28 @@ class FiguresTest {
         double[] spread = Figures.freestCorner(List.of(rising("b", 0.01, 1)), 0.01, 100, 0.3, 0.3);
         assertTrue(spread[0] > 0.5 && spread[1] > 0.5, "data low on the left leave the top right: " + java.util.Arrays.toString(spread));
     }
+
+    @Test
+    void svgCoordinatesAreTheHundredthOfAPointNearest() {
+        // the text of Math.round(100 v)/100 against BigDecimal's plain text of the same hundredths, trailing zeros dropped
+        java.util.Random r = new java.util.Random(9);
+        for (int k = 0; k < 50_000; k++) {
+            double v = (r.nextBoolean() ? -1 : 1) * (k % 3 == 0 ? r.nextInt(100_000) / 100.0 : r.nextDouble() * Math.pow(10, r.nextInt(7) - 2));
+            String got = Figure.hundredths(v);
+            java.math.BigDecimal want = new java.math.BigDecimal(Math.round(v * 100)).movePointLeft(2).stripTrailingZeros();
+            assertEquals(want.signum() == 0 ? "0" : want.toPlainString(), got, "value " + v);
+        }
+        assertEquals("13.07", Figure.hundredths(13.06689453125));
+        assertEquals("-0.5", Figure.hundredths(-0.5));
+        assertEquals("0", Figure.hundredths(-0.001));
+        assertEquals("302", Figure.hundredths(302.0));
+        String svg = Figures.fit(CAMPAIGN.samples().get(0).sample(), CAMPAIGN.samples().get(0).curve().orElseThrow(), "fit-test").svg();
+        java.util.regex.Matcher paths = java.util.regex.Pattern.compile(" d='([^']*)'").matcher(svg);
+        int seen = 0;
+        while (paths.find()) {
+            seen++;
+            assertTrue(!java.util.regex.Pattern.compile("[0-9]\\.[0-9]{3}").matcher(paths.group(1)).find(), paths.group(1));
+        }
+        assertTrue(seen > 10, "the figure's paths were found: " + seen);
+    }
 }
