@@ -64,6 +64,11 @@ public final class WorkbookReport {
     private static SXSSFWorkbook fastCompressing() {
         return new SXSSFWorkbook(200) {
             @Override
+            protected org.apache.poi.xssf.streaming.SheetDataWriter createSheetDataWriter() throws IOException {
+                return new SheetWriter();
+            }
+
+            @Override
             protected org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream createArchiveOutputStream(OutputStream out) {
                 org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream z = super.createArchiveOutputStream(out);
                 z.setLevel(java.util.zip.Deflater.BEST_SPEED);
