@@ -160,19 +160,25 @@ public final class LeastSquaresEngine {
      * been confirmed, and later starts, spread over less likely regions, are skipped.
      */
     public Solution solveMultiStart(int n, ResidualFunction f, List<double[]> starts) {
+        boolean compact = settings.method() == Method.COMPACT;
         Solution best = null;
+        double[][] bestJacobian = null;
         Solution firstFailure = null;
         int confirmations = 0;
         for (double[] s : starts) {
-            Solution sol = solve(n, f, s);
+            // on the compact path (JᵀJ)⁻¹ is computed once, for the start kept, not for every start
+            Compact c = compact ? solveCompactDeferred(n, f, s) : null;
+            Solution sol = compact ? c.solution() : solve(n, f, s);
             if (sol.converged()) {
                 if (best == null || sol.rss() < best.rss() * (1 - CONFIRMATION)) {
                     best = sol;
+                    bestJacobian = compact ? c.jacobian() : null;
                     confirmations = 1;
                 } else if (Math.abs(sol.rss() - best.rss()) <= CONFIRMATION * best.rss()) {
                     confirmations++;
                     if (sol.rss() < best.rss()) {
                         best = sol;
+                        bestJacobian = compact ? c.jacobian() : null;
                     }
                 }
                 if (confirmations >= 2) {
@@ -181,6 +187,9 @@ public final class LeastSquaresEngine {
             } else if (firstFailure == null) {
                 firstFailure = sol;
             }
+        }
+        if (best != null && bestJacobian != null) {
+            best = withCovariance(best, bestJacobian);
         }
         return best != null ? best : firstFailure;
     }
@@ -215,20 +224,33 @@ public final class LeastSquaresEngine {
     }
 
     private Solution solveCompact(int n, ResidualFunction f, double[] start) {
+        Compact c = solveCompactDeferred(n, f, start);
+        return c.jacobian() == null ? c.solution() : withCovariance(c.solution(), c.jacobian());
+    }
+
+    /** A compact solution without (JᵀJ)⁻¹ yet, and the Jacobian at its minimum (null when it did not converge). */
+    private record Compact(Solution solution, double[][] jacobian) {
+    }
+
+    private Compact solveCompactDeferred(int n, ResidualFunction f, double[] start) {
         CompactLevenbergMarquardt.Result r;
         try {
             r = new CompactLevenbergMarquardt(settings.maxEvaluations(), settings.relativeTolerance()).solve(n, f, start);
         } catch (RuntimeException e) {
-            return failed(n, f, start, "the optimiser stopped: " + e.getMessage());
+            return new Compact(failed(n, f, start, "the optimiser stopped: " + e.getMessage()), null);
         }
         if (!r.converged()) {
-            return new Solution(r.params(), r.rss(), null, n, r.evaluations(), false, r.message());
+            return new Compact(new Solution(r.params(), r.rss(), null, n, r.evaluations(), false, r.message()), null);
         }
         if (!Double.isFinite(r.rss()) || !allFinite(r.params())) {
-            return failed(n, f, start, "the fit left the range of finite numbers");
+            return new Compact(failed(n, f, start, "the fit left the range of finite numbers"), null);
         }
-        return new Solution(r.params(), r.rss(), inverseNormalMatrix(r.jacobian(), settings.singularityThreshold()),
-                n, r.evaluations(), true, "");
+        return new Compact(new Solution(r.params(), r.rss(), null, n, r.evaluations(), true, ""), r.jacobian());
+    }
+
+    private Solution withCovariance(Solution s, double[][] jacobian) {
+        return new Solution(s.params(), s.rss(), inverseNormalMatrix(jacobian, settings.singularityThreshold()), s.n(),
+                s.evaluations(), true, "");
     }
 
     /**
