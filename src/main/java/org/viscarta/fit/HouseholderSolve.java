@@ -23,7 +23,67 @@ public final class HouseholderSolve {
     public static double[] solve(double[][] a, double[] b, double threshold) {
         int m = a.length;
         int n = a[0].length;
-        double[][] qrt = new double[n][m]; // column j of A is row j here, as Commons Math keeps it
+        double[][] qrt = new double[n][];
+        double[] rDiag = reflect(a, qrt);
+        double[] y = b.clone();
+        for (int minor = 0; minor < Math.min(m, n); minor++) {
+            double[] qrtMinor = qrt[minor];
+            double dot = 0;
+            for (int row = minor; row < m; row++) {
+                dot += y[row] * qrtMinor[row];
+            }
+            dot /= rDiag[minor] * qrtMinor[minor];
+            for (int row = minor; row < m; row++) {
+                y[row] += dot * qrtMinor[row];
+            }
+        }
+        for (int j = 0; j < n; j++) {
+            if (Math.abs(rDiag[j]) <= threshold) {
+                throw new SingularMatrixException();
+            }
+        }
+        double[] x = new double[n];
+        for (int row = n - 1; row >= 0; row--) {
+            y[row] /= rDiag[row];
+            double yRow = y[row];
+            double[] qrtRow = qrt[row];
+            x[row] = yRow;
+            for (int i = 0; i < row; i++) {
+                y[i] -= yRow * qrtRow[i];
+            }
+        }
+        return x;
+    }
+
+    /**
+     * The triangular factor R (p × p, upper) of A = QR for A with at least as many rows as columns:
+     * AᵀA = RᵀR, so R has A's singular values and right singular vectors at the cost of a p × p
+     * problem. A is not changed.
+     */
+    public static double[][] triangular(double[][] a) {
+        int p = a[0].length;
+        double[][] qrt = new double[p][];
+        double[] rDiag = reflect(a, qrt);
+        double[][] r = new double[p][p];
+        for (int row = 0; row < p; row++) {
+            r[row][row] = rDiag[row];
+            for (int col = row + 1; col < p; col++) {
+                r[row][col] = qrt[col][row];
+            }
+        }
+        return r;
+    }
+
+    /**
+     * The Householder reflections of A, in Commons Math's layout: column j of A, reflected, becomes
+     * row j of {@code qrt} (which must have A's column count of rows); returns the diagonal of R.
+     */
+    private static double[] reflect(double[][] a, double[][] qrt) {
+        int m = a.length;
+        int n = a[0].length;
+        for (int j = 0; j < n; j++) {
+            qrt[j] = new double[m];
+        }
         for (int i = 0; i < m; i++) {
             for (int j = 0; j < n; j++) {
                 qrt[j][i] = a[i][j];
@@ -53,33 +113,6 @@ public final class HouseholderSolve {
                 }
             }
         }
-        double[] y = b.clone();
-        for (int minor = 0; minor < Math.min(m, n); minor++) {
-            double[] qrtMinor = qrt[minor];
-            double dot = 0;
-            for (int row = minor; row < m; row++) {
-                dot += y[row] * qrtMinor[row];
-            }
-            dot /= rDiag[minor] * qrtMinor[minor];
-            for (int row = minor; row < m; row++) {
-                y[row] += dot * qrtMinor[row];
-            }
-        }
-        for (int j = 0; j < n; j++) {
-            if (Math.abs(rDiag[j]) <= threshold) {
-                throw new SingularMatrixException();
-            }
-        }
-        double[] x = new double[n];
-        for (int row = n - 1; row >= 0; row--) {
-            y[row] /= rDiag[row];
-            double yRow = y[row];
-            double[] qrtRow = qrt[row];
-            x[row] = yRow;
-            for (int i = 0; i < row; i++) {
-                y[i] -= yRow * qrtRow[i];
-            }
-        }
-        return x;
+        return rDiag;
     }
 }
