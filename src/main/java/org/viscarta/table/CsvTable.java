@@ -47,7 +47,7 @@ public final class CsvTable {
      */
     public static void writeCells(Path target, boolean force, List<String> header, Iterable<List<String>> rows) throws IOException {
         AtomicOutput.write(target, force, stream -> {
-            Writer w = new OutputStreamWriter(stream, StandardCharsets.UTF_8);
+            Writer w = new org.viscarta.io.UnlockedWriter(new OutputStreamWriter(stream, StandardCharsets.UTF_8));
             CSVPrinter p = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setRecordSeparator("\n").get());
             p.printRecord(header);
             for (List<String> r : rows) {

@@ -1,4 +1,4 @@
-package org.viscarta.report;
+package org.viscarta.io;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 
@@ -10,9 +10,9 @@ import java.util.Random;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
-/** The sheets' unlocked writer gives the bytes the JDK's UTF-8 writer gives for the same calls. */
+/** The unlocked writer gives the bytes the JDK's UTF-8 writer gives for the same calls. */
 @Tag("self-check")
-class SheetWriterTest {
+class UnlockedWriterTest {
 
     @Test
     void sameBytesAsTheJdkWriterForAnyMixOfCalls() throws Exception {
@@ -27,7 +27,7 @@ class SheetWriterTest {
         ByteArrayOutputStream want = new ByteArrayOutputStream();
         ByteArrayOutputStream got = new ByteArrayOutputStream();
         try (Writer a = new OutputStreamWriter(want, StandardCharsets.UTF_8);
-             Writer b = new SheetWriter.Unlocked(new OutputStreamWriter(got, StandardCharsets.UTF_8))) {
+             Writer b = new UnlockedWriter(new OutputStreamWriter(got, StandardCharsets.UTF_8))) {
             int at = 0;
             while (at < text.length()) {
                 // single characters, short runs and runs longer than the buffer (16,384 characters)
