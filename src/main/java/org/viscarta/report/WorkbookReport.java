@@ -473,8 +473,11 @@ public final class WorkbookReport {
                 } else if (v instanceof Boolean b) {
                     cell.setCellValue(b ? "yes" : "no");
                 } else {
-                    cell.setCellValue(fitCell(v.toString()));
-                    if (i < numberStyles.length && numberStyles[i] != null && !v.toString().isEmpty()) {
+                    String text = v.toString();
+                    if (!text.isEmpty()) { // an empty text stays a blank cell: the same to read, a fraction of the XML
+                        cell.setCellValue(fitCell(text));
+                    }
+                    if (i < numberStyles.length && numberStyles[i] != null && !text.isEmpty()) {
                         cell.setCellStyle(numberStyles[i]);
                     } else if (lines > 1 || hasWrapped()) {
                         cell.setCellStyle(styles.text);
