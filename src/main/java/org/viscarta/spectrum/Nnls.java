@@ -32,8 +32,33 @@ public final class Nnls {
      */
     private static double[] activeSet(int n, double tol, java.util.function.Function<double[], double[]> gradient,
                                       java.util.function.Function<boolean[], double[]> onPassive) {
+        return activeSet(n, tol, gradient, onPassive, null);
+    }
+
+    /**
+     * The loop from a feasible start (x ≥ 0, or null for x = 0): its positive entries are the first
+     * passive set, settled as in the loop's inner step before the first look at the gradient. The
+     * loop ends where the Kuhn–Tucker conditions hold, wherever it starts; a start near the solution
+     * (that of a neighbouring problem) only saves the steps that add one variable at a time.
+     */
+    private static double[] activeSet(int n, double tol, java.util.function.Function<double[], double[]> gradient,
+                                      java.util.function.Function<boolean[], double[]> onPassive, double[] start) {
         double[] x = new double[n];
         boolean[] passive = new boolean[n];
+        if (start != null) {
+            for (int j = 0; j < n; j++) {
+                if (start[j] > 0) {
+                    x[j] = start[j];
+                    passive[j] = true;
+                }
+            }
+            if (anyPassive(passive)) {
+                x = settle(x, passive, tol, onPassive);
+                if (x == null) {
+                    return null;
+                }
+            }
+        }
         int maxIter = 3 * n + 50;
         for (int iter = 0; iter < maxIter; iter++) {
             double[] w = gradient.apply(x); // w = Aᵀ(b − A x)
@@ -49,42 +74,55 @@ public final class Nnls {
                 return x; // Kuhn–Tucker conditions hold
             }
             passive[best] = true;
-            while (true) {
-                double[] z = onPassive.apply(passive);
-                if (z == null) {
-                    return null;
-                }
-                boolean feasible = true;
-                for (int j = 0; j < n; j++) {
-                    if (passive[j] && z[j] <= 0) {
-                        feasible = false;
-                        break;
-                    }
-                }
-                if (feasible) {
-                    x = z;
-                    break;
-                }
-                // step from x towards z as far as feasibility allows, then free the variables that reached zero
-                double alpha = Double.POSITIVE_INFINITY;
-                for (int j = 0; j < n; j++) {
-                    if (passive[j] && z[j] <= 0) {
-                        alpha = Math.min(alpha, x[j] / (x[j] - z[j]));
-                    }
-                }
-                for (int j = 0; j < n; j++) {
-                    x[j] += alpha * (z[j] - x[j]);
-                    if (passive[j] && Math.abs(x[j]) <= tol) {
-                        passive[j] = false;
-                        x[j] = 0;
-                    }
-                }
-                if (!anyPassive(passive)) {
-                    break;
-                }
+            x = settle(x, passive, tol, onPassive);
+            if (x == null) {
+                return null;
             }
         }
         return x;
+    }
+
+    /**
+     * The loop's inner step: the unconstrained solution z on the passive set, taken when it is
+     * positive there; otherwise a step from x (feasible, positive on the passive set) towards z as far
+     * as feasibility allows, freeing the variables that reached zero, until it is. Null when the
+     * sub-problem's solver gives up.
+     */
+    private static double[] settle(double[] x, boolean[] passive, double tol, java.util.function.Function<boolean[], double[]> onPassive) {
+        int n = x.length;
+        while (true) {
+            double[] z = onPassive.apply(passive);
+            if (z == null) {
+                return null;
+            }
+            boolean feasible = true;
+            for (int j = 0; j < n; j++) {
+                if (passive[j] && z[j] <= 0) {
+                    feasible = false;
+                    break;
+                }
+            }
+            if (feasible) {
+                return z;
+            }
+            // step from x towards z as far as feasibility allows, then free the variables that reached zero
+            double alpha = Double.POSITIVE_INFINITY;
+            for (int j = 0; j < n; j++) {
+                if (passive[j] && z[j] <= 0) {
+                    alpha = Math.min(alpha, x[j] / (x[j] - z[j]));
+                }
+            }
+            for (int j = 0; j < n; j++) {
+                x[j] += alpha * (z[j] - x[j]);
+                if (passive[j] && Math.abs(x[j]) <= tol) {
+                    passive[j] = false;
+                    x[j] = 0;
+                }
+            }
+            if (!anyPassive(passive)) {
+                return x;
+            }
+        }
     }
 
     /**
@@ -101,6 +139,15 @@ public final class Nnls {
      * @return x ≥ 0 minimising ‖A x − b‖, or null when a sub-problem is not positive definite
      */
     public static double[] solveNormal(double[][] g, double[] c, double tol) {
+        return solveNormal(g, c, tol, null);
+    }
+
+    /**
+     * As {@link #solveNormal(double[][], double[], double)}, the loop started from {@code start}
+     * (x ≥ 0, e.g. the solution at a neighbouring λ; null for x = 0): the same solution, in fewer steps
+     * when the start is near it.
+     */
+    public static double[] solveNormal(double[][] g, double[] c, double tol, double[] start) {
         int n = c.length;
         return activeSet(n, tol, x -> {
             double[] w = new double[n];
@@ -112,7 +159,7 @@ public final class Nnls {
                 w[j] = sum;
             }
             return w;
-        }, passive -> choleskyOn(g, c, passive));
+        }, passive -> choleskyOn(g, c, passive), start);
     }
 
     /** G_PP z_P = c_P by Cholesky; the other entries 0; null when G_PP is not numerically positive definite. */

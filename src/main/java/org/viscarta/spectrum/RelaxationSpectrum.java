@@ -142,7 +142,8 @@ public final class RelaxationSpectrum {
 
     /**
      * The spectrum with λ chosen by GCV. The scan over λ solves each problem through its normal
-     * equations ({@link Nnls#solveNormal}: KᵀK and LᵀL formed once, λ changing only their sum),
+     * equations ({@link Nnls#solveNormal}: KᵀK and LᵀL formed once, λ changing only their sum; each λ
+     * started from the previous one's solution),
      * and the spectrum at the λ chosen is then solved as {@link #at} solves it, by QR on the
      * stacked matrix, with its band. Where a normal-equation solve is not positive definite, that λ
      * is scored through {@link #at} instead.
@@ -184,6 +185,7 @@ public final class RelaxationSpectrum {
         double bestLambda = Double.NaN;
         double bestGcv = Double.POSITIVE_INFINITY;
         double[][] g = new double[cols][cols];
+        double[] previous = null;
         for (int step = 0; step < LAMBDA_STEPS; step++) {
             double lambda = Math.pow(10, LAMBDA_LOW + (LAMBDA_HIGH - LAMBDA_LOW) * step / (LAMBDA_STEPS - 1));
             double norm1 = 0;
@@ -194,7 +196,9 @@ public final class RelaxationSpectrum {
                 norm1 = Math.max(norm1, colK[p] + lambda * colL[p]);
             }
             double tol = 10 * Math.ulp(1.0) * norm1 * Math.max(n + m - 2, cols);
-            double[] x = Nnls.solveNormal(g, ktb, tol);
+            // started from the solution at the previous λ, which shares most of its non-zero entries
+            double[] x = Nnls.solveNormal(g, ktb, tol, previous);
+            previous = x;
             double gcv = x == null ? Double.NaN : gcv(pr, x, ktk, g);
             if (Double.isNaN(gcv)) {
                 gcv = at(points, kind, lambda).gcv();
