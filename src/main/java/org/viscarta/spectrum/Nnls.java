@@ -19,10 +19,18 @@ public final class Nnls {
      * @return x ≥ 0 minimising ‖A x − b‖
      */
     public static double[] solve(double[][] a, double[] b) {
+        return solve(a, b, null);
+    }
+
+    /**
+     * As {@link #solve(double[][], double[])}, the loop started from {@code start} (x ≥ 0, e.g. the
+     * same problem's solution from its normal equations; null for x = 0).
+     */
+    public static double[] solve(double[][] a, double[] b, double[] start) {
         int m = a.length;
         int n = a[0].length;
         double tol = 10 * Math.ulp(1.0) * norm1(a) * Math.max(m, n);
-        return activeSet(n, tol, x -> gradient(a, b, x), passive -> leastSquaresOn(a, b, passive));
+        return activeSet(n, tol, x -> gradient(a, b, x), passive -> leastSquaresOn(a, b, passive), start);
     }
 
     /**

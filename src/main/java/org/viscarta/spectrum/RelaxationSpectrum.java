@@ -184,6 +184,7 @@ public final class RelaxationSpectrum {
         }
         double bestLambda = Double.NaN;
         double bestGcv = Double.POSITIVE_INFINITY;
+        double[] bestX = null;
         double[][] g = new double[cols][cols];
         double[] previous = null;
         for (int step = 0; step < LAMBDA_STEPS; step++) {
@@ -206,9 +207,11 @@ public final class RelaxationSpectrum {
             if (gcv < bestGcv) {
                 bestGcv = gcv;
                 bestLambda = lambda;
+                bestX = x;
             }
         }
-        return at(points, kind, Double.isNaN(bestLambda) ? Math.pow(10, LAMBDA_LOW) : bestLambda);
+        // the QR solve at the λ chosen starts from the scan's solution there: the same solution, in a step or two
+        return at(points, kind, Double.isNaN(bestLambda) ? Math.pow(10, LAMBDA_LOW) : bestLambda, bestX);
     }
 
     /**
@@ -247,6 +250,11 @@ public final class RelaxationSpectrum {
 
     /** The spectrum at a given λ. */
     public static Result at(List<SweepPoint> points, Kind kind, double lambda) {
+        return at(points, kind, lambda, null);
+    }
+
+    /** As {@link #at(List, Kind, double)}, the active-set loop started from {@code start} (null: from zero). */
+    private static Result at(List<SweepPoint> points, Kind kind, double lambda, double[] start) {
         Problem pr = problem(points, kind);
         int m = pr.tau.length;
         int cols = pr.k[0].length;
@@ -262,7 +270,7 @@ public final class RelaxationSpectrum {
             a[n + i][i + 1] = -2 * lambda;
             a[n + i][i + 2] = lambda;
         }
-        double[] x = Nnls.solve(a, b);
+        double[] x = Nnls.solve(a, b, start);
         double rss = rss(pr, x);
         // influence of the unconstrained problem on the non-zero unknowns
         List<Integer> free = new ArrayList<>();

@@ -63,6 +63,14 @@ class NnlsTest {
             for (int j = 0; j < n; j++) {
                 assertEquals(cold[j], warm[j], 1e-9 * Math.max(top, 1e-300), "trial " + trial + ", x[" + j + "]");
             }
+            // the QR path from the same start, and from the normal equations' own solution (as the spectrum's final solve)
+            double[] qrCold = Nnls.solve(a, b);
+            for (double[] from : new double[][] {start, cold}) {
+                double[] qrWarm = Nnls.solve(a, b, from);
+                for (int j = 0; j < n; j++) {
+                    assertEquals(qrCold[j], qrWarm[j], 1e-9 * Math.max(top, 1e-300), "QR, trial " + trial + ", x[" + j + "]");
+                }
+            }
             // Kuhn–Tucker: x ≥ 0, gradient c − G x ≤ tol where x = 0 and ≈ 0 where x > 0
             for (int j = 0; j < n; j++) {
                 double w = c[j];
