@@ -471,13 +471,13 @@ public final class SweepReader {
             if (header.timeType() != null) {
                 Map<String, String> m = new LinkedHashMap<>(blockMetadata);
                 m.put(TimeTest.TYPE_KEY, header.timeType().name());
-                metadata = Map.copyOf(m);
+                metadata = org.viscarta.sweep.Metadata.inFileOrder(m);
             } else if (amplitude != null) {
                 Map<String, String> m = new LinkedHashMap<>(blockMetadata);
                 m.put(Sweep.AMPLITUDE_COLUMN, amplitude.quantity().canonical());
-                metadata = Map.copyOf(m);
+                metadata = org.viscarta.sweep.Metadata.inFileOrder(m);
             } else {
-                metadata = Map.copyOf(blockMetadata);
+                metadata = org.viscarta.sweep.Metadata.inFileOrder(blockMetadata);
             }
             block++;
             defaultSample = blockMetadata.getOrDefault("sample", stem(path));

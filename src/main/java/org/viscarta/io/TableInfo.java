@@ -19,7 +19,7 @@ public record TableInfo(Layout kind, char separator, char decimalMark, String en
 
     public TableInfo {
         columns = List.copyOf(columns);
-        metadata = Map.copyOf(metadata);
+        metadata = org.viscarta.sweep.Metadata.inFileOrder(metadata);
     }
 
     /** The layout in words: "one sample per file", "tidy multi-sample table", ... */

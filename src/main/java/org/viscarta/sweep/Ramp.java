@@ -65,7 +65,7 @@ public record Ramp(String sample, String replicate, String group, ModulusKind ki
         if (points.isEmpty()) {
             throw new IllegalArgumentException("a ramp needs at least one point");
         }
-        metadata = Map.copyOf(metadata);
+        metadata = org.viscarta.sweep.Metadata.inFileOrder(metadata);
         List<Point> sorted = new ArrayList<>(points);
         sorted.sort(Comparator.comparingDouble(Point::temperatureC));
         points = List.copyOf(sorted);

@@ -67,7 +67,7 @@ public record Sweep(String sample, String replicate, String group, ModulusKind k
         if (points.isEmpty()) {
             throw new IllegalArgumentException("a sweep needs at least one point");
         }
-        metadata = Map.copyOf(metadata);
+        metadata = org.viscarta.sweep.Metadata.inFileOrder(metadata);
         attributes = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(attributes));
         List<SweepPoint> sorted = new ArrayList<>(points);
         sorted.sort(Comparator.comparingDouble(SweepPoint::frequencyHz));

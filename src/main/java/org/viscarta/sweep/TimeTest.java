@@ -96,7 +96,7 @@ public record TimeTest(String sample, String replicate, String group, ModulusKin
         if (points.isEmpty()) {
             throw new IllegalArgumentException("a time-domain test needs at least one point");
         }
-        metadata = Map.copyOf(metadata);
+        metadata = org.viscarta.sweep.Metadata.inFileOrder(metadata);
         List<Point> sorted = new ArrayList<>(points);
         sorted.sort(Comparator.comparingDouble(Point::timeS));
         points = List.copyOf(sorted);
