@@ -50,7 +50,9 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
         g.setDefsKeyPrefix(stem.replaceAll("[^A-Za-z0-9]", "_") + "_");
         g.setGeomDoubleConverter(Figure::hundredths);
         chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
-        return g.getSVGElement();
+        // a viewBox as well as the size, so that a page that sets the width (the report's figures fill
+        // their column) scales the drawing instead of leaving it at its natural size in a larger box
+        return g.getSVGElement(null, true, new org.jfree.svg.ViewBox(0, 0, WIDTH_PT, heightPt), null, null);
     }
 
     /**

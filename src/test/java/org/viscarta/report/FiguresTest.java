@@ -133,6 +133,9 @@ class FiguresTest {
         assertEquals("0", Figure.hundredths(-0.001));
         assertEquals("302", Figure.hundredths(302.0));
         String svg = Figures.fit(CAMPAIGN.samples().get(0).sample(), CAMPAIGN.samples().get(0).curve().orElseThrow(), "fit-test").svg();
+        // a viewBox on the root, so that the page's width:100% scales the drawing rather than leaving blank space
+        String root = svg.substring(0, svg.indexOf('>'));
+        assertTrue(root.contains("viewBox=\"0 0 468 302\"") || root.contains("viewBox='0 0 468 302'"), root);
         java.util.regex.Matcher paths = java.util.regex.Pattern.compile(" d='([^']*)'").matcher(svg);
         int seen = 0;
         while (paths.find()) {
