@@ -43,8 +43,9 @@ final class CompactLevenbergMarquardt {
         }
         double[][] a = new double[p][p];
         double[] g = new double[p];
+        double[][] jt = new double[p][n];
         double[] diag = new double[p];
-        normal(jac, r, a, g);
+        normal(jac, r, a, g, jt);
         for (int j = 0; j < p; j++) {
             diag[j] = Math.max(a[j][j], Double.MIN_NORMAL);
         }
@@ -95,7 +96,7 @@ final class CompactLevenbergMarquardt {
                 jac = jacNew;
                 jacNew = tj;
                 cost = costNew;
-                normal(jac, r, a, g);
+                normal(jac, r, a, g, jt);
                 for (int j = 0; j < p; j++) {
                     diag[j] = Math.max(diag[j], a[j][j]);
                 }
@@ -132,28 +133,27 @@ final class CompactLevenbergMarquardt {
         return worst <= tolerance;
     }
 
-    private static void normal(double[][] jac, double[] r, double[][] a, double[] g) {
+    /**
+     * A = JᵀJ and g = Jᵀr. J is copied column by column into {@code jt} (p × n) first, so that each
+     * entry is one dot product of two contiguous columns summed in four running parts: the arithmetic
+     * of updating A row by row of J, without loading and storing A's entries for every row.
+     */
+    private static void normal(double[][] jac, double[] r, double[][] a, double[] g, double[][] jt) {
+        int n = r.length;
         int p = g.length;
-        for (int i = 0; i < p; i++) {
-            g[i] = 0;
-            for (int j = 0; j <= i; j++) {
-                a[i][j] = 0;
-            }
-        }
-        for (int k = 0; k < r.length; k++) {
+        for (int k = 0; k < n; k++) {
             double[] row = jac[k];
             for (int i = 0; i < p; i++) {
-                double ri = row[i];
-                g[i] += ri * r[k];
-                double[] ai = a[i];
-                for (int j = 0; j <= i; j++) {
-                    ai[j] += ri * row[j];
-                }
+                jt[i][k] = row[i];
             }
         }
         for (int i = 0; i < p; i++) {
-            for (int j = 0; j < i; j++) {
-                a[j][i] = a[i][j];
+            double[] ci = jt[i];
+            g[i] = dot(ci, r);
+            for (int j = 0; j <= i; j++) {
+                double v = dot(ci, jt[j]);
+                a[i][j] = v;
+                a[j][i] = v;
             }
         }
     }
@@ -196,11 +196,23 @@ final class CompactLevenbergMarquardt {
         return true;
     }
 
+    /** Σ a_i b_i in four running parts (independent additions the processor overlaps), then their sum. */
     private static double dot(double[] a, double[] b) {
-        double s = 0;
-        for (int i = 0; i < a.length; i++) {
-            s += a[i] * b[i];
+        int n = a.length;
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        int i = 0;
+        for (; i + 3 < n; i += 4) {
+            s0 += a[i] * b[i];
+            s1 += a[i + 1] * b[i + 1];
+            s2 += a[i + 2] * b[i + 2];
+            s3 += a[i + 3] * b[i + 3];
         }
-        return s;
+        for (; i < n; i++) {
+            s0 += a[i] * b[i];
+        }
+        return (s0 + s1) + (s2 + s3);
     }
 }
