@@ -63,12 +63,18 @@ public final class MittagLeffler {
     }
 
     private static final int KEPT = 4;
-    private static final ThreadLocal<Powers[]> RECENT = ThreadLocal.withInitial(() -> new Powers[KEPT]);
-    private static final ThreadLocal<int[]> NEXT = ThreadLocal.withInitial(() -> new int[1]);
+
+    /** The pairs kept by one thread, and which one the next new pair replaces. */
+    private static final class Recent {
+        final Powers[] kept = new Powers[KEPT];
+        int next;
+    }
+
+    private static final ThreadLocal<Recent> RECENT = ThreadLocal.withInitial(Recent::new);
 
     private static Powers powers(double alpha, double beta) {
-        Powers[] recent = RECENT.get();
-        for (Powers p : recent) {
+        Recent recent = RECENT.get();
+        for (Powers p : recent.kept) {
             if (p != null && p.alpha() == alpha && p.beta() == beta) {
                 return p;
             }
@@ -90,9 +96,8 @@ public final class MittagLeffler {
             bIm[k] = mb * Math.sin((alpha - beta) * arg);
         }
         Powers p = new Powers(alpha, beta, aRe, aIm, bRe, bIm);
-        int[] next = NEXT.get();
-        recent[next[0]] = p;
-        next[0] = (next[0] + 1) % KEPT;
+        recent.kept[recent.next] = p;
+        recent.next = (recent.next + 1) % KEPT;
         return p;
     }
 

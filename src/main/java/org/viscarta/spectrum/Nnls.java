@@ -6,7 +6,8 @@ import org.viscarta.fit.HouseholderSolve;
  * Non-negative least squares, min ‖A x − b‖ subject to x ≥ 0, by the active-set algorithm of
  * Lawson &amp; Hanson (1974), Solving Least Squares Problems, Prentice-Hall, chapter 23 (the
  * algorithm SciPy's {@code scipy.optimize.nnls} also implements). Commons Math has no NNLS; the
- * unconstrained sub-problems are solved by its QR decomposition.
+ * unconstrained sub-problems are solved by Householder QR ({@link HouseholderSolve}: Commons Math's
+ * reflections on plain arrays).
  */
 public final class Nnls {
 
