@@ -10,7 +10,7 @@ import org.viscarta.cli.Viscarta;
 
 /**
  * Runs one command line of {@code viscarta} exactly as a user would (same entry point, same
- * options) and prints its wall time and peak resident memory, so that benchmarks measure the
+ * options) and prints its wall time, processor time and peak resident memory, so that benchmarks measure the
  * command and not a subset of it. Started in a JVM of its own by {@link Benchmarks} with the heap
  * and core count under test.
  */
@@ -25,9 +25,22 @@ public final class MeasuredRun {
         int code = Viscarta.execute(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true));
         double seconds = (System.nanoTime() - t0) / 1e9;
         double sinceJvm = (System.currentTimeMillis() - jvmStart) / 1e3;
-        System.out.printf(Locale.ROOT, "measured: exit %d, %.2f s in the command, %.2f s since the JVM started, peak resident %s%n",
-                code, seconds, sinceJvm, peakResident());
+        System.out.printf(Locale.ROOT, "measured: exit %d, %.2f s in the command, %.2f s since the JVM started, processor time %.2f s, "
+                + "peak resident %s%n", code, seconds, sinceJvm, processorSeconds(), peakResident());
         System.exit(code);
+    }
+
+    /**
+     * Processor time of the whole JVM so far, every thread (the command's, the collector's and the
+     * compiler's): on a shared machine it wanders less than wall time, so two builds compare better
+     * by it; NaN where the JVM does not say.
+     */
+    static double processorSeconds() {
+        if (ManagementFactory.getOperatingSystemMXBean() instanceof com.sun.management.OperatingSystemMXBean os) {
+            long ns = os.getProcessCpuTime();
+            return ns < 0 ? Double.NaN : ns / 1e9;
+        }
+        return Double.NaN;
     }
 
     /** VmHWM of /proc/self/status (Linux), else "unknown". */

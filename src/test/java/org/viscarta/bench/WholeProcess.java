@@ -35,6 +35,7 @@ import org.viscarta.model.Zener;
  */
 final class WholeProcess {
 
+    private static final Pattern PROCESSOR = Pattern.compile("processor time ([0-9.]+|NaN) s");
     private static final Pattern MEASURED = Pattern.compile("measured: exit (\\d+), ([0-9.]+) s in the command.*peak resident (\\S+ MB|unknown)");
 
     private WholeProcess() {
@@ -60,7 +61,7 @@ final class WholeProcess {
                 library.toString(), "--out", dir.resolve("report-out").toString(), "--force", "--quiet", "--timestamp",
                 "2026-01-01T00:00:00Z");
         System.out.printf(Locale.ROOT, "report: %,d sweeps x the whole catalogue x 50 references, -Xmx1g, 2 cores: %.1f s in the "
-                + "command, peak resident %s (exit %d)%n", n, r.seconds, r.peak, r.exit);
+                + "command, processor time %.1f s, peak resident %s (exit %d)%n", n, r.seconds, r.processor, r.peak, r.exit);
         long size = Files.size(dir.resolve("report-out").resolve("report.xlsx"));
         long page = Files.size(dir.resolve("report-out").resolve("report.html"));
         System.out.printf(Locale.ROOT, "report: workbook %.1f MB, page %.2f MB%n", size / 1e6, page / 1e6);
@@ -68,15 +69,20 @@ final class WholeProcess {
 
     private static void demo(Path dir, int rounds) throws IOException, InterruptedException {
         List<Double> times = new ArrayList<>();
+        List<Double> cpu = new ArrayList<>();
         for (int k = 0; k < rounds; k++) {
             Result r = measured(List.of("-XX:ActiveProcessorCount=2"), "report", "demo-data", "--library", "reference-materials",
                     "--basis", "tensile", "--target", "target-soft-tissue", "--out", dir.resolve("demo-out").toString(), "--force",
                     "--quiet");
             times.add(r.seconds);
-            System.out.printf(Locale.ROOT, "demo report, run %d: %.2f s in the command, peak resident %s%n", k + 1, r.seconds, r.peak);
+            cpu.add(r.processor);
+            System.out.printf(Locale.ROOT, "demo report, run %d: %.2f s in the command, processor time %.2f s, peak resident %s%n", k + 1,
+                    r.seconds, r.processor, r.peak);
         }
         times.sort(null);
-        System.out.printf(Locale.ROOT, "demo report: median %.2f s over %d runs (2 cores)%n", times.get(times.size() / 2), rounds);
+        cpu.sort(null);
+        System.out.printf(Locale.ROOT, "demo report: median %.2f s over %d runs (2 cores), median processor time %.2f s%n",
+                times.get(times.size() / 2), rounds, cpu.get(cpu.size() / 2));
     }
 
     private static void fit(Path dir, int n) throws IOException, InterruptedException {
@@ -86,16 +92,21 @@ final class WholeProcess {
         writeSweeps(large, 10 * n, 11);
         List<String> jvm = List.of("-Xmx1g", "-XX:ActiveProcessorCount=2");
         double[] perSweep = new double[3];
+        double[] cpuPerSweep = new double[3];
         for (int k = 0; k < 3; k++) {
             Result a = measured(jvm, "fit", small.toString(), "--models", "zener", "-o", dir.resolve("fit-small-out.csv").toString(),
                     "--force", "--quiet");
             Result b = measured(jvm, "fit", large.toString(), "--models", "zener", "-o", dir.resolve("fit-large-out.csv").toString(),
                     "--force", "--quiet");
             perSweep[k] = (b.seconds - a.seconds) / (9.0 * n) * 1e6;
+            cpuPerSweep[k] = (b.processor - a.processor) / (9.0 * n) * 1e6;
             System.out.printf(Locale.ROOT, "fit --models zener -o, round %d: %,d sweeps %.2f s, %,d sweeps %.2f s (peak resident %s):"
-                    + " marginal %.0f µs per sweep%n", k + 1, n, a.seconds, 10 * n, b.seconds, b.peak, perSweep[k]);
+                    + " marginal %.0f µs per sweep, %.0f µs of processor time%n", k + 1, n, a.seconds, 10 * n, b.seconds, b.peak,
+                    perSweep[k], cpuPerSweep[k]);
         }
         Arrays.sort(perSweep);
+        Arrays.sort(cpuPerSweep);
+        System.out.printf(Locale.ROOT, "fit: marginal processor time per sweep, every thread, median of 3: %.0f µs%n", cpuPerSweep[1]);
         System.out.printf(Locale.ROOT, "fit: marginal cost per 20-point sweep, whole process on 2 cores, median of 3: %.0f µs "
                 + "(%.0f sweeps per second per core)%n", perSweep[1], 1e6 / perSweep[1] / 2);
         ProcessBuilder scipy = new ProcessBuilder("python3", "src/test/resources/bench/scipy_fit_campaign.py", small.toString(),
@@ -150,7 +161,7 @@ final class WholeProcess {
         }
     }
 
-    private record Result(int exit, double seconds, String peak) {
+    private record Result(int exit, double seconds, String peak, double processor) {
     }
 
     /** Runs a command line in a JVM of its own through {@link MeasuredRun}, echoing its stage timings. */
@@ -170,7 +181,9 @@ final class WholeProcess {
             for (String line; (line = in.readLine()) != null; ) {
                 Matcher m = MEASURED.matcher(line);
                 if (m.find()) {
-                    result = new Result(Integer.parseInt(m.group(1)), Double.parseDouble(m.group(2)), m.group(3));
+                    Matcher cpu = PROCESSOR.matcher(line);
+                    result = new Result(Integer.parseInt(m.group(1)), Double.parseDouble(m.group(2)), m.group(3),
+                            cpu.find() ? Double.parseDouble(cpu.group(1)) : Double.NaN);
                 } else if (line.startsWith("timing: ")) {
                     timings.add(line.substring(8));
                 } else if (line.startsWith("viscarta:")) {
