@@ -73,7 +73,7 @@ public final class RawReader {
         List<String> lines;
         try {
             bytes = Files.readAllBytes(file);
-            lines = List.of(new String(bytes, StandardCharsets.UTF_8).split("\r?\n", -1));
+            lines = lines(new String(bytes, StandardCharsets.UTF_8));
         } catch (IOException e) {
             throw new InputException(file, 0, 0, "cannot read the file (" + e.getMessage() + ")");
         }
@@ -220,6 +220,23 @@ public final class RawReader {
         }
         return new Measurement(file, SweepReader.sha256(bytes), meta, List.of(segment(Double.NaN, rows, tCol, fCol, dCol, defCol,
                 posCol, k, cantilever, headerIndex + 2)));
+    }
+
+    /**
+     * The text's lines, as {@code text.split("\r?\n", -1)} gives them (a line ends at LF, a CR just
+     * before it is dropped, a last empty line kept), found by scanning for LF: the regular expression
+     * took a third of the time reading a 47 MB file of raw signals.
+     */
+    static List<String> lines(String text) {
+        List<String> out = new ArrayList<>();
+        int start = 0;
+        for (int j = text.indexOf('\n'); j >= 0; j = text.indexOf('\n', start)) {
+            int end = j > start && text.charAt(j - 1) == '\r' ? j - 1 : j;
+            out.add(text.substring(start, end));
+            start = j + 1;
+        }
+        out.add(text.substring(start));
+        return java.util.Collections.unmodifiableList(out);
     }
 
     /** One data row in SI: every cell a plain number, as many as the header has. */
