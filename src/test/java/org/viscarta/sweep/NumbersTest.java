@@ -28,18 +28,10 @@ class NumbersTest {
         java.util.Random r = new java.util.Random(3);
         double[] edge = {0, -0.0, 0.05, 0.15, 0.25, 2.5, -2.5, 0.045, 1e-9, -1e-9, 123456789.125, 1e20, -0.04,
                 Double.NaN, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, Double.MIN_VALUE, 99.95, 9.995};
-        for (int d = 0; d <= 3; d++) {
-            for (double v : edge) {
-                assertEquals(String.format(java.util.Locale.ROOT, "%." + d + "f", v), Numbers.fixed(v, d), v + " to " + d);
-            }
-            for (int k = 0; k < 20_000; k++) {
-                double v = (r.nextBoolean() ? -1 : 1) * Math.pow(10, -4 + 10 * r.nextDouble());
-                if (k % 4 == 0) {
-                    v = Math.round(v * 1000) / 1000.0; // short decimals, where half-way cases live
-                }
-                assertEquals(String.format(java.util.Locale.ROOT, "%." + d + "f", v), Numbers.fixed(v, d), v + " to " + d);
-            }
-        }
+        assertAsFormatter('f', new int[] {0, 1, 2, 3}, edge, 20_000, k -> {
+            double v = (r.nextBoolean() ? -1 : 1) * Math.pow(10, -4 + 10 * r.nextDouble());
+            return k % 4 == 0 ? Math.round(v * 1000) / 1000.0 : v; // short decimals, where half-way cases live
+        }, Numbers::fixed);
     }
 
     @Test
@@ -51,16 +43,24 @@ class NumbersTest {
         double[] edge = {0, -0.0, 1, -1, 0.0001, 0.00009999, 0.000099995, 9999.5, 9999.4, 99995, 1e4, 1e-4, 123456789, 1e20, 1e-20,
                 2.5, 0.125, 1.0005, 1.00049, 12.345, Double.MIN_VALUE, Double.MAX_VALUE, Double.NaN, Double.POSITIVE_INFINITY,
                 Double.NEGATIVE_INFINITY};
-        for (int n : new int[] {3, 4, 6}) {
+        assertAsFormatter('g', new int[] {3, 4, 6}, edge, 30_000, k -> {
+            double v = (r.nextBoolean() ? -1 : 1) * Math.pow(10, -12 + 27 * r.nextDouble());
+            return k % 3 == 0 ? Math.round(v * 1e4) / 1e4 : v;
+        }, Numbers::general);
+    }
+
+    /** ours(v, n) against String.format(Locale.ROOT, "%.n" + conversion, v) on the edge values and {@code count} drawn ones, for each n. */
+    private static void assertAsFormatter(char conversion, int[] digits, double[] edge, int count,
+                                          java.util.function.IntToDoubleFunction draw,
+                                          java.util.function.BiFunction<Double, Integer, String> ours) {
+        for (int n : digits) {
+            String format = "%." + n + conversion;
             for (double v : edge) {
-                assertEquals(String.format(java.util.Locale.ROOT, "%." + n + "g", v), Numbers.general(v, n), v + " to " + n);
+                assertEquals(String.format(java.util.Locale.ROOT, format, v), ours.apply(v, n), v + " as " + format);
             }
-            for (int k = 0; k < 30_000; k++) {
-                double v = (r.nextBoolean() ? -1 : 1) * Math.pow(10, -12 + 27 * r.nextDouble());
-                if (k % 3 == 0) {
-                    v = Math.round(v * 1e4) / 1e4; // short decimals, where half-way cases live
-                }
-                assertEquals(String.format(java.util.Locale.ROOT, "%." + n + "g", v), Numbers.general(v, n), v + " to " + n);
+            for (int k = 0; k < count; k++) {
+                double v = draw.applyAsDouble(k);
+                assertEquals(String.format(java.util.Locale.ROOT, format, v), ours.apply(v, n), v + " as " + format);
             }
         }
     }
