@@ -16,6 +16,8 @@ import numpy as np
 import scipy
 from scipy.optimize import least_squares
 
+from scipy_zener_fit import zener_problem  # the same residuals, Jacobian and start as the single-fit script
+
 path, count = sys.argv[1], int(sys.argv[2])
 sweeps = {}
 with open(path) as f:
@@ -30,26 +32,7 @@ with open(path) as f:
 times = []
 for name, pts in sweeps.items():
     d = np.array(pts)
-    w = 2 * np.pi * d[:, 0]
-    ln_s, ln_l = np.log(d[:, 1]), np.log(d[:, 2])
-
-    def parts(u):
-        er, e1, tau = np.exp(u)
-        x = w * tau
-        den = 1 + x * x
-        return er + e1 * x * x / den, e1 * x / den, er, e1, x, den
-
-    def resid(u):
-        s, l, *_ = parts(u)
-        return np.concatenate([np.log(s) - ln_s, np.log(l) - ln_l])
-
-    def jac(u):
-        s, l, er, e1, x, den = parts(u)
-        js = np.column_stack([er / s, e1 * x * x / den / s, e1 * 2 * x * x / (den * den) / s])
-        jl = np.column_stack([np.zeros_like(x), np.ones_like(x), (1 - x * x) / den])
-        return np.vstack([js, jl])
-
-    start = np.log([0.9 * d[:, 1].min(), max(d[:, 1].max() - d[:, 1].min(), 0.1 * d[:, 1].min()), 1 / w[np.argmax(d[:, 2])]])
+    resid, jac, start = zener_problem(d[:, 0], d[:, 1], d[:, 2])
     t0 = time.perf_counter()
     least_squares(resid, start, jac=jac, method="lm")
     times.append(time.perf_counter() - t0)
