@@ -179,20 +179,7 @@ final class CompactLevenbergMarquardt {
                 m[i][j] = s / d;
             }
         }
-        for (int i = 0; i < p; i++) {
-            double s = b[i];
-            for (int k = 0; k < i; k++) {
-                s -= m[i][k] * b[k];
-            }
-            b[i] = s / m[i][i];
-        }
-        for (int i = p - 1; i >= 0; i--) {
-            double s = b[i];
-            for (int k = i + 1; k < p; k++) {
-                s -= m[k][i] * b[k];
-            }
-            b[i] = s / m[i][i];
-        }
+        Cholesky.substitute(m, p, b);
         return true;
     }
 

@@ -189,7 +189,7 @@ public final class Nnls {
         for (int i = 0; i < k; i++) {
             y[i] = c[index[i]];
         }
-        choleskySolve(l, k, y);
+        org.viscarta.fit.Cholesky.substitute(l, k, y);
         double[] z = new double[n];
         for (int i = 0; i < k; i++) {
             z[index[i]] = y[i];
@@ -222,24 +222,6 @@ public final class Nnls {
             }
         }
         return true;
-    }
-
-    /** Solves L Lᵀ y = b in place (b becomes y) with the lower factor of {@link #cholesky}, k × k. */
-    static void choleskySolve(double[][] l, int k, double[] y) {
-        for (int i = 0; i < k; i++) {
-            double s = y[i];
-            for (int j = 0; j < i; j++) {
-                s -= l[i][j] * y[j];
-            }
-            y[i] = s / l[i][i];
-        }
-        for (int i = k - 1; i >= 0; i--) {
-            double s = y[i];
-            for (int j = i + 1; j < k; j++) {
-                s -= l[j][i] * y[j];
-            }
-            y[i] = s / l[i][i];
-        }
     }
 
     private static boolean anyPassive(boolean[] p) {

@@ -241,7 +241,7 @@ public final class RelaxationSpectrum {
                 for (int i = 0; i < f; i++) {
                     y[i] = ktk[free[i]][free[q]];
                 }
-                Nnls.choleskySolve(l, f, y);
+                org.viscarta.fit.Cholesky.substitute(l, f, y);
                 trace += y[q];
             }
         }
