@@ -550,11 +550,7 @@ public final class Figures {
             double w = Math.min(1, (24 + 6.0 * longest) / DATA_WIDTH_PT);
             double h = Math.min(1, (8.0 + LEGEND_LINE_PT * entries) / (height - 10));
             double[] corner = freestCorner(e.getValue(), fLow, fHigh, w, h);
-            panel.addAnnotation(new CornerTitle(corner[0], corner[1], legend,
-                    corner[0] > 0.5 ? (corner[1] > 0.5 ? org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT
-                            : org.jfree.chart.ui.RectangleAnchor.BOTTOM_RIGHT)
-                            : (corner[1] > 0.5 ? org.jfree.chart.ui.RectangleAnchor.TOP_LEFT
-                            : org.jfree.chart.ui.RectangleAnchor.BOTTOM_LEFT)));
+            panel.addAnnotation(atCorner(legend, corner));
             combined.add(panel, height);
             panelsHeight += height + 8;
         }
@@ -740,6 +736,17 @@ public final class Figures {
         tauAxis.setNumberFormatOverride(new DecimalFormat("0.####", java.text.DecimalFormatSymbols.getInstance(Locale.ROOT)));
         CombinedDomainXYPlot combined = new CombinedDomainXYPlot(tauAxis);
         combined.setGap(8);
+        double tauLow = Double.POSITIVE_INFINITY;
+        double tauHigh = 0;
+        for (List<SampleAnalysis> group : byGroup.values()) {
+            for (SampleAnalysis sa : group) {
+                for (double t : sa.spectrum().get().tau()) {
+                    tauLow = Math.min(tauLow, t);
+                    tauHigh = Math.max(tauHigh, t);
+                }
+            }
+        }
+        double tauSpan = Math.log(tauHigh / tauLow);
         int panelsHeight = 0;
         for (Map.Entry<String, List<SampleAnalysis>> e : byGroup.entrySet()) {
             XYSeriesCollection data = new XYSeriesCollection();
@@ -773,8 +780,25 @@ public final class Figures {
             }
             panel.setRenderer(r);
             org.jfree.chart.title.LegendTitle legend = panelLegend(panel);
-            panel.addAnnotation(new CornerTitle(0.995, 0.98, legend, org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT));
             int height = Math.max(150, 24 + LEGEND_LINE_PT * data.getSeriesCount());
+            // the legend goes into the corner the curves leave freest (positions on the shared τ axis,
+            // which pads its range by 5 % each side, and on the panel's own H axis)
+            List<double[]> unit = new ArrayList<>();
+            double hSpan = Math.log(y.getUpperBound() / y.getLowerBound());
+            int longest = 10;
+            for (int i = 0; i < data.getSeriesCount(); i++) {
+                XYSeries series = data.getSeries(i);
+                longest = Math.max(longest, series.getKey().toString().length());
+                for (int j = 0; j < series.getItemCount(); j++) {
+                    double t = series.getX(j).doubleValue();
+                    double hv = series.getY(j).doubleValue();
+                    unit.add(new double[] {tauSpan > 0 ? (Math.log(t / tauLow) / tauSpan + 0.05) / 1.1 : 0.5,
+                        Math.log(hv / y.getLowerBound()) / hSpan});
+                }
+            }
+            double w = Math.min(1, (24 + 6.0 * longest) / DATA_WIDTH_PT);
+            double h = Math.min(1, (8.0 + LEGEND_LINE_PT * data.getSeriesCount()) / (height - 10));
+            panel.addAnnotation(atCorner(legend, freestCorner(unit, w, h)));
             combined.add(panel, height);
             panelsHeight += height + 8;
         }
@@ -843,18 +867,30 @@ public final class Figures {
                 }
             }
         }
+        double fSpan = Math.log(fHigh / fLow);
+        double tSpan = Math.log(tHigh / tLow);
+        List<double[]> unit = new ArrayList<>(points.size());
+        for (double[] p : points) {
+            unit.add(new double[] {fSpan > 0 ? Math.log(p[0] / fLow) / fSpan : 0.5,
+                tSpan > 0 ? 0.05 + 0.9 * Math.log(p[1] / tLow) / tSpan : 0.5}); // the axis pads its range
+        }
+        return freestCorner(unit, w, h);
+    }
+
+    /**
+     * The corner where a legend box of relative size w × h covers the fewest of the points, given
+     * as positions 0 … 1 across and up the data area (ties: top right, then top left, bottom right,
+     * bottom left), as the relative position of the box's outer corner.
+     */
+    static double[] freestCorner(List<double[]> unitPoints, double w, double h) {
         double[][] corners = {{0.995, 0.98}, {0.005, 0.98}, {0.995, 0.02}, {0.005, 0.02}};
         double[] best = corners[0];
         int fewest = Integer.MAX_VALUE;
-        double fSpan = Math.log(fHigh / fLow);
-        double tSpan = Math.log(tHigh / tLow);
         for (double[] c : corners) {
             int covered = 0;
-            for (double[] p : points) {
-                double x = fSpan > 0 ? Math.log(p[0] / fLow) / fSpan : 0.5;
-                double y = tSpan > 0 ? 0.05 + 0.9 * Math.log(p[1] / tLow) / tSpan : 0.5; // the axis pads its range
-                boolean inX = c[0] > 0.5 ? x >= 1 - w - 0.02 : x <= w + 0.02;
-                boolean inY = c[1] > 0.5 ? y >= 1 - h - 0.03 : y <= h + 0.03;
+            for (double[] p : unitPoints) {
+                boolean inX = c[0] > 0.5 ? p[0] >= 1 - w - 0.02 : p[0] <= w + 0.02;
+                boolean inY = c[1] > 0.5 ? p[1] >= 1 - h - 0.03 : p[1] <= h + 0.03;
                 if (inX && inY) {
                     covered++;
                 }
@@ -865,6 +901,15 @@ public final class Figures {
             }
         }
         return best;
+    }
+
+    /** A legend annotation anchored at a corner chosen by {@link #freestCorner(List, double, double)}. */
+    private static CornerTitle atCorner(org.jfree.chart.title.LegendTitle legend, double[] corner) {
+        return new CornerTitle(corner[0], corner[1], legend,
+                corner[0] > 0.5 ? (corner[1] > 0.5 ? org.jfree.chart.ui.RectangleAnchor.TOP_RIGHT
+                        : org.jfree.chart.ui.RectangleAnchor.BOTTOM_RIGHT)
+                        : (corner[1] > 0.5 ? org.jfree.chart.ui.RectangleAnchor.TOP_LEFT
+                        : org.jfree.chart.ui.RectangleAnchor.BOTTOM_LEFT));
     }
 
     private static XYPlot tanDeltaPlot(List<Sample> samples, LogAxis y) {

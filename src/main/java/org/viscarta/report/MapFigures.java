@@ -184,7 +184,8 @@ public final class MapFigures {
         bar.setPosition(RectangleEdge.RIGHT);
         bar.setStripWidth(12);
         bar.setSubdivisionCount(256);
-        bar.setMargin(new RectangleInsets(4, 8, 4, 4));
+        // top and bottom margins hold half a tick label, whose text is centred on the scale's ends
+        bar.setMargin(new RectangleInsets(8, 8, 10, 4));
         bar.setBackgroundPaint(Color.WHITE);
         c.addSubtitle(bar);
         c.setBackgroundPaint(Color.WHITE);

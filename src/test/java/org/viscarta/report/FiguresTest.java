@@ -118,6 +118,27 @@ class FiguresTest {
         assertTrue(spread[0] > 0.5 && spread[1] > 0.5, "data low on the left leave the top right: " + java.util.Arrays.toString(spread));
     }
 
+    /**
+     * The spectra's case: a master curve high across the whole panel and a sample's curve falling
+     * from the top left leave only the bottom free; of the two bottom corners the right comes first.
+     */
+    @Test
+    void aLegendLeavesTheTopWhenCurvesRunAlongIt() {
+        List<double[]> pts = new java.util.ArrayList<>();
+        for (int i = 0; i <= 50; i++) {
+            pts.add(new double[] {i / 50.0, 0.9 + 0.05 * Math.sin(i / 8.0)}); // along the top
+            if (i <= 25) {
+                pts.add(new double[] {i / 50.0, 0.9 - i / 50.0}); // falling from the top left to the middle
+            }
+        }
+        double[] corner = Figures.freestCorner(pts, 0.4, 0.3);
+        assertTrue(corner[0] > 0.5 && corner[1] < 0.5, "bottom right: " + java.util.Arrays.toString(corner));
+        pts.add(new double[] {0.95, 0.1});
+        double[] other = Figures.freestCorner(pts, 0.4, 0.3);
+        assertTrue(other[0] < 0.5 && other[1] < 0.5, "a point under the bottom right leaves the bottom left: "
+                + java.util.Arrays.toString(other));
+    }
+
     @Test
     void svgCoordinatesAreTheHundredthOfAPointNearest() {
         // the text of Math.round(100 v)/100 against BigDecimal's plain text of the same hundredths, trailing zeros dropped
