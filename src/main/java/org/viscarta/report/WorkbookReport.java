@@ -91,6 +91,11 @@ public final class WorkbookReport {
      * when their sheet is written, near the end: they may still be drawing while the tables are written.
      */
     public static void write(ReportContent c, FigureSource figureSource, java.nio.file.Path file) throws IOException {
+        write(c, figureSource, file, Math.max(1, Math.min(4, Runtime.getRuntime().availableProcessors())));
+    }
+
+    /** As {@link #write(ReportContent, FigureSource, java.nio.file.Path)}, the tables' rows written by {@code sheetThreads} threads. */
+    static void write(ReportContent c, FigureSource figureSource, java.nio.file.Path file, int sheetThreads) throws IOException {
         java.time.Instant stated = java.time.Instant.parse(c.provenance().runAtUtc());
         AnalysisResult r = c.result();
         try (SXSSFWorkbook wb = fastCompressing(); OutputStream buffer = new java.io.BufferedOutputStream(
@@ -99,9 +104,11 @@ public final class WorkbookReport {
             core.setCreated(java.util.Optional.of(java.util.Date.from(stated)));
             core.setCreator("Viscarta " + c.provenance().toolVersion());
             Styles st = new Styles(wb);
+            Tables tables = new Tables(sheetThreads);
+            try {
             readMe(wb, st, r);
-            table(wb, st, OutputTables.summary(r), r.samples(), "", List.of());
-            table(wb, st, OutputTables.ranking(r), r.rankingRows(), "", List.of());
+            table(wb, st, tables, OutputTables.summary(r), r.samples(), "", List.of());
+            table(wb, st, tables, OutputTables.ranking(r), r.rankingRows(), "", List.of());
             r.ranking().ifPresent(rk -> groupComparison(wb, st, rk));
             if (r.request().parts().contains(org.viscarta.analysis.AnalysisRequest.Part.QUALITY)) {
                 List<String> footer = new java.util.ArrayList<>(Statements.qualitySummary(r));
@@ -115,19 +122,19 @@ public final class WorkbookReport {
                 }
                 footer.add("Limits:");
                 footer.addAll(Statements.QUALITY_LIMITS);
-                table(wb, st, OutputTables.QUALITY, rows, rows.isEmpty() ? "every check passed" : "", footer);
+                table(wb, st, tables, OutputTables.QUALITY, rows, rows.isEmpty() ? "every check passed" : "", footer);
             }
             List<Matcher.Match> shown = r.samples().stream().flatMap(sa -> sa.matches().stream().limit(Matcher.SHOWN)).toList();
-            table(wb, st, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());
-            r.mimic().ifPresent(m -> table(wb, st, OutputTables.matches(true), m.matches(), "",
+            table(wb, st, tables, OutputTables.matches(false), shown, r.library().isEmpty() ? NO_LIBRARY : "", List.of());
+            r.mimic().ifPresent(m -> table(wb, st, tables, OutputTables.matches(true), m.matches(), "",
                     List.of("first and second distinguishable: " + Matcher.distinguishable(m.matches()))));
             if (!r.series().isEmpty()) {
                 temperatureSeries(wb, st, r);
             }
             if (!r.transitions().isEmpty()) {
                 org.viscarta.temperature.Transitions t = r.transitions();
-                table(wb, st, OutputTables.transitions(t), t.results(), "", Statements.TRANSITION_METHOD);
-                table(wb, st, OutputTables.ACTIVATION, t.activations(), t.activations().isEmpty()
+                table(wb, st, tables, OutputTables.transitions(t), t.results(), "", Statements.TRANSITION_METHOD);
+                table(wb, st, tables, OutputTables.ACTIVATION, t.activations(), t.activations().isEmpty()
                         ? "no sample was ramped at two or more frequencies" : "", List.of());
                 List<String> statements = new java.util.ArrayList<>();
                 for (org.viscarta.temperature.Transitions.RankedSet set : t.sets()) {
@@ -135,7 +142,7 @@ public final class WorkbookReport {
                     set.statements().forEach(x -> statements.add("  " + x));
                     set.missing().forEach(x -> statements.add("  not compared: " + x));
                 }
-                table(wb, st, OutputTables.TRANSITION_RANKING, OutputTables.transitionRankRows(t), t.sets().isEmpty()
+                table(wb, st, tables, OutputTables.TRANSITION_RANKING, OutputTables.transitionRankRows(t), t.sets().isEmpty()
                         ? "fewer than two samples at any one frequency, so nothing was compared" : "", statements);
             }
             if (!r.maps().specimens().isEmpty()) {
@@ -144,7 +151,7 @@ public final class WorkbookReport {
                     setup.add(m.specimen().name() + ": " + mapSetup(m));
                     m.specimen().notes().forEach(n -> setup.add("  " + n));
                 }
-                table(wb, st, OutputTables.POSITIONS, r.maps().specimens().stream().flatMap(m -> m.specimen().points().stream()).toList(),
+                table(wb, st, tables, OutputTables.POSITIONS, r.maps().specimens().stream().flatMap(m -> m.specimen().points().stream()).toList(),
                         "", setup);
                 List<String> statements = new java.util.ArrayList<>();
                 for (org.viscarta.analysis.Maps.Mapped m : r.maps().specimens()) {
@@ -152,7 +159,7 @@ public final class WorkbookReport {
                 }
                 List<OutputTables.RegionRow> regionRows = OutputTables.regionRows(r.maps().specimens().stream()
                         .map(org.viscarta.analysis.Maps.Mapped::specimen).toList());
-                table(wb, st, OutputTables.REGIONS, regionRows, regionRows.isEmpty() ? "no specimen has regions" : "", statements);
+                table(wb, st, tables, OutputTables.REGIONS, regionRows, regionRows.isEmpty() ? "no specimen has regions" : "", statements);
             }
             if (!r.timeTests().isEmpty()) {
                 List<String> origins = new java.util.ArrayList<>();
@@ -163,18 +170,22 @@ public final class WorkbookReport {
                     d.sample().replicates().forEach(sw -> origins.add(d.sample().name() + ", replicate " + sw.replicate() + ": "
                             + org.viscarta.analysis.TimeTests.origin(sw).orElse("")));
                 }
-                table(wb, st, OutputTables.TIME_TESTS, OutputTables.timeTestRows(r), "", origins);
+                table(wb, st, tables, OutputTables.TIME_TESTS, OutputTables.timeTestRows(r), "", origins);
             }
-            table(wb, st, OutputTables.modelFits(r.request()), OutputTables.fitRows(r.samples()), "", List.of());
-            table(wb, st, OutputTables.DERIVED, OutputTables.derivedRows(r.samples()), "", List.of());
-            table(wb, st, OutputTables.CORRELATIONS, OutputTables.correlationRows(r.samples()), "", List.of());
+            table(wb, st, tables, OutputTables.modelFits(r.request()), () -> OutputTables.fitRows(r.samples()), "", List.of());
+            table(wb, st, tables, OutputTables.DERIVED, () -> OutputTables.derivedRows(r.samples()), "", List.of());
+            table(wb, st, tables, OutputTables.CORRELATIONS, () -> OutputTables.correlationRows(r.samples()), "", List.of());
             List<OutputTables.SpectrumRow> spectra = OutputTables.spectrumRows(r.samples());
             if (!spectra.isEmpty()) {
-                table(wb, st, OutputTables.SPECTRA, spectra, "", OutputTables.spectrumNotes(r.samples()));
+                table(wb, st, tables, OutputTables.SPECTRA, spectra, "", OutputTables.spectrumNotes(r.samples()));
             }
-            table(wb, st, OutputTables.data(r.samples()), OutputTables.dataRows(r.samples()), "", List.of());
-            table(wb, st, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
+            table(wb, st, tables, OutputTables.data(r.samples()), () -> OutputTables.dataRows(r.samples()), "", List.of());
+            table(wb, st, tables, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
                     r.library().isEmpty() ? NO_LIBRARY : "", List.of());
+                tables.finish();
+            } finally {
+                tables.close();
+            }
             List<RenderedFigure> figures = figureSource.get();
             if (!figures.isEmpty()) {
                 figures(wb, st, figures);
@@ -189,11 +200,23 @@ public final class WorkbookReport {
     /**
      * Draws a declared table as a sheet: a frozen, filtered header row with units, one row per item,
      * numbers as numeric cells in the column's format, the column widths, a colour scale on tan δ.
+     * The sheet and its header are made now, in the workbook's order; its rows are written by
+     * {@code tables}, possibly on another thread, and the rest when {@code tables} finishes.
      *
      * @param empty  said in the first row when the table has no rows for a reason ("" for none)
      * @param footer lines after the table
      */
-    private static <R> void table(Workbook wb, Styles st, Table<R> table, Iterable<R> items, String empty, List<String> footer) {
+    private static <R> void table(Workbook wb, Styles st, Tables tables, Table<R> table, Iterable<R> items, String empty,
+                                  List<String> footer) {
+        table(wb, st, tables, table, () -> items, empty, footer);
+    }
+
+    /**
+     * As {@link #table(Workbook, Styles, Tables, Table, Iterable, String, List)}, with the rows made
+     * where they are written: a large campaign's row lists are then not all held at once.
+     */
+    private static <R> void table(Workbook wb, Styles st, Tables tables, Table<R> table,
+                                  java.util.function.Supplier<? extends Iterable<R>> items, String empty, List<String> footer) {
         Sheet s = wb.createSheet(table.name());
         List<Column<R>> cols = table.columnsFor(Medium.SHEET);
         CellStyle[] formats = new CellStyle[cols.size()];
@@ -212,32 +235,93 @@ public final class WorkbookReport {
         head.setHeightInPoints(headLines * 15f);
         rows.wrapping(cols.stream().mapToInt(c -> c.style() == Style.TEXT && c.width() >= WRAPPED_WIDTH ? c.width() : 0).toArray());
         freezeHeader(s);
-        if (!empty.isEmpty()) {
-            rows.row(empty);
-        }
-        Object[] values = new Object[cols.size()];
-        for (R item : items) {
-            for (int i = 0; i < values.length; i++) {
-                values[i] = cols.get(i).value().apply(item);
+        // the rows touch this sheet only, and styles made before
+        Runnable body = () -> {
+            if (!empty.isEmpty()) {
+                rows.row(empty);
             }
-            rows.row(values);
-        }
-        if (empty.isEmpty()) {
-            table(s, rows, cols.size() - 1);
-            for (int i = 0; i < cols.size(); i++) {
-                if (table.colourScaled().contains(cols.get(i).csvName())) {
-                    tanDeltaScale(s, rows, i);
+            Object[] values = new Object[cols.size()];
+            for (R item : items.get()) {
+                for (int i = 0; i < values.length; i++) {
+                    values[i] = cols.get(i).value().apply(item);
+                }
+                rows.row(values);
+            }
+        };
+        // the filter and the print titles are names of the whole workbook: made on the workbook's thread
+        Runnable finish = () -> {
+            if (empty.isEmpty()) {
+                table(s, rows, cols.size() - 1);
+                for (int i = 0; i < cols.size(); i++) {
+                    if (table.colourScaled().contains(cols.get(i).csvName())) {
+                        tanDeltaScale(s, rows, i);
+                    }
                 }
             }
-        }
-        if (!footer.isEmpty()) {
-            rows.blank();
-            int width = cols.stream().mapToInt(Column::width).sum();
-            for (String line : footer) {
-                rows.sentence(st.wrap, line, cols.size() - 1, width); // across the table's width, wrapped
+            if (!footer.isEmpty()) {
+                rows.blank();
+                int width = cols.stream().mapToInt(Column::width).sum();
+                for (String line : footer) {
+                    rows.sentence(st.wrap, line, cols.size() - 1, width); // across the table's width, wrapped
+                }
             }
+            widths(s, cols.stream().mapToInt(Column::width).toArray());
+        };
+        tables.add(body, finish);
+    }
+
+    /**
+     * The tables of one workbook, their rows written by worker threads, each sheet by one thread: a
+     * large campaign's sheets (model fits, derived quantities, spectra, data) are each a hundred
+     * megabytes of XML or more, and are written side by side instead of one after another. What
+     * touches the whole workbook waits for {@link #finish()}, which runs it in the tables' order, so
+     * that the same content still gives the same file.
+     */
+    private static final class Tables implements AutoCloseable {
+        private final java.util.concurrent.ExecutorService workers;
+        private final List<java.util.concurrent.Future<?>> bodies = new java.util.ArrayList<>();
+        private final List<Runnable> finishing = new java.util.ArrayList<>();
+
+        Tables(int threads) {
+            workers = java.util.concurrent.Executors.newFixedThreadPool(threads, task -> {
+                Thread t = new Thread(task, "viscarta-sheet");
+                t.setDaemon(true);
+                return t;
+            });
         }
-        widths(s, cols.stream().mapToInt(Column::width).toArray());
+
+        void add(Runnable body, Runnable finish) {
+            bodies.add(workers.submit(body));
+            finishing.add(finish);
+        }
+
+        /** Waits for every table's rows, then finishes the tables in the order they were added. */
+        void finish() throws IOException {
+            for (java.util.concurrent.Future<?> f : bodies) {
+                try {
+                    f.get();
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    throw new java.io.InterruptedIOException("interrupted while the sheets were written");
+                } catch (java.util.concurrent.ExecutionException e) {
+                    if (e.getCause() instanceof RuntimeException re) {
+                        throw re;
+                    }
+                    if (e.getCause() instanceof Error err) {
+                        throw err;
+                    }
+                    throw new IOException(e.getCause());
+                }
+            }
+            finishing.forEach(Runnable::run);
+            finishing.clear();
+            bodies.clear();
+        }
+
+        @Override
+        public void close() {
+            workers.shutdownNow();
+        }
     }
 
     /**
