@@ -2,6 +2,7 @@ package org.viscarta.report;
 
 import java.io.IOException;
 import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.List;
 import java.util.Map;
 import org.apache.poi.ss.usermodel.Cell;
@@ -57,24 +58,143 @@ public final class WorkbookReport {
     }
 
     /**
-     * A streamed workbook (200 rows in memory per sheet) whose container is compressed at Deflate's
-     * fastest level: the sheets are large, repetitive XML, and the fastest level costs a few tenths
-     * more bytes for a fraction of the time.
+     * A streamed workbook (200 rows in memory per sheet) whose sheets are compressed at Deflate's
+     * fastest level by the threads that write their rows ({@link SheetWriter}), and whose container
+     * is assembled from those compressed parts: the sheets are large, repetitive XML, and the
+     * fastest level costs a few tenths more bytes for a fraction of the time.
      */
-    private static SXSSFWorkbook fastCompressing() {
-        return new SXSSFWorkbook(200) {
-            @Override
-            protected org.apache.poi.xssf.streaming.SheetDataWriter createSheetDataWriter() throws IOException {
-                return new SheetWriter();
-            }
+    private static final class FastWorkbook extends SXSSFWorkbook {
+        /** The sheets' writers in the order the sheets were made (a sheet's index is its writer's). */
+        private List<SheetWriter> writers;
 
-            @Override
-            protected org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream createArchiveOutputStream(OutputStream out) {
-                org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream z = super.createArchiveOutputStream(out);
-                z.setLevel(java.util.zip.Deflater.BEST_SPEED);
-                return z;
+        FastWorkbook() {
+            super(200);
+        }
+
+        @Override
+        protected org.apache.poi.xssf.streaming.SheetDataWriter createSheetDataWriter() throws IOException {
+            if (writers == null) {
+                writers = new java.util.ArrayList<>();
             }
-        };
+            SheetWriter w = new SheetWriter();
+            writers.add(w);
+            return w;
+        }
+
+        /**
+         * Commons Compress's own ZIP writer, not POI's streaming one (which keeps its own account of
+         * the bytes written and would not count entries added already compressed); ZIP64 records
+         * only where an entry or the container needs them.
+         */
+        @Override
+        protected org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream createArchiveOutputStream(OutputStream out) {
+            org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream z =
+                    new org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream(out);
+            z.setUseZip64(org.apache.commons.compress.archivers.zip.Zip64Mode.AsNeeded);
+            z.setLevel(java.util.zip.Deflater.BEST_SPEED);
+            return z;
+        }
+
+        /**
+         * Writes the container: every part of POI's template as POI does, except that a sheet's
+         * entry is its template up to the empty {@code <sheetData/>}, the rows already compressed,
+         * and the rest of the template, joined as raw Deflate parts (the same bytes of XML that POI
+         * would write, compressed once).
+         */
+        @Override
+        protected void injectData(org.apache.poi.openxml4j.util.ZipEntrySource source, OutputStream out) throws IOException {
+            org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream zos = createArchiveOutputStream(out);
+            try {
+                java.util.Enumeration<? extends org.apache.commons.compress.archivers.zip.ZipArchiveEntry> en = source.getEntries();
+                while (en.hasMoreElements()) {
+                    org.apache.commons.compress.archivers.zip.ZipArchiveEntry ze = en.nextElement();
+                    byte[] template;
+                    try (java.io.InputStream is = source.getInputStream(ze)) {
+                        if (is instanceof org.apache.poi.openxml4j.util.ZipArchiveThresholdInputStream t) {
+                            t.setGuardState(false);
+                        }
+                        template = is.readAllBytes();
+                    }
+                    org.apache.poi.xssf.usermodel.XSSFSheet x = getSheetFromZipEntryName(ze.getName());
+                    if (x != null && !(x instanceof org.apache.poi.xssf.usermodel.XSSFChartSheet)) {
+                        int index = getXSSFWorkbook().getSheetIndex(x);
+                        getSheetAt(index).flushRows();
+                        SheetWriter w = writers.get(index);
+                        w.close();
+                        sheetEntry(zos, ze, template, w);
+                    } else {
+                        org.apache.commons.compress.archivers.zip.ZipArchiveEntry copy =
+                                new org.apache.commons.compress.archivers.zip.ZipArchiveEntry(ze.getName());
+                        if (ze.getSize() >= 0) {
+                            copy.setSize(ze.getSize());
+                        }
+                        if (ze.getTime() >= 0) {
+                            copy.setTime(ze.getTime());
+                        }
+                        zos.putArchiveEntry(copy);
+                        zos.write(template);
+                        zos.closeArchiveEntry();
+                    }
+                }
+            } finally {
+                zos.finish();
+                source.close();
+            }
+        }
+
+        private static final byte[] EMPTY_SHEET_DATA = "<sheetData/>".getBytes(StandardCharsets.UTF_8);
+
+        private static void sheetEntry(org.apache.commons.compress.archivers.zip.ZipArchiveOutputStream zos,
+                                       org.apache.commons.compress.archivers.zip.ZipArchiveEntry ze, byte[] template,
+                                       SheetWriter w) throws IOException {
+            int at = indexOf(template, EMPTY_SHEET_DATA);
+            if (at < 0) {
+                throw new IOException("the template of " + ze.getName() + " has no empty sheetData to fill");
+            }
+            java.io.ByteArrayOutputStream h = new java.io.ByteArrayOutputStream(at + 16);
+            h.write(template, 0, at);
+            h.write("<sheetData>\n".getBytes(StandardCharsets.UTF_8));
+            byte[] head = h.toByteArray();
+            java.io.ByteArrayOutputStream t = new java.io.ByteArrayOutputStream(template.length - at + 16);
+            t.write("</sheetData>".getBytes(StandardCharsets.UTF_8));
+            int after = at + EMPTY_SHEET_DATA.length;
+            t.write(template, after, template.length - after);
+            byte[] tail = t.toByteArray();
+            DeflatedPart rows = w.part();
+            java.io.File file = w.file();
+            if (file.length() != rows.compressedSize()) {
+                throw new IOException("the compressed rows of " + ze.getName() + " are incomplete");
+            }
+            byte[] headDeflated = DeflatedPart.deflate(head, false);
+            byte[] tailDeflated = DeflatedPart.deflate(tail, true);
+            org.apache.commons.compress.archivers.zip.ZipArchiveEntry e =
+                    new org.apache.commons.compress.archivers.zip.ZipArchiveEntry(ze.getName());
+            e.setMethod(java.util.zip.ZipEntry.DEFLATED);
+            e.setSize(head.length + rows.size() + tail.length);
+            e.setCompressedSize(headDeflated.length + rows.compressedSize() + tailDeflated.length);
+            e.setCrc(DeflatedPart.combine(DeflatedPart.combine(DeflatedPart.crc(head), rows.crc(), rows.size()),
+                    DeflatedPart.crc(tail), tail.length));
+            if (ze.getTime() >= 0) {
+                e.setTime(ze.getTime());
+            }
+            try (java.io.InputStream body = new java.io.FileInputStream(file)) {
+                zos.addRawArchiveEntry(e, new java.io.SequenceInputStream(java.util.Collections.enumeration(List.of(
+                        new java.io.ByteArrayInputStream(headDeflated), body, new java.io.ByteArrayInputStream(tailDeflated)))));
+            }
+        }
+
+        private static int indexOf(byte[] data, byte[] pattern) {
+            outer:
+            for (int i = 0; i + pattern.length <= data.length; i++) {
+                for (int j = 0; j < pattern.length; j++) {
+                    if (data[i + j] != pattern[j]) {
+                        continue outer;
+                    }
+                }
+                return i;
+            }
+            return -1;
+        }
     }
 
     /**
@@ -98,7 +218,7 @@ public final class WorkbookReport {
     static void write(ReportContent c, FigureSource figureSource, java.nio.file.Path file, int sheetThreads) throws IOException {
         java.time.Instant stated = java.time.Instant.parse(c.provenance().runAtUtc());
         AnalysisResult r = c.result();
-        try (SXSSFWorkbook wb = fastCompressing(); OutputStream buffer = new java.io.BufferedOutputStream(
+        try (SXSSFWorkbook wb = new FastWorkbook(); OutputStream buffer = new java.io.BufferedOutputStream(
                 java.nio.file.Files.newOutputStream(file), 1 << 16)) {
             var core = wb.getXSSFWorkbook().getProperties().getCoreProperties();
             core.setCreated(java.util.Optional.of(java.util.Date.from(stated)));
