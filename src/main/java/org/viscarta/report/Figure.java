@@ -28,6 +28,15 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
     }
     private static final double DPI = 200;
 
+    /**
+     * Charts are drawn one at a time (their PNG encoding and SVG documents still made side by side): drawn
+     * side by side, a figure now and then came out laid out wrongly (a legend's entries measured
+     * several times too wide, the plot squeezed; about one figure in a few demo reports, the same
+     * chart's SVG right), a race in the shared text-measuring state under JFreeChart that was
+     * not found. One at a time the same figures come out the same in every run.
+     */
+    private static final Object DRAWING = new Object();
+
     /** PNG at 200 dots per inch: sharp on slides and printed documents at the figure's size; the SVG is for print at any size. */
     public byte[] png() throws IOException {
         double scale = DPI / 72.0;
@@ -37,7 +46,9 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
         Graphics2D g = img.createGraphics();
         try {
             g.scale(scale, scale);
-            chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
+            synchronized (DRAWING) {
+                chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
+            }
         } finally {
             g.dispose();
         }
@@ -49,7 +60,9 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
         SVGGraphics2D g = new SVGGraphics2D(WIDTH_PT, heightPt);
         g.setDefsKeyPrefix(stem.replaceAll("[^A-Za-z0-9]", "_") + "_");
         g.setGeomDoubleConverter(Figure::hundredths);
-        chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
+        synchronized (DRAWING) {
+            chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
+        }
         // a viewBox as well as the size, so that a page that sets the width (the report's figures fill
         // their column) scales the drawing instead of leaving it at its natural size in a larger box
         return g.getSVGElement(null, true, new org.jfree.svg.ViewBox(0, 0, WIDTH_PT, heightPt), null, null);
