@@ -166,6 +166,14 @@ public final class MapFigures {
                                      String slug, String prefix) {
         double lo = pts.stream().mapToDouble(value).min().orElseThrow();
         double hi = pts.stream().mapToDouble(value).max().orElseThrow();
+        if (!(hi > lo)) {
+            // every position the same value: a scale either side of it (a factor of two on a logarithmic
+            // one, which then has round ticks; 5 % on a linear one), the tiles in its middle colour
+            // (a scale of no length cannot be drawn)
+            double d = log ? 0 : Math.max(Math.abs(lo) * 0.05, 1e-12);
+            lo = log ? lo / 2 : lo - d;
+            hi = log ? hi * 2 : hi + d;
+        }
         Scale scale = new Scale(lo, hi, log, image == null ? 255 : (int) Math.round(255 * opacity));
         XYPlot plot = tiles(s, pts, value, scale, image, reg);
         JFreeChart c = new JFreeChart(s.name() + ": " + what, Palette.TITLE, plot, false);
@@ -177,7 +185,7 @@ public final class MapFigures {
         } else {
             axis = new NumberAxis(unitLabel);
         }
-        axis.setRange(lo, hi > lo ? hi : lo * 1.0001 + 1e-12);
+        axis.setRange(lo, hi);
         axis.setLabelFont(Palette.LABEL);
         axis.setTickLabelFont(Palette.TICK);
         PaintScaleLegend bar = new PaintScaleLegend(new Scale(lo, hi, log, 255), axis);
@@ -221,6 +229,74 @@ public final class MapFigures {
                 + "reference comes from its best-supported model's curve.", c, 360);
     }
 
+    /**
+     * Translucent tiles (over an image) filled, centred on their positions, without an outline and
+     * without antialiasing; opaque ones as JFreeChart draws them.
+     * JFreeChart's block renderer also strokes each block's outline in its colour (so that opaque
+     * blocks leave no gaps); in translucent tiles over an image those outlines overlap the fill
+     * and one another, and showed as a grid of lighter lines. Antialiased edges would leave the
+     * pixels along a shared edge partly uncovered, showing the image through as faint seams.
+     * Filled by pixel centres, tiles that share an edge share no pixel and leave none out.
+     */
+    private static final class SeamlessBlocks extends XYBlockRenderer {
+        private static final long serialVersionUID = 1L;
+
+        @Override
+        public void drawItem(java.awt.Graphics2D g2, org.jfree.chart.renderer.xy.XYItemRendererState state,
+                             java.awt.geom.Rectangle2D dataArea, org.jfree.chart.plot.PlotRenderingInfo info, XYPlot plot,
+                             org.jfree.chart.axis.ValueAxis domainAxis, org.jfree.chart.axis.ValueAxis rangeAxis,
+                             org.jfree.data.xy.XYDataset dataset, int series, int item,
+                             org.jfree.chart.plot.CrosshairState crosshairState, int pass) {
+            double x = dataset.getXValue(series, item);
+            double y = dataset.getYValue(series, item);
+            double z = dataset instanceof org.jfree.data.xy.XYZDataset d ? d.getZValue(series, item) : 0;
+            java.awt.Paint paint = getPaintScale().getPaint(z);
+            if (!(paint instanceof Color c) || c.getAlpha() == 255) {
+                // opaque tiles as JFreeChart draws them: their outlines also close the hairline gaps
+                // between positions a little further apart than the tile size
+                super.drawItem(g2, state, dataArea, info, plot, domainAxis, rangeAxis, dataset, series, item, crosshairState, pass);
+                return;
+            }
+            double w = getBlockWidth();
+            double h = getBlockHeight();
+            // the block anchor is the centre (set where the renderer is made)
+            double x0 = domainAxis.valueToJava2D(x - w / 2, dataArea, plot.getDomainAxisEdge());
+            double x1 = domainAxis.valueToJava2D(x + w / 2, dataArea, plot.getDomainAxisEdge());
+            double y0 = rangeAxis.valueToJava2D(y - h / 2, dataArea, plot.getRangeAxisEdge());
+            double y1 = rangeAxis.valueToJava2D(y + h / 2, dataArea, plot.getRangeAxisEdge());
+            Object aa = g2.getRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING);
+            g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_OFF);
+            try {
+                g2.setPaint(paint);
+                g2.fill(new java.awt.geom.Rectangle2D.Double(Math.min(x0, x1), Math.min(y0, y1), Math.abs(x1 - x0), Math.abs(y1 - y0)));
+            } finally {
+                g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, aa);
+            }
+        }
+    }
+
+    /** A tile drawn as the quadrilateral it covers in the image, filled as {@link SeamlessBlocks} fills. */
+    private static final class SeamlessTile extends org.jfree.chart.annotations.XYPolygonAnnotation {
+        private static final long serialVersionUID = 1L;
+
+        SeamlessTile(double[] corners, java.awt.Paint fill) {
+            super(corners, null, null, fill);
+        }
+
+        @Override
+        public void draw(java.awt.Graphics2D g2, XYPlot plot, java.awt.geom.Rectangle2D dataArea,
+                         org.jfree.chart.axis.ValueAxis domainAxis, org.jfree.chart.axis.ValueAxis rangeAxis, int rendererIndex,
+                         org.jfree.chart.plot.PlotRenderingInfo info) {
+            Object aa = g2.getRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING);
+            g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_OFF);
+            try {
+                super.draw(g2, plot, dataArea, domainAxis, rangeAxis, rendererIndex, info);
+            } finally {
+                g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, aa);
+            }
+        }
+    }
+
     /** Tiles at the positions: in µm without an image, in the image's pixels over it with one. */
     private static XYPlot tiles(MapAnalysis.Specimen s, List<MapAnalysis.Point> pts, ToDoubleFunction<MapAnalysis.Point> value,
                                 PaintScale scale, BufferedImage image, Registration reg) {
@@ -233,7 +309,7 @@ public final class MapFigures {
         }
         DefaultXYZDataset ds = new DefaultXYZDataset();
         ds.addSeries("values", data);
-        XYBlockRenderer r = new XYBlockRenderer();
+        XYBlockRenderer r = new SeamlessBlocks();
         double side = image == null ? s.spacingM() * 1e6 : s.spacingM() / reg.pixelSizeM();
         if (!(side > 0) || Double.isInfinite(side)) {
             side = 1;
@@ -266,7 +342,7 @@ public final class MapFigures {
                     c[2 * k] = uv[0];
                     c[2 * k + 1] = uv[1];
                 }
-                plot.addAnnotation(new org.jfree.chart.annotations.XYPolygonAnnotation(c, null, null, scale.getPaint(data[2][i])), false);
+                plot.addAnnotation(new SeamlessTile(c, scale.getPaint(data[2][i])), false);
             }
         }
         plot.setBackgroundPaint(Color.WHITE);
