@@ -346,8 +346,7 @@ public final class ModelFitter {
                 dtheta[j] = transforms[j].derivative(u[j]);
             }
             for (int i = 0; i < m; i++) {
-                model.modulus(omega[i], theta, mod);
-                model.derivatives(omega[i], theta, ds, dl);
+                model.modulusAndDerivatives(omega[i], theta, mod, ds, dl);
                 if (relative) {
                     r[2 * i] = mod[0] / storage[i] - 1;
                     r[2 * i + 1] = mod[1] / loss[i] - 1;

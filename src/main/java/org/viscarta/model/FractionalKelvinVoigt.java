@@ -55,6 +55,14 @@ public final class FractionalKelvinVoigt implements ViscoelasticModel {
     }
 
     @Override
+    public void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        Springpot.powerLawAndDerivatives(omega, p[1], p[2], out, dStorage, dLoss, 1);
+        out[0] += p[0];
+        dStorage[0] = 1;
+        dLoss[0] = 0;
+    }
+
+    @Override
     public List<double[]> startValues(List<SweepPoint> points) {
         DataFeatures f = new DataFeatures(points);
         List<double[]> starts = new ArrayList<>();

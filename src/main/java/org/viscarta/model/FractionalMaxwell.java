@@ -63,6 +63,20 @@ public final class FractionalMaxwell implements ViscoelasticModel {
     }
 
     @Override
+    public void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        FractionalArm arm = new FractionalArm();
+        arm.evaluate(omega, p[1], p[2], true); // the same g1, g2 as without derivatives
+        out[0] = p[0] * arm.g1;
+        out[1] = p[0] * arm.g2;
+        dStorage[0] = arm.g1;
+        dStorage[1] = p[0] * arm.dg1dTau;
+        dStorage[2] = p[0] * arm.dg1dAlpha;
+        dLoss[0] = arm.g2;
+        dLoss[1] = p[0] * arm.dg2dTau;
+        dLoss[2] = p[0] * arm.dg2dAlpha;
+    }
+
+    @Override
     public List<double[]> startValues(List<SweepPoint> points) {
         DataFeatures f = new DataFeatures(points);
         List<double[]> starts = new ArrayList<>();

@@ -64,6 +64,22 @@ public final class FractionalZener implements ViscoelasticModel {
     }
 
     @Override
+    public void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        FractionalArm arm = new FractionalArm();
+        arm.evaluate(omega, p[2], p[3], true); // the same g1, g2 as without derivatives
+        out[0] = p[0] + p[1] * arm.g1;
+        out[1] = p[1] * arm.g2;
+        dStorage[0] = 1;
+        dStorage[1] = arm.g1;
+        dStorage[2] = p[1] * arm.dg1dTau;
+        dStorage[3] = p[1] * arm.dg1dAlpha;
+        dLoss[0] = 0;
+        dLoss[1] = arm.g2;
+        dLoss[2] = p[1] * arm.dg2dTau;
+        dLoss[3] = p[1] * arm.dg2dAlpha;
+    }
+
+    @Override
     public List<double[]> startValues(List<SweepPoint> points) {
         DataFeatures f = new DataFeatures(points);
         double spread = Math.max(f.storageMax - f.storageMin, 0.2 * f.storageMin);

@@ -152,6 +152,30 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
         }
     }
 
+    @Override
+    public void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        double s = liquid ? 0 : p[0];
+        double l = 0;
+        if (!liquid) {
+            dStorage[0] = 1;
+            dLoss[0] = 0;
+        }
+        for (int i = 1; i <= elements; i++) {
+            int e = off + i - 1;
+            int t = off + elements + i - 1;
+            double x = omega * p[t];
+            double d = 1 + x * x;
+            s += p[e] * x * x / d;
+            l += p[e] * x / d;
+            dStorage[e] = x * x / d;
+            dLoss[e] = x / d;
+            dStorage[t] = p[e] * 2 * x / (d * d) * omega;
+            dLoss[t] = p[e] * (1 - x * x) / (d * d) * omega;
+        }
+        out[0] = s;
+        out[1] = l;
+    }
+
     /**
      * About one relaxation time per decade of frequency can be resolved (Baumgaertel &amp; Winter 1989,
      * Rheol. Acta 28:511, suggest one to two; DOMAIN.md section 7): N may not exceed 1 + the decades spanned.

@@ -57,6 +57,25 @@ public final class Springpot implements ViscoelasticModel {
         powerLawDerivatives(omega, p[0], p[1], dStorage, dLoss, 0);
     }
 
+    @Override
+    public void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        powerLawAndDerivatives(omega, p[0], p[1], out, dStorage, dLoss, 0);
+    }
+
+    /** {@link #powerLaw} and {@link #powerLawDerivatives} at once: the power, cosine and sine computed once. */
+    static void powerLawAndDerivatives(double omega, double c, double a, double[] out, double[] dStorage, double[] dLoss, int at) {
+        double w = Math.pow(omega, a);
+        double ca = Math.cos(a * Math.PI / 2);
+        double sa = Math.sin(a * Math.PI / 2);
+        out[0] = c * w * ca;
+        out[1] = c * w * sa;
+        double lnw = Math.log(omega);
+        dStorage[at] = w * ca;
+        dStorage[at + 1] = c * w * (lnw * ca - Math.PI / 2 * sa);
+        dLoss[at] = w * sa;
+        dLoss[at + 1] = c * w * (lnw * sa + Math.PI / 2 * ca);
+    }
+
     /** ∂/∂c and ∂/∂α of the springpot term, written at indices {@code at} and {@code at + 1}. */
     static void powerLawDerivatives(double omega, double c, double a, double[] dStorage, double[] dLoss, int at) {
         double w = Math.pow(omega, a);

@@ -58,6 +58,14 @@ public final class SpringpotDashpot implements ViscoelasticModel {
     }
 
     @Override
+    public void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        POWER_LAW.modulusAndDerivatives(omega, p, out, dStorage, dLoss);
+        out[1] += omega * p[2];
+        dStorage[2] = 0;
+        dLoss[2] = omega;
+    }
+
+    @Override
     public List<double[]> startValues(List<SweepPoint> points) {
         List<double[]> starts = new ArrayList<>();
         double[] etas = new double[points.size()];

@@ -39,6 +39,17 @@ public sealed interface ViscoelasticModel permits Springpot, EmpiricalPowerLaw, 
     void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss);
 
     /**
+     * {@link #modulus} and {@link #derivatives} at once, for the fits, which need both at every
+     * frequency of every iteration. Models whose two methods share costly work (powers, logarithms,
+     * cosines) override it to do that work once; the numbers must be those of the two methods, bit
+     * for bit (JacobianTest checks every model and variant).
+     */
+    default void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        modulus(omega, p, out);
+        derivatives(omega, p, dStorage, dLoss);
+    }
+
+    /**
      * Start values for the fit, derived from the data (plateaus, the loss peak, log–log slopes);
      * several candidates spread over the plausible range so that the result does not hang on one guess.
      *

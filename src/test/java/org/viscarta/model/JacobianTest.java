@@ -1,5 +1,6 @@
 package org.viscarta.model;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.util.SplittableRandom;
@@ -60,6 +61,17 @@ class JacobianTest {
                     assertEquals(num[0][j], ds[j] * theta[j], FINITE_DIFFERENCE_TOLERANCE * scaleS, where + " (M′)");
                     assertEquals(num[1][j], dl[j] * theta[j], FINITE_DIFFERENCE_TOLERANCE * scaleL + 1e-300, where + " (M″)");
                 }
+                // the fits take both at once: the same numbers, bit for bit, as the two methods
+                double[] mod = new double[2];
+                m.modulus(omega, theta, mod);
+                double[] both = new double[2];
+                double[] bs = new double[p];
+                double[] bl = new double[p];
+                m.modulusAndDerivatives(omega, theta, both, bs, bl);
+                String where = m.id() + " (" + m.describeVariant() + ") at ω = " + omega;
+                assertArrayEquals(mod, both, 0, where + ": M′, M″ with the derivatives");
+                assertArrayEquals(ds, bs, 0, where + ": ∂M′ with the modulus");
+                assertArrayEquals(dl, bl, 0, where + ": ∂M″ with the modulus");
             }
         }
     }
