@@ -54,23 +54,7 @@ public final class Burgers implements ViscoelasticModel {
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        double e1 = p[0];
-        double eta1 = p[1];
-        double e2 = p[2];
-        double eta2 = p[3];
-        double w2 = omega * omega;
-        double d = e2 * e2 + w2 * eta2 * eta2;
-        double d2 = d * d;
-        double jp = 1 / e1 + e2 / d;
-        double jpp = 1 / (omega * eta1) + omega * eta2 / d;
-        double n = jp * jp + jpp * jpp;
-        double n2 = n * n;
-        double[] djp = {-1 / (e1 * e1), 0, (w2 * eta2 * eta2 - e2 * e2) / d2, -e2 * 2 * w2 * eta2 / d2};
-        double[] djpp = {0, -1 / (omega * eta1 * eta1), -omega * eta2 * 2 * e2 / d2, omega * (e2 * e2 - w2 * eta2 * eta2) / d2};
-        for (int j = 0; j < 4; j++) {
-            dStorage[j] = (djp[j] * (jpp * jpp - jp * jp) - 2 * jp * jpp * djpp[j]) / n2;
-            dLoss[j] = (djpp[j] * (jp * jp - jpp * jpp) - 2 * jp * jpp * djp[j]) / n2;
-        }
+        modulusAndDerivatives(omega, p, new double[2], dStorage, dLoss); // one copy of the formulas
     }
 
     /** The compliances and their norm computed once for the modulus and its derivatives (the same expressions as the two methods). */

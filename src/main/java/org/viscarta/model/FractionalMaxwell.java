@@ -52,14 +52,7 @@ public final class FractionalMaxwell implements ViscoelasticModel {
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        FractionalArm arm = new FractionalArm();
-        arm.evaluate(omega, p[1], p[2], true);
-        dStorage[0] = arm.g1;
-        dStorage[1] = p[0] * arm.dg1dTau;
-        dStorage[2] = p[0] * arm.dg1dAlpha;
-        dLoss[0] = arm.g2;
-        dLoss[1] = p[0] * arm.dg2dTau;
-        dLoss[2] = p[0] * arm.dg2dAlpha;
+        modulusAndDerivatives(omega, p, new double[2], dStorage, dLoss); // one copy of the formulas
     }
 
     @Override

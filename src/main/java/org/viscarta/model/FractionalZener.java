@@ -51,16 +51,7 @@ public final class FractionalZener implements ViscoelasticModel {
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        FractionalArm arm = new FractionalArm();
-        arm.evaluate(omega, p[2], p[3], true);
-        dStorage[0] = 1;
-        dStorage[1] = arm.g1;
-        dStorage[2] = p[1] * arm.dg1dTau;
-        dStorage[3] = p[1] * arm.dg1dAlpha;
-        dLoss[0] = 0;
-        dLoss[1] = arm.g2;
-        dLoss[2] = p[1] * arm.dg2dTau;
-        dLoss[3] = p[1] * arm.dg2dAlpha;
+        modulusAndDerivatives(omega, p, new double[2], dStorage, dLoss); // one copy of the formulas
     }
 
     @Override

@@ -136,20 +136,7 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
-        if (!liquid) {
-            dStorage[0] = 1;
-            dLoss[0] = 0;
-        }
-        for (int i = 1; i <= elements; i++) {
-            int e = off + i - 1;
-            int t = off + elements + i - 1;
-            double x = omega * p[t];
-            double d = 1 + x * x;
-            dStorage[e] = x * x / d;
-            dLoss[e] = x / d;
-            dStorage[t] = p[e] * 2 * x / (d * d) * omega;
-            dLoss[t] = p[e] * (1 - x * x) / (d * d) * omega;
-        }
+        modulusAndDerivatives(omega, p, new double[2], dStorage, dLoss); // one copy of the formulas
     }
 
     @Override
