@@ -264,14 +264,21 @@ public final class MapFigures {
             double x1 = domainAxis.valueToJava2D(x + w / 2, dataArea, plot.getDomainAxisEdge());
             double y0 = rangeAxis.valueToJava2D(y - h / 2, dataArea, plot.getRangeAxisEdge());
             double y1 = rangeAxis.valueToJava2D(y + h / 2, dataArea, plot.getRangeAxisEdge());
-            Object aa = g2.getRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING);
-            g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_OFF);
-            try {
+            withoutAntialiasing(g2, () -> {
                 g2.setPaint(paint);
                 g2.fill(new java.awt.geom.Rectangle2D.Double(Math.min(x0, x1), Math.min(y0, y1), Math.abs(x1 - x0), Math.abs(y1 - y0)));
-            } finally {
-                g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, aa);
-            }
+            });
+        }
+    }
+
+    /** Draws with antialiasing off, then sets the hint back as it was. */
+    private static void withoutAntialiasing(java.awt.Graphics2D g2, Runnable draw) {
+        Object aa = g2.getRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING);
+        g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_OFF);
+        try {
+            draw.run();
+        } finally {
+            g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, aa);
         }
     }
 
@@ -287,13 +294,7 @@ public final class MapFigures {
         public void draw(java.awt.Graphics2D g2, XYPlot plot, java.awt.geom.Rectangle2D dataArea,
                          org.jfree.chart.axis.ValueAxis domainAxis, org.jfree.chart.axis.ValueAxis rangeAxis, int rendererIndex,
                          org.jfree.chart.plot.PlotRenderingInfo info) {
-            Object aa = g2.getRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING);
-            g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_OFF);
-            try {
-                super.draw(g2, plot, dataArea, domainAxis, rangeAxis, rendererIndex, info);
-            } finally {
-                g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, aa);
-            }
+            withoutAntialiasing(g2, () -> super.draw(g2, plot, dataArea, domainAxis, rangeAxis, rendererIndex, info));
         }
     }
 

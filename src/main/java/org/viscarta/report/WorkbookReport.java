@@ -219,13 +219,11 @@ public final class WorkbookReport {
         java.time.Instant stated = java.time.Instant.parse(c.provenance().runAtUtc());
         AnalysisResult r = c.result();
         try (SXSSFWorkbook wb = new FastWorkbook(); OutputStream buffer = new java.io.BufferedOutputStream(
-                java.nio.file.Files.newOutputStream(file), 1 << 16)) {
+                java.nio.file.Files.newOutputStream(file), 1 << 16); Tables tables = new Tables(sheetThreads)) {
             var core = wb.getXSSFWorkbook().getProperties().getCoreProperties();
             core.setCreated(java.util.Optional.of(java.util.Date.from(stated)));
             core.setCreator("Viscarta " + c.provenance().toolVersion());
             Styles st = new Styles(wb);
-            Tables tables = new Tables(sheetThreads);
-            try {
             readMe(wb, st, r);
             table(wb, st, tables, OutputTables.summary(r), r.samples(), "", List.of());
             table(wb, st, tables, OutputTables.ranking(r), r.rankingRows(), "", List.of());
@@ -302,10 +300,7 @@ public final class WorkbookReport {
             table(wb, st, tables, OutputTables.data(r.samples()), () -> OutputTables.dataRows(r.samples()), "", List.of());
             table(wb, st, tables, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
                     r.library().isEmpty() ? NO_LIBRARY : "", List.of());
-                tables.finish();
-            } finally {
-                tables.close();
-            }
+            tables.finish();
             List<RenderedFigure> figures = figureSource.get();
             if (!figures.isEmpty()) {
                 figures(wb, st, figures);
@@ -415,7 +410,7 @@ public final class WorkbookReport {
             finishing.add(finish);
         }
 
-        /** Waits for every table's rows, then finishes the tables in the order they were added. */
+        /** Waits for every table's rows, then finishes the tables in the order they were added (once). */
         void finish() throws IOException {
             for (java.util.concurrent.Future<?> f : bodies) {
                 try {
@@ -434,10 +429,9 @@ public final class WorkbookReport {
                 }
             }
             finishing.forEach(Runnable::run);
-            finishing.clear();
-            bodies.clear();
         }
 
+        /** Stops the workers; after a failure, rows still being written are abandoned (the workbook is not kept). */
         @Override
         public void close() {
             workers.shutdownNow();
