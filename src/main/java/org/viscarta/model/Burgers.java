@@ -73,12 +73,25 @@ public final class Burgers implements ViscoelasticModel {
         out[0] = jp / n;
         out[1] = jpp / n;
         double n2 = n * n;
-        double[] djp = {-1 / (e1 * e1), 0, (w2 * eta2 * eta2 - e2 * e2) / d2, -e2 * 2 * w2 * eta2 / d2};
-        double[] djpp = {0, -1 / (omega * eta1 * eta1), -omega * eta2 * 2 * e2 / d2, omega * (e2 * e2 - w2 * eta2 * eta2) / d2};
-        for (int j = 0; j < 4; j++) {
-            dStorage[j] = (djp[j] * (jpp * jpp - jp * jp) - 2 * jp * jpp * djpp[j]) / n2;
-            dLoss[j] = (djpp[j] * (jp * jp - jpp * jpp) - 2 * jp * jpp * djp[j]) / n2;
-        }
+        // d(J′)/dθ_j and d(J″)/dθ_j as scalars (arrays here were allocated on every call: the compiler did not remove
+        // them); the same expressions, in the same order, as for every j: (dJ′ (J″² − J′²) − 2 J′ J″ dJ″) / n²
+        double a = jpp * jpp - jp * jp;
+        double c = jp * jp - jpp * jpp;
+        double b = 2 * jp * jpp;
+        double djp0 = -1 / (e1 * e1);
+        double djpp1 = -1 / (omega * eta1 * eta1);
+        double djp2 = (w2 * eta2 * eta2 - e2 * e2) / d2;
+        double djpp2 = -omega * eta2 * 2 * e2 / d2;
+        double djp3 = -e2 * 2 * w2 * eta2 / d2;
+        double djpp3 = omega * (e2 * e2 - w2 * eta2 * eta2) / d2;
+        dStorage[0] = (djp0 * a - b * 0.0) / n2;
+        dLoss[0] = (0.0 * c - b * djp0) / n2;
+        dStorage[1] = (0.0 * a - b * djpp1) / n2;
+        dLoss[1] = (djpp1 * c - b * 0.0) / n2;
+        dStorage[2] = (djp2 * a - b * djpp2) / n2;
+        dLoss[2] = (djpp2 * c - b * djp2) / n2;
+        dStorage[3] = (djp3 * a - b * djpp3) / n2;
+        dLoss[3] = (djpp3 * c - b * djp3) / n2;
     }
 
     @Override

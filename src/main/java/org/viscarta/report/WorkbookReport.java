@@ -71,6 +71,11 @@ public final class WorkbookReport {
             super(200);
         }
 
+        /** The writer of the sheet made last. */
+        SheetWriter lastWriter() {
+            return writers.get(writers.size() - 1);
+        }
+
         @Override
         protected org.apache.poi.xssf.streaming.SheetDataWriter createSheetDataWriter() throws IOException {
             if (writers == null) {
@@ -350,10 +355,14 @@ public final class WorkbookReport {
         head.setHeightInPoints(headLines * 15f);
         rows.wrapping(cols.stream().mapToInt(c -> c.style() == Style.TEXT && c.width() >= WRAPPED_WIDTH ? c.width() : 0).toArray());
         freezeHeader(s);
+        SheetWriter writer = wb instanceof FastWorkbook fast ? fast.lastWriter() : null;
         // the rows touch this sheet only, and styles made before
         Runnable body = () -> {
             if (!empty.isEmpty()) {
                 rows.row(empty);
+            }
+            if (writer != null) {
+                rows.straightTo(writer);
             }
             Object[] values = new Object[cols.size()];
             for (R item : items.get()) {
@@ -362,6 +371,7 @@ public final class WorkbookReport {
                 }
                 rows.row(values);
             }
+            rows.endStraight();
         };
         // the filter and the print titles are names of the whole workbook: made on the workbook's thread
         Runnable finish = () -> {
@@ -626,6 +636,16 @@ public final class WorkbookReport {
         /** Width in characters of each column whose text wraps (0: does not wrap), for the row heights. */
         private int[] wrapped = new int[0];
         private int next;
+        /** While a table's body is written: the sheet's writer, which receives each row as it is made. */
+        private SheetWriter straight;
+        /** The one row object a table's body reuses for each of its rows. */
+        private org.apache.poi.xssf.streaming.SXSSFRow reused;
+        /**
+         * The values of the body's latest row, written when the next one comes; the body's last row is
+         * made as other rows are, so that POI, which derives the sheet's dimension from the rows it
+         * holds, still sees where the table ends.
+         */
+        private Object[] pending;
 
         /**
          * @param numberStyles the display format of numbers in each column (null: General); the
@@ -651,7 +671,44 @@ public final class WorkbookReport {
             this.numberStyles = styles;
         }
 
+        /**
+         * From here on, rows go straight to the sheet's writer, one reused row object for all of them,
+         * instead of a row object, a map of cells and cell objects made for each and left to the
+         * collector (the bulk of a large workbook's garbage). The rows already made are written first;
+         * the same XML results ({@code WorkbookThreadsTest}, {@code WorkbookRowsTest}). Until {@link #endStraight()}.
+         */
+        void straightTo(SheetWriter writer) {
+            try {
+                ((org.apache.poi.xssf.streaming.SXSSFSheet) sheet).flushRows();
+            } catch (IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+            straight = writer;
+            reused = new org.apache.poi.xssf.streaming.SXSSFRow((org.apache.poi.xssf.streaming.SXSSFSheet) sheet);
+        }
+
+        void endStraight() {
+            straight = null;
+            reused = null;
+            if (pending != null) {
+                Object[] last = pending;
+                pending = null;
+                row(last);
+            }
+        }
+
         Row row(Object... values) {
+            if (straight != null) {
+                Row written = pending == null ? null : straightRow(pending);
+                if (pending == null) {
+                    pending = new Object[values.length];
+                }
+                if (pending.length != values.length) {
+                    throw new IllegalStateException("a table's rows have " + pending.length + " values, not " + values.length);
+                }
+                System.arraycopy(values, 0, pending, 0, values.length);
+                return written;
+            }
             Row r = sheet.createRow(next++);
             int lines = 1;
             for (int i = 0; i < values.length; i++) {
@@ -687,6 +744,72 @@ public final class WorkbookReport {
             }
             if (lines > 1) {
                 r.setHeightInPoints(Math.min(MAX_ROW_POINTS, lines * 15f));
+            }
+            return r;
+        }
+
+        /** As {@link #row}, in the reused row: every cell set anew (value, type and style), then the row written. */
+        private Row straightRow(Object... values) {
+            org.apache.poi.xssf.streaming.SXSSFRow r = reused;
+            int lines = 1;
+            for (int i = 0; i < values.length; i++) {
+                Object v = values[i];
+                Cell cell = r.getCell(i);
+                if (v == null) {
+                    if (cell != null) {
+                        r.removeCell(cell);
+                    }
+                    continue;
+                }
+                if (cell == null) {
+                    cell = r.createCell(i);
+                }
+                CellStyle style = null;
+                if (v instanceof Number n) {
+                    double d = n.doubleValue();
+                    if (Double.isFinite(d)) {
+                        cell.setCellValue(d);
+                        if (i < numberStyles.length && numberStyles[i] != null) {
+                            style = numberStyles[i] == styles.sci ? styles.significant(d) : numberStyles[i];
+                        }
+                    } else {
+                        cell.setBlank();
+                    }
+                } else if (v instanceof Boolean b) {
+                    cell.setCellValue(b ? "yes" : "no");
+                } else {
+                    String text = v.toString();
+                    if (!text.isEmpty()) {
+                        cell.setCellValue(fitCell(text));
+                    } else {
+                        cell.setBlank();
+                    }
+                    if (i < numberStyles.length && numberStyles[i] != null && !text.isEmpty()) {
+                        style = numberStyles[i];
+                    } else if (lines > 1 || hasWrapped()) {
+                        style = styles.text;
+                    }
+                    if (i < wrapped.length && wrapped[i] > 0) {
+                        lines = Math.max(lines, tableLinesOf(text, wrapped[i]));
+                    }
+                }
+                cell.setCellStyle(style);
+            }
+            for (int i = values.length; i <= r.getLastCellNum(); i++) {
+                Cell extra = r.getCell(i);
+                if (extra != null) {
+                    r.removeCell(extra);
+                }
+            }
+            if (lines > 1) {
+                r.setHeightInPoints(Math.min(MAX_ROW_POINTS, lines * 15f));
+            } else {
+                r.setHeight((short) -1);
+            }
+            try {
+                straight.writeRow(next++, r);
+            } catch (IOException e) {
+                throw new java.io.UncheckedIOException(e);
             }
             return r;
         }

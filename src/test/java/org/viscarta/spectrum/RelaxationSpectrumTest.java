@@ -193,4 +193,23 @@ class RelaxationSpectrumTest {
         }
         assertEquals(40, same, "the same λ in every trial");
     }
+
+    /**
+     * The moments' standard errors from the packed covariance equal gᵀCg worked by hand: grid τ = 1,
+     * 10, 100 s (d = ln 10), C = [[4, 1, 0], [1, 9, −2], [0, −2, 16]] (lower triangle packed as
+     * 4; 1, 9; 0, −2, 16), scale 2. For p = 0, g = d(1, 1, 1): gᵀCg = d²(4 + 9 + 16 + 2·1 + 2·0 − 2·2)
+     * = 27 d²; for p = 1, g = d(1, 10, 100): d²(4 + 900 + 160000 + 2·10 + 0 − 2·2·1000) = 156924 d².
+     */
+    @Test
+    void momentStandardErrorsFromThePackedCovariance() {
+        double[] tau = {1, 10, 100};
+        double[] h = {1, 2, 3};
+        RelaxationSpectrum.Result r = new RelaxationSpectrum.Result(RelaxationSpectrum.Kind.RELAXATION, tau, h, h, h, 0, 0,
+                Double.NaN, 1, 1, 0, 3, new double[] {4, 1, 9, 0, -2, 16}, 2);
+        double d = Math.log(10);
+        assertEquals(d * (1 + 2 + 3), r.moment(0)[0], 1e-12);
+        assertEquals(2 * d * Math.sqrt(27), r.moment(0)[1], 1e-12);
+        assertEquals(d * (1 + 20 + 300), r.moment(1)[0], 1e-12);
+        assertEquals(2 * d * Math.sqrt(156924), r.moment(1)[1], 1e-9);
+    }
 }
