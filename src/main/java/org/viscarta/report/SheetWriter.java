@@ -7,10 +7,8 @@ import java.io.FileOutputStream;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.OutputStream;
-import java.io.OutputStreamWriter;
 import java.io.SequenceInputStream;
 import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.util.zip.Inflater;
 import java.util.zip.InflaterInputStream;
 import org.apache.poi.xssf.streaming.SheetDataWriter;
@@ -18,10 +16,12 @@ import org.apache.poi.xssf.streaming.SheetDataWriter;
 /**
  * The streamed sheets' XML writer: POI's own ({@link SheetDataWriter}), with two changes.
  * <ul>
- * <li>Its characters are buffered without a lock. POI writes a sheet attribute by attribute, a few
+ * <li>Its characters are encoded without a lock. POI writes a sheet attribute by attribute, a few
  * characters at a time, into a {@link java.io.BufferedWriter}, which takes its lock on every call;
  * on a 330,000-row sheet those calls were about a third of the time spent writing rows. One sheet
- * is written by one thread at a time, so {@link org.viscarta.io.UnlockedWriter} buffers them instead.</li>
+ * is written by one thread at a time, so {@link org.viscarta.io.Utf8Writer} encodes them straight
+ * into bytes instead (the same bytes as the JDK's UTF-8 writer, without its slow path for text
+ * that is not all ASCII).</li>
  * <li>Its temporary file holds the rows already compressed, as a raw Deflate part
  * ({@link DeflatedPart}): by the thread that writes the rows, while it writes them, so that the
  * workbook's container is assembled from compressed parts instead of compressing hundreds of
@@ -63,7 +63,7 @@ final class SheetWriter extends SheetDataWriter {
     public Writer createWriter(File fd) throws IOException {
         FileOutputStream file = new FileOutputStream(fd);
         try {
-            return new org.viscarta.io.UnlockedWriter(new OutputStreamWriter(decorateOutputStream(file), StandardCharsets.UTF_8));
+            return new org.viscarta.io.Utf8Writer(decorateOutputStream(file));
         } catch (RuntimeException e) {
             file.close();
             throw e;

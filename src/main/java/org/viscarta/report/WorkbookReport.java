@@ -554,6 +554,12 @@ public final class WorkbookReport {
         final CellStyle pValue;
         /** The number format of each declared column style. */
         final java.util.Map<Style, CellStyle> byStyle = new java.util.EnumMap<>(Style.class);
+        /**
+         * The workbook's own default (style 0), what a cell without a style shows. Given to such cells
+         * explicitly: for a cell without one, POI looks for a row's or column's default style in the
+         * sheet's XML on every read of its style (a tenth of the time of writing a large sheet).
+         */
+        final CellStyle standard;
 
         /** Four significant figures: fixed decimals from 0 to 7, and the scientific form. */
         private final CellStyle[] fixed = new CellStyle[8];
@@ -581,6 +587,7 @@ public final class WorkbookReport {
         }
 
         Styles(Workbook wb) {
+            standard = wb.getCellStyleAt(0);
             sci = numberStyle(wb, "0.000E+00");
             scientific4 = sci;
             for (int d = 0; d < fixed.length; d++) {
@@ -793,7 +800,7 @@ public final class WorkbookReport {
                         lines = Math.max(lines, tableLinesOf(text, wrapped[i]));
                     }
                 }
-                cell.setCellStyle(style);
+                cell.setCellStyle(style != null ? style : styles.standard);
             }
             for (int i = values.length; i <= r.getLastCellNum(); i++) {
                 Cell extra = r.getCell(i);
