@@ -178,7 +178,11 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
         return "";
     }
 
-    /** τ_i spread evenly in log over the window (and over the window widened by a decade each side). */
+    /**
+     * τ_i spread evenly in log over the window (and over the window widened by a decade each side).
+     * One element sits at the window's centre in both, so its second start puts it at the loss peak
+     * instead: two different starts, so that two starts reaching the same minimum confirm it.
+     */
     @Override
     public List<double[]> startValues(List<SweepPoint> points) {
         DataFeatures f = new DataFeatures(points);
@@ -194,7 +198,7 @@ public final class GeneralizedMaxwell implements ViscoelasticModel {
             for (int i = 1; i <= elements; i++) {
                 s[off + i - 1] = (liquid ? f.storageMax : spread) / elements;
                 double w = elements == 1 ? 0.5 : (i - 1) / (double) (elements - 1);
-                s[off + elements + i - 1] = tauLo * Math.pow(tauHi / tauLo, w);
+                s[off + elements + i - 1] = elements == 1 && widen > 1 ? 1 / f.omegaAtLossPeak : tauLo * Math.pow(tauHi / tauLo, w);
             }
             starts.add(s);
         }
