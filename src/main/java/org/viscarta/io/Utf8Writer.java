@@ -10,7 +10,7 @@ import java.io.Writer;
  * surrogate becomes '?', its replacement, as there), without its lock on every call and without the
  * slow path the JDK's encoder takes for the rest of a block once it meets a character outside ASCII
  * (a δ or ′ in a header). For the writers of large outputs handed a few characters at a time by one
- * thread (the workbook's sheets). Not for use by two threads at once.
+ * thread (the workbook's sheets, the CSV tables). Not for use by two threads at once.
  */
 public final class Utf8Writer extends Writer {
 

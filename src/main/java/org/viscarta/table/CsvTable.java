@@ -1,9 +1,7 @@
 package org.viscarta.table;
 
 import java.io.IOException;
-import java.io.OutputStreamWriter;
 import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -47,7 +45,7 @@ public final class CsvTable {
      */
     public static void writeCells(Path target, boolean force, List<String> header, Iterable<List<String>> rows) throws IOException {
         AtomicOutput.write(target, force, stream -> {
-            Writer w = new org.viscarta.io.UnlockedWriter(new OutputStreamWriter(stream, StandardCharsets.UTF_8));
+            Writer w = new org.viscarta.io.Utf8Writer(stream);
             CSVPrinter p = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setRecordSeparator("\n").get());
             p.printRecord(header);
             for (List<String> r : rows) {
