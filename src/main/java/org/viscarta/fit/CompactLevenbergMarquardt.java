@@ -46,31 +46,51 @@ final class CompactLevenbergMarquardt {
         this.tolerance = tolerance;
     }
 
+    /** A point of the iteration: parameters, residuals, Jacobian and misfit (the current one and a trial). */
+    private static final class Point {
+        final double[] x;
+        final double[] r;
+        final double[][] jac;
+        double cost;
+
+        Point(int n, int p) {
+            x = new double[p];
+            r = new double[n];
+            jac = new double[n][p];
+        }
+
+        /** Evaluates at its own x. */
+        void evaluate(ResidualFunction f) {
+            f.evaluate(x, r, jac);
+            cost = dot(r, r);
+        }
+
+        Result result(int evaluations, boolean converged, String message) {
+            return new Result(x, cost, jac, evaluations, converged, message);
+        }
+    }
+
     Result solve(int n, ResidualFunction f, double[] start) {
         int p = start.length;
-        double[] x = start.clone();
-        double[] r = new double[n];
-        double[][] jac = new double[n][p];
-        double[] rNew = new double[n];
-        double[][] jacNew = new double[n][p];
-        f.evaluate(x, r, jac);
+        Point here = new Point(n, p);
+        Point trial = new Point(n, p);
+        System.arraycopy(start, 0, here.x, 0, p);
+        here.evaluate(f);
         int evaluations = 1;
-        double cost = dot(r, r);
-        if (!Double.isFinite(cost)) {
-            return new Result(x, cost, jac, evaluations, false, "the start gives non-finite residuals");
+        if (!Double.isFinite(here.cost)) {
+            return here.result(evaluations, false, "the start gives non-finite residuals");
         }
         double[][] a = new double[p][p];
         double[] g = new double[p];
         double[][] jt = new double[p][n];
         double[] diag = new double[p];
-        normal(jac, r, a, g, jt);
+        normal(here.jac, here.r, a, g, jt);
         for (int j = 0; j < p; j++) {
             diag[j] = Math.max(a[j][j], Double.MIN_NORMAL);
         }
         double lambda = 1e-3;
         double nu = 2;
         double[] delta = new double[p];
-        double[] xNew = new double[p];
         double[][] m = new double[p][p];
         double[] previous = new double[p];
         double[] before = new double[p];
@@ -78,8 +98,9 @@ final class CompactLevenbergMarquardt {
         double previousNorm = 0;
         int repeats = 0;
         while (evaluations < maxEvaluations) {
+            double cost = here.cost;
             if (gradientSmall(g, a, cost)) {
-                return new Result(x, cost, jac, evaluations, true, "");
+                return here.result(evaluations, true, "");
             }
             for (int i = 0; i < p; i++) {
                 System.arraycopy(a[i], 0, m[i], 0, p);
@@ -90,20 +111,20 @@ final class CompactLevenbergMarquardt {
                 lambda *= nu;
                 nu *= 2;
                 if (!(lambda < 1e300)) {
-                    return new Result(x, cost, jac, evaluations, false, "the normal equations are not positive definite");
+                    return here.result(evaluations, false, "the normal equations are not positive definite");
                 }
                 continue;
             }
             double xNorm = 0;
             double dNorm = 0;
             for (int j = 0; j < p; j++) {
-                xNew[j] = x[j] + delta[j];
-                xNorm += x[j] * x[j] * diag[j];
+                trial.x[j] = here.x[j] + delta[j];
+                xNorm += here.x[j] * here.x[j] * diag[j];
                 dNorm += delta[j] * delta[j] * diag[j];
             }
-            f.evaluate(xNew, rNew, jacNew);
+            trial.evaluate(f);
             evaluations++;
-            double costNew = dot(rNew, rNew);
+            double costNew = trial.cost;
             double predicted = 0;
             for (int j = 0; j < p; j++) {
                 predicted += delta[j] * (lambda * diag[j] * delta[j] - g[j]);
@@ -111,22 +132,17 @@ final class CompactLevenbergMarquardt {
             double rho = Double.isFinite(costNew) && predicted > 0 ? (cost - costNew) / predicted : -1;
             if (rho > 0) {
                 double reduction = cost - costNew;
-                System.arraycopy(xNew, 0, x, 0, p);
-                double[] tr = r;
-                r = rNew;
-                rNew = tr;
-                double[][] tj = jac;
-                jac = jacNew;
-                jacNew = tj;
-                cost = costNew;
-                normal(jac, r, a, g, jt);
+                Point t = here;
+                here = trial;
+                trial = t;
+                normal(here.jac, here.r, a, g, jt);
                 for (int j = 0; j < p; j++) {
                     diag[j] = Math.max(diag[j], a[j][j]);
                 }
                 lambda *= Math.max(1.0 / 3.0, 1 - Math.pow(2 * rho - 1, 3));
                 nu = 2;
-                if (reduction <= tolerance * cost || Math.sqrt(dNorm) <= tolerance * (Math.sqrt(xNorm) + tolerance) || cost == 0) {
-                    return new Result(x, cost, jac, evaluations, true, "");
+                if (reduction <= tolerance * costNew || Math.sqrt(dNorm) <= tolerance * (Math.sqrt(xNorm) + tolerance) || costNew == 0) {
+                    return here.result(evaluations, true, "");
                 }
                 double norm = Math.sqrt(dot(delta, delta));
                 repeats = previousNorm > 0 && norm < 2 * previousNorm && previousNorm < 2 * norm
@@ -147,53 +163,46 @@ final class CompactLevenbergMarquardt {
                     boolean moved = false;
                     for (int k = 0; any && k < DOUBLINGS && evaluations < maxEvaluations; k++, stretch *= 2) {
                         for (int j = 0; j < p; j++) {
-                            xNew[j] = x[j] + stretch * steady[j];
+                            trial.x[j] = here.x[j] + stretch * steady[j];
                         }
-                        f.evaluate(xNew, rNew, jacNew);
+                        trial.evaluate(f);
                         evaluations++;
-                        double costFar = dot(rNew, rNew);
-                        if (!(costFar < cost)) {
+                        if (!(trial.cost < here.cost)) {
                             break;
                         }
-                        System.arraycopy(xNew, 0, x, 0, p);
-                        double[] t2 = r;
-                        r = rNew;
-                        rNew = t2;
-                        double[][] tj2 = jac;
-                        jac = jacNew;
-                        jacNew = tj2;
-                        cost = costFar;
+                        Point t2 = here;
+                        here = trial;
+                        trial = t2;
                         moved = true;
                     }
-                    if (!moved) {
-                        repeats = -3; // not a clean drift: three more steps alike before trying again
-                    }
                     if (moved) {
-                        normal(jac, r, a, g, jt);
+                        normal(here.jac, here.r, a, g, jt);
                         for (int j = 0; j < p; j++) {
                             diag[j] = Math.max(diag[j], a[j][j]);
                         }
                         previousNorm = 0;
+                    } else {
+                        repeats = -3; // not a clean drift: three more steps alike before trying again
                     }
                 }
             } else {
                 if (Math.sqrt(dNorm) <= tolerance * (Math.sqrt(xNorm) + tolerance)) {
-                    return new Result(x, cost, jac, evaluations, true, "");
+                    return here.result(evaluations, true, "");
                 }
                 // MINPACK's test on every step, not only accepted ones: both the actual and the predicted
                 // reduction below the tolerance (the step was refused by rounding in the misfit, not by
                 // a worse point; Moré 1978, section 8)
                 if (Double.isFinite(costNew) && Math.abs(cost - costNew) <= tolerance * cost && predicted <= tolerance * cost) {
-                    return new Result(x, cost, jac, evaluations, true, "");
+                    return here.result(evaluations, true, "");
                 }
                 lambda *= nu;
                 nu *= 2;
                 if (!(lambda < 1e300)) {
-                    return new Result(x, cost, jac, evaluations, true, "");
+                    return here.result(evaluations, true, "");
                 }
             }
         }
-        return new Result(x, cost, jac, evaluations, false, "did not converge within " + maxEvaluations + " evaluations");
+        return here.result(evaluations, false, "did not converge within " + maxEvaluations + " evaluations");
     }
 
     /** max_j |g_j| / sqrt(A_jj · cost) below the tolerance: the residual is orthogonal to every column of J. */
