@@ -526,8 +526,13 @@ public final class ModelFitter {
      */
     static String derivedFlag(String unit, double value, double se, double[] window) {
         List<String> why = new ArrayList<>();
-        if (!Double.isFinite(value)) {
-            return "";
+        if (Double.isNaN(value)) {
+            return ""; // not defined for these parameters (a crossover that does not exist): nothing to judge
+        }
+        if (Double.isInfinite(value)) {
+            // no value to show: it overflowed, made of parameters that ran toward a limit of their range
+            return "not determined by the data: it comes out infinite from the fitted parameters, some of which run toward "
+                    + "a limit these data do not pin down";
         }
         if (!Double.isFinite(se)) {
             why.add("its uncertainty cannot be computed");
