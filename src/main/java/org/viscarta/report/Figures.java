@@ -92,6 +92,16 @@ public final class Figures {
     }
 
     /** A figure of a main panel over a residual panel, sharing the x axis. */
+    /**
+     * The residual panel's axis label: short enough for the panel's height (the full
+     * "ln(model/data)" ran up beside the moduli axis's label, as if it were part of it); the
+     * captions say what the residual is.
+     */
+    private static final String RESIDUAL_LABEL = "residual";
+
+    /** What a residual is, for the captions. */
+    private static final String RESIDUAL_MEANING = "the residuals of the fit, ln(model/data) (0.01 is a misfit of about 1 %)";
+
     private static JFreeChart withResiduals(String title, LogAxis x, XYPlot top, XYPlot residuals) {
         CombinedDomainXYPlot plot = new CombinedDomainXYPlot(x);
         plot.setGap(6);
@@ -234,7 +244,7 @@ public final class Figures {
             title += ": " + best.model() + " (best supported)";
         }
         XYPlot bottom = new XYPlot();
-        NumberAxis ry = new NumberAxis("ln(model/data)");
+        NumberAxis ry = new NumberAxis(RESIDUAL_LABEL);
         ry.setLabelFont(Palette.LABEL);
         ry.setTickLabelFont(Palette.TICK);
         bottom.setRangeAxis(ry);
@@ -243,7 +253,7 @@ public final class Figures {
         JFreeChart c = withResiduals(title, domainLogAxis("time since the step [s]"), top, bottom);
         return new Figure(stem, "The " + type.test() + " test of " + shortName(d.sample().name()) + ": the measured " + type.quantity()
                 + " " + symbol + " of each replicate against time, " + (best == null ? "no model converged"
-                : "the best-supported model " + best.model() + " fitted to all of them") + ", and the residuals of that fit. The E′ and "
+                : "the best-supported model " + best.model() + " fitted to all of them") + ", and " + RESIDUAL_MEANING.replace("of the fit", "of that fit") + ". The E′ and "
                 + "E″ that rank and match this sample are computed from each replicate's fitted model, not measured.", c);
     }
 
@@ -287,7 +297,7 @@ public final class Figures {
         points.setErrorPaint(Color.DARK_GRAY);
         top.setRenderer(0, points);
         XYPlot residuals = new XYPlot();
-        NumberAxis ry = new NumberAxis("ln(model/data)");
+        NumberAxis ry = new NumberAxis(RESIDUAL_LABEL);
         ry.setLabelFont(Palette.LABEL);
         ry.setTickLabelFont(Palette.TICK);
         residuals.setRangeAxis(ry);
@@ -329,7 +339,7 @@ public final class Figures {
         JFreeChart c = withResiduals(title, frequencyAxis(reduced), top, residuals);
         return new Figure(stem, "Storage and loss moduli of " + shortName(s.name()) + " against frequency (replicate mean ± SD), the "
                 + (curve == null ? "no model converged" : "best-supported model " + curve.model().id() + " with its 95 % band")
-                + ", and the residuals of the fit on a log scale.", c);
+                + ", and " + RESIDUAL_MEANING + ".", c);
     }
 
     /**
