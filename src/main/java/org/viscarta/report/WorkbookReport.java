@@ -682,7 +682,8 @@ public final class WorkbookReport {
          * From here on, rows go straight to the sheet's writer, one reused row object for all of them,
          * instead of a row object, a map of cells and cell objects made for each and left to the
          * collector (the bulk of a large workbook's garbage). The rows already made are written first;
-         * the same XML results ({@code WorkbookThreadsTest}; the sheets' dimensions: {@code WorkbookDimensionTest}). Until {@link #endStraight()}.
+         * the same XML results ({@code WorkbookThreadsTest}; the sheets' dimensions:
+         * {@code WorkbookDimensionTest}). Until {@link #endStraight()}.
          */
         void straightTo(SheetWriter writer) {
             try {

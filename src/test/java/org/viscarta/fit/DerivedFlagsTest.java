@@ -69,7 +69,8 @@ class DerivedFlagsTest {
         assertTrue(ModelFitter.derivedFlag("Pa", 1e4, 2e4, window).contains("larger than the value"));
         assertTrue(ModelFitter.derivedFlag("Pa", 1e4, Double.NaN, window).contains("cannot be computed"));
         // a value that overflowed (a time made of a parameter that ran off toward zero) is left blank: its note says why
-        assertTrue(ModelFitter.derivedFlag("s", Double.POSITIVE_INFINITY, Double.NaN, window).startsWith("not determined by the data: it comes out infinite"));
+        assertTrue(ModelFitter.derivedFlag("s", Double.POSITIVE_INFINITY, Double.NaN, window)
+                .startsWith("not determined by the data: it comes out infinite"));
         assertEquals("", ModelFitter.derivedFlag("Hz", Double.NaN, Double.NaN, window), "not defined for these parameters");
     }
 }
