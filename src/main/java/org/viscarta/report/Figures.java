@@ -91,7 +91,6 @@ public final class Figures {
         return domainLogAxis(reduced ? "reduced frequency a_T·f [Hz]" : "frequency [Hz]");
     }
 
-    /** A figure of a main panel over a residual panel, sharing the x axis. */
     /**
      * The residual panel's axis label: short enough for the panel's height (the full
      * "ln(model/data)" ran up beside the moduli axis's label, as if it were part of it); the
@@ -99,9 +98,10 @@ public final class Figures {
      */
     private static final String RESIDUAL_LABEL = "residual";
 
-    /** What a residual is, for the captions. */
-    private static final String RESIDUAL_MEANING = "the residuals of the fit, ln(model/data) (0.01 is a misfit of about 1 %)";
+    /** What a residual is, for the captions ("the residuals of the fit, …"). */
+    private static final String RESIDUAL_MEANING = "ln(model/data) (0.01 is a misfit of about 1 %)";
 
+    /** A figure of a main panel over a residual panel, sharing the x axis. */
     private static JFreeChart withResiduals(String title, LogAxis x, XYPlot top, XYPlot residuals) {
         CombinedDomainXYPlot plot = new CombinedDomainXYPlot(x);
         plot.setGap(6);
@@ -253,7 +253,8 @@ public final class Figures {
         JFreeChart c = withResiduals(title, domainLogAxis("time since the step [s]"), top, bottom);
         return new Figure(stem, "The " + type.test() + " test of " + shortName(d.sample().name()) + ": the measured " + type.quantity()
                 + " " + symbol + " of each replicate against time, " + (best == null ? "no model converged"
-                : "the best-supported model " + best.model() + " fitted to all of them") + ", and " + RESIDUAL_MEANING.replace("of the fit", "of that fit") + ". The E′ and "
+                : "the best-supported model " + best.model() + " fitted to all of them") + ", and the residuals of that fit, "
+                + RESIDUAL_MEANING + ". The E′ and "
                 + "E″ that rank and match this sample are computed from each replicate's fitted model, not measured.", c);
     }
 
@@ -339,7 +340,7 @@ public final class Figures {
         JFreeChart c = withResiduals(title, frequencyAxis(reduced), top, residuals);
         return new Figure(stem, "Storage and loss moduli of " + shortName(s.name()) + " against frequency (replicate mean ± SD), the "
                 + (curve == null ? "no model converged" : "best-supported model " + curve.model().id() + " with its 95 % band")
-                + ", and " + RESIDUAL_MEANING + ".", c);
+                + ", and the residuals of the fit, " + RESIDUAL_MEANING + ".", c);
     }
 
     /**

@@ -718,38 +718,7 @@ public final class WorkbookReport {
                 return written;
             }
             Row r = sheet.createRow(next++);
-            int lines = 1;
-            for (int i = 0; i < values.length; i++) {
-                Object v = values[i];
-                if (v == null) {
-                    continue;
-                }
-                Cell cell = r.createCell(i);
-                if (v instanceof Number n) {
-                    double d = n.doubleValue();
-                    if (Double.isFinite(d)) {
-                        cell.setCellValue(d);
-                        if (i < numberStyles.length && numberStyles[i] != null) {
-                            cell.setCellStyle(numberStyles[i] == styles.sci ? styles.significant(d) : numberStyles[i]);
-                        }
-                    }
-                } else if (v instanceof Boolean b) {
-                    cell.setCellValue(b ? "yes" : "no");
-                } else {
-                    String text = v.toString();
-                    if (!text.isEmpty()) { // an empty text stays a blank cell: the same to read, a fraction of the XML
-                        cell.setCellValue(fitCell(text));
-                    }
-                    if (i < numberStyles.length && numberStyles[i] != null && !text.isEmpty()) {
-                        cell.setCellStyle(numberStyles[i]);
-                    } else if (lines > 1 || hasWrapped()) {
-                        cell.setCellStyle(styles.text);
-                    }
-                    if (i < wrapped.length && wrapped[i] > 0) {
-                        lines = Math.max(lines, tableLinesOf(v.toString(), wrapped[i]));
-                    }
-                }
-            }
+            int lines = cells(r, values, false);
             if (lines > 1) {
                 r.setHeightInPoints(Math.min(MAX_ROW_POINTS, lines * 15f));
             }
@@ -759,10 +728,32 @@ public final class WorkbookReport {
         /** As {@link #row}, in the reused row: every cell set anew (value, type and style), then the row written. */
         private Row straightRow(Object... values) {
             org.apache.poi.xssf.streaming.SXSSFRow r = reused;
+            int lines = cells(r, values, true);
+            if (lines > 1) {
+                r.setHeightInPoints(Math.min(MAX_ROW_POINTS, lines * 15f));
+            } else {
+                r.setHeight((short) -1);
+            }
+            try {
+                straight.writeRow(next++, r);
+            } catch (IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+            return r;
+        }
+
+        /**
+         * The row's cells from the values: numbers as numeric cells in the column's format (NaN left
+         * blank), booleans as yes/no, other values as text (an empty text stays a blank cell: the same
+         * to read, a fraction of the XML), nothing for null. In a {@code reused} row every cell is set
+         * anew, its style included, and a cell whose value is now null is removed. Returns the lines
+         * the row's wrapped texts need.
+         */
+        private int cells(Row r, Object[] values, boolean reused) {
             int lines = 1;
             for (int i = 0; i < values.length; i++) {
                 Object v = values[i];
-                Cell cell = r.getCell(i);
+                Cell cell = reused ? r.getCell(i) : null;
                 if (v == null) {
                     if (cell != null) {
                         r.removeCell(cell);
@@ -801,25 +792,13 @@ public final class WorkbookReport {
                         lines = Math.max(lines, tableLinesOf(text, wrapped[i]));
                     }
                 }
-                cell.setCellStyle(style != null ? style : styles.standard);
-            }
-            for (int i = values.length; i <= r.getLastCellNum(); i++) {
-                Cell extra = r.getCell(i);
-                if (extra != null) {
-                    r.removeCell(extra);
+                if (reused) {
+                    cell.setCellStyle(style != null ? style : styles.standard);
+                } else if (style != null) {
+                    cell.setCellStyle(style);
                 }
             }
-            if (lines > 1) {
-                r.setHeightInPoints(Math.min(MAX_ROW_POINTS, lines * 15f));
-            } else {
-                r.setHeight((short) -1);
-            }
-            try {
-                straight.writeRow(next++, r);
-            } catch (IOException e) {
-                throw new java.io.UncheckedIOException(e);
-            }
-            return r;
+            return lines;
         }
 
         private boolean hasWrapped() {

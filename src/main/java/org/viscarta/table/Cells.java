@@ -1,6 +1,5 @@
 package org.viscarta.table;
 
-
 /** How a cell's value becomes text in each medium (Locale.ROOT everywhere). */
 public final class Cells {
 
