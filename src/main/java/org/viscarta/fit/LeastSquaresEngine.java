@@ -34,7 +34,8 @@ public final class LeastSquaresEngine {
         COMMONS_MATH("Levenberg–Marquardt (Commons Math 3.6.1, its MINPACK translation)"),
         /** {@link CompactLevenbergMarquardt}: no matrix objects, for the many small fits of a campaign. */
         COMPACT("Levenberg–Marquardt (Viscarta's compact solver: Cholesky on the damped normal equations, "
-                + "Nielsen's damping update; covariance from a Jacobi SVD of the Jacobian)");
+                + "Nielsen's damping update; a step repeated three times toward a parameter's limit is extrapolated by "
+                + "doubling while the misfit falls; covariance from a Jacobi SVD of the Jacobian)");
 
         private final String description;
 
