@@ -37,6 +37,10 @@ public final class Viscarta implements Runnable {
     }
 
     public static void main(String[] args) {
+        java.util.OptionalInt launched = Launch.run(Viscarta.class.getName(), args);
+        if (launched.isPresent()) {
+            System.exit(launched.getAsInt());
+        }
         // POI logs through the Log4j API; without this it warns on every run that no logging backend is present.
         System.setProperty("log4j2.loggerContextFactory", "org.apache.logging.log4j.simple.SimpleLoggerContextFactory");
         System.setProperty("java.awt.headless", "true");
