@@ -29,11 +29,17 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
     private static final double DPI = 200;
 
     /**
-     * Charts are drawn one at a time (their PNG encoding and SVG documents still made side by side): drawn
-     * side by side, a figure now and then came out laid out wrongly (a legend's entries measured
-     * several times too wide, the plot squeezed; about one figure in a few demo reports, the same
-     * chart's SVG right), a race in the shared text-measuring state under JFreeChart that was
-     * not found. One at a time the same figures come out the same in every run.
+     * Charts are drawn one at a time (their PNG encoding and SVG documents still made side by side).
+     * Drawn side by side, a figure now and then came out laid out wrongly (a legend's rows nearly
+     * three times too tall and the plot squeezed, the same chart's SVG right; two of eight cold demo
+     * reports). The cause is in the JDK: text is measured through a shared cache of font "strikes",
+     * and the first thread to make a strike publishes its metrics before converting them from
+     * device to user space (FileFontStrike.getFontMetrics, OpenJDK 17), so a second thread measuring
+     * at that moment keeps values 200/72 times too large. Making every strike first, on one thread,
+     * was tried: measuring the fonts alone (SansSerif and Dialog, every style, 6–24 pt, turned as
+     * labels are) still let one cold report in thirty draw twelve figures wrongly, and measuring
+     * text in every such strike as well cost about 3 s of processor time, more than drawing in
+     * parallel saves on two cores. One at a time the same figures come out the same in every run.
      */
     private static final Object DRAWING = new Object();
 

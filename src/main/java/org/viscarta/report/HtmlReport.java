@@ -32,7 +32,36 @@ public final class HtmlReport {
     private HtmlReport() {
     }
 
-    public static String write(ReportContent c, List<RenderedFigure> figures) {
+    /**
+     * Writes the page into {@code out}: its text made in memory with a table of contents, the
+     * figures' SVG (most of a page's bytes) copied in where they belong on the way out.
+     */
+    public static void write(ReportContent c, List<RenderedFigure> figures, java.io.Writer out) throws java.io.IOException {
+        String page = withContents(text(c, !figures.isEmpty()));
+        int at = page.indexOf(FIGURES_HERE);
+        if (at < 0) {
+            out.write(page);
+            return;
+        }
+        out.write(page, 0, at);
+        for (RenderedFigure f : figures) {
+            out.write("<figure id=\"");
+            out.write(esc(f.stem()));
+            out.write("\">\n");
+            out.write(f.svg());
+            out.write("\n<figcaption>");
+            out.write(esc(f.caption()));
+            out.write("</figcaption>\n</figure>\n");
+        }
+        int after = at + FIGURES_HERE.length();
+        out.write(page, after, page.length() - after);
+    }
+
+    /** Where the figures go in the page's text: a comment, which no escaped text can contain. */
+    private static final String FIGURES_HERE = "<!-- figures -->";
+
+    /** The page without its figures ({@link #FIGURES_HERE} where they go) and without its table of contents. */
+    private static String text(ReportContent c, boolean figures) {
         AnalysisResult r = c.result();
         StringBuilder h = new StringBuilder(64 * 1024);
         h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>Viscarta report</title>\n<style>")
@@ -84,16 +113,12 @@ public final class HtmlReport {
         transitions(h, r);
         timeTests(h, r);
         maps(h, r);
-        if (!figures.isEmpty()) {
-            h.append("<h2>Figures</h2>\n");
-            for (RenderedFigure f : figures) {
-                h.append("<figure id=\"").append(esc(f.stem())).append("\">\n").append(f.svg()).append("\n<figcaption>")
-                        .append(esc(f.caption())).append("</figcaption>\n</figure>\n");
-            }
+        if (figures) {
+            h.append("<h2>Figures</h2>\n").append(FIGURES_HERE);
         }
         provenance(h, c);
         h.append("</body>\n</html>\n");
-        return withContents(h.toString());
+        return h.toString();
     }
 
     /** The glass transitions: each ramp, the activation energies, the comparisons (when ramps were read). */

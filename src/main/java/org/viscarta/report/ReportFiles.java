@@ -125,7 +125,9 @@ public record ReportFiles(Path folder) {
                 Files.write(stagedFigures.resolve(f.stem() + ".png"), f.png());
                 Files.writeString(stagedFigures.resolve(f.stem() + ".svg"), f.svg(), StandardCharsets.UTF_8);
             }
-            Files.writeString(stage.resolve(PAGE), HtmlReport.write(content, figures.get()), StandardCharsets.UTF_8);
+            try (java.io.Writer page = new org.viscarta.io.Utf8Writer(Files.newOutputStream(stage.resolve(PAGE)))) {
+                HtmlReport.write(content, figures.get(), page);
+            }
             done.accept("page");
             checkWritable(force);
             moveIntoPlace(stage, target, parent, prefix);
