@@ -112,11 +112,22 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
         Map<String, Path> timeTestSeen = new LinkedHashMap<>();
         List<Sweep> positioned = new ArrayList<>();
         List<Path> all = InputCollector.collect(inputs);
-        for (Path file : all) {
-            SweepFile sf;
+        // the files are read side by side, then taken in their order as if read one after another
+        List<Read> read = all.parallelStream().map(file -> {
+            List<String> own = new ArrayList<>();
             try {
-                sf = readOne(file, reader, notes);
+                return new Read(readOne(file, reader, own), null, own);
             } catch (InputException e) {
+                return new Read(null, e, own);
+            }
+        }).toList();
+        for (int i = 0; i < all.size(); i++) {
+            Path file = all.get(i);
+            Read one = read.get(i);
+            notes.addAll(one.notes());
+            SweepFile sf = one.file();
+            if (one.error() != null) {
+                InputException e = one.error();
                 if (settings.badFiles() == ReadSettings.BadFiles.STOP || all.size() == 1) {
                     throw e;
                 }
@@ -284,6 +295,10 @@ public record Inputs(List<SweepFile> files, List<Sample> samples, List<ReadWarni
     }
 
     /** Reads one file: a raw-signal table (converted) or a sweep table; null for a calibration table. */
+    /** One file read: its content (null for a file that is not analysed, e.g. a calibration) or why it could not be, and its notes. */
+    private record Read(SweepFile file, InputException error, List<String> notes) {
+    }
+
     private static SweepFile readOne(Path file, SweepReader reader, List<String> notes) {
         return either(file, reader::read, m -> raw(file, m, notes));
     }

@@ -365,6 +365,30 @@ class CliTest {
         assertTrue(strict.err().startsWith(bad + ":2:2: "), strict.err());
     }
 
+    /** Files are read side by side (Inputs.read) but taken in their order: the first bad file is the one named. */
+    @Test
+    void severalBadFilesAreReportedInTheirOrder() throws IOException {
+        Path good = zenerFile("good", 1.0e6, 2.0e6, 0.1);
+        List<Path> bad = new java.util.ArrayList<>();
+        for (int k = 1; k <= 6; k++) {
+            bad.add(write("bad-" + k + ".csv", "frequency [Hz],storage_modulus [Pa],loss_modulus [Pa]\n" + "1,1,1\n".repeat(k) + "1,x,1\n"));
+        }
+        List<String> args = new java.util.ArrayList<>(List.of("rank", good.toString()));
+        bad.forEach(b -> args.add(b.toString()));
+        CliRun r = CliRun.of(args.toArray(String[]::new));
+        assertEquals(0, r.exitCode(), r.err());
+        int last = -1;
+        for (int k = 1; k <= 6; k++) {
+            int at = r.err().indexOf("left out: " + bad.get(k - 1) + ":" + (k + 2) + ":2: ");
+            assertTrue(at > last, "file " + k + " out of order or missing: " + r.err());
+            last = at;
+        }
+        args.add("--strict");
+        CliRun strict = CliRun.of(args.toArray(String[]::new));
+        assertEquals(2, strict.exitCode());
+        assertTrue(strict.err().startsWith(bad.get(0) + ":3:2: "), strict.err());
+    }
+
     @Test
     void inspectWritesJson() throws IOException {
         Path out = dir.resolve("inspect.json");
