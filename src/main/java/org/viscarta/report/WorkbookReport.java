@@ -35,12 +35,10 @@ import org.viscarta.temperature.TemperatureSeries;
  */
 public final class WorkbookReport {
 
-    /** Columns (12 characters wide) and rows a figure spans in the Figures sheet: about 6.5 × 4.2 inches. */
+    /** Columns of the Figures sheet, across which a figure's caption is wrapped (the figure, 6.5 inches wide, spans about seven). */
     private static final int FIGURE_COLUMNS = 9;
-    private static final int FIGURE_ROWS = 21;
     /** The most rows a figure may span and still print on one landscape page. */
     private static final int FIGURE_ROWS_PER_PAGE = 30;
-
 
     /** Column widths of the Read me sheet, in characters. */
     private static final int LABEL_WIDTH = 34;
@@ -546,24 +544,52 @@ public final class WorkbookReport {
             text.setCellStyle(st.wrap);
             s.addMergedRegionUnsafe(new org.apache.poi.ss.util.CellRangeAddress(row, row, 0, FIGURE_COLUMNS - 1));
             caption.setHeightInPoints(Math.min(MAX_ROW_POINTS, Math.max(1, Rows.linesOf(text.getStringCellValue(),
-                    FIGURE_COLUMNS * 12)) * 15f));
+                    FIGURE_COLUMNS * FIGURE_COLUMN_CHARACTERS)) * FIGURE_ROW_POINTS));
             int picture = wb.addPicture(f.png(), Workbook.PICTURE_TYPE_PNG);
-            org.apache.poi.ss.usermodel.ClientAnchor a = helper.createClientAnchor();
-            a.setCol1(0);
-            a.setRow1(row + 1);
-            int rowsSpanned = (int) Math.round(FIGURE_ROWS * f.aspect() / (Figure.HEIGHT_PT / (double) Figure.WIDTH_PT));
-            int columns = FIGURE_COLUMNS;
-            if (rowsSpanned > FIGURE_ROWS_PER_PAGE) {
-                // a tall figure is made narrower, keeping its shape, so that it stays on one page
-                columns = Math.max(2, (int) Math.round(FIGURE_COLUMNS * FIGURE_ROWS_PER_PAGE / (double) rowsSpanned));
-                rowsSpanned = FIGURE_ROWS_PER_PAGE;
+            double widthPt = Figure.WIDTH_PT;
+            double heightPt = Figure.WIDTH_PT * f.aspect();
+            double pagePt = FIGURE_ROWS_PER_PAGE * FIGURE_ROW_POINTS;
+            if (heightPt > pagePt) {
+                // a tall figure is made smaller, keeping its shape, so that it stays on one page
+                widthPt *= pagePt / heightPt;
+                heightPt = pagePt;
             }
-            a.setCol2(columns);
-            a.setRow2(row + 1 + rowsSpanned);
-            drawing.createPicture(a, picture);
-            row += rowsSpanned + 3;
+            drawing.createPicture(pictureAnchor(helper, row + 1, widthPt, heightPt), picture);
+            row += (int) Math.ceil(heightPt / FIGURE_ROW_POINTS) + 3;
         }
-        widths(s, 12, 12, 12, 12, 12, 12, 12, 12, 12);
+        // the rows under the figures are given their height, which the anchors count on (a spreadsheet program's own
+        // default differs: LibreOffice's is about 12.8 points, and drew every figure squeezed to 85 % of its height)
+        s.setDefaultRowHeightInPoints(FIGURE_ROW_POINTS);
+        int[] columns = new int[FIGURE_COLUMNS];
+        java.util.Arrays.fill(columns, FIGURE_COLUMN_CHARACTERS);
+        widths(s, columns);
+    }
+
+    /** Height of the Figures sheet's rows [points], and the width of its columns [characters]. */
+    private static final float FIGURE_ROW_POINTS = 15f;
+    private static final int FIGURE_COLUMN_CHARACTERS = 12;
+
+    /**
+     * Where a picture goes: from the top left of row {@code top}, {@code widthPt} × {@code heightPt}
+     * points, its far corner placed by column and row and the offset within them (English Metric
+     * Units, 12,700 to the point; a column's width in them as Excel counts it, POI's
+     * {@code Units.columnWidthToEMU}). Whole columns and rows alone stretched each figure: nine
+     * columns of twelve characters are 601 points, not the figure's 468.
+     */
+    static org.apache.poi.ss.usermodel.ClientAnchor pictureAnchor(org.apache.poi.ss.usermodel.CreationHelper helper, int top,
+                                                                 double widthPt, double heightPt) {
+        long column = org.apache.poi.util.Units.columnWidthToEMU(FIGURE_COLUMN_CHARACTERS * 256);
+        long rowHeight = Math.round(FIGURE_ROW_POINTS * org.apache.poi.util.Units.EMU_PER_POINT);
+        long w = Math.round(widthPt * org.apache.poi.util.Units.EMU_PER_POINT);
+        long h = Math.round(heightPt * org.apache.poi.util.Units.EMU_PER_POINT);
+        org.apache.poi.ss.usermodel.ClientAnchor a = helper.createClientAnchor();
+        a.setCol1(0);
+        a.setRow1(top);
+        a.setCol2((int) (w / column));
+        a.setDx2((int) (w % column));
+        a.setRow2(top + (int) (h / rowHeight));
+        a.setDy2((int) (h % rowHeight));
+        return a;
     }
 
     /** The tallest row a spreadsheet allows [points]. */
