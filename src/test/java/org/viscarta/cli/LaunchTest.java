@@ -19,7 +19,7 @@ class LaunchTest {
     private static final Optional<String> JAVA = Optional.of("/opt/jdk/bin/java");
 
     private static Optional<List<String>> command(List<String> jvmOptions, int cores, boolean launched) {
-        return Launch.command(jvmOptions, cores, launched, JAVA, "viscarta.jar", "org.viscarta.cli.Viscarta", List.of("report", "data"));
+        return Launch.command(jvmOptions, cores, launched, JAVA, "viscarta.jar", "org.viscarta.cli.Viscarta", List.of("report", "data"), 0);
     }
 
     @Test
@@ -34,8 +34,33 @@ class LaunchTest {
     void runsHereWhenAlreadyLaunchedOnMoreCoresOrWithoutAJavaExecutable() {
         assertEquals(Optional.empty(), command(List.of(), 2, true), "the second JVM must not start a third");
         assertEquals(Optional.empty(), command(List.of(), 3, false), "not measured above two cores: defaults kept");
-        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, Optional.empty(), "viscarta.jar", "M", List.of()));
-        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, JAVA, "", "M", List.of()));
+        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, Optional.empty(), "viscarta.jar", "M", List.of(), 0));
+        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, JAVA, "", "M", List.of(), 0));
+    }
+
+    @Test
+    void largeInputsKeepTheOptimisingCompiler() {
+        List<String> large = Launch.command(List.of(), 2, false, JAVA, "viscarta.jar", "M", List.of("fit", "big.csv"),
+                Launch.LARGE_INPUT_BYTES + 1).orElseThrow();
+        assertEquals(List.of("/opt/jdk/bin/java", "-XX:+UseSerialGC", "-Dviscarta.launched=true", "-cp", "viscarta.jar", "M", "fit",
+                "big.csv"), large);
+        assertTrue(Launch.command(List.of(), 2, false, JAVA, "viscarta.jar", "M", List.of(), Launch.LARGE_INPUT_BYTES).orElseThrow()
+                .contains("-XX:TieredStopAtLevel=1"), "at the limit, still the quick compiler");
+    }
+
+    /** The inputs' size: files and folders named, the values of -o and --out (outputs) left out, options skipped. */
+    @Test
+    void theInputsSizeCountsTheFilesAndFoldersNamedButNotTheOutputs(@TempDir Path dir) throws IOException {
+        Path file = Files.write(dir.resolve("a.csv"), new byte[1000]);
+        Path folder = Files.createDirectories(dir.resolve("in").resolve("deeper"));
+        Files.write(folder.resolve("b.csv"), new byte[300]);
+        Files.write(folder.getParent().resolve("c.csv"), new byte[20]);
+        Path out = Files.createDirectories(dir.resolve("out"));
+        Files.write(out.resolve("report.xlsx"), new byte[5000]);
+        Path csv = Files.write(dir.resolve("old-fits.csv"), new byte[7000]);
+        assertEquals(1320, Launch.inputBytes(List.of("report", file.toString(), folder.getParent().toString(), "--basis", "tensile",
+                "--out", out.toString(), "-o", csv.toString(), "--force", dir.resolve("missing.csv").toString())));
+        assertEquals(0, Launch.inputBytes(List.of("--version")));
     }
 
     @Test
