@@ -18,7 +18,6 @@ public final class Utf8Writer extends Writer {
 
     private final OutputStream out;
     private final byte[] bytes = new byte[1 << 15];
-    private final char[] chars = new char[1 << 12];
     private int used;
     /** A high surrogate waiting for the low one that follows it (0: none). */
     private char high;
@@ -45,16 +44,41 @@ public final class Utf8Writer extends Writer {
         }
     }
 
+    /**
+     * A text in pieces of up to {@value #PIECE} characters, each encoded by the JDK's own encoder
+     * (which copies text of ASCII characters as it is, where a loop over the characters costs several
+     * times more on the JVM's quick compiler), the same bytes: a high surrogate at a piece's end is
+     * kept for the character after it, in this text or the next, as {@link #put} does.
+     */
     @Override
     public void write(String s, int off, int len) throws IOException {
         while (len > 0) {
-            int n = Math.min(len, chars.length);
-            s.getChars(off, off + n, chars, 0);
-            write(chars, 0, n);
+            int n = Math.min(len, PIECE);
+            if (high == 0 && Character.isHighSurrogate(s.charAt(off + n - 1))) {
+                n--; // kept for the character after it
+            }
+            if (high != 0 || n == 0) {
+                if (used > bytes.length - 4) {
+                    drain();
+                }
+                put(s.charAt(off));
+                off++;
+                len--;
+                continue;
+            }
+            byte[] b = s.substring(off, off + n).getBytes(java.nio.charset.StandardCharsets.UTF_8);
+            if (used + b.length > bytes.length) {
+                drain();
+            }
+            System.arraycopy(b, 0, bytes, used, b.length);
+            used += b.length;
             off += n;
             len -= n;
         }
     }
+
+    /** Most characters encoded at once by {@link #write(String, int, int)}: three bytes each at most, within the buffer. */
+    private static final int PIECE = 4096;
 
     @Override
     public void write(String s) throws IOException {

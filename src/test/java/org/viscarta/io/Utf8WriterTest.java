@@ -7,6 +7,7 @@ import java.io.IOException;
 import java.io.OutputStreamWriter;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
+import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 
@@ -62,6 +63,34 @@ class Utf8WriterTest {
                 }
             }
             assertArrayEquals(expected.toByteArray(), actual.toByteArray(), "trial " + trial);
+        }
+    }
+    /**
+     * A surrogate pair across the places where the writer cuts a text: the end of one call and the
+     * start of the next, and the 4,096-character pieces a long text is encoded in (the random texts
+     * above meet these rarely: a high surrogate at a cut, followed by a low one).
+     */
+    @Test
+    void aSurrogatePairSplitByACallOrAPieceIsOneCharacter() throws IOException {
+        String pair = "\ud83d\ude00";
+        List<List<String>> calls = List.of(
+                List.of("x\ud83d", "\ude00y"),
+                List.of("\ud83d", "\ude00"),
+                List.of("a".repeat(4095) + pair + "b"),
+                List.of("a".repeat(4094) + pair + pair + "b"),
+                List.of("a".repeat(8191) + pair),
+                List.of("a".repeat(4095) + "\ud83d", "\ude00"),
+                List.of("\ud83d", "z"));
+        for (List<String> texts : calls) {
+            ByteArrayOutputStream expected = new ByteArrayOutputStream();
+            ByteArrayOutputStream actual = new ByteArrayOutputStream();
+            try (Writer jdk = new OutputStreamWriter(expected, StandardCharsets.UTF_8); Writer ours = new Utf8Writer(actual)) {
+                for (String t : texts) {
+                    jdk.write(t);
+                    ours.write(t);
+                }
+            }
+            assertArrayEquals(expected.toByteArray(), actual.toByteArray(), texts.stream().map(String::length).toList().toString());
         }
     }
 }
