@@ -8,8 +8,9 @@ import java.io.Writer;
  * Characters encoded as UTF-8 straight into a byte buffer of its own, handed on to a stream in
  * blocks of 32 KiB: the same bytes as an {@link java.io.OutputStreamWriter} for UTF-8 (a lone
  * surrogate becomes '?', its replacement, as there), without its lock on every call and without the
- * slow path the JDK's encoder takes for the rest of a block once it meets a character outside ASCII
- * (a δ or ′ in a header). For the writers of large outputs handed a few characters at a time by one
+ * slow path its charset encoder takes for the rest of a block once it meets a character outside
+ * ASCII (a δ or ′ in a header); texts go through {@link String#getBytes}, characters one at a time
+ * through {@link #put}. For the writers of large outputs handed a few characters at a time by one
  * thread (the workbook's sheets, the CSV tables). Not for use by two threads at once.
  */
 public final class Utf8Writer extends Writer {
