@@ -29,8 +29,8 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
     private static final double DPI = 200;
 
     /**
-     * Charts are drawn one at a time (their PNG encoding and SVG documents still made side by side).
-     * Drawn side by side, a figure now and then came out laid out wrongly (a legend's rows nearly
+     * Charts are drawn into PNG one at a time (their PNG encoding and their SVG documents made side
+     * by side). Drawn side by side, a figure now and then came out laid out wrongly (a legend's rows nearly
      * three times too tall and the plot squeezed, the same chart's SVG right; two of eight cold demo
      * reports). The cause is in the JDK: text is measured through a shared cache of font "strikes",
      * and the first thread to make a strike publishes its metrics before converting them from
@@ -40,6 +40,8 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
      * labels are) still let one cold report in thirty draw twelve figures wrongly, and measuring
      * text in every such strike as well cost about 3 s of processor time, more than drawing in
      * parallel saves on two cores. One at a time the same figures come out the same in every run.
+     * An SVG is drawn outside the lock: it measures text without a device transform (JFreeSVG's own
+     * identity-transform graphics), so its strikes have nothing to convert.
      */
     private static final Object DRAWING = new Object();
 
@@ -66,9 +68,8 @@ public record Figure(String stem, String caption, JFreeChart chart, int heightPt
         SVGGraphics2D g = new SVGGraphics2D(WIDTH_PT, heightPt);
         g.setDefsKeyPrefix(stem.replaceAll("[^A-Za-z0-9]", "_") + "_");
         g.setGeomDoubleConverter(Figure::hundredths);
-        synchronized (DRAWING) {
-            chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
-        }
+        // not under the lock: an SVG measures text without a device transform, so its strikes have nothing to convert
+        chart.draw(g, new Rectangle2D.Double(0, 0, WIDTH_PT, heightPt));
         // a viewBox as well as the size, so that a page that sets the width (the report's figures fill
         // their column) scales the drawing instead of leaving it at its natural size in a larger box
         return g.getSVGElement(null, true, new org.jfree.svg.ViewBox(0, 0, WIDTH_PT, heightPt), null, null);
