@@ -37,6 +37,7 @@ public final class Viscarta implements Runnable {
     }
 
     public static void main(String[] args) {
+        // on a small machine the work runs in a second JVM with the options measured fastest for it (Launch)
         java.util.OptionalInt launched = Launch.run(Viscarta.class.getName(), args);
         if (launched.isPresent()) {
             System.exit(launched.getAsInt());

@@ -26,7 +26,7 @@ public final class HtmlReport {
             + "padding:.2rem .45rem;text-align:left;vertical-align:top}th{background:#eee}td.n{text-align:right;"
             + "font-variant-numeric:tabular-nums}dt{font-weight:bold;margin-top:.5rem}.caution{border-left:4px solid #D55E00;"
             + "padding-left:.8rem}.demo{background:#fff3d6;padding:.5rem .8rem}figure{margin:1.5rem 0;page-break-inside:avoid}"
-            + "figure svg{width:100%;height:auto}table.wide{display:block;overflow-x:auto}td.long{min-width:16rem}@page{size:A4 landscape;margin:12mm}@media print{table.wide{display:table;font-size:.62rem}}figcaption{font-size:.9rem;color:#333}@media print{body{max-width:none}}"
+            + "figure svg{width:100%;height:auto}table.wide{display:block;overflow-x:auto}td.long{min-width:16rem}@page{size:A4 landscape;margin:12mm}@media print{table.wide{display:table;font-size:.62rem}}figcaption{font-size:.9rem;color:#333}@media print{body{max-width:none}figure svg{max-height:160mm}}"
             + "td.gap{text-align:left;font-style:italic;color:#555}p.gap{text-align:center;font-style:italic;color:#555}";
 
     private HtmlReport() {
