@@ -53,15 +53,7 @@ final class ReportCommand implements Callable<Integer> {
         Instant stated = report.stated(spec.commandLine());
         Progress progress = new Progress(spec.commandLine().getErr(), output.quiet);
         // what writing the report needs is loaded on a spare core while the analysis runs (ReportFiles.warmUp)
-        Thread warmUp = new Thread(() -> {
-            try {
-                ReportFiles.warmUp();
-            } catch (IOException | RuntimeException e) {
-                // only a head start: the report loads what it needs itself
-            }
-        }, "viscarta-warm-up");
-        warmUp.setDaemon(true);
-        warmUp.start();
+        Thread warmUp = ReportFiles.warmUpAside();
         AnalysisResult result = Analysis.run(request, progress);
         try {
             warmUp.join();

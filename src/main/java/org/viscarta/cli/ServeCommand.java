@@ -88,6 +88,8 @@ final class ServeCommand implements Callable<Integer> {
         if (!noBrowser) {
             openBrowser(w.address(), spec.commandLine().getErr());
         }
+        // while the user picks files: what writing a report needs is loaded, so that the first report is not the slow one
+        org.viscarta.report.ReportFiles.warmUpAside();
         stopped.await();
         return CommandLine.ExitCode.OK;
     }

@@ -65,6 +65,20 @@ public record ReportFiles(Path folder) {
         figure.svg();
     }
 
+    /** Starts {@link #warmUp} on a daemon thread of its own and returns the thread; a failure only loses the head start. */
+    public static Thread warmUpAside() {
+        Thread t = new Thread(() -> {
+            try {
+                warmUp();
+            } catch (IOException | RuntimeException e) {
+                // only a head start: the report loads what it needs itself
+            }
+        }, "viscarta-warm-up");
+        t.setDaemon(true);
+        t.start();
+        return t;
+    }
+
     public Path workbook() {
         return folder.resolve(WORKBOOK);
     }
