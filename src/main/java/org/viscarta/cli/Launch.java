@@ -14,9 +14,9 @@ import java.util.regex.Pattern;
  * measured fastest for Viscarta's work on small machines: the quick compiler only
  * ({@code -XX:TieredStopAtLevel=1}) and the serial collector ({@code -XX:+UseSerialGC}).
  *
- * <p>Why: on a machine with two cores, the JVM's optimising compiler spends about as much
- * processor time compiling as the demo report spends working (11 s of 17 s), on the cores the
- * work needs, and its compiled code arrives too late to earn that back; the concurrent collector's
+ * <p>Why: on a machine with two cores, the JVM's compilers spent 11.2 s of the demo report's
+ * 17.5 s of processor time (8.2 s of it the optimising compiler), on the cores the work needs, and
+ * the optimised code arrives too late to earn that back; the concurrent collector's
  * own threads take another share. Measured on a 2-core machine (README, Performance): the demo
  * report 6.0–6.3 s instead of 9.3–10.2 s, and even the 10,000-sweep report 20.5 s instead of
  * 23.1 s with less memory. A JVM's options cannot be changed once it runs, and {@code java -jar}
