@@ -134,17 +134,18 @@ public final class Launch {
      * @param classPath  this JVM's class path
      * @param mainClass  the class whose {@code main} the second JVM runs
      * @param args       the command line's arguments
-     * @param inputBytes the size of the files they name ({@link #inputBytes})
+     * @param inputBytes the size of the files they name ({@link #inputBytes}), asked for only when a second JVM is to run
      */
     static Optional<List<String>> command(List<String> jvmOptions, int cores, boolean launched, Optional<String> java,
-                                          String classPath, String mainClass, List<String> args, long inputBytes) {
+                                          String classPath, String mainClass, List<String> args,
+                                          java.util.function.LongSupplier inputBytes) {
         if (launched || cores > MAX_CORES || java.isEmpty() || classPath.isEmpty()
                 || jvmOptions.stream().anyMatch(o -> CHOSEN.matcher(o).matches())) {
             return Optional.empty();
         }
         List<String> cmd = new ArrayList<>();
         cmd.add(java.get());
-        cmd.addAll(options(inputBytes));
+        cmd.addAll(options(inputBytes.getAsLong()));
         cmd.addAll(jvmOptions);
         cmd.add("-D" + MARK + "=true");
         cmd.add("-cp");
@@ -162,11 +163,12 @@ public final class Launch {
      */
     public static OptionalInt run(String mainClass, String[] args) {
         if (Boolean.getBoolean(MARK) || Runtime.getRuntime().availableProcessors() > MAX_CORES) {
-            return OptionalInt.empty();
+            return OptionalInt.empty(); // the cheap rules of command first: the second JVM itself looks up nothing more
         }
+        List<String> arguments = List.of(args);
         Optional<List<String>> cmd = command(ManagementFactory.getRuntimeMXBean().getInputArguments(),
                 Runtime.getRuntime().availableProcessors(), Boolean.getBoolean(MARK), ProcessHandle.current().info().command(),
-                System.getProperty("java.class.path", ""), mainClass, List.of(args), inputBytes(List.of(args)));
+                System.getProperty("java.class.path", ""), mainClass, arguments, () -> inputBytes(arguments));
         if (cmd.isEmpty()) {
             return OptionalInt.empty();
         }

@@ -576,8 +576,8 @@ public final class WorkbookReport {
      * {@code Units.columnWidthToEMU}). Whole columns and rows alone stretched each figure: nine
      * columns of twelve characters are 601 points, not the figure's 468.
      */
-    static org.apache.poi.ss.usermodel.ClientAnchor pictureAnchor(org.apache.poi.ss.usermodel.CreationHelper helper, int top,
-                                                                 double widthPt, double heightPt) {
+    private static org.apache.poi.ss.usermodel.ClientAnchor pictureAnchor(org.apache.poi.ss.usermodel.CreationHelper helper,
+                                                                          int top, double widthPt, double heightPt) {
         long column = org.apache.poi.util.Units.columnWidthToEMU(FIGURE_COLUMN_CHARACTERS * 256);
         long rowHeight = Math.round(FIGURE_ROW_POINTS * org.apache.poi.util.Units.EMU_PER_POINT);
         long w = Math.round(widthPt * org.apache.poi.util.Units.EMU_PER_POINT);

@@ -194,13 +194,12 @@ final class WholeProcess {
         try (BufferedReader in = new BufferedReader(new InputStreamReader(p.getInputStream(), StandardCharsets.UTF_8))) {
             for (String line; (line = in.readLine()) != null; ) {
                 Matcher m = MEASURED.matcher(line);
+                Matcher l = LAUNCHED.matcher(line);
                 if (m.find()) {
                     Matcher cpu = PROCESSOR.matcher(line);
                     result = new Result(Integer.parseInt(m.group(1)), Double.parseDouble(m.group(2)), Double.parseDouble(m.group(3)),
                             m.group(4), cpu.find() ? Double.parseDouble(cpu.group(1)) : Double.NaN);
-                } else if (LAUNCHED.matcher(line).find()) {
-                    Matcher l = LAUNCHED.matcher(line);
-                    l.find();
+                } else if (l.find()) {
                     launcherWall = Double.parseDouble(l.group(1));
                     launcherProcessor = Double.parseDouble(l.group(2));
                 } else if (line.startsWith("timing: ")) {

@@ -19,7 +19,8 @@ class LaunchTest {
     private static final Optional<String> JAVA = Optional.of("/opt/jdk/bin/java");
 
     private static Optional<List<String>> command(List<String> jvmOptions, int cores, boolean launched) {
-        return Launch.command(jvmOptions, cores, launched, JAVA, "viscarta.jar", "org.viscarta.cli.Viscarta", List.of("report", "data"), 0);
+        return Launch.command(jvmOptions, cores, launched, JAVA, "viscarta.jar", "org.viscarta.cli.Viscarta", List.of("report", "data"),
+                () -> 0);
     }
 
     @Test
@@ -34,17 +35,17 @@ class LaunchTest {
     void runsHereWhenAlreadyLaunchedOnMoreCoresOrWithoutAJavaExecutable() {
         assertEquals(Optional.empty(), command(List.of(), 2, true), "the second JVM must not start a third");
         assertEquals(Optional.empty(), command(List.of(), 3, false), "not measured above two cores: defaults kept");
-        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, Optional.empty(), "viscarta.jar", "M", List.of(), 0));
-        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, JAVA, "", "M", List.of(), 0));
+        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, Optional.empty(), "viscarta.jar", "M", List.of(), () -> 0));
+        assertEquals(Optional.empty(), Launch.command(List.of(), 2, false, JAVA, "", "M", List.of(), () -> 0));
     }
 
     @Test
     void largeInputsKeepTheOptimisingCompiler() {
         List<String> large = Launch.command(List.of(), 2, false, JAVA, "viscarta.jar", "M", List.of("fit", "big.csv"),
-                Launch.LARGE_INPUT_BYTES + 1).orElseThrow();
+                () -> Launch.LARGE_INPUT_BYTES + 1).orElseThrow();
         assertEquals(List.of("/opt/jdk/bin/java", "-XX:+UseSerialGC", "-Dviscarta.launched=true", "-cp", "viscarta.jar", "M", "fit",
                 "big.csv"), large);
-        assertTrue(Launch.command(List.of(), 2, false, JAVA, "viscarta.jar", "M", List.of(), Launch.LARGE_INPUT_BYTES).orElseThrow()
+        assertTrue(Launch.command(List.of(), 2, false, JAVA, "viscarta.jar", "M", List.of(), () -> Launch.LARGE_INPUT_BYTES).orElseThrow()
                 .contains("-XX:TieredStopAtLevel=1"), "at the limit, still the quick compiler");
     }
 
