@@ -29,8 +29,11 @@ package org.viscarta.fit;
  */
 final class CompactLevenbergMarquardt {
 
-    /** The outcome: parameters, residual sum of squares, evaluations, and whether it converged. */
-    record Result(double[] params, double rss, double[][] jacobian, int evaluations, boolean converged, String message) {
+    /**
+     * The outcome: parameters, residual sum of squares, the Jacobian at the parameters by columns
+     * (p arrays of n: column j holds ∂r_i/∂θ_j), evaluations, and whether it converged.
+     */
+    record Result(double[] params, double rss, double[][] columns, int evaluations, boolean converged, String message) {
     }
 
     /** Cosine above which two steps point the same way. */
@@ -65,42 +68,128 @@ final class CompactLevenbergMarquardt {
             cost = dot(r, r);
         }
 
-        Result result(int evaluations, boolean converged, String message) {
-            return new Result(x, cost, jac, evaluations, converged, message);
+        /** Zeroes the Jacobian, as a new array would be: a function sees the same arrays whichever solve came before. */
+        void clear() {
+            for (double[] row : jac) {
+                java.util.Arrays.fill(row, 0.0);
+            }
         }
+    }
+
+    /**
+     * The arrays of one solve of n residuals in p parameters, kept by each thread for its next solve
+     * of the same shape: a campaign's fits are many solves of one shape, and a 20-frequency fit's two
+     * points alone are 80 small arrays, whose allocation cost about as much as two evaluations of the
+     * residuals. Results never share them (the parameters and Jacobian are copied out).
+     */
+    private static final class Workspace {
+        final int n;
+        final int p;
+        Point here;
+        Point trial;
+        final double[][] a;
+        final double[] g;
+        final double[][] jt;
+        final double[] diag;
+        final double[] delta;
+        final double[][] m;
+        final double[] previous;
+        final double[] before;
+        final double[] steady;
+        boolean inUse;
+
+        Workspace(int n, int p) {
+            this.n = n;
+            this.p = p;
+            here = new Point(n, p);
+            trial = new Point(n, p);
+            a = new double[p][p];
+            g = new double[p];
+            jt = new double[p][n];
+            diag = new double[p];
+            delta = new double[p];
+            m = new double[p][p];
+            previous = new double[p];
+            before = new double[p];
+            steady = new double[p];
+        }
+
+        void swap() {
+            Point t = here;
+            here = trial;
+            trial = t;
+        }
+
+        /** The result at {@code here}, whose Jacobian {@code jt} holds by columns (every return follows {@link #normal}). */
+        Result result(int evaluations, boolean converged, String message) {
+            double[][] columns = new double[p][];
+            for (int j = 0; j < p; j++) {
+                columns[j] = jt[j].clone();
+            }
+            return new Result(here.x.clone(), here.cost, columns, evaluations, converged, message);
+        }
+    }
+
+    private static final ThreadLocal<Workspace> WORKSPACE = new ThreadLocal<>();
+
+    /** This thread's workspace for the shape, or a new one when it has none of that shape or is inside a solve already. */
+    private static Workspace acquire(int n, int p) {
+        Workspace w = WORKSPACE.get();
+        if (w == null || w.inUse || w.n != n || w.p != p) {
+            w = new Workspace(n, p);
+            if (WORKSPACE.get() == null || !WORKSPACE.get().inUse) {
+                WORKSPACE.set(w);
+            }
+        } else {
+            w.here.clear();
+            w.trial.clear();
+            java.util.Arrays.fill(w.previous, 0.0);
+        }
+        w.inUse = true;
+        return w;
     }
 
     Result solve(int n, ResidualFunction f, double[] start) {
         int p = start.length;
-        Point here = new Point(n, p);
-        Point trial = new Point(n, p);
-        System.arraycopy(start, 0, here.x, 0, p);
-        here.evaluate(f);
-        int evaluations = 1;
-        if (!Double.isFinite(here.cost)) {
-            return here.result(evaluations, false, "the start gives non-finite residuals");
+        Workspace w = acquire(n, p);
+        try {
+            return solve(w, f, start);
+        } finally {
+            w.inUse = false;
         }
-        double[][] a = new double[p][p];
-        double[] g = new double[p];
-        double[][] jt = new double[p][n];
-        double[] diag = new double[p];
-        normal(here.jac, here.r, a, g, jt);
+    }
+
+    private Result solve(Workspace w, ResidualFunction f, double[] start) {
+        int p = w.p;
+        System.arraycopy(start, 0, w.here.x, 0, p);
+        w.here.evaluate(f);
+        int evaluations = 1;
+        double[][] a = w.a;
+        double[] g = w.g;
+        double[][] jt = w.jt;
+        double[] diag = w.diag;
+        normal(w.here.jac, w.here.r, a, g, jt);
+        if (!Double.isFinite(w.here.cost)) {
+            return w.result(evaluations, false, "the start gives non-finite residuals");
+        }
         for (int j = 0; j < p; j++) {
             diag[j] = Math.max(a[j][j], Double.MIN_NORMAL);
         }
         double lambda = 1e-3;
         double nu = 2;
-        double[] delta = new double[p];
-        double[][] m = new double[p][p];
-        double[] previous = new double[p];
-        double[] before = new double[p];
-        double[] steady = new double[p];
+        double[] delta = w.delta;
+        double[][] m = w.m;
+        double[] previous = w.previous;
+        double[] before = w.before;
+        double[] steady = w.steady;
         double previousNorm = 0;
         int repeats = 0;
         while (evaluations < maxEvaluations) {
+            Point here = w.here;
+            Point trial = w.trial;
             double cost = here.cost;
             if (gradientSmall(g, a, cost)) {
-                return here.result(evaluations, true, "");
+                return w.result(evaluations, true, "");
             }
             for (int i = 0; i < p; i++) {
                 System.arraycopy(a[i], 0, m[i], 0, p);
@@ -111,7 +200,7 @@ final class CompactLevenbergMarquardt {
                 lambda *= nu;
                 nu *= 2;
                 if (!(lambda < 1e300)) {
-                    return here.result(evaluations, false, "the normal equations are not positive definite");
+                    return w.result(evaluations, false, "the normal equations are not positive definite");
                 }
                 continue;
             }
@@ -132,17 +221,15 @@ final class CompactLevenbergMarquardt {
             double rho = Double.isFinite(costNew) && predicted > 0 ? (cost - costNew) / predicted : -1;
             if (rho > 0) {
                 double reduction = cost - costNew;
-                Point t = here;
-                here = trial;
-                trial = t;
-                normal(here.jac, here.r, a, g, jt);
+                w.swap();
+                normal(w.here.jac, w.here.r, a, g, jt);
                 for (int j = 0; j < p; j++) {
                     diag[j] = Math.max(diag[j], a[j][j]);
                 }
                 lambda *= Math.max(1.0 / 3.0, 1 - Math.pow(2 * rho - 1, 3));
                 nu = 2;
                 if (reduction <= tolerance * costNew || Math.sqrt(dNorm) <= tolerance * (Math.sqrt(xNorm) + tolerance) || costNew == 0) {
-                    return here.result(evaluations, true, "");
+                    return w.result(evaluations, true, "");
                 }
                 double norm = Math.sqrt(dot(delta, delta));
                 repeats = previousNorm > 0 && norm < 2 * previousNorm && previousNorm < 2 * norm
@@ -163,20 +250,18 @@ final class CompactLevenbergMarquardt {
                     boolean moved = false;
                     for (int k = 0; any && k < DOUBLINGS && evaluations < maxEvaluations; k++, stretch *= 2) {
                         for (int j = 0; j < p; j++) {
-                            trial.x[j] = here.x[j] + stretch * steady[j];
+                            w.trial.x[j] = w.here.x[j] + stretch * steady[j];
                         }
-                        trial.evaluate(f);
+                        w.trial.evaluate(f);
                         evaluations++;
-                        if (!(trial.cost < here.cost)) {
+                        if (!(w.trial.cost < w.here.cost)) {
                             break;
                         }
-                        Point t2 = here;
-                        here = trial;
-                        trial = t2;
+                        w.swap();
                         moved = true;
                     }
                     if (moved) {
-                        normal(here.jac, here.r, a, g, jt);
+                        normal(w.here.jac, w.here.r, a, g, jt);
                         for (int j = 0; j < p; j++) {
                             diag[j] = Math.max(diag[j], a[j][j]);
                         }
@@ -187,22 +272,22 @@ final class CompactLevenbergMarquardt {
                 }
             } else {
                 if (Math.sqrt(dNorm) <= tolerance * (Math.sqrt(xNorm) + tolerance)) {
-                    return here.result(evaluations, true, "");
+                    return w.result(evaluations, true, "");
                 }
                 // MINPACK's test on every step, not only accepted ones: both the actual and the predicted
                 // reduction below the tolerance (the step was refused by rounding in the misfit, not by
                 // a worse point; Moré 1978, section 8)
                 if (Double.isFinite(costNew) && Math.abs(cost - costNew) <= tolerance * cost && predicted <= tolerance * cost) {
-                    return here.result(evaluations, true, "");
+                    return w.result(evaluations, true, "");
                 }
                 lambda *= nu;
                 nu *= 2;
                 if (!(lambda < 1e300)) {
-                    return here.result(evaluations, true, "");
+                    return w.result(evaluations, true, "");
                 }
             }
         }
-        return here.result(evaluations, false, "did not converge within " + maxEvaluations + " evaluations");
+        return w.result(evaluations, false, "did not converge within " + maxEvaluations + " evaluations");
     }
 
     /** max_j |g_j| / sqrt(A_jj · cost) below the tolerance: the residual is orthogonal to every column of J. */

@@ -63,7 +63,19 @@ public final class HouseholderSolve {
     public static double[][] triangular(double[][] a) {
         int p = a[0].length;
         double[][] qrt = new double[p][];
-        double[] rDiag = reflect(a, qrt);
+        return triangularFactor(qrt, reflect(a, qrt));
+    }
+
+    /**
+     * {@link #triangular} of A given by its columns (p arrays of m, m ≥ p), which the reflections
+     * overwrite: for a caller whose Jacobian is already by columns and not needed afterwards.
+     */
+    public static double[][] triangularOfColumns(double[][] columns) {
+        return triangularFactor(columns, reflectColumns(columns, columns[0].length));
+    }
+
+    private static double[][] triangularFactor(double[][] qrt, double[] rDiag) {
+        int p = qrt.length;
         double[][] r = new double[p][p];
         for (int row = 0; row < p; row++) {
             r[row][row] = rDiag[row];
@@ -89,6 +101,12 @@ public final class HouseholderSolve {
                 qrt[j][i] = a[i][j];
             }
         }
+        return reflectColumns(qrt, m);
+    }
+
+    /** The reflections of A given by its columns {@code qrt} (n arrays of m), in place; returns the diagonal of R. */
+    private static double[] reflectColumns(double[][] qrt, int m) {
+        int n = qrt.length;
         double[] rDiag = new double[n];
         for (int minor = 0; minor < Math.min(m, n); minor++) {
             double[] qrtMinor = qrt[minor];

@@ -163,7 +163,7 @@ public final class LeastSquaresEngine {
     public Solution solveMultiStart(int n, ResidualFunction f, List<double[]> starts) {
         boolean compact = settings.method() == Method.COMPACT;
         Solution best = null;
-        double[][] bestJacobian = null;
+        double[][] bestColumns = null;
         Solution firstFailure = null;
         int confirmations = 0;
         for (double[] s : starts) {
@@ -173,13 +173,13 @@ public final class LeastSquaresEngine {
             if (sol.converged()) {
                 if (best == null || sol.rss() < best.rss() * (1 - CONFIRMATION)) {
                     best = sol;
-                    bestJacobian = compact ? c.jacobian() : null;
+                    bestColumns = compact ? c.columns() : null;
                     confirmations = 1;
                 } else if (Math.abs(sol.rss() - best.rss()) <= CONFIRMATION * best.rss()) {
                     confirmations++;
                     if (sol.rss() < best.rss()) {
                         best = sol;
-                        bestJacobian = compact ? c.jacobian() : null;
+                        bestColumns = compact ? c.columns() : null;
                     }
                 }
                 if (confirmations >= 2) {
@@ -189,8 +189,8 @@ public final class LeastSquaresEngine {
                 firstFailure = sol;
             }
         }
-        if (best != null && bestJacobian != null) {
-            best = withCovariance(best, bestJacobian);
+        if (best != null && bestColumns != null) {
+            best = withCovariance(best, bestColumns);
         }
         return best != null ? best : firstFailure;
     }
@@ -226,11 +226,14 @@ public final class LeastSquaresEngine {
 
     private Solution solveCompact(int n, ResidualFunction f, double[] start) {
         Compact c = solveCompactDeferred(n, f, start);
-        return c.jacobian() == null ? c.solution() : withCovariance(c.solution(), c.jacobian());
+        return c.columns() == null ? c.solution() : withCovariance(c.solution(), c.columns());
     }
 
-    /** A compact solution without (JᵀJ)⁻¹ yet, and the Jacobian at its minimum (null when it did not converge). */
-    private record Compact(Solution solution, double[][] jacobian) {
+    /**
+     * A compact solution without (JᵀJ)⁻¹ yet, and the Jacobian at its minimum by columns, a copy of
+     * its own (null when it did not converge).
+     */
+    private record Compact(Solution solution, double[][] columns) {
     }
 
     private Compact solveCompactDeferred(int n, ResidualFunction f, double[] start) {
@@ -246,11 +249,12 @@ public final class LeastSquaresEngine {
         if (!Double.isFinite(r.rss()) || !allFinite(r.params())) {
             return new Compact(failed(n, f, start, "the fit left the range of finite numbers"), null);
         }
-        return new Compact(new Solution(r.params(), r.rss(), null, n, r.evaluations(), true, ""), r.jacobian());
+        return new Compact(new Solution(r.params(), r.rss(), null, n, r.evaluations(), true, ""), r.columns());
     }
 
-    private Solution withCovariance(Solution s, double[][] jacobian) {
-        return new Solution(s.params(), s.rss(), inverseNormalMatrix(jacobian, settings.singularityThreshold()), s.n(),
+    /** The solution with (JᵀJ)⁻¹ from its Jacobian's columns, which this overwrites. */
+    private Solution withCovariance(Solution s, double[][] columns) {
+        return new Solution(s.params(), s.rss(), inverseNormalMatrixOfColumns(columns, settings.singularityThreshold()), s.n(),
                 s.evaluations(), true, "");
     }
 
@@ -270,16 +274,40 @@ public final class LeastSquaresEngine {
     }
 
     static double[][] inverseNormalMatrix(double[][] jacobian, double threshold) {
-        for (double[] row : jacobian) {
-            if (!allFinite(row)) {
+        int p = jacobian.length == 0 ? 0 : jacobian[0].length;
+        double[][] columns = new double[p][jacobian.length];
+        for (int i = 0; i < jacobian.length; i++) {
+            for (int j = 0; j < p; j++) {
+                columns[j][i] = jacobian[i][j];
+            }
+        }
+        return inverseNormalMatrixOfColumns(columns, threshold);
+    }
+
+    /** {@link #inverseNormalMatrix} of a Jacobian given by its columns (p arrays of n), which this overwrites. */
+    static double[][] inverseNormalMatrixOfColumns(double[][] columns, double threshold) {
+        for (double[] column : columns) {
+            if (!allFinite(column)) {
                 return null;
             }
         }
-        int p = jacobian[0].length;
+        int p = columns.length;
         if (p == 0) {
             return null;
         }
-        JacobiSvd.Result svd = JacobiSvd.decompose(jacobian.length > p ? HouseholderSolve.triangular(jacobian) : jacobian);
+        int n = columns[0].length;
+        double[][] square;
+        if (n > p) {
+            square = HouseholderSolve.triangularOfColumns(columns);
+        } else {
+            square = new double[n][p];
+            for (int j = 0; j < p; j++) {
+                for (int i = 0; i < n; i++) {
+                    square[i][j] = columns[j][i];
+                }
+            }
+        }
+        JacobiSvd.Result svd = JacobiSvd.decompose(square);
         double[] sv = svd.singularValues();
         double max = 0;
         double min = Double.POSITIVE_INFINITY;

@@ -328,9 +328,13 @@ public final class ModelFitter {
         int m = omega.length;
         double[] lnStorage = new double[m];
         double[] lnLoss = new double[m];
+        double[] weightStorage = new double[m];
+        double[] weightLoss = new double[m];
         for (int i = 0; i < m; i++) {
             lnStorage[i] = Math.log(storage[i]);
             lnLoss[i] = Math.log(loss[i]);
+            weightStorage[i] = 1 / scale[0][i];
+            weightLoss[i] = 1 / scale[1][i];
         }
         boolean relative = weighting == Weighting.RELATIVE;
         // work arrays of this residual function; each fit builds its own, so fits may run in parallel
@@ -339,7 +343,10 @@ public final class ModelFitter {
         double[] mod = new double[2];
         double[] ds = new double[p];
         double[] dl = new double[p];
-        Transform[] transforms = specs.stream().map(ParameterSpec::transform).toArray(Transform[]::new);
+        Transform[] transforms = new Transform[p];
+        for (int j = 0; j < p; j++) {
+            transforms[j] = specs.get(j).transform();
+        }
         return (u, r, jac) -> {
             for (int j = 0; j < p; j++) {
                 theta[j] = transforms[j].toNatural(u[j]);
@@ -355,13 +362,18 @@ public final class ModelFitter {
                         jac[2 * i + 1][j] = dl[j] / loss[i] * dtheta[j];
                     }
                 } else {
-                    double ws = 1 / scale[0][i];
-                    double wl = 1 / scale[1][i];
+                    double ws = weightStorage[i];
+                    double wl = weightLoss[i];
                     r[2 * i] = (Math.log(mod[0]) - lnStorage[i]) * ws;
                     r[2 * i + 1] = (Math.log(mod[1]) - lnLoss[i]) * wl;
+                    // ∂ ln M/∂u = (∂M/∂θ)(dθ/du)/M: one division per modulus, not one per parameter
+                    double[] rowS = jac[2 * i];
+                    double[] rowL = jac[2 * i + 1];
+                    double cs = ws / mod[0];
+                    double cl = wl / mod[1];
                     for (int j = 0; j < p; j++) {
-                        jac[2 * i][j] = ds[j] / mod[0] * dtheta[j] * ws;
-                        jac[2 * i + 1][j] = dl[j] / mod[1] * dtheta[j] * wl;
+                        rowS[j] = ds[j] * dtheta[j] * cs;
+                        rowL[j] = dl[j] * dtheta[j] * cl;
                     }
                 }
             }
@@ -461,23 +473,19 @@ public final class ModelFitter {
                 }
             }
         }
-        List<DerivedEstimate> derived = new ArrayList<>();
-        for (Derived d : model.derived()) {
+        List<Derived> quantities = model.derived();
+        List<DerivedEstimate> derived = new ArrayList<>(quantities.size());
+        // one stencil of central differences in u, its points moved into natural parameters once for all quantities
+        DeltaMethod.Stencil stencil = cov == null || quantities.isEmpty() ? null
+                : new DeltaMethod.Stencil(u, 1e-6, 1.0, x -> natural(specs, x));
+        for (Derived d : quantities) {
             double value = d.value().applyAsDouble(theta);
-            double se = deltaMethod(d, specs, u, cov);
+            double se = stencil == null ? Double.NaN : DeltaMethod.standardError(stencil.gradient(d.value()), cov);
             derived.add(new DerivedEstimate(d.name(), d.unit(), value, se, derivedFlag(d.unit(), value, se, window)));
         }
         return new FitResult(sample, model.id(), est, n, rss, ModelSelection.aic(n, p, rss),
                 ModelSelection.aicc(n, p, rss), ModelSelection.bic(n, p, rss), corr, true, "", model.describeVariant(), derived,
                 model, natural);
-    }
-
-    /** se(g) = sqrt(∇gᵀ Cov(u) ∇g), ∇g by central differences in the fitting parameters u. */
-    private static double deltaMethod(Derived d, List<ParameterSpec> specs, double[] u, double[][] cov) {
-        if (cov == null) {
-            return Double.NaN;
-        }
-        return DeltaMethod.standardError(DeltaMethod.gradient(x -> d.value().applyAsDouble(natural(specs, x)), u, 1e-6, 1.0), cov);
     }
 
     private static double[] natural(List<ParameterSpec> specs, double[] u) {

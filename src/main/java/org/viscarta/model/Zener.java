@@ -44,22 +44,40 @@ public final class Zener implements ViscoelasticModel {
     @Override
     public void modulus(double omega, double[] p, double[] out) {
         double x = omega * p[2];
-        double d = 1 + x * x;
-        out[0] = p[0] + p[1] * x * x / d;
-        out[1] = p[1] * x / d;
+        double q = 1 / (1 + x * x);
+        out[0] = p[0] + p[1] * (x * x * q);
+        out[1] = p[1] * (x * q);
     }
 
     @Override
     public void derivatives(double omega, double[] p, double[] dStorage, double[] dLoss) {
         double e1 = p[1];
         double x = omega * p[2];
-        double d = 1 + x * x;
+        double q = 1 / (1 + x * x);
         dStorage[0] = 1;
-        dStorage[1] = x * x / d;
-        dStorage[2] = e1 * 2 * x / (d * d) * omega;
+        dStorage[1] = x * x * q;
+        dStorage[2] = e1 * 2 * (x * q) * q * omega;
         dLoss[0] = 0;
-        dLoss[1] = x / d;
-        dLoss[2] = e1 * (1 - x * x) / (d * d) * omega;
+        dLoss[1] = x * q;
+        dLoss[2] = e1 * (1 - x * x) * q * q * omega;
+    }
+
+    /** Both at once, sharing x = ωτ and q = 1/(1 + x²): bit for bit what {@link #modulus} and {@link #derivatives} give. */
+    @Override
+    public void modulusAndDerivatives(double omega, double[] p, double[] out, double[] dStorage, double[] dLoss) {
+        double e1 = p[1];
+        double x = omega * p[2];
+        double q = 1 / (1 + x * x);
+        double storageShape = x * x * q;
+        double lossShape = x * q;
+        out[0] = p[0] + e1 * storageShape;
+        out[1] = e1 * lossShape;
+        dStorage[0] = 1;
+        dStorage[1] = storageShape;
+        dStorage[2] = e1 * 2 * lossShape * q * omega;
+        dLoss[0] = 0;
+        dLoss[1] = lossShape;
+        dLoss[2] = e1 * (1 - x * x) * q * q * omega;
     }
 
     @Override
