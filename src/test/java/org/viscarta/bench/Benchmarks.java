@@ -197,7 +197,7 @@ public final class Benchmarks {
         StringBuilder sweeps = new StringBuilder("case,model,frequency_hz,storage_pa,loss_pa\n");
         StringBuilder times = new StringBuilder("case,model,viscarta_median_us_all_starts,viscarta_median_us_one_start,starts\n");
         ModelFitter fitter = new ModelFitter();
-        System.out.println("per model, 20 frequencies, 3 % noise (median of 300 fits after 300 warm-up fits, one thread):");
+        System.out.println("per model, 20 frequencies, 3 % noise (median of 2,000 fits once warm: medians of successive rounds within 2 %; one thread):");
         for (int k = 0; k < cases.length; k++) {
             String id = (String) cases[k][0];
             double[] truth = (double[]) cases[k][1];
@@ -226,12 +226,31 @@ public final class Benchmarks {
         Files.writeString(out.resolve("viscarta-fit-times.csv"), times.toString());
     }
 
+    /**
+     * The median time of one call in the steady state: warmed up in rounds of 500 calls until two
+     * rounds in a row have medians within 2 % of the round before (the JIT has compiled what the call
+     * runs) or 5 s have passed, then the median of 2,000 calls. A few hundred calls are not enough:
+     * the optimising compiler was still at work, and medians after 300 warm-up calls were about twice
+     * the steady state's.
+     */
     private static double medianMicros(java.util.function.DoubleSupplier fit) {
         double sink = 0;
-        for (int i = 0; i < 300; i++) {
-            sink += fit.getAsDouble();
+        long[] round = new long[500];
+        double last = Double.NaN;
+        int steady = 0;
+        long start = System.nanoTime();
+        while (steady < 2 && System.nanoTime() - start < 5_000_000_000L) {
+            for (int i = 0; i < round.length; i++) {
+                long t0 = System.nanoTime();
+                sink += fit.getAsDouble();
+                round[i] = System.nanoTime() - t0;
+            }
+            Arrays.sort(round);
+            double median = round[round.length / 2];
+            steady = Math.abs(median - last) <= 0.02 * last ? steady + 1 : 0;
+            last = median;
         }
-        long[] ns = new long[300];
+        long[] ns = new long[2000];
         for (int i = 0; i < ns.length; i++) {
             long t0 = System.nanoTime();
             sink += fit.getAsDouble();
