@@ -398,6 +398,11 @@ public final class SweepReader {
         return TableStart.isPlainNumber(t);
     }
 
+    /** {@link TableStart#plainValue}: the value of a plain number, NaN when the text is not one. */
+    public static double plainValue(String t) {
+        return TableStart.plainValue(t);
+    }
+
     /**
      * Reads a sweep table in one streaming pass, keeping for each sweep only its labels, point count
      * and frequency range, so that memory does not grow with the file (a tidy CSV of any size). Every
@@ -653,10 +658,11 @@ public final class SweepReader {
             }
             String cell = cell(rec, t.index());
             String c = dm == ',' ? cell.replace(',', '.') : cell;
-            if (!TableStart.isPlainNumber(c)) {
+            double plain = TableStart.plainValue(c);
+            if (Double.isNaN(plain)) {
                 return;
             }
-            double v = Double.parseDouble(c) * (t.unit() == null ? 1 : t.unit().toSi());
+            double v = plain * (t.unit() == null ? 1 : t.unit().toSi());
             double given = t.quantity() == Quantity.PHASE_ANGLE ? Math.tan(v) : v;
             double fromModuli = p.loss() / p.storage();
             if (Math.abs(given - fromModuli) > 0.01 * Math.abs(fromModuli) + 1e-12) {
@@ -1315,11 +1321,11 @@ public final class SweepReader {
             throw new InputException(path, line, c.index() + 1, "empty cell in column '" + c.header()
                     + "'; fill it or remove the row");
         }
-        if (!TableStart.isPlainNumber(t)) {
+        double v = TableStart.plainValue(t);
+        if (Double.isNaN(v)) {
             throw new InputException(path, line, c.index() + 1, InputException.quote(cell) + " in column "
                     + InputException.quote(c.header()) + " is not a number; write plain numbers such as 1250 or 1.25e3");
         }
-        double v = Double.parseDouble(t);
         if (!Double.isFinite(v)) {
             throw new InputException(path, line, c.index() + 1, InputException.quote(cell) + " is too large to be a number");
         }

@@ -248,10 +248,11 @@ public final class RawReader {
         double[] v = new double[width];
         for (int c = 0; c < width; c++) {
             String cell = cells[c].strip();
-            if (!SweepReader.isPlainNumber(cell)) {
+            double plain = SweepReader.plainValue(cell);
+            if (Double.isNaN(plain)) {
                 throw new InputException(file, lineNumber, c + 1, "'" + cell + "' is not a number");
             }
-            v[c] = Double.parseDouble(cell) * scale[c];
+            v[c] = plain * scale[c];
         }
         return v;
     }
