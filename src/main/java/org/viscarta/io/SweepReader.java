@@ -100,6 +100,13 @@ public final class SweepReader {
         }
     }
 
+    /**
+     * Files of at least this size are read ahead on a second thread ({@link Lines}): below it the
+     * thread is not worth its start, and a folder of small files is read file by file in parallel
+     * anyway.
+     */
+    static final long READ_AHEAD_BYTES = 1 << 20;
+
     private <T, B extends Bucket> T stream(Path path, Charset charset, Sink<T, B> sink) throws CharacterCodingException {
         java.nio.charset.CharsetDecoder decoder = charset.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
                 .onUnmappableCharacter(CodingErrorAction.REPORT);
@@ -111,8 +118,10 @@ public final class SweepReader {
         }
         try (java.io.InputStream raw = Files.newInputStream(path);
              java.security.DigestInputStream digest = new java.security.DigestInputStream(raw, md);
-             java.io.BufferedReader in = new java.io.BufferedReader(new java.io.InputStreamReader(digest, decoder), 1 << 16)) {
+             java.io.BufferedReader in = new java.io.BufferedReader(new java.io.InputStreamReader(digest, decoder), 1 << 16);
+             Lines lines = new Lines(in, Files.size(path) >= READ_AHEAD_BYTES)) {
             sink.checksum(() -> {
+                lines.close(); // the reading thread, if any, has stopped: the digest is this thread's now
                 try {
                     digest.transferTo(java.io.OutputStream.nullOutputStream()); // any bytes the reader left unread
                 } catch (IOException e) {
@@ -120,7 +129,7 @@ public final class SweepReader {
                 }
                 return HexFormat.of().formatHex(md.digest());
             });
-            return scan(path, in, charset.equals(StandardCharsets.UTF_8) ? "UTF-8" : "windows-1252", sink);
+            return scan(path, lines, charset.equals(StandardCharsets.UTF_8) ? "UTF-8" : "windows-1252", sink);
         } catch (java.nio.charset.MalformedInputException | java.nio.charset.UnmappableCharacterException e) {
             throw e;
         } catch (IOException | UncheckedIOException e) {
@@ -200,7 +209,10 @@ public final class SweepReader {
      * @param encoding how the text was decoded ("UTF-8" gains "with byte-order mark" when one leads the text)
      */
     private <T, B extends Bucket> T scan(Path path, java.io.BufferedReader in, String encoding, Sink<T, B> sink) throws IOException {
-        Lines src = new Lines(in);
+        return scan(path, new Lines(in), encoding, sink);
+    }
+
+    private <T, B extends Bucket> T scan(Path path, Lines src, String encoding, Sink<T, B> sink) throws IOException {
         Preamble pre = new Preamble(path);
         CappedWarnings warnings = new CappedWarnings(path);
         Start start = TableStart.findStart(src, pre, 0, false);
@@ -224,6 +236,7 @@ public final class SweepReader {
         }
         String enc = src.bom && encoding.equals("UTF-8") ? "UTF-8 with byte-order mark" : encoding;
         char sep = TableStart.detectSeparator(headerLine.text());
+        src.splitAt(sep);
         Row headerRow = withUnits(path, row(path, headerLine.text(), headerLine.number(), sep),
                 unitsLine == null ? null : row(path, unitsLine.text(), unitsLine.number(), sep));
         List<Row> first = new ArrayList<>();
@@ -307,7 +320,8 @@ public final class SweepReader {
             if (l.text().isBlank() || l.comment()) {
                 continue;
             }
-            Row r = row(path, l.text(), l.number(), sep);
+            List<String> split = l.cellsAt(sep);
+            Row r = split != null ? new Row(l.number(), split) : row(path, l.text(), l.number(), sep);
             if (endsBlock(r.cells(), sep)) {
                 src.pushBack(l);
                 return;

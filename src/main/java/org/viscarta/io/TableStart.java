@@ -18,31 +18,64 @@ final class TableStart {
     /** Preamble lines read while looking for a table before the first row is taken as the header anyway. */
     static final int MAX_PREAMBLE = 1000;
 
-    /** Input lines with their 1-based numbers, one at a time, with push-back. */
-    static final class Lines {
+    /**
+     * Input lines with their 1-based numbers, one at a time, with push-back; optionally read ahead on
+     * a thread of their own ({@link ReadAhead}). Close it to stop that thread.
+     */
+    static final class Lines implements AutoCloseable {
         private final java.io.BufferedReader in;
+        private final ReadAhead ahead;
         private final java.util.ArrayDeque<Line> back = new java.util.ArrayDeque<>();
         private int n;
         boolean bom;
 
         Lines(java.io.BufferedReader in) {
+            this(in, false);
+        }
+
+        /** @param readAhead whether the text is read and decoded on a second thread while this one takes the lines */
+        Lines(java.io.BufferedReader in, boolean readAhead) {
             this.in = in;
+            this.ahead = readAhead ? new ReadAhead(in) : null;
         }
 
         Line next() throws IOException {
             if (!back.isEmpty()) {
                 return back.pollFirst();
             }
-            String s = in.readLine();
-            if (s == null) {
-                return null;
+            if (ahead != null) {
+                return ahead.next(this);
             }
+            String s = in.readLine();
+            return s == null ? null : line(s, null, '\0');
+        }
+
+        /** The next line, numbered; a leading byte-order mark taken off the first (and its split, if any, dropped). */
+        private Line line(String s, List<String> cells, char sep) {
             n++;
             if (n == 1 && s.startsWith("\uFEFF")) {
-                s = s.substring(1);
                 bom = true;
+                return new Line(n, s.substring(1));
             }
-            return new Line(n, s);
+            return new Line(n, s, cells, sep);
+        }
+
+        /**
+         * From now on the reading thread, if any, also splits the lines it reads at {@code sep} (those
+         * without quotes), a third of reading a large table, taken off this thread.
+         */
+        void splitAt(char sep) {
+            if (ahead != null) {
+                ahead.separator = sep;
+            }
+        }
+
+        /** Stops reading ahead and waits until the thread has stopped (nothing to do without one). */
+        @Override
+        public void close() {
+            if (ahead != null) {
+                ahead.stop();
+            }
         }
 
         void pushBack(Line l) {
@@ -86,8 +119,142 @@ final class TableStart {
         }
     }
 
-    /** One input line and its 1-based number. */
-    record Line(int number, String text) {
+    /**
+     * Reading ahead: a second thread reads the text (its bytes, their checksum and their decoding,
+     * about a third of reading a large table) into batches of lines while the reader's own thread
+     * understands the lines already read. At most {@value #QUEUED} batches of {@value #BATCH} lines
+     * wait, so memory stays bounded whatever the file's size. A failure of the reading thread (a byte
+     * that is not valid in the encoding, an I/O error) reaches the reader's thread where the line
+     * would have been, as the same exception.
+     */
+    private static final class ReadAhead {
+        static final int BATCH = 512;
+        static final int QUEUED = 16;
+        private static final Object END = new Object();
+
+        /** Lines read, and those split (null where not). */
+        private record Batch(String[] lines, List<String>[] cells, char separator) {
+        }
+
+        private final java.util.concurrent.BlockingQueue<Object> queue = new java.util.concurrent.ArrayBlockingQueue<>(QUEUED);
+        private final Thread thread;
+        private volatile boolean stopped;
+        /** The separator to split at, once the reader knows it ('\0' before). */
+        volatile char separator;
+        private Batch batch = new Batch(new String[0], null, '\0');
+        private int position;
+        private boolean ended;
+
+        ReadAhead(java.io.BufferedReader in) {
+            thread = new Thread(() -> run(in), "viscarta-read-ahead");
+            thread.setDaemon(true);
+            thread.start();
+        }
+
+        private void run(java.io.BufferedReader in) {
+            try {
+                while (!stopped) {
+                    String[] lines = new String[BATCH];
+                    char sep = separator;
+                    @SuppressWarnings("unchecked")
+                    List<String>[] cells = sep == '\0' ? null : new List[BATCH];
+                    int k = 0;
+                    Object failure = null;
+                    try {
+                        for (; k < BATCH; k++) {
+                            String s = in.readLine();
+                            if (s == null) {
+                                break;
+                            }
+                            lines[k] = s;
+                            if (cells != null && s.indexOf('"') < 0) {
+                                cells[k] = splitPlain(s, sep);
+                            }
+                        }
+                    } catch (IOException | RuntimeException | Error e) {
+                        failure = e;
+                    }
+                    if (k > 0) {
+                        queue.put(k == BATCH ? new Batch(lines, cells, sep)
+                                : new Batch(java.util.Arrays.copyOf(lines, k), cells == null ? null : java.util.Arrays.copyOf(cells, k), sep));
+                    }
+                    if (failure != null || k < BATCH) {
+                        queue.put(failure != null ? failure : END);
+                        return;
+                    }
+                }
+            } catch (InterruptedException stoppedWhileWaiting) {
+                // stop() asked: the reader no longer wants lines
+            }
+        }
+
+        /** The next line, numbered by {@code lines}, null at the end; throws what reading it threw. */
+        Line next(Lines lines) throws IOException {
+            if (position < batch.lines().length) {
+                int i = position++;
+                return lines.line(batch.lines()[i], batch.cells() == null ? null : batch.cells()[i], batch.separator());
+            }
+            if (ended) {
+                return null;
+            }
+            Object o;
+            try {
+                o = queue.take();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new java.io.InterruptedIOException("interrupted while reading");
+            }
+            if (o instanceof Batch b) {
+                batch = b;
+                position = 0;
+                return next(lines);
+            }
+            ended = true;
+            if (o instanceof IOException e) {
+                throw e;
+            }
+            if (o instanceof RuntimeException e) {
+                throw e;
+            }
+            if (o instanceof Error e) {
+                throw e;
+            }
+            return null;
+        }
+
+        /** Stops the thread (it may be waiting for room in the queue) and waits for it to end. */
+        void stop() {
+            stopped = true;
+            queue.clear();
+            boolean interrupted = false;
+            while (thread.isAlive()) {
+                queue.clear();
+                try {
+                    thread.join(10);
+                } catch (InterruptedException e) {
+                    interrupted = true;
+                }
+            }
+            if (interrupted) {
+                Thread.currentThread().interrupt();
+            }
+        }
+    }
+
+    /**
+     * One input line and its 1-based number; {@code cells} holds it already split at
+     * {@code separator} ({@link #splitPlain}) when the reading thread did so, else null.
+     */
+    record Line(int number, String text, List<String> cells, char separator) {
+        Line(int number, String text) {
+            this(number, text, null, '\0');
+        }
+
+        /** The cells split at {@code sep}, if the reading thread split this line so; else null. */
+        List<String> cellsAt(char sep) {
+            return cells != null && separator == sep ? cells : null;
+        }
+
         boolean comment() {
             return text.stripLeading().startsWith("#");
         }
