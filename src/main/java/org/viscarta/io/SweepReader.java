@@ -1239,7 +1239,10 @@ public final class SweepReader {
 
     private static double value(Row rec, ColumnSpec c, char dm, Path path, int line) {
         String cell = cell(rec, c.index());
-        if (cell.isEmpty() || TableStart.NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT))) {
+        char first = cell.isEmpty() ? ' ' : cell.charAt(0);
+        // a cell that starts with a digit or a point is no missing-value mark (they all start otherwise): no look-up
+        if (!(first >= '0' && first <= '9' || first == '.')
+                && (cell.isEmpty() || TableStart.NOT_A_NUMBER.contains(cell.toLowerCase(Locale.ROOT)))) {
             throw MissingValue.INSTANCE;
         }
         return number(cell, c, dm, path, line);

@@ -332,6 +332,7 @@ final class TableStart {
     }
 
     /** Cell texts that stand for a missing value: the point is left out with a warning. */
+    /** Marks of a missing value (compared in lower case); none starts with a digit or a point, which the reader relies on. */
     static final java.util.Set<String> NOT_A_NUMBER = java.util.Set.of("", "-", "--", "---", "nan", "n/a", "na", "*", "#n/a", "null");
 
     static boolean numeric(String cell, char sep) {

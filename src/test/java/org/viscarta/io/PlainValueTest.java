@@ -37,6 +37,14 @@ class PlainValueTest {
         }
     }
 
+    /** The reader skips the look-up of missing-value marks for cells that start with a digit or a point. */
+    @Test
+    void noMissingValueMarkStartsWithADigitOrAPoint() {
+        for (String mark : TableStart.NOT_A_NUMBER) {
+            assertTrue(mark.isEmpty() || !(Character.isDigit(mark.charAt(0)) || mark.charAt(0) == '.'), mark);
+        }
+    }
+
     /** Random numbers of every shape the reader meets and many it rarely does: up to 20 digits, exponents to ±350. */
     @Test
     void randomNumbersGiveWhatTheJdkGivesBitForBit() {
