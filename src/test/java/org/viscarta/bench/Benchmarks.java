@@ -281,7 +281,7 @@ public final class Benchmarks {
         int sweeps = new SweepReader(null).read(file).sweeps().size();
         double sec = (System.nanoTime() - t0) / 1e9;
         long heap = peakHeap();
-        System.out.printf(Locale.ROOT, "full read of a %.0f MB tidy table (%d sweeps, every point kept): %.1f s = %.1f MB/s on one thread; "
+        System.out.printf(Locale.ROOT, "full read of a %.0f MB tidy table (%d sweeps, every point kept): %.1f s = %.1f MB/s (the reader's thread and its read-ahead thread); "
                 + "peak heap %d MB with max heap %d MB%n", size / 1e6, sweeps, sec, size / 1e6 / sec, heap >> 20,
                 Runtime.getRuntime().maxMemory() >> 20);
     }
@@ -338,7 +338,7 @@ public final class Benchmarks {
         SweepReader.Summary s = new SweepReader(null).summarize(file);
         double sec = (System.nanoTime() - t0) / 1e9;
         long heap = peakHeap();
-        System.out.printf(Locale.ROOT, "streaming summary of a %.0f MB tidy table (%d sweeps): %.1f s = %.1f MB/s on one thread; "
+        System.out.printf(Locale.ROOT, "streaming summary of a %.0f MB tidy table (%d sweeps): %.1f s = %.1f MB/s (the reader's thread and its read-ahead thread); "
                 + "peak heap %d MB with max heap %d MB%n", size / 1e6, s.sweeps().size(), sec, size / 1e6 / sec, heap >> 20,
                 Runtime.getRuntime().maxMemory() >> 20);
     }
@@ -490,7 +490,7 @@ public final class Benchmarks {
         long t0 = System.nanoTime();
         int sweeps = reader.read(file).sweeps().size();
         double s = (System.nanoTime() - t0) / 1e9;
-        System.out.printf(Locale.ROOT, "reading a tidy table: %.1f MB, %d sweeps in %.2f s = %.1f MB/s (one thread)%n",
+        System.out.printf(Locale.ROOT, "reading a tidy table: %.1f MB, %d sweeps in %.2f s = %.1f MB/s (the reader's thread and its read-ahead thread)%n",
                 bytes / 1e6, sweeps, s, bytes / 1e6 / s);
     }
 
