@@ -8,6 +8,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.viscarta.io.InputException;
@@ -15,6 +16,7 @@ import org.viscarta.sweep.Quantity;
 import org.viscarta.sweep.Sweep;
 
 /** Amplitude sweeps are read with their amplitudes and kept apart from frequency sweeps. */
+@Tag("regression")
 class AmplitudeSweepReadingTest {
 
     @TempDir

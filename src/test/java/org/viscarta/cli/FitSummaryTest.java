@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -16,6 +17,7 @@ import org.junit.jupiter.api.io.TempDir;
  * across samples is α of sample 13, 0.23, and the quartiles those of samples 7 and 19, 0.17 and
  * 0.29 (linear interpolation between order statistics lands on them exactly for 25 values).
  */
+@Tag("self-check")
 class FitSummaryTest {
 
     @Test

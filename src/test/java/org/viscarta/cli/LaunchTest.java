@@ -10,10 +10,12 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /** Whether and how {@code main} starts the work in a JVM of its own ({@link Launch}). */
+@Tag("regression")
 class LaunchTest {
 
     private static final Optional<String> JAVA = Optional.of("/opt/jdk/bin/java");

@@ -7,10 +7,12 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /** The quality checks as the verbs show them: quality, fit, inspect, and rank --drop-outliers. */
+@Tag("regression")
 class QualityCommandTest {
 
     @TempDir

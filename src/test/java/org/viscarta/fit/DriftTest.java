@@ -3,6 +3,7 @@ package org.viscarta.fit;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -13,6 +14,7 @@ import org.junit.jupiter.api.Test;
  * e⁻² a step: about 16 steps to bring it below 10⁻¹⁴ of the misfit from a = 1, u = 0, taking the same
  * step every time — the drift that {@link CompactLevenbergMarquardt} extrapolates.
  */
+@Tag("self-check")
 class DriftTest {
 
     private static final double A = 1;

@@ -9,6 +9,7 @@ import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
 import java.util.SplittableRandom;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -17,6 +18,7 @@ import org.junit.jupiter.api.Test;
  * low surrogates (replaced by '?'), a pair split between two calls, a high surrogate left at the end,
  * and texts longer than the buffers.
  */
+@Tag("validation")
 class Utf8WriterTest {
 
     private static final char[] ALPHABET = {'a', 'Z', '0', '<', '&', '\n', '\t', 'é', 'δ', '′', '″', '°', '±', '\u00a0',

@@ -11,12 +11,14 @@ import javax.imageio.ImageIO;
 import javax.imageio.ImageReader;
 import javax.imageio.metadata.IIOMetadata;
 import javax.imageio.stream.ImageInputStream;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 /**
  * The figures' PNG files decode, with the JDK's own PNG reader (an independent implementation of
  * the W3C specification), to exactly the pixels drawn, and carry the resolution they were drawn at.
  */
+@Tag("validation")
 class PngEncoderTest {
 
     @Test

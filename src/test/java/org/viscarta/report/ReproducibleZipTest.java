@@ -15,6 +15,7 @@ import java.time.Instant;
 import java.util.zip.ZipEntry;
 import java.util.zip.ZipFile;
 import java.util.zip.ZipOutputStream;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -24,6 +25,7 @@ import org.junit.jupiter.api.io.TempDir;
  * hold the stamped time in MS-DOS form (APPNOTE.TXT 4.4.6, worked by hand: 2026-03-04 05:06:08
  * is date (46 &lt;&lt; 9) | (3 &lt;&lt; 5) | 4 = 23652, time (5 &lt;&lt; 11) | (6 &lt;&lt; 5) | 4 = 10436).
  */
+@Tag("validation")
 class ReproducibleZipTest {
 
     private static Path container(Path dir, String name, Instant written) throws IOException {

@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Random;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.viscarta.demo.RampModel;
 import org.viscarta.io.UsageException;
@@ -19,6 +20,7 @@ import org.viscarta.sweep.Ramp;
 import org.viscarta.sweep.Sweep;
 import org.viscarta.sweep.SweepPoint;
 
+@Tag("regression")
 class IsothermsTest {
 
     private static Ramp ramp(String rep, double hz, List<Ramp.Point> pts) {
