@@ -445,8 +445,14 @@ final class TableStart {
         int scale = 0;
         int digits = 0;
         boolean slow = false;
+        boolean point = false;
         for (; i < n; i++) {
-            int d = t.charAt(i) - '0';
+            char c = t.charAt(i);
+            if (c == '.' && !point) {
+                point = true;
+                continue;
+            }
+            int d = c - '0';
             if (d < 0 || d > 9) {
                 break;
             }
@@ -456,26 +462,11 @@ final class TableStart {
                     w = w * 10 + d;
                     significant++;
                 }
+                if (point) {
+                    scale--;
+                }
             } else {
                 slow = true; // more digits than a long holds exactly: Double.parseDouble rounds them
-            }
-        }
-        if (i < n && t.charAt(i) == '.') {
-            for (i++; i < n; i++) {
-                int d = t.charAt(i) - '0';
-                if (d < 0 || d > 9) {
-                    break;
-                }
-                digits++;
-                if (significant < 18) {
-                    if (w != 0 || d != 0) {
-                        w = w * 10 + d;
-                        significant++;
-                    }
-                    scale--;
-                } else {
-                    slow = true;
-                }
             }
         }
         if (digits == 0) {
