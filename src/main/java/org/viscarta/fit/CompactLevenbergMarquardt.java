@@ -134,16 +134,17 @@ final class CompactLevenbergMarquardt {
 
     /** This thread's workspace for the shape, or a new one when it has none of that shape or is inside a solve already. */
     private static Workspace acquire(int n, int p) {
-        Workspace w = WORKSPACE.get();
-        if (w == null || w.inUse || w.n != n || w.p != p) {
-            w = new Workspace(n, p);
-            if (WORKSPACE.get() == null || !WORKSPACE.get().inUse) {
-                WORKSPACE.set(w);
-            }
-        } else {
-            w.here.clear();
-            w.trial.clear();
-            java.util.Arrays.fill(w.previous, 0.0);
+        Workspace kept = WORKSPACE.get();
+        if (kept != null && !kept.inUse && kept.n == n && kept.p == p) {
+            kept.here.clear();
+            kept.trial.clear();
+            java.util.Arrays.fill(kept.previous, 0.0);
+            kept.inUse = true;
+            return kept;
+        }
+        Workspace w = new Workspace(n, p);
+        if (kept == null || !kept.inUse) {
+            WORKSPACE.set(w); // a nested solve's workspace is not kept: the outer solve's stays
         }
         w.inUse = true;
         return w;

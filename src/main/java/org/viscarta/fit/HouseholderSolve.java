@@ -56,19 +56,9 @@ public final class HouseholderSolve {
     }
 
     /**
-     * The triangular factor R (p × p, upper) of A = QR for A with at least as many rows as columns:
-     * AᵀA = RᵀR, so R has A's singular values and right singular vectors at the cost of a p × p
-     * problem. A is not changed.
-     */
-    public static double[][] triangular(double[][] a) {
-        int p = a[0].length;
-        double[][] qrt = new double[p][];
-        return triangularFactor(qrt, reflect(a, qrt));
-    }
-
-    /**
-     * {@link #triangular} of A given by its columns (p arrays of m, m ≥ p), which the reflections
-     * overwrite: for a caller whose Jacobian is already by columns and not needed afterwards.
+     * The triangular factor R (p × p, upper) of A = QR for A with at least as many rows as columns,
+     * A given by its columns (p arrays of m, m ≥ p), which the reflections overwrite: AᵀA = RᵀR, so
+     * R has A's singular values and right singular vectors at the cost of a p × p problem.
      */
     public static double[][] triangularOfColumns(double[][] columns) {
         return triangularFactor(columns, reflectColumns(columns, columns[0].length));
