@@ -7,7 +7,8 @@ import java.util.concurrent.atomic.AtomicInteger;
 /**
  * "fitting 120/10000 samples" on stderr, only when stderr is a terminal and not --quiet. With the
  * system property {@code viscarta.timings} set (a developer's switch the benchmarks use), each
- * stage's wall time is printed on stderr when the next begins.
+ * stage's wall time and the process's processor time over it (all threads; their ratio is the
+ * number of cores the stage kept busy) are printed on stderr when the next begins.
  */
 final class Progress implements org.viscarta.analysis.Progress {
 
@@ -21,6 +22,7 @@ final class Progress implements org.viscarta.analysis.Progress {
     private volatile long last;
     private volatile boolean printed;
     private volatile long stageStarted = System.nanoTime();
+    private volatile long stageCpu = processCpu();
 
     Progress(PrintWriter err, boolean quiet) {
         this.err = err;
@@ -50,16 +52,28 @@ final class Progress implements org.viscarta.analysis.Progress {
         }
     }
 
-    /** With {@code viscarta.timings}: the wall time since the last lap, on stderr. */
+    /** With {@code viscarta.timings}: the wall and processor time since the last lap, on stderr. */
     void lap(String name) {
         long now = System.nanoTime();
+        long cpu = processCpu();
         if (TIMINGS) {
             synchronized (err) {
-                err.printf(Locale.ROOT, "timing: %s %.2f s%n", name, (now - stageStarted) / 1e9);
+                err.printf(Locale.ROOT, "timing: %s %.2f s (processor %.2f s)%n", name, (now - stageStarted) / 1e9,
+                        (cpu - stageCpu) / 1e9);
                 err.flush();
             }
         }
         stageStarted = now;
+        stageCpu = cpu;
+    }
+
+    /** The process's processor time so far [ns], every thread; 0 where the platform does not say. */
+    private static long processCpu() {
+        if (!TIMINGS) {
+            return 0;
+        }
+        return java.lang.management.ManagementFactory.getOperatingSystemMXBean()
+                instanceof com.sun.management.OperatingSystemMXBean os ? Math.max(0, os.getProcessCpuTime()) : 0;
     }
 
     private void endLine() {

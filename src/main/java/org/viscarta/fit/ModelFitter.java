@@ -322,7 +322,8 @@ public final class ModelFitter {
         return starts;
     }
 
-    private ResidualFunction residuals(ViscoelasticModel model, List<ParameterSpec> specs, double[] omega,
+    /** The residuals of this fitter's weighting and their Jacobian in the fitting parameters (package-private for the solver's tests). */
+    ResidualFunction residuals(ViscoelasticModel model, List<ParameterSpec> specs, double[] omega,
                                        double[] storage, double[] loss, double[][] scale) {
         int p = specs.size();
         int m = omega.length;
