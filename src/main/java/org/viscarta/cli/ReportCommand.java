@@ -63,7 +63,8 @@ final class ReportCommand implements Callable<Integer> {
         Warnings.print(spec, result.inputs());
         Provenance provenance = new Provenance(VersionProvider.version(),
                 Provenance.quote("viscarta", spec.commandLine().getParseResult().originalArgs()), stated.toString());
-        List<RenderedFigure> figures = files.write(new ReportContent(result, provenance), output.force, progress::lap);
+        ReportFiles.Written written = files.write(new ReportContent(result, provenance), output.force, progress::lap);
+        List<RenderedFigure> figures = written.figures();
         PrintWriter out = spec.commandLine().getOut();
         out.printf("%d sample(s) from %d file(s); %d model(s) each; ranked at %s%n", result.samples().size(),
                 result.inputs().files().size(), request.modelIds().size(), request.rankingPoint().describe());
@@ -78,6 +79,9 @@ final class ReportCommand implements Callable<Integer> {
         }
         if (result.samples().size() > ReportFigures.MAX_SAMPLE_FIGURES) {
             out.printf("per-sample figures left out: more than %d samples%n", ReportFigures.MAX_SAMPLE_FIGURES);
+        }
+        for (String cut : written.cutTables()) {
+            out.printf("workbook sheet cut: %s; its last row says so%n", cut);
         }
         out.printf("wrote %s%nwrote %s%nwrote %d figure(s) as PNG and SVG in %s%n", files.workbook(), files.page(), figures.size(),
                 files.figures());

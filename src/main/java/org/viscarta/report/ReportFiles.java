@@ -118,17 +118,20 @@ public record ReportFiles(Path folder) {
     }
 
     /**
-     * Draws the figures and writes every file.
-     *
-     * @return the figures written
+     * What was written: the figures, and for each table longer than a workbook sheet holds, how much of
+     * it its sheet shows (the sheet's last row says so too).
      */
-    public List<RenderedFigure> write(ReportContent content, boolean force) throws IOException {
+    public record Written(List<RenderedFigure> figures, List<String> cutTables) {
+    }
+
+    /** Draws the figures and writes every file. */
+    public Written write(ReportContent content, boolean force) throws IOException {
         return write(content, force, step -> {
         });
     }
 
     /** As {@link #write(ReportContent, boolean)}, telling {@code done} the name of each step as it ends (for timings). */
-    public List<RenderedFigure> write(ReportContent content, boolean force, java.util.function.Consumer<String> done)
+    public Written write(ReportContent content, boolean force, java.util.function.Consumer<String> done)
             throws IOException {
         Path target = folder.toAbsolutePath().normalize();
         Path parent = target.getParent();
@@ -156,6 +159,7 @@ public record ReportFiles(Path folder) {
             }
         };
         Path stage = Files.createTempDirectory(parent, prefix + "staging-");
+        List<String> cut;
         try (FileChannel ch = FileChannel.open(stage.resolve(LOCK), StandardOpenOption.CREATE, StandardOpenOption.WRITE);
              FileLock held = ch.lock()) {
             Path stagedFigures = Files.createDirectory(stage.resolve(FIGURES));
@@ -163,7 +167,7 @@ public record ReportFiles(Path folder) {
             org.apache.poi.util.TempFile.setTempFileCreationStrategy(
                     new org.apache.poi.util.DefaultTempFileCreationStrategy(Files.createDirectory(stage.resolve("poi")).toFile()));
             try {
-                WorkbookReport.write(content, figures, stage.resolve(WORKBOOK));
+                cut = WorkbookReport.write(content, figures, stage.resolve(WORKBOOK));
                 done.accept("workbook and figures");
             } finally {
                 org.apache.poi.util.TempFile.setTempFileCreationStrategy(new org.apache.poi.util.DefaultTempFileCreationStrategy());
@@ -183,7 +187,7 @@ public record ReportFiles(Path folder) {
             pool.shutdown();
             delete(stage);
         }
-        return figures.get();
+        return new Written(figures.get(), cut);
     }
 
     /** Sets the old set aside, moves the new one in, then drops the old; on failure puts the old one back. */

@@ -255,24 +255,33 @@ public final class WorkbookReport {
      * creation time is the run time stated in Provenance, and every ZIP entry carries that time too
      * (stamped in place after writing, without compressing again).
      */
-    public static void write(ReportContent c, List<RenderedFigure> figures, java.nio.file.Path file) throws IOException {
-        write(c, () -> figures, file);
+    public static List<String> write(ReportContent c, List<RenderedFigure> figures, java.nio.file.Path file) throws IOException {
+        return write(c, () -> figures, file);
     }
 
     /**
      * As {@link #write(ReportContent, List, java.nio.file.Path)}, with the figures asked for only
      * when their sheet is written, near the end: they may still be drawing while the tables are written.
+     *
+     * @return for each table longer than a sheet holds ({@link #SHEET_ROWS}), a line saying how much of it
+     *         its sheet shows (empty when every table fits)
      */
-    public static void write(ReportContent c, FigureSource figureSource, java.nio.file.Path file) throws IOException {
-        write(c, figureSource, file, Math.max(1, Math.min(4, Runtime.getRuntime().availableProcessors())));
+    public static List<String> write(ReportContent c, FigureSource figureSource, java.nio.file.Path file) throws IOException {
+        return write(c, figureSource, file, Math.max(1, Math.min(4, Runtime.getRuntime().availableProcessors())), SHEET_ROWS);
     }
 
-    /** As {@link #write(ReportContent, FigureSource, java.nio.file.Path)}, the tables' rows written by {@code sheetThreads} threads. */
-    static void write(ReportContent c, FigureSource figureSource, java.nio.file.Path file, int sheetThreads) throws IOException {
+    /**
+     * As {@link #write(ReportContent, FigureSource, java.nio.file.Path)}, the tables' rows written by
+     * {@code sheetThreads} threads, each sheet at most {@code sheetRows} rows long (tests use fewer
+     * than the format's limit).
+     */
+    static List<String> write(ReportContent c, FigureSource figureSource, java.nio.file.Path file, int sheetThreads, int sheetRows)
+            throws IOException {
+        List<String> cut;
         java.time.Instant stated = java.time.Instant.parse(c.provenance().runAtUtc());
         AnalysisResult r = c.result();
         try (SXSSFWorkbook wb = new FastWorkbook(); OutputStream buffer = new java.io.BufferedOutputStream(
-                java.nio.file.Files.newOutputStream(file), 1 << 16); Tables tables = new Tables(sheetThreads)) {
+                java.nio.file.Files.newOutputStream(file), 1 << 16); Tables tables = new Tables(sheetThreads, sheetRows)) {
             var core = wb.getXSSFWorkbook().getProperties().getCoreProperties();
             core.setCreated(java.util.Optional.of(java.util.Date.from(stated)));
             core.setCreator("Viscarta " + c.provenance().toolVersion());
@@ -354,6 +363,7 @@ public final class WorkbookReport {
             table(wb, st, tables, OutputTables.LIBRARY, r.library().map(l -> l.entries()).orElse(List.of()),
                     r.library().isEmpty() ? NO_LIBRARY : "", List.of());
             tables.finish();
+            cut = tables.cut();
             List<RenderedFigure> figures = figureSource.get();
             if (!figures.isEmpty()) {
                 figures(wb, st, figures);
@@ -363,7 +373,14 @@ public final class WorkbookReport {
             wb.dispose();
         }
         ReproducibleZip.restamp(file, stated);
+        return cut;
     }
+
+    /**
+     * Rows a sheet holds: 1,048,576 (ECMA-376's SpreadsheetML, as POI states it for Excel 2007 and
+     * later). A longer table is cut so that it, its note and its footer fit, and says so in its last row.
+     */
+    static final int SHEET_ROWS = org.apache.poi.ss.SpreadsheetVersion.EXCEL2007.getMaxRows();
 
     /**
      * Draws a declared table as a sheet: a frozen, filtered header row with units, one row per item,
@@ -413,11 +430,28 @@ public final class WorkbookReport {
                 rows.straightTo(writer);
             }
             Object[] values = new Object[cols.size()];
+            // the header, the rows, a note when cut, and the footer (a blank row, then its lines) fit the sheet
+            long room = tables.sheetRows - 2L - (footer.isEmpty() ? 0 : 1 + footer.size());
+            long written = 0;
+            long leftOut = 0;
             for (R item : items.get()) {
+                if (written >= room) {
+                    leftOut++;
+                    continue;
+                }
                 for (int i = 0; i < values.length; i++) {
                     values[i] = cols.get(i).value().apply(item);
                 }
                 rows.row(values);
+                written++;
+            }
+            if (leftOut > 0) {
+                java.util.Arrays.fill(values, null);
+                values[0] = String.format(java.util.Locale.ROOT, "Not shown: the table's last %,d rows (a sheet holds at most %,d). "
+                        + "Whole tables: the command line's CSV outputs (-o); the data: the input files.", leftOut, tables.sheetRows);
+                rows.row(values);
+                tables.cut(String.format(java.util.Locale.ROOT, "%s: the first %,d of %,d rows (a sheet holds at most %,d)",
+                        table.name(), written, written + leftOut, tables.sheetRows));
             }
             rows.endStraight();
         };
@@ -454,8 +488,14 @@ public final class WorkbookReport {
         private final java.util.concurrent.ExecutorService workers;
         private final List<java.util.concurrent.Future<?>> bodies = new java.util.ArrayList<>();
         private final List<Runnable> finishing = new java.util.ArrayList<>();
+        /** Rows a sheet may have. */
+        final int sheetRows;
+        /** Notes of the tables cut, by the table's place in the workbook (written side by side, listed in order). */
+        private final java.util.SortedMap<Integer, String> cut = new java.util.TreeMap<>();
+        private final ThreadLocal<Integer> current = new ThreadLocal<>();
 
-        Tables(int threads) {
+        Tables(int threads, int sheetRows) {
+            this.sheetRows = sheetRows;
             workers = java.util.concurrent.Executors.newFixedThreadPool(threads, task -> {
                 Thread t = new Thread(task, "viscarta-sheet");
                 t.setDaemon(true);
@@ -464,8 +504,30 @@ public final class WorkbookReport {
         }
 
         void add(Runnable body, Runnable finish) {
-            bodies.add(workers.submit(body));
+            int place = bodies.size();
+            bodies.add(workers.submit(() -> {
+                current.set(place);
+                try {
+                    body.run();
+                } finally {
+                    current.remove();
+                }
+            }));
             finishing.add(finish);
+        }
+
+        /** Notes that the table being written on this thread was cut. */
+        void cut(String note) {
+            synchronized (cut) {
+                cut.put(current.get(), note);
+            }
+        }
+
+        /** The notes of the tables cut, in the workbook's order. */
+        List<String> cut() {
+            synchronized (cut) {
+                return List.copyOf(cut.values());
+            }
         }
 
         /** Waits for every table's rows, then finishes the tables in the order they were added (once). */

@@ -506,7 +506,7 @@ public final class Workbench implements AutoCloseable {
             job.writing();
             Provenance provenance = new Provenance(about.getProperty("version", "unknown"), commandLine,
                     Instant.now().truncatedTo(ChronoUnit.SECONDS).toString());
-            List<RenderedFigure> figures = new ReportFiles(job.report()).write(new ReportContent(result, provenance), true);
+            List<RenderedFigure> figures = new ReportFiles(job.report()).write(new ReportContent(result, provenance), true).figures();
             job.finished(result, figures);
         } catch (InputException | UsageException | ApiError e) {
             job.failed(Uploads.relative(e.getMessage(), job));

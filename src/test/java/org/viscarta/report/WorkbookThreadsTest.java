@@ -42,8 +42,8 @@ class WorkbookThreadsTest {
         ReportContent c = new ReportContent(r, new Provenance("test", "viscarta report campaign.csv", "2026-12-01T12:00:00Z"));
         Path one = dir.resolve("one.xlsx");
         Path four = dir.resolve("four.xlsx");
-        WorkbookReport.write(c, List::of, one, 1);
-        WorkbookReport.write(c, List::of, four, 4);
+        WorkbookReport.write(c, List::of, one, 1, WorkbookReport.SHEET_ROWS);
+        WorkbookReport.write(c, List::of, four, 4, WorkbookReport.SHEET_ROWS);
         byte[] a = Files.readAllBytes(one);
         assertTrue(a.length > 20_000, "a workbook of some size: " + a.length + " bytes");
         assertArrayEquals(a, Files.readAllBytes(four));
